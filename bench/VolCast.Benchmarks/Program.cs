@@ -1,0 +1,9 @@
+using BenchmarkDotNet.Running;
+
+namespace VolCast.Benchmarks;
+
+/// <summary>Hands the command line to BenchmarkDotNet's switcher: `dotnet run -c Release -- --filter '*Estimator*'`.</summary>
+internal static class Program
+{
+    public static void Main(string[] args) => BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+}

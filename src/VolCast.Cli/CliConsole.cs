@@ -1,0 +1,60 @@
+using VolCast.IO;
+
+namespace VolCast.Cli;
+
+/// <summary>
+/// The writers a command talks to, and the one place where failures become exit codes and messages
+/// (never a stack trace, unless the failure is unexpected and VOLCAST_DEBUG is set).
+/// </summary>
+internal sealed class CliConsole(TextWriter output, TextWriter error)
+{
+    /// <summary>Gets where results and progress go.</summary>
+    public TextWriter Out { get; } = output;
+
+    /// <summary>Gets where errors and warnings go.</summary>
+    public TextWriter Error { get; } = error;
+
+    /// <summary>Writes a warning line.</summary>
+    public void Warn(string message) => Error.WriteLine($"warning: {message}");
+
+    /// <summary>Runs a command body and maps its failures to exit codes.</summary>
+    public int Execute(Func<int> body)
+    {
+        try
+        {
+            return body();
+        }
+        catch (InputDataException ex)
+        {
+            Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.BadInput;
+        }
+        catch (UsageException ex)
+        {
+            Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.BadUsage;
+        }
+        catch (IOException ex)
+        {
+            Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.BadInput;
+        }
+        catch (UnauthorizedAccessException ex)
+        {
+            Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.BadInput;
+        }
+#pragma warning disable CA1031 // The last line of defence: an unexpected failure is reported, not thrown at the user.
+        catch (Exception ex)
+#pragma warning restore CA1031
+        {
+            Error.WriteLine($"error: unexpected failure: {ex.Message}");
+            if (Environment.GetEnvironmentVariable("VOLCAST_DEBUG") is not null)
+            {
+                Error.WriteLine(ex.ToString());
+            }
+
+            return ExitCodes.UnexpectedFailure;
+        }
+    }
+}

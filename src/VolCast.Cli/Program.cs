@@ -1,0 +1,38 @@
+using System.CommandLine;
+using VolCast.Cli.Commands;
+
+namespace VolCast.Cli;
+
+/// <summary>The <c>volcast</c> entry point: builds the command tree and maps failures to exit codes.</summary>
+internal static class Program
+{
+    /// <summary>Runs the tool with the process's console.</summary>
+    public static int Main(string[] args) => Run(args, Console.Out, Console.Error);
+
+    /// <summary>Runs the tool with the given writers; tests call this to run the CLI in-process.</summary>
+    /// <param name="args">The command-line arguments.</param>
+    /// <param name="stdout">Where results and progress go.</param>
+    /// <param name="stderr">Where errors and warnings go.</param>
+    /// <returns>The exit code: 0 success, 1 unexpected failure, 2 bad usage, 3 bad input data.</returns>
+    public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
+    {
+        var console = new CliConsole(stdout, stderr);
+        var root = new RootCommand(
+            "VolCast: backtest volatility forecasts against the realized volatility that followed and the implied volatility quoted at the time.");
+        root.Subcommands.Add(EstimateCommand.Create(console));
+
+        var parse = root.Parse(args);
+        if (parse.Errors.Count > 0)
+        {
+            foreach (var error in parse.Errors)
+            {
+                stderr.WriteLine($"error: {error.Message}");
+            }
+
+            stderr.WriteLine("Run 'volcast --help' or 'volcast COMMAND --help' for usage.");
+            return ExitCodes.BadUsage;
+        }
+
+        return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
+    }
+}
