@@ -47,10 +47,11 @@ internal sealed class CsvRowReader : IDisposable
     {
         while (true)
         {
-            bool more;
+            string[]? cells;
             try
             {
-                more = _parser.Read();
+                // The parser splits fields lazily: malformed quoting is only reported once the record is read.
+                cells = _parser.Read() ? _parser.Record ?? [] : null;
             }
             catch (CsvHelperException e)
             {
@@ -65,13 +66,12 @@ internal sealed class CsvRowReader : IDisposable
                     + ": a double quote inside an unquoted cell, text after a closing quote, or a quote left open at the end of the line; expected plain cells, or cells wrapped whole in double quotes.");
             }
 
-            if (!more)
+            if (cells is null)
             {
                 row = default;
                 return false;
             }
 
-            var cells = _parser.Record ?? [];
             if (AllBlank(cells))
             {
                 continue;

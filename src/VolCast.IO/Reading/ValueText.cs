@@ -8,7 +8,7 @@ internal static class ValueText
 {
     private const int MaxShown = 40;
 
-    /// <summary>Returns the value in single quotes, at most 40 characters, with control characters written as \uXXXX.</summary>
+    /// <summary>Returns the value in single quotes, at most 40 characters, with control, format (invisible, direction-changing) and surrogate characters written as \uXXXX.</summary>
     public static string Quote(string value)
     {
         var sb = new StringBuilder(Math.Min(value.Length, MaxShown) + 8).Append('\'');
@@ -16,7 +16,7 @@ internal static class ValueText
         for (var i = 0; i < shown; i++)
         {
             var c = value[i];
-            if (char.IsControl(c) || char.IsSurrogate(c) || c == '\uFFFD')
+            if (char.IsControl(c) || char.IsSurrogate(c) || c == '\uFFFD' || char.GetUnicodeCategory(c) == UnicodeCategory.Format)
             {
                 sb.Append(CultureInfo.InvariantCulture, $"\\u{(int)c:X4}");
             }
