@@ -90,10 +90,9 @@ public static class ImpliedFileReader
         var ivIndex = header.Require("iv", file, Expected);
         var ivName = header.Names[ivIndex];
         var warnings = new List<InputWarning>();
-        if (header.Ignored.Count > 0)
+        if (header.IgnoredDescription() is { } ignored)
         {
-            warnings.Add(new InputWarning(file, header.Line, "ignored column(s) not used by VolCast: "
-                + string.Join(", ", header.Ignored.Select(ValueText.Quote)) + "."));
+            warnings.Add(new InputWarning(file, header.Line, ignored));
         }
 
         var dates = new List<DateOnly>();

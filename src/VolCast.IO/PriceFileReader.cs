@@ -86,10 +86,9 @@ public static class PriceFileReader
         reader.UseHeader([.. header.Names]);
         var layout = Layout.From(header, file);
         var warnings = new List<InputWarning>();
-        if (header.Ignored.Count > 0)
+        if (header.IgnoredDescription() is { } ignored)
         {
-            warnings.Add(new InputWarning(file, header.Line, "ignored column(s) not used by VolCast: "
-                + string.Join(", ", header.Ignored.Select(ValueText.Quote)) + "."));
+            warnings.Add(new InputWarning(file, header.Line, ignored));
         }
 
         var dates = new List<DateOnly>();

@@ -165,6 +165,46 @@ public sealed class PriceFileReaderTests : IDisposable
     }
 
     [Fact]
+    public void Read_TrailingCommasInHeader_AreCountedAsUnnamedColumns()
+    {
+        var load = ReadText("date,close,,\n2024-01-02,100,,\n");
+        Assert.Equal("ignored column(s) not used by VolCast: 2 unnamed column(s).", Assert.Single(load.Warnings).Message);
+    }
+
+    [Fact]
+    public void Read_OneRow_IsAValidHistory()
+    {
+        var load = ReadText("date,open,high,low,close\n2024-01-02,100,101,99,100.5\n");
+        Assert.Equal(1, load.History.Count);
+    }
+
+    [Fact]
+    public void Read_HundredYearHistory_LoadsEveryWeekday()
+    {
+        // 1925-01-01 .. 2024-12-31, weekdays only: about 26,000 rows (a 100-year history, issue 8).
+        var sb = new StringBuilder("date,open,high,low,close,adj_close,volume\n");
+        var count = 0;
+        for (var d = new DateOnly(1925, 1, 1); d <= new DateOnly(2024, 12, 31); d = d.AddDays(1))
+        {
+            if (d.DayOfWeek is DayOfWeek.Saturday or DayOfWeek.Sunday)
+            {
+                continue;
+            }
+
+            var c = 100 + (count % 17);
+            sb.Append(System.Globalization.CultureInfo.InvariantCulture, $"{d:yyyy-MM-dd},{c},{c + 1},{c - 1},{c},{c * 0.5},1000\n");
+            count++;
+        }
+
+        var load = ReadText(sb.ToString());
+
+        Assert.Equal(count, load.RowsRead);
+        Assert.Equal(count, load.History.Count);
+        Assert.Empty(load.Warnings);
+        Assert.Equal(new DateOnly(2024, 12, 31), load.History.Dates[^1]);
+    }
+
+    [Fact]
     public void Read_AdjClose_ScalesOpenHighLowCloseByAdjOverClose()
     {
         // Hand-computed. Row 1: f = 25.5 / 51 = 0.5 exactly, so O,H,L,C = 50,52,49,51 → 25, 26, 24.5, 25.5.

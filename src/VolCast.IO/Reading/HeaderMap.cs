@@ -26,8 +26,27 @@ internal sealed class HeaderMap
     /// <summary>Gets the header names as written (trimmed), one per column.</summary>
     public IReadOnlyList<string> Names { get; }
 
-    /// <summary>Gets the names of the columns that are not used, as written.</summary>
+    /// <summary>Gets the names of the columns that are not used, as written (blank names included).</summary>
     public IReadOnlyList<string> Ignored { get; }
+
+    /// <summary>Describes the ignored columns for a warning, or returns null when there are none.</summary>
+    /// <remarks>Unnamed columns (often left by trailing commas) are counted rather than listed.</remarks>
+    public string? IgnoredDescription()
+    {
+        if (Ignored.Count == 0)
+        {
+            return null;
+        }
+
+        var named = Ignored.Where(n => n.Length > 0).Select(ValueText.Quote).ToList();
+        var unnamed = Ignored.Count - named.Count;
+        if (unnamed > 0)
+        {
+            named.Add(string.Create(CultureInfo.InvariantCulture, $"{unnamed} unnamed column(s)"));
+        }
+
+        return "ignored column(s) not used by VolCast: " + string.Join(", ", named) + ".";
+    }
 
     /// <summary>Gets the number of header columns.</summary>
     public int Count => Names.Count;
