@@ -29,7 +29,7 @@ public static class ImpliedFileReader
 
     private const string Expected = "date, iv (the value column may also be headed implied, implied_vol or vol)";
 
-    private static readonly Dictionary<string, string> Aliases = new(StringComparer.Ordinal)
+    private static Dictionary<string, string> Aliases { get; } = new(StringComparer.Ordinal)
     {
         ["date"] = "date",
         ["iv"] = "iv",

@@ -32,7 +32,7 @@ public static class PriceFileReader
     private const string Expected = "date, open, high, low, close (optional adj_close, volume), or date, close for a close-only file";
     private const string PriceExpected = "a price above zero, such as 101.25";
 
-    private static readonly Dictionary<string, string> Aliases = new(StringComparer.Ordinal)
+    private static Dictionary<string, string> Aliases { get; } = new(StringComparer.Ordinal)
     {
         ["date"] = "date",
         ["open"] = "open",

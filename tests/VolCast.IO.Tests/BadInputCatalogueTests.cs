@@ -3,7 +3,7 @@ namespace VolCast.IO.Tests;
 // Runs every row of Fixtures/BadInput/catalogue.tsv through the readers (hand-written files, common practice, no source).
 public sealed class BadInputCatalogueTests
 {
-    private static readonly string Folder = Path.Combine(AppContext.BaseDirectory, "Fixtures", "BadInput");
+    private static string Folder { get; } = Path.Combine(AppContext.BaseDirectory, "Fixtures", "BadInput");
 
     public static TheoryData<string, string, string, int?, string?, string> Rows()
     {

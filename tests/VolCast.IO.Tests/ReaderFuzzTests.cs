@@ -22,14 +22,14 @@ public sealed class ReaderFuzzTests
 
     private const string ValidImplied = "date,iv,tenor\n2024-01-02,20.5,30d\n2024-01-03,21,30d\n2024-01-04,19.75,30d\n";
 
-    private static readonly string[] Tokens =
+    private static string[] Tokens { get; } =
     [
         "", " ", "NaN", "-NaN", "Infinity", "-Infinity", "∞", "1e308", "1e309", "-1e308", "4.9e-324", "-0", "0", "+5",
         "5e", "1,5", "\"", "\"\"", "\"1\"", "0x10", "١٢٣", "2024-13-01", "2024-02-30", "0001-01-01", "9999-12-31",
         "2024-01-02", "99999999999999999999", "1e15", "-1", "\0", "\t", "\r", "\n", ";", "é", "\uD800", "\uFEFF", "500", "0.0001",
     ];
 
-    private static readonly char[] Chars =
+    private static char[] Chars { get; } =
         ['"', ',', ';', '\n', '\r', '\0', '\t', ' ', 'e', 'E', '-', '+', '.', '0', '9', 'x', 'N', '\uFFFD', '\uFEFF', '\uD800', 'é', '∞'];
 
     /// <summary>A list of mutation seeds; each seed picks one mutation and its positions.</summary>
