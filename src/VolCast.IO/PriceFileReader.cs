@@ -168,13 +168,17 @@ public static class PriceFileReader
     private static Bar ReadBar(CsvRow row, Layout layout, HeaderMap header, string file)
     {
         var line = row.Line;
-        var close = Price(row, layout.Close, header, file);
         double open = 0, high = 0, low = 0;
         if (layout.HasRange)
         {
             open = Price(row, layout.Open, header, file);
             high = Price(row, layout.High, header, file);
             low = Price(row, layout.Low, header, file);
+        }
+
+        var close = Price(row, layout.Close, header, file);
+        if (layout.HasRange)
+        {
             if (high < low)
             {
                 throw new InputDataException(file, line, header.Names[layout.High], string.Create(CultureInfo.InvariantCulture,

@@ -389,6 +389,13 @@ public sealed class PriceFileReaderTests : IDisposable
     }
 
     [Fact]
+    public void Read_SeveralBadCellsInARow_ReportsTheFirstInOpenHighLowCloseOrder()
+    {
+        var error = Refuse("date,close,open,high,low\n2024-01-02,bad,worse,101,99\n");
+        Assert.Equal("open", error.Column);
+    }
+
+    [Fact]
     public void Read_ErrorColumn_IsTheHeaderNameAsWritten()
     {
         var error = Refuse("Date,Open,High,Low,Close\n2024-01-02,100,101,99,x\n");
