@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using CsvHelper;
+using CsvHelper.Configuration;
 using VolCast.Core.Options;
 
 namespace VolCast.IO.Quotes;
@@ -25,7 +26,7 @@ public static class QuoteDiagnosticsCsvWriter
         ArgumentNullException.ThrowIfNull(diagnostics);
         AtomicFile.WriteText(path, writer =>
         {
-            using var csv = new CsvWriter(writer, CultureInfo.InvariantCulture, leaveOpen: true);
+            using var csv = new CsvWriter(writer, new CsvConfiguration(CultureInfo.InvariantCulture) { NewLine = "\n" }, leaveOpen: true);
             foreach (var name in Header)
             {
                 csv.WriteField(name);

@@ -41,6 +41,7 @@ public sealed class QuoteWritersTests : IDisposable
         var path = Path.Combine(_folder, "diag.csv");
         var d = new ChainDiagnostic(DiagnosticScope.Quote, DiagnosticReason.BelowIntrinsic, new DateOnly(2024, 3, 1), new DateOnly(2024, 4, 19), 95, OptionType.Put, 12, "price 1, forward 100");
         QuoteDiagnosticsCsvWriter.Write(path, ImmutableArray.Create(d), overwrite: false);
+        Assert.DoesNotContain('\r', File.ReadAllText(path));
         var lines = File.ReadAllLines(path);
         Assert.Equal("scope,reason,severity,date,expiry,strike,type,line,detail", lines[0]);
         Assert.Equal("quote,below-intrinsic,rejected,2024-03-01,2024-04-19,95,put,12,\"price 1, forward 100\"", lines[1]);
