@@ -1,4 +1,5 @@
 using System.Globalization;
+using FsCheck.Xunit;
 using VolCast.Core.Options;
 
 namespace VolCast.Core.Tests.Options;
@@ -229,6 +230,23 @@ public sealed class ImpliedVolatilityTests
         }
 
         Assert.InRange(max, 1, 8);
+    }
+
+    [Property(MaxTest = 500)]
+    public bool FromBlackScholesMerton_RandomInputs_RoundTripsOrFailsTyped(ushort moneynessSeed, ushort daysSeed, ushort volSeed, bool isCall)
+    {
+        // [D] Property: for K/S in [0.5, 2], 1 day to 3 years and σ in [3%, 200%], the solve either recovers σ to
+        // 1e-10 (where vega ≥ 1e-5·S, as in the grid test) or returns a typed failure; never a wrong number.
+        var strike = 100 * (0.5 + (1.5 * moneynessSeed / ushort.MaxValue));
+        var years = (1 + (daysSeed % 1095)) / 365.0;
+        var vol = 0.03 + (1.97 * volSeed / ushort.MaxValue);
+        var type = isCall ? OptionType.Call : OptionType.Put;
+        var price = BlackScholesMerton.Price(type, 100, strike, years, vol, 0.02, 0.01);
+        var result = ImpliedVolatility.FromBlackScholesMerton(type, price, 100, strike, years, 0.02, 0.01);
+        var vega = BlackScholesMerton.Vega(100, strike, years, vol, 0.02, 0.01);
+        return vega >= 1e-3
+            ? result.IsSolved && Math.Abs(result.Volatility!.Value - vol) <= 1e-10
+            : result.IsSolved ? Math.Abs(result.Volatility!.Value - vol) <= 1e-4 : result.Volatility is null;
     }
 
     [Fact]
