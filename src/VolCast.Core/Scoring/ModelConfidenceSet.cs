@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Numerics;
 
 namespace VolCast.Core.Scoring;
 
@@ -181,7 +182,19 @@ public static class ModelConfidenceSet
     {
         var from = prefix.AsSpan(start * m, m);
         var to = prefix.AsSpan((start + length) * m, m);
-        for (var i = 0; i < m; i++)
+        var i = 0;
+        // Element-wise, so vector width does not change the result.
+        if (Vector.IsHardwareAccelerated)
+        {
+            var width = Vector<double>.Count;
+            for (; i + width <= m; i += width)
+            {
+                var s = new Vector<double>(sums.Slice(i, width)) + (new Vector<double>(to.Slice(i, width)) - new Vector<double>(from.Slice(i, width)));
+                s.CopyTo(sums.Slice(i, width));
+            }
+        }
+
+        for (; i < m; i++)
         {
             sums[i] += to[i] - from[i];
         }

@@ -88,36 +88,65 @@ public static class NeweyWest
     {
         var n = residuals.Length;
         meat.Clear();
-        Span<double> gt = stackalloc double[columns];
-        Span<double> gs = stackalloc double[columns];
-        for (var j = 0; j <= lag; j++)
+        // Scores g_t = x_t e_t, column-major so each Γ̂_j entry is one dot product of two contiguous runs.
+        var scores = System.Buffers.ArrayPool<double>.Shared.Rent(n * columns);
+        try
         {
-            var w = j == 0 ? 1.0 : Weight(LongRunVarianceWindow.Bartlett, j, lag);
-            for (var t = j; t < n; t++)
+            for (var t = 0; t < n; t++)
             {
-                var rowT = design.Slice(t * columns, columns);
-                var rowS = design.Slice((t - j) * columns, columns);
                 for (var a = 0; a < columns; a++)
                 {
-                    gt[a] = rowT[a] * residuals[t];
-                    gs[a] = rowS[a] * residuals[t - j];
+                    scores[(a * n) + t] = design[(t * columns) + a] * residuals[t];
                 }
+            }
 
+            for (var j = 0; j <= lag; j++)
+            {
+                var w = j == 0 ? 0.5 : Weight(LongRunVarianceWindow.Bartlett, j, lag);
                 for (var a = 0; a < columns; a++)
                 {
+                    var ga = scores.AsSpan((a * n) + j, n - j);
                     for (var b = 0; b < columns; b++)
                     {
-                        // Γ_j + Γ_j′ for j > 0; Γ_0 once.
-                        meat[(a * columns) + b] += j == 0 ? gt[a] * gs[b] : w * ((gt[a] * gs[b]) + (gs[a] * gt[b]));
+                        // Γ̂_j[a, b] = Σ_t g_t[a] g_{t−j}[b], added to [a, b] and [b, a]: over all (a, b) that is w_j (Γ̂_j + Γ̂_j′)
+                        // for j > 0, and Γ̂_0 once with w = 1/2 at j = 0 (Γ̂_0 is symmetric).
+                        var gamma = Dot(ga, scores.AsSpan(b * n, n - j)) * w;
+                        meat[(a * columns) + b] += gamma;
+                        meat[(b * columns) + a] += gamma;
                     }
                 }
             }
+        }
+        finally
+        {
+            System.Buffers.ArrayPool<double>.Shared.Return(scores);
         }
 
         for (var a = 0; a < meat.Length; a++)
         {
             meat[a] /= n;
         }
+    }
+
+    /// <summary>Dot product with four running sums: a fixed summation order, so the result is the same on every machine.</summary>
+    internal static double Dot(ReadOnlySpan<double> x, ReadOnlySpan<double> y)
+    {
+        double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+        var i = 0;
+        for (; i + 3 < x.Length; i += 4)
+        {
+            s0 += x[i] * y[i];
+            s1 += x[i + 1] * y[i + 1];
+            s2 += x[i + 2] * y[i + 2];
+            s3 += x[i + 3] * y[i + 3];
+        }
+
+        for (; i < x.Length; i++)
+        {
+            s0 += x[i] * y[i];
+        }
+
+        return (s0 + s1) + (s2 + s3);
     }
 
     internal static double Mean(ReadOnlySpan<double> series, string paramName)
