@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Globalization;
 using System.Numerics;
 
@@ -40,19 +41,32 @@ public static class ModelConfidenceSet
         ArgumentNullException.ThrowIfNull(options);
         ScoringGuard.AtLeast(lossesByModel.Count, 1, nameof(lossesByModel), "(models)");
         var m = lossesByModel.Count;
-        var n = lossesByModel[0]?.Length ?? throw new ArgumentNullException(nameof(lossesByModel), "Model 0's loss series is null.");
-        var matrix = new double[n * m];
-        for (var i = 0; i < m; i++)
+        for (var i = 0; i < lossesByModel.Count; i++)
         {
-            var series = lossesByModel[i] ?? throw new ArgumentNullException(nameof(lossesByModel), string.Create(CultureInfo.InvariantCulture, $"Model {i}'s loss series is null."));
-            ScoringGuard.SameLength(n, series.Length, "model 0's losses", string.Create(CultureInfo.InvariantCulture, $"{nameof(lossesByModel)}[{i}]"));
-            for (var t = 0; t < n; t++)
-            {
-                matrix[(t * m) + i] = series[t];
-            }
+            ArgumentNullException.ThrowIfNull(lossesByModel[i], string.Create(CultureInfo.InvariantCulture, $"{nameof(lossesByModel)}[{i}]"));
         }
 
-        return Compute(matrix, m, options);
+        var n = lossesByModel[0].Length;
+        // Pooled: at the default backtest's size this is megabytes, which would otherwise go to the large-object heap.
+        var matrix = ArrayPool<double>.Shared.Rent(n * m);
+        try
+        {
+            for (var i = 0; i < m; i++)
+            {
+                var series = lossesByModel[i];
+                ScoringGuard.SameLength(n, series.Length, "model 0's losses", string.Create(CultureInfo.InvariantCulture, $"{nameof(lossesByModel)}[{i}]"));
+                for (var t = 0; t < n; t++)
+                {
+                    matrix[(t * m) + i] = series[t];
+                }
+            }
+
+            return Compute(matrix.AsSpan(0, n * m), m, options);
+        }
+        finally
+        {
+            ArrayPool<double>.Shared.Return(matrix);
+        }
     }
 
     /// <summary>Computes the model confidence set from a loss matrix.</summary>
@@ -117,7 +131,8 @@ public static class ModelConfidenceSet
     {
         var n = losses.Length / m;
         // Time-major prefix sums of the demeaned losses: a block's sum for every model is one subtraction per model.
-        var prefix = new double[(n + 1) * m];
+        var prefix = ArrayPool<double>.Shared.Rent((n + 1) * m);
+        prefix.AsSpan(0, m).Clear();
         for (var t = 0; t < n; t++)
         {
             var row = losses.Slice(t * m, m);
@@ -175,6 +190,7 @@ public static class ModelConfidenceSet
             }
         }
 
+        ArrayPool<double>.Shared.Return(prefix);
         return boot;
     }
 

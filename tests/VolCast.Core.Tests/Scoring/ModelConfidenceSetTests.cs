@@ -113,6 +113,31 @@ public class ModelConfidenceSetTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void Compute_NullSeries_ThrowsNamingIt()
+    {
+        var ex = Assert.Throws<ArgumentNullException>(() => ModelConfidenceSet.Compute([[1.0, 2, 3], null!], new ModelConfidenceSetOptions(1, 1)));
+        Assert.Equal("lossesByModel[1]", ex.ParamName);
+    }
+
+    [Fact]
+    public void Compute_MatrixAndListForms_Agree()
+    {
+        // The row-major T × m overload and the one-array-per-model overload are the same computation.
+        var losses = SimulatedLosses(new Random(8), 200, out _);
+        var matrix = new double[200 * 5];
+        for (var t = 0; t < 200; t++)
+        {
+            for (var i = 0; i < 5; i++)
+            {
+                matrix[(t * 5) + i] = losses[i][t];
+            }
+        }
+
+        var options = new ModelConfidenceSetOptions(4, 77, bootstrapReplications: 100);
+        Assert.Equal(ModelConfidenceSet.Compute(losses, options).PValues.ToArray(), ModelConfidenceSet.Compute(matrix, 5, options).PValues.ToArray());
+    }
+
+    [Fact]
     public void Compute_NaNLoss_Throws()
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => ModelConfidenceSet.Compute([[1.0, double.NaN, 3], [2.0, 3, 4]], new ModelConfidenceSetOptions(1, 1)));
