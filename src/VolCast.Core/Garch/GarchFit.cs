@@ -49,7 +49,7 @@ public sealed record GarchFit
     /// <summary>Gets the robust (sandwich, quasi-maximum-likelihood) standard errors, or null.</summary>
     public required GarchStandardErrors? RobustStandardErrors { get; init; }
 
-    /// <summary>Gets the names of constraints the estimate ended on (alpha, beta, gamma at zero; persistence at one); empty when interior.</summary>
+    /// <summary>Gets the names of constraints the estimate ended on (alpha, beta, gamma below 1e-4; persistence above 1 − 1e-5); empty when interior.</summary>
     public required IReadOnlyList<string> ParametersOnBound { get; init; }
 
     /// <summary>Gets the optimizer's reason for stopping.</summary>

@@ -19,7 +19,10 @@ public static class GarchFitter
     /// <summary>The fewest returns a fit accepts.</summary>
     public const int MinimumReturns = 100;
 
-    private const double BoundTolerance = 1e-6;
+    // An estimate within these of a constraint is reported as on it: in the logistic coordinates the gradient fades
+    // as a weight approaches zero, so the optimizer stops near, not at, the bound.
+    private const double WeightBoundTolerance = 1e-4;
+    private const double PersistenceBoundTolerance = 1e-5;
     private const double MaxStep = 3;
 
     /// <summary>Fits a model to daily log returns from a cold start.</summary>
@@ -151,22 +154,22 @@ public static class GarchFitter
     private static List<string> Bounds(GarchVariant variant, double[] q)
     {
         var onBound = new List<string>();
-        if (q[GarchLikelihood.Alpha] < BoundTolerance)
+        if (q[GarchLikelihood.Alpha] < WeightBoundTolerance)
         {
             onBound.Add("alpha");
         }
 
-        if (q[GarchLikelihood.Beta] < BoundTolerance)
+        if (q[GarchLikelihood.Beta] < WeightBoundTolerance)
         {
             onBound.Add("beta");
         }
 
-        if (variant == GarchVariant.GjrGarch && q[GarchLikelihood.Gamma] < BoundTolerance)
+        if (variant == GarchVariant.GjrGarch && q[GarchLikelihood.Gamma] < WeightBoundTolerance)
         {
             onBound.Add("gamma");
         }
 
-        if (q[GarchLikelihood.Alpha] + q[GarchLikelihood.Beta] + (0.5 * q[GarchLikelihood.Gamma]) > 1 - BoundTolerance)
+        if (q[GarchLikelihood.Alpha] + q[GarchLikelihood.Beta] + (0.5 * q[GarchLikelihood.Gamma]) > 1 - PersistenceBoundTolerance)
         {
             onBound.Add("persistence");
         }

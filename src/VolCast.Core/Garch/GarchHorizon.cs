@@ -10,6 +10,20 @@ namespace VolCast.Core.Garch;
 /// </remarks>
 public static class GarchHorizon
 {
+    /// <summary>Returns the expected variance k days after the day whose variance is given: V_L + φᵏ (σ² − V_L).</summary>
+    /// <param name="variance">The variance of the starting day.</param>
+    /// <param name="longRunVariance">V_L = ω / (1 − φ).</param>
+    /// <param name="persistence">φ, in [0, 1).</param>
+    /// <param name="days">k, at least zero.</param>
+    /// <returns>The expected variance of day k.</returns>
+    /// <exception cref="ArgumentOutOfRangeException">k is negative or φ is outside [0, 1).</exception>
+    public static double ExpectedVariance(double variance, double longRunVariance, double persistence, int days)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(days);
+        CheckPersistence(persistence);
+        return longRunVariance + (Math.Pow(persistence, days) * (variance - longRunVariance));
+    }
+
     /// <summary>Returns the mean of the expected daily variances over days 1..h after the forecast date.</summary>
     /// <param name="nextVariance">σ²ₜ₊₁, the variance of the first day of the horizon.</param>
     /// <param name="longRunVariance">V_L = ω / (1 − φ).</param>
