@@ -98,7 +98,7 @@ public static class GarchFitter
             y[i] = returns[i] / scale;
         }
 
-        var likelihood = new GarchLikelihood(y, n, options.Start, options.ConditionOnFirstReturn, options.FixedStartVariance / (scale * scale));
+        var likelihood = new GarchLikelihood(y, n, options.Start, options.ConditionOnFirstReturn, options.FixedStartVariance / (scale * scale), options.Variant == GarchVariant.GjrGarch);
         var map = new GarchParameterMap(options.Variant, options.IncludeMean);
         var theta = start is null ? map.DefaultStart(mean / scale) : map.ToUnconstrained(start, scale);
         var counted = likelihood.CountedReturns;

@@ -29,6 +29,8 @@ internal sealed class GarchLikelihood
     /// <summary>Number of natural parameters.</summary>
     public const int Count = 5;
 
+    private const int LogBlock = 8;
+
     private static readonly double LogTwoPi = Math.Log(2 * Math.PI);
 
     private readonly double[] _y;
@@ -36,10 +38,18 @@ internal sealed class GarchLikelihood
     private readonly VarianceStart _start;
     private readonly int _firstCounted;
     private readonly double _fixedStart;
+    private readonly bool _alwaysLeverage;
 
     /// <summary>Creates the likelihood over <paramref name="length"/> scaled returns.</summary>
-    public GarchLikelihood(double[] scaledReturns, int length, VarianceStart start, bool conditionOnFirstReturn, double fixedStartVariance = 0)
+    /// <param name="scaledReturns">The returns divided by their scale.</param>
+    /// <param name="length">How many of them to use.</param>
+    /// <param name="start">How the recursion starts.</param>
+    /// <param name="conditionOnFirstReturn">Whether the first return is left out of the sum.</param>
+    /// <param name="fixedStartVariance">σ²₁ (scaled) for <see cref="VarianceStart.Fixed"/>.</param>
+    /// <param name="leverage">Whether the γ derivative is carried even at γ = 0 (GJR); plain GARCH skips it.</param>
+    public GarchLikelihood(double[] scaledReturns, int length, VarianceStart start, bool conditionOnFirstReturn, double fixedStartVariance = 0, bool leverage = true)
     {
+        _alwaysLeverage = leverage;
         _fixedStart = fixedStartVariance;
         _y = scaledReturns;
         _length = length;
@@ -85,8 +95,13 @@ internal sealed class GarchLikelihood
             dOmega = dAlpha = dGamma = dBeta = 0;
         }
 
-        double nll = 0, gMu = 0, gOmega = 0, gAlpha = 0, gGamma = 0, gBeta = 0;
+        // Σ ln σ²ₜ is taken as ln of products of LogBlock terms: one logarithm per block instead of per day. The
+        // scaled variances stay within a few orders of magnitude of one, so a block's product cannot under- or overflow
+        // at any point the optimizer accepts (a non-finite value is rejected by the line search).
+        double logSum = 0, product = 1, ratioSum = 0, gMu = 0, gOmega = 0, gAlpha = 0, gGamma = 0, gBeta = 0;
+        var inBlock = 0;
         var last = y.Length - 1;
+        var leverage = gamma != 0 || _alwaysLeverage;
         for (var t = 0; t <= last; t++)
         {
             var e = y[t] - mu;
@@ -95,7 +110,15 @@ internal sealed class GarchLikelihood
             {
                 var inv = 1 / h;
                 var ratio = e2 * inv;
-                nll += Math.Log(h) + ratio;
+                product *= h;
+                if (++inBlock == LogBlock)
+                {
+                    logSum += Math.Log(product);
+                    product = 1;
+                    inBlock = 0;
+                }
+
+                ratioSum += ratio;
                 var c = (1 - ratio) * inv;
                 gMu += (c * dMu) - (2 * e * inv);
                 gOmega += c * dOmega;
@@ -106,17 +129,30 @@ internal sealed class GarchLikelihood
 
             if (t < last)
             {
-                var negative = e < 0;
-                var arch = negative ? alpha + gamma : alpha;
+                double arch, negativePart;
+                if (leverage)
+                {
+                    // Branch-free indicator: 1 when e < 0, else 0.
+                    var negative = e < 0 ? 1.0 : 0.0;
+                    arch = alpha + (gamma * negative);
+                    negativePart = negative * e2;
+                }
+                else
+                {
+                    arch = alpha;
+                    negativePart = 0;
+                }
+
                 dMu = (-2 * arch * e) + (beta * dMu);
                 dOmega = 1 + (beta * dOmega);
                 dAlpha = e2 + (beta * dAlpha);
-                dGamma = (negative ? e2 : 0) + (beta * dGamma);
+                dGamma = negativePart + (beta * dGamma);
                 dBeta = h + (beta * dBeta);
                 h = omega + (arch * e2) + (beta * h);
             }
         }
 
+        var nll = logSum + Math.Log(product) + ratioSum;
         gradient[Mu] = 0.5 * gMu;
         gradient[Omega] = 0.5 * gOmega;
         gradient[Alpha] = 0.5 * gAlpha;
