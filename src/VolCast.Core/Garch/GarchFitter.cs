@@ -89,7 +89,7 @@ public static class GarchFitter
         if (!(scale > 0) || scale < 1e-12 * Math.Max(Math.Abs(mean), 1e-300))
         {
             throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                $"The returns have zero variance over {n} days (constant prices); a GARCH model cannot be fitted."), nameof(returns));
+                $"The returns have zero variance over {n} days (constant prices, or a constant growth rate); a GARCH model cannot be fitted."), nameof(returns));
         }
 
         var y = new double[n];
