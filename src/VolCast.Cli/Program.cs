@@ -20,6 +20,8 @@ internal static class Program
         var root = new RootCommand(
             "VolCast: backtest volatility forecasts against the realized volatility that followed and the implied volatility quoted at the time.");
         root.Subcommands.Add(EstimateCommand.Create(console));
+        root.Subcommands.Add(MakeDemoDataCommand.Create(console));
+        root.Subcommands.Add(ImpliedCommand.Create(console));
 
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)

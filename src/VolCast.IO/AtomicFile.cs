@@ -8,7 +8,7 @@ namespace VolCast.IO;
 /// </summary>
 public static class AtomicFile
 {
-    private static readonly UTF8Encoding Utf8NoBom = new(encoderShouldEmitUTF8Identifier: false);
+    private static UTF8Encoding Utf8NoBom { get; } = new(encoderShouldEmitUTF8Identifier: false);
 
     /// <summary>Writes text to <paramref name="path"/> through a temporary file (UTF-8, no BOM, LF line ends).</summary>
     /// <param name="path">The file to create or replace.</param>

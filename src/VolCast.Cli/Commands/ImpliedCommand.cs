@@ -1,0 +1,127 @@
+using System.CommandLine;
+using System.Globalization;
+using VolCast.Core.Options;
+using VolCast.IO.Quotes;
+
+namespace VolCast.Cli.Commands;
+
+/// <summary><c>volcast implied</c>: a constant-tenor at-the-money implied-volatility series from recorded option quotes.</summary>
+internal static class ImpliedCommand
+{
+    /// <summary>Builds the command.</summary>
+    public static Command Create(CliConsole console)
+    {
+        var quotes = new Option<string>("--quotes")
+        {
+            Description = "Option quotes CSV: date,underlying,expiry,strike,type,price with optional rate,dividend_yield (decimals); type is call/put or c/p. Read only.",
+            Required = true,
+        };
+        var tenor = new Option<string>("--tenor")
+        {
+            Description = "The constant tenor in calendar days, written Nd (for example 30d).",
+            Required = true,
+        };
+        var rate = new Option<double?>("--rate")
+        {
+            Description = "Continuously compounded risk-free rate as a decimal (0.05 = 5%) for rows without a rate; required when the file has no rate column.",
+        };
+        var dividendYield = new Option<double>("--dividend-yield")
+        {
+            Description = "Continuous dividend yield as a decimal for rows without one (default 0).",
+            DefaultValueFactory = _ => 0.0,
+        };
+        var extrapolation = new Option<string>("--extrapolation")
+        {
+            Description = "When the tenor lies outside a date's quoted expiries: 'refuse' leaves the date out and reports it (default); 'flat' uses the nearest expiry's volatility and flags it.",
+            DefaultValueFactory = _ => "refuse",
+        };
+        extrapolation.AcceptOnlyFromAmong("refuse", "flat");
+        var output = new Option<string?>("--out")
+        {
+            Description = "Output CSV date,iv (default implied-<N>d.csv in the current folder); diagnostics go beside it as <name>.diagnostics.csv.",
+        };
+        var force = new Option<bool>("--force") { Description = "Replace the output and diagnostics files if they exist." };
+        var command = new Command("implied", "Compute implied volatility from option quotes (Black-Scholes-Merton / Black-76) and interpolate an at-the-money series to a constant tenor (CSV date,iv).")
+        {
+            quotes, tenor, rate, dividendYield, extrapolation, output, force,
+        };
+        command.SetAction(parse => console.Execute(() => Run(
+            console,
+            parse.GetValue(quotes)!,
+            parse.GetValue(tenor)!,
+            parse.GetValue(rate),
+            parse.GetValue(dividendYield),
+            parse.GetValue(extrapolation) == "flat" ? TenorExtrapolation.FlatVolatility : TenorExtrapolation.Refuse,
+            parse.GetValue(output),
+            parse.GetValue(force))));
+        return command;
+    }
+
+    private static int Run(CliConsole console, string quotesPath, string tenorText, double? rate, double dividendYield, TenorExtrapolation extrapolation, string? outPath, bool force)
+    {
+        var tenorDays = ParseTenor(tenorText);
+        CheckDecimalRate(rate, "--rate");
+        CheckDecimalRate(dividendYield, "--dividend-yield");
+        var output = outPath ?? $"implied-{DayCount.FormatTenor(tenorDays)}.csv";
+        var diagnosticsPath = DiagnosticsPath(output);
+        foreach (var target in new[] { output, diagnosticsPath })
+        {
+            if (string.Equals(Path.GetFullPath(target), Path.GetFullPath(quotesPath), StringComparison.Ordinal))
+            {
+                throw new UsageException($"{target}: the output would overwrite the quotes file; choose another --out.");
+            }
+
+            if (!force && File.Exists(target))
+            {
+                throw new UsageException($"{target}: the file already exists; choose another --out or pass --force to replace it.");
+            }
+        }
+
+        var quotes = OptionQuoteCsvReader.Read(quotesPath, rate, dividendYield);
+        var result = ConstantTenorSeries.Compute(quotes, new ConstantTenorOptions(tenorDays, extrapolation));
+        string[] inputs = [quotesPath];
+        QuoteDiagnosticsCsvWriter.Write(diagnosticsPath, result.Diagnostics, force, inputs);
+        var summary = string.Create(CultureInfo.InvariantCulture,
+            $"{quotes.Count} quotes: {result.RejectedQuoteCount} quotes and {result.RejectedExpiryCount} expiries rejected, {result.RejectedDateCount} dates without a {DayCount.FormatTenor(tenorDays)} value; diagnostics in {diagnosticsPath}");
+        if (result.Points.IsEmpty)
+        {
+            console.Error.WriteLine($"error: {quotesPath}: no date has a usable pair of expiries around {DayCount.FormatTenor(tenorDays)}, so nothing was written to {output}. {summary}.");
+            return ExitCodes.BadInput;
+        }
+
+        ConstantTenorCsvWriter.Write(output, result.Points, force, inputs);
+        console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture, $"wrote {result.Points.Length} dates to {output}"));
+        console.Out.WriteLine(summary);
+        if (result.RejectedDateCount > 0)
+        {
+            console.Warn(string.Create(CultureInfo.InvariantCulture, $"{result.RejectedDateCount} dates have no value; see {diagnosticsPath}."));
+        }
+
+        return ExitCodes.Success;
+    }
+
+    /// <summary>implied-30d.csv → implied-30d.diagnostics.csv.</summary>
+    internal static string DiagnosticsPath(string output)
+    {
+        var extension = Path.GetExtension(output);
+        var stem = extension.Length > 0 ? output[..^extension.Length] : output;
+        return stem + ".diagnostics.csv";
+    }
+
+    private static int ParseTenor(string text)
+    {
+        var digits = text.EndsWith('d') || text.EndsWith('D') ? text[..^1] : text;
+        return int.TryParse(digits, NumberStyles.None, CultureInfo.InvariantCulture, out var days) && days is >= 1 and <= 3650
+            ? days
+            : throw new UsageException($"--tenor '{text}' is not a tenor; expected calendar days written Nd between 1d and 3650d, for example 30d.");
+    }
+
+    private static void CheckDecimalRate(double? value, string option)
+    {
+        if (value is double v && !(v is >= -1 and <= 1))
+        {
+            throw new UsageException(string.Create(CultureInfo.InvariantCulture,
+                $"{option} {v} is outside [-1, 1]; give a continuously compounded decimal (0.05 = 5%), not a percent."));
+        }
+    }
+}

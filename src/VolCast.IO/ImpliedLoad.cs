@@ -1,0 +1,16 @@
+using VolCast.Core.Data;
+
+namespace VolCast.IO;
+
+/// <summary>The result of loading an implied-volatility file.</summary>
+/// <param name="Series">The validated series as decimals (0.20 = 20%), sorted by date.</param>
+/// <param name="Warnings">Warnings raised while loading, including the inferred unit when it was inferred.</param>
+/// <param name="UnitUsed">The unit the file's values were read in: <see cref="ImpliedUnit.Percent"/> or <see cref="ImpliedUnit.Decimal"/>, never <see cref="ImpliedUnit.Infer"/>.</param>
+/// <param name="UnitInferred">Whether the unit was inferred from the values rather than declared.</param>
+/// <param name="Sha256">Lowercase hexadecimal SHA-256 of the file's bytes, for run.json traceability.</param>
+public sealed record ImpliedLoad(
+    ImpliedSeries Series,
+    IReadOnlyList<InputWarning> Warnings,
+    ImpliedUnit UnitUsed,
+    bool UnitInferred,
+    string Sha256);

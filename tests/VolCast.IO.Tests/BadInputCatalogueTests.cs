@@ -1,0 +1,60 @@
+namespace VolCast.IO.Tests;
+
+// Runs every row of Fixtures/BadInput/catalogue.tsv through the readers (hand-written files, common practice, no source).
+public sealed class BadInputCatalogueTests
+{
+    private static string Folder { get; } = Path.Combine(AppContext.BaseDirectory, "Fixtures", "BadInput");
+
+    public static TheoryData<string, string, string, int?, string?, string> Rows()
+    {
+        var data = new TheoryData<string, string, string, int?, string?, string>();
+        foreach (var line in File.ReadAllLines(Path.Combine(Folder, "catalogue.tsv")))
+        {
+            if (line.Length == 0 || line[0] == '#')
+            {
+                continue;
+            }
+
+            var f = line.Split('\t');
+            data.Add(f[0], f[1], f[2], f[3].Length == 0 ? null : int.Parse(f[3], System.Globalization.CultureInfo.InvariantCulture), f[4].Length == 0 ? null : f[4], f[6]);
+        }
+
+        return data;
+    }
+
+    [Fact]
+    public void Catalogue_CoversEveryFileInTheFolder()
+    {
+        var listed = Rows().Select(r => (string)r[0]).ToHashSet(StringComparer.Ordinal);
+        var present = Directory.GetFiles(Folder, "*.csv").Select(Path.GetFileName).ToHashSet(StringComparer.Ordinal);
+        Assert.Equal(present.Order(), listed.Order());
+        Assert.True(listed.Count >= 40, $"expected at least 40 bad inputs, found {listed.Count}");
+    }
+
+    [Theory]
+    [MemberData(nameof(Rows))]
+    public void Read_BadInput_RefusedNamingFileLineColumnAndProblem(string file, string reader, string unit, int? line, string? column, string fragment)
+    {
+        var path = Path.Combine(Folder, file);
+        var before = File.ReadAllBytes(path);
+
+        var error = Assert.Throws<InputDataException>(() =>
+        {
+            if (reader == "prices")
+            {
+                PriceFileReader.Read(path);
+            }
+            else
+            {
+                ImpliedFileReader.Read(path, unit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer });
+            }
+        });
+
+        Assert.Equal(path, error.File);
+        Assert.Equal(line, error.Line);
+        Assert.Equal(column, error.Column);
+        Assert.Contains(fragment, error.Message, StringComparison.Ordinal);
+        Assert.StartsWith(path + (line is int l ? $", line {l}" : string.Empty), error.Message, StringComparison.Ordinal);
+        Assert.Equal(before, File.ReadAllBytes(path)); // the input is never changed
+    }
+}
