@@ -65,6 +65,9 @@ public static class ForecasterSpec
                 };
             case "implied":
                 return parameter is null ? new ImpliedForecaster() : throw Invalid(spec, "implied takes no parameter");
+            case "close-to-close" or "parkinson" or "garman-klass" or "rogers-satchell" or "yang-zhang":
+                // Historical-window forecasters wait for the rolling estimators; say so rather than "unknown".
+                throw Invalid(spec, $"historical-window forecasters ({name}:WINDOW) are not available in this build yet");
             default:
                 throw Invalid(spec, $"'{name}' is not a known forecaster");
         }

@@ -41,4 +41,11 @@ public sealed class ForecasterSpecTests
             Assert.Contains(form, ex.Message, StringComparison.Ordinal);
         }
     }
+
+    [Fact]
+    public void Parse_HistoricalWindowSpec_SaysNotAvailableYet()
+    {
+        var ex = Assert.Throws<ArgumentException>(() => ForecasterSpec.Parse("yang-zhang:21"));
+        Assert.Contains("not available in this build yet", ex.Message, StringComparison.Ordinal);
+    }
 }
