@@ -22,6 +22,7 @@ internal static class Program
         root.Subcommands.Add(EstimateCommand.Create(console));
         root.Subcommands.Add(MakeDemoDataCommand.Create(console));
         root.Subcommands.Add(ImpliedCommand.Create(console));
+        root.Subcommands.Add(FitCommand.Create(console));
 
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)

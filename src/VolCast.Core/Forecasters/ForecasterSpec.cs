@@ -1,0 +1,80 @@
+using System.Globalization;
+using VolCast.Core.Garch;
+
+namespace VolCast.Core.Forecasters;
+
+/// <summary>Builds forecasters from spec strings written <c>NAME</c> or <c>NAME:PARAM</c>, as in a run configuration.</summary>
+/// <remarks>
+/// Names are matched case-insensitively; surrounding spaces are ignored. Valid specs are listed in
+/// <see cref="ValidSpecs"/>.
+/// </remarks>
+public static class ForecasterSpec
+{
+    /// <summary>Gets the accepted spec forms, one line each, as shown in error messages.</summary>
+    public static IReadOnlyList<string> ValidSpecs { get; } =
+    [
+        "ewma[:LAMBDA]  (RiskMetrics EWMA, LAMBDA in (0, 1), default 0.94; e.g. ewma:0.97)",
+        "garch[:zero-mean]  (GARCH(1,1), constant mean unless zero-mean)",
+        "gjr-garch[:zero-mean]  (GJR-GARCH(1,1))",
+        "har[:garman-klass]  (HAR on squared returns, or on the Garman-Klass range term)",
+        "implied  (the implied-volatility series itself)",
+    ];
+
+    /// <summary>Parses a spec string into a forecaster.</summary>
+    /// <param name="spec">For example <c>ewma:0.94</c>, <c>garch</c>, <c>gjr-garch:zero-mean</c>, <c>har</c>, <c>implied</c>.</param>
+    /// <returns>The forecaster, with its canonical <see cref="IVolatilityForecaster.Spec"/>.</returns>
+    /// <exception cref="ArgumentNullException"><paramref name="spec"/> is null.</exception>
+    /// <exception cref="ArgumentException">The name is unknown or the parameter is invalid; the message lists the valid specs.</exception>
+    public static IVolatilityForecaster Parse(string spec)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        var trimmed = spec.Trim();
+        var colon = trimmed.IndexOf(':', StringComparison.Ordinal);
+        var name = (colon < 0 ? trimmed : trimmed[..colon]).Trim().ToLowerInvariant();
+        var parameter = colon < 0 ? null : trimmed[(colon + 1)..].Trim().ToLowerInvariant();
+
+        switch (name)
+        {
+            case "ewma":
+                if (parameter is null)
+                {
+                    return new EwmaForecaster();
+                }
+
+                if (double.TryParse(parameter, NumberStyles.Float, CultureInfo.InvariantCulture, out var lambda) && lambda > 0 && lambda < 1)
+                {
+                    return new EwmaForecaster(lambda);
+                }
+
+                throw Invalid(spec, $"the EWMA decay must be a number strictly between 0 and 1 (was '{parameter}')");
+            case "garch":
+            case "gjr-garch":
+                var variant = name == "garch" ? GarchVariant.Garch : GarchVariant.GjrGarch;
+                return parameter switch
+                {
+                    null => new GarchForecaster(variant),
+                    "zero-mean" => new GarchForecaster(variant, includeMean: false),
+                    _ => throw Invalid(spec, $"the only option of {name} is 'zero-mean' (was '{parameter}')"),
+                };
+            case "har":
+                return parameter switch
+                {
+                    null => new HarForecaster(),
+                    "garman-klass" => new HarForecaster(HarProxy.GarmanKlass),
+                    _ => throw Invalid(spec, $"the only option of har is 'garman-klass' (was '{parameter}')"),
+                };
+            case "implied":
+                return parameter is null ? new ImpliedForecaster() : throw Invalid(spec, "implied takes no parameter");
+            case "close-to-close" or "parkinson" or "garman-klass" or "rogers-satchell" or "yang-zhang":
+                // Historical-window forecasters wait for the rolling estimators; say so rather than "unknown".
+                throw Invalid(spec, $"historical-window forecasters ({name}:WINDOW) are not available in this build yet");
+            default:
+                throw Invalid(spec, $"'{name}' is not a known forecaster");
+        }
+    }
+
+    private static ArgumentException Invalid(string spec, string problem) =>
+        new(string.Create(CultureInfo.InvariantCulture,
+            $"Invalid forecaster spec '{spec}': {problem}. Valid forecasters:{Environment.NewLine}  {string.Join(Environment.NewLine + "  ", ValidSpecs)}"),
+            nameof(spec));
+}

@@ -1,0 +1,213 @@
+namespace VolCast.Core.Garch;
+
+/// <summary>
+/// Unconstrained BFGS with an Armijo backtracking line search: small, allocation-light and deterministic, for the
+/// handful of parameters of a GARCH likelihood. Constraints are handled by the caller's reparameterization.
+/// </summary>
+internal static class BfgsMinimizer
+{
+    /// <summary>Evaluates the objective at a point and writes its gradient.</summary>
+    public delegate double Objective(ReadOnlySpan<double> point, Span<double> gradient);
+
+    private const double Armijo = 1e-4;
+    private const int MaxBacktracks = 40;
+
+    /// <summary>Minimizes <paramref name="objective"/> from <paramref name="start"/>.</summary>
+    /// <param name="objective">The function and its gradient.</param>
+    /// <param name="start">The starting point (not modified).</param>
+    /// <param name="inverseHessian">A starting inverse-Hessian approximation (row-major), or null for a scaled identity.</param>
+    /// <param name="gradientTolerance">Converged when every gradient component is below this in absolute value.</param>
+    /// <param name="maxIterations">The most accepted steps to take.</param>
+    /// <param name="maxStep">The largest change allowed in any coordinate in one step.</param>
+    public static BfgsResult Minimize(
+        Objective objective,
+        ReadOnlySpan<double> start,
+        double[]? inverseHessian,
+        double gradientTolerance,
+        int maxIterations,
+        double maxStep)
+    {
+        var n = start.Length;
+        var x = start.ToArray();
+        var g = new double[n];
+        var fx = objective(x, g);
+        if (!double.IsFinite(fx))
+        {
+            return new BfgsResult(x, fx, g, Identity(n), 0, false, "The objective is not finite at the starting point.");
+        }
+
+        var h = inverseHessian is { } warm && warm.Length == n * n ? (double[])warm.Clone() : Identity(n);
+        var scaleOnFirstStep = inverseHessian is null;
+        var direction = new double[n];
+        var xNew = new double[n];
+        var gNew = new double[n];
+        var s = new double[n];
+        var yv = new double[n];
+        var hy = new double[n];
+        var freshIdentity = inverseHessian is null;
+
+        for (var iteration = 0; iteration < maxIterations; iteration++)
+        {
+            if (MaxAbs(g) < gradientTolerance)
+            {
+                return new BfgsResult(x, fx, g, h, iteration, true, "The gradient test was met.");
+            }
+
+            MultiplyNegated(h, g, direction);
+            var slope = Dot(direction, g);
+            if (!(slope < 0))
+            {
+                // The approximation lost positive definiteness: fall back to steepest descent.
+                h = Identity(n);
+                freshIdentity = true;
+                MultiplyNegated(h, g, direction);
+                slope = Dot(direction, g);
+            }
+
+            var biggest = MaxAbs(direction);
+            var step = biggest > maxStep ? maxStep / biggest : 1.0;
+            var accepted = false;
+            double fNew = double.NaN;
+            for (var k = 0; k < MaxBacktracks; k++)
+            {
+                for (var i = 0; i < n; i++)
+                {
+                    xNew[i] = x[i] + (step * direction[i]);
+                }
+
+                fNew = objective(xNew, gNew);
+                if (double.IsFinite(fNew) && fNew <= fx + (Armijo * step * slope))
+                {
+                    accepted = true;
+                    break;
+                }
+
+                step *= 0.5;
+            }
+
+            if (!accepted)
+            {
+                if (!freshIdentity)
+                {
+                    h = Identity(n);
+                    freshIdentity = true;
+                    continue;
+                }
+
+                var small = MaxAbs(g) < 1e3 * gradientTolerance;
+                return new BfgsResult(x, fx, g, h, iteration, small,
+                    small ? "No further decrease was possible at working precision; the gradient is near zero."
+                          : "The line search found no decrease.");
+            }
+
+            double sy = 0, yy = 0;
+            for (var i = 0; i < n; i++)
+            {
+                s[i] = xNew[i] - x[i];
+                yv[i] = gNew[i] - g[i];
+                sy += s[i] * yv[i];
+                yy += yv[i] * yv[i];
+            }
+
+            if (sy > 1e-300 && yy > 0)
+            {
+                if (scaleOnFirstStep)
+                {
+                    var scale = sy / yy;
+                    for (var i = 0; i < n; i++)
+                    {
+                        h[(i * n) + i] = scale;
+                    }
+
+                    scaleOnFirstStep = false;
+                }
+
+                Update(h, s, yv, hy, sy);
+                freshIdentity = false;
+            }
+
+            (x, xNew) = (xNew, x);
+            (g, gNew) = (gNew, g);
+            fx = fNew;
+        }
+
+        var converged = MaxAbs(g) < gradientTolerance;
+        return new BfgsResult(x, fx, g, h, maxIterations, converged,
+            converged ? "The gradient test was met." : "The iteration limit was reached before the gradient test was met.");
+    }
+
+    private static void Update(double[] h, double[] s, double[] y, double[] hy, double sy)
+    {
+        // H⁺ = H + ((sᵀy + yᵀHy)/(sᵀy)²) ssᵀ − (Hy sᵀ + s yᵀH)/(sᵀy), H symmetric.
+        var n = s.Length;
+        double yhy = 0;
+        for (var i = 0; i < n; i++)
+        {
+            double acc = 0;
+            for (var j = 0; j < n; j++)
+            {
+                acc += h[(i * n) + j] * y[j];
+            }
+
+            hy[i] = acc;
+            yhy += y[i] * acc;
+        }
+
+        var a = (sy + yhy) / (sy * sy);
+        for (var i = 0; i < n; i++)
+        {
+            for (var j = 0; j < n; j++)
+            {
+                h[(i * n) + j] += (a * s[i] * s[j]) - (((hy[i] * s[j]) + (s[i] * hy[j])) / sy);
+            }
+        }
+    }
+
+    private static double[] Identity(int n)
+    {
+        var h = new double[n * n];
+        for (var i = 0; i < n; i++)
+        {
+            h[(i * n) + i] = 1;
+        }
+
+        return h;
+    }
+
+    private static void MultiplyNegated(double[] h, double[] g, double[] result)
+    {
+        var n = g.Length;
+        for (var i = 0; i < n; i++)
+        {
+            double acc = 0;
+            for (var j = 0; j < n; j++)
+            {
+                acc += h[(i * n) + j] * g[j];
+            }
+
+            result[i] = -acc;
+        }
+    }
+
+    private static double Dot(double[] a, double[] b)
+    {
+        double acc = 0;
+        for (var i = 0; i < a.Length; i++)
+        {
+            acc += a[i] * b[i];
+        }
+
+        return acc;
+    }
+
+    private static double MaxAbs(double[] a)
+    {
+        double m = 0;
+        for (var i = 0; i < a.Length; i++)
+        {
+            m = Math.Max(m, Math.Abs(a[i]));
+        }
+
+        return m;
+    }
+}

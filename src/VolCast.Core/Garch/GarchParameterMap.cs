@@ -1,0 +1,165 @@
+namespace VolCast.Core.Garch;
+
+/// <summary>
+/// Maps between the optimizer's unconstrained coordinates θ and the natural scaled parameters (μ̃, ω̃, α, γ, β),
+/// and carries gradients from the natural parameters back to θ (the chain rule of the reparameterization).
+/// </summary>
+/// <remarks>
+/// θ = [μ̃ (when the mean is estimated), ln ω̃, logit φ, θ_a (, θ_g for GJR)]. GARCH: α = φ·σ(θ_a), β = φ·(1 − σ(θ_a)).
+/// GJR: (α, γ/2, β) = φ·softmax(θ_a, θ_g, 0).
+/// </remarks>
+internal sealed class GarchParameterMap
+{
+    private const double StartPersistence = 0.95;
+    private readonly int _offset;
+
+    /// <summary>Creates the map for one model shape.</summary>
+    public GarchParameterMap(GarchVariant variant, bool includeMean)
+    {
+        Variant = variant;
+        IncludeMean = includeMean;
+        _offset = includeMean ? 1 : 0;
+        Dimension = _offset + (variant == GarchVariant.GjrGarch ? 4 : 3);
+        ActiveNatural = (includeMean, variant) switch
+        {
+            (true, GarchVariant.GjrGarch) => [GarchLikelihood.Mu, GarchLikelihood.Omega, GarchLikelihood.Alpha, GarchLikelihood.Gamma, GarchLikelihood.Beta],
+            (false, GarchVariant.GjrGarch) => [GarchLikelihood.Omega, GarchLikelihood.Alpha, GarchLikelihood.Gamma, GarchLikelihood.Beta],
+            (true, _) => [GarchLikelihood.Mu, GarchLikelihood.Omega, GarchLikelihood.Alpha, GarchLikelihood.Beta],
+            (false, _) => [GarchLikelihood.Omega, GarchLikelihood.Alpha, GarchLikelihood.Beta],
+        };
+    }
+
+    /// <summary>Gets the variance equation.</summary>
+    public GarchVariant Variant { get; }
+
+    /// <summary>Gets a value indicating whether μ is estimated.</summary>
+    public bool IncludeMean { get; }
+
+    /// <summary>Gets the number of unconstrained coordinates.</summary>
+    public int Dimension { get; }
+
+    /// <summary>Gets the indices of the natural parameters that are estimated.</summary>
+    public int[] ActiveNatural { get; }
+
+    /// <summary>Returns the default cold start: μ̃ = sample mean (or 0), φ = 0.95, long-run variance = 1 (the scaled sample variance), α = 0.05 (GJR: α = 0.03, γ = 0.06).</summary>
+    public double[] DefaultStart(double scaledMean)
+    {
+        var theta = new double[Dimension];
+        if (IncludeMean)
+        {
+            theta[0] = scaledMean;
+        }
+
+        theta[_offset] = Math.Log(1 - StartPersistence);
+        theta[_offset + 1] = Logit(StartPersistence);
+        if (Variant == GarchVariant.GjrGarch)
+        {
+            theta[_offset + 2] = Math.Log(0.03 / 0.89);
+            theta[_offset + 3] = Math.Log(0.03 / 0.89);
+        }
+        else
+        {
+            theta[_offset + 2] = Logit(0.05 / StartPersistence);
+        }
+
+        return theta;
+    }
+
+    /// <summary>Returns θ for parameters in original units, given the scale the returns were divided by; values on a constraint are nudged inside.</summary>
+    public double[] ToUnconstrained(GarchParameters p, double scale)
+    {
+        var theta = new double[Dimension];
+        if (IncludeMean)
+        {
+            theta[0] = p.Mu / scale;
+        }
+
+        theta[_offset] = Math.Log(p.Omega / (scale * scale));
+        var gamma = Variant == GarchVariant.GjrGarch ? p.Gamma : 0;
+        var persistence = Math.Clamp(p.Alpha + p.Beta + (0.5 * gamma), 1e-4, 1 - 1e-8);
+        theta[_offset + 1] = Logit(persistence);
+        var floor = 1e-8;
+        var a = Math.Max(p.Alpha, floor);
+        var b = Math.Max(p.Beta, floor);
+        if (Variant == GarchVariant.GjrGarch)
+        {
+            var g = Math.Max(0.5 * gamma, floor);
+            theta[_offset + 2] = Math.Log(a / b);
+            theta[_offset + 3] = Math.Log(g / b);
+        }
+        else
+        {
+            theta[_offset + 2] = Math.Log(a / b);
+        }
+
+        return theta;
+    }
+
+    /// <summary>Writes the natural scaled parameters (μ̃, ω̃, α, γ, β) for θ.</summary>
+    public void ToNatural(ReadOnlySpan<double> theta, Span<double> q)
+    {
+        q[GarchLikelihood.Mu] = IncludeMean ? theta[0] : 0;
+        q[GarchLikelihood.Omega] = Math.Exp(theta[_offset]);
+        var persistence = Logistic(theta[_offset + 1]);
+        if (Variant == GarchVariant.GjrGarch)
+        {
+            Softmax(theta[_offset + 2], theta[_offset + 3], out var wa, out var wg, out var wb);
+            q[GarchLikelihood.Alpha] = persistence * wa;
+            q[GarchLikelihood.Gamma] = 2 * persistence * wg;
+            q[GarchLikelihood.Beta] = persistence * wb;
+        }
+        else
+        {
+            var share = Logistic(theta[_offset + 2]);
+            q[GarchLikelihood.Alpha] = persistence * share;
+            q[GarchLikelihood.Gamma] = 0;
+            q[GarchLikelihood.Beta] = persistence * (1 - share);
+        }
+    }
+
+    /// <summary>Writes dL/dθ given dL/dq at the natural parameters q that θ maps to.</summary>
+    public void ChainGradient(ReadOnlySpan<double> theta, ReadOnlySpan<double> q, ReadOnlySpan<double> gq, Span<double> gTheta)
+    {
+        if (IncludeMean)
+        {
+            gTheta[0] = gq[GarchLikelihood.Mu];
+        }
+
+        gTheta[_offset] = gq[GarchLikelihood.Omega] * q[GarchLikelihood.Omega];
+        var persistence = Logistic(theta[_offset + 1]);
+        var dPersistence = persistence * (1 - persistence);
+        if (Variant == GarchVariant.GjrGarch)
+        {
+            Softmax(theta[_offset + 2], theta[_offset + 3], out var wa, out var wg, out var wb);
+            gTheta[_offset + 1] = ((gq[GarchLikelihood.Alpha] * wa) + (gq[GarchLikelihood.Gamma] * 2 * wg) + (gq[GarchLikelihood.Beta] * wb)) * dPersistence;
+            var va = gq[GarchLikelihood.Alpha] * persistence;
+            var vg = gq[GarchLikelihood.Gamma] * 2 * persistence;
+            var vb = gq[GarchLikelihood.Beta] * persistence;
+            var weighted = (va * wa) + (vg * wg) + (vb * wb);
+            gTheta[_offset + 2] = wa * (va - weighted);
+            gTheta[_offset + 3] = wg * (vg - weighted);
+        }
+        else
+        {
+            var share = Logistic(theta[_offset + 2]);
+            gTheta[_offset + 1] = ((gq[GarchLikelihood.Alpha] * share) + (gq[GarchLikelihood.Beta] * (1 - share))) * dPersistence;
+            gTheta[_offset + 2] = (gq[GarchLikelihood.Alpha] - gq[GarchLikelihood.Beta]) * persistence * share * (1 - share);
+        }
+    }
+
+    private static double Logistic(double x) => x >= 0 ? 1 / (1 + Math.Exp(-x)) : Math.Exp(x) / (1 + Math.Exp(x));
+
+    private static double Logit(double p) => Math.Log(p / (1 - p));
+
+    private static void Softmax(double a, double g, out double wa, out double wg, out double wb)
+    {
+        var top = Math.Max(0, Math.Max(a, g));
+        var ea = Math.Exp(a - top);
+        var eg = Math.Exp(g - top);
+        var eb = Math.Exp(-top);
+        var total = ea + eg + eb;
+        wa = ea / total;
+        wg = eg / total;
+        wb = eb / total;
+    }
+}

@@ -1,0 +1,133 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using VolCast.Cli.Tests.Support;
+using VolCast.Core.Data;
+using VolCast.Core.Garch;
+
+namespace VolCast.Cli.Tests.Commands;
+
+public sealed class FitCommandTests : IDisposable
+{
+    private readonly string _folder = Path.Combine(Path.GetTempPath(), $"volcast-fit-{Guid.NewGuid():N}");
+
+    public FitCommandTests() => Directory.CreateDirectory(_folder);
+
+    public void Dispose() => Directory.Delete(_folder, recursive: true);
+
+    [Theory]
+    // Both models, with and without the mean.
+    [InlineData("garch", false)]
+    [InlineData("gjr-garch", false)]
+    [InlineData("garch", true)]
+    public void Fit_GoodPrices_WritesJsonEqualToTheCoreFit(string model, bool zeroMean)
+    {
+        // Invented close-only history following a seeded GARCH path; the JSON must carry the Core fit of the same
+        // returns exactly (round-trip doubles).
+        var closes = SimulatedCloses(800, seed: 7);
+        var prices = WritePrices("prices.csv", closes);
+        var output = Path.Combine(_folder, "fit.json");
+        string[] args = zeroMean
+            ? ["fit", "--prices", prices, "--model", model, "--zero-mean", "--out", output]
+            : ["fit", "--prices", prices, "--model", model, "--out", output];
+        var result = CliRunner.Run(args);
+
+        Assert.Equal(0, result.ExitCode);
+        Assert.Equal(string.Empty, result.Stderr);
+        Assert.Contains("persistence", result.Stdout, StringComparison.Ordinal);
+        Assert.Contains($"wrote {output}", result.Stdout, StringComparison.Ordinal);
+
+        var expected = GarchFitter.Fit(Returns.LogReturns(closes), new GarchFitOptions
+        {
+            Variant = model == "gjr-garch" ? GarchVariant.GjrGarch : GarchVariant.Garch,
+            IncludeMean = !zeroMean,
+        });
+        using var doc = JsonDocument.Parse(File.ReadAllText(output));
+        var root = doc.RootElement;
+        Assert.Equal(model, root.GetProperty("model").GetString());
+        Assert.Equal(expected.Parameters.Mu, root.GetProperty("mu").GetDouble());
+        Assert.Equal(expected.Parameters.Omega, root.GetProperty("omega").GetDouble());
+        Assert.Equal(expected.Parameters.Alpha, root.GetProperty("alpha").GetDouble());
+        Assert.Equal(expected.Parameters.Beta, root.GetProperty("beta").GetDouble());
+        Assert.Equal(model == "gjr-garch", root.TryGetProperty("gamma", out _));
+        Assert.Equal(expected.LogLikelihood, root.GetProperty("log_likelihood").GetDouble());
+        Assert.Equal(799, root.GetProperty("n").GetInt32());
+        Assert.True(root.GetProperty("converged").GetBoolean());
+        Assert.Equal(JsonValueKind.Object, root.GetProperty("standard_errors").ValueKind);
+        Assert.Equal(JsonValueKind.Object, root.GetProperty("robust_standard_errors").ValueKind);
+    }
+
+    [Fact]
+    public void Fit_TooFewPrices_ExitsThreeNamingTheMinimum()
+    {
+        var prices = WritePrices("short.csv", SimulatedCloses(50, seed: 1));
+        var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", Path.Combine(_folder, "f.json"));
+        Assert.Equal(3, result.ExitCode);
+        Assert.Contains("at least 100 daily returns (101 prices)", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("short.csv", result.Stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_ConstantPrices_ExitsThreeNotNaN()
+    {
+        var prices = WritePrices("flat.csv", Enumerable.Repeat(100.0, 300).ToArray());
+        var output = Path.Combine(_folder, "f.json");
+        var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", output);
+        Assert.Equal(3, result.ExitCode);
+        Assert.Contains("constant prices", result.Stderr, StringComparison.Ordinal);
+        Assert.False(File.Exists(output));
+    }
+
+    [Fact]
+    public void Fit_UnknownModel_ExitsTwo()
+    {
+        var prices = WritePrices("p.csv", SimulatedCloses(200, seed: 1));
+        var result = CliRunner.Run("fit", "--prices", prices, "--model", "egarch");
+        Assert.Equal(2, result.ExitCode);
+        Assert.Contains("egarch", result.Stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_ExistingOutput_ExitsTwoWithoutForce()
+    {
+        var prices = WritePrices("p.csv", SimulatedCloses(200, seed: 1));
+        var output = Path.Combine(_folder, "f.json");
+        File.WriteAllText(output, "keep");
+        var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", output);
+        Assert.Equal(2, result.ExitCode);
+        Assert.Equal("keep", File.ReadAllText(output));
+        Assert.Equal(0, CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", output, "--force").ExitCode);
+    }
+
+    private string WritePrices(string name, double[] closes)
+    {
+        var path = Path.Combine(_folder, name);
+        var text = new StringBuilder("date,close\n");
+        var date = new DateOnly(2015, 1, 5);
+        foreach (var close in closes)
+        {
+            text.Append(CultureInfo.InvariantCulture, $"{date:yyyy-MM-dd},{close:R}\n");
+            date = date.AddDays(date.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
+        }
+
+        File.WriteAllText(path, text.ToString());
+        return path;
+    }
+
+    private static double[] SimulatedCloses(int n, int seed)
+    {
+        // Seeded GARCH(1,1) path (ω = 3e−6, α = 0.08, β = 0.9), Box–Muller shocks; invented data.
+        var random = new Random(seed);
+        var closes = new double[n];
+        closes[0] = 100;
+        var h = 3e-6 / 0.02;
+        for (var i = 1; i < n; i++)
+        {
+            var e = Math.Sqrt(h) * Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
+            closes[i] = closes[i - 1] * Math.Exp(0.0002 + e);
+            h = 3e-6 + (0.08 * e * e) + (0.9 * h);
+        }
+
+        return closes;
+    }
+}

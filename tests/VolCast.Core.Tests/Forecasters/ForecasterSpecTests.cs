@@ -1,0 +1,51 @@
+using VolCast.Core.Forecasters;
+
+namespace VolCast.Core.Tests.Forecasters;
+
+public sealed class ForecasterSpecTests
+{
+    [Theory]
+    // Canonical forms come back unchanged.
+    [InlineData("ewma:0.94", "ewma:0.94")]
+    // The default decay is RiskMetrics' 0.94 for daily data (references.md §5 [C2]).
+    [InlineData("ewma", "ewma:0.94")]
+    [InlineData(" EWMA:0.97 ", "ewma:0.97")]
+    [InlineData("garch", "garch")]
+    [InlineData("GARCH:zero-mean", "garch:zero-mean")]
+    [InlineData("gjr-garch", "gjr-garch")]
+    [InlineData("gjr-garch:zero-mean", "gjr-garch:zero-mean")]
+    [InlineData("har", "har")]
+    [InlineData("har:garman-klass", "har:garman-klass")]
+    [InlineData("implied", "implied")]
+    public void Parse_ValidSpec_GivesCanonicalSpec(string spec, string canonical)
+    {
+        Assert.Equal(canonical, ForecasterSpec.Parse(spec).Spec);
+    }
+
+    [Theory]
+    // Unknown name.
+    [InlineData("garch2")]
+    // Decay outside (0, 1) or not a number.
+    [InlineData("ewma:1")]
+    [InlineData("ewma:abc")]
+    // Unknown option.
+    [InlineData("garch:t")]
+    [InlineData("implied:30")]
+    [InlineData("")]
+    public void Parse_InvalidSpec_ThrowsListingValidSpecs(string spec)
+    {
+        var ex = Assert.Throws<ArgumentException>(() => ForecasterSpec.Parse(spec));
+        Assert.Contains("Valid forecasters", ex.Message, StringComparison.Ordinal);
+        foreach (var form in new[] { "ewma[:LAMBDA]", "garch[:zero-mean]", "gjr-garch[:zero-mean]", "har[:garman-klass]", "implied" })
+        {
+            Assert.Contains(form, ex.Message, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
+    public void Parse_HistoricalWindowSpec_SaysNotAvailableYet()
+    {
+        var ex = Assert.Throws<ArgumentException>(() => ForecasterSpec.Parse("yang-zhang:21"));
+        Assert.Contains("not available in this build yet", ex.Message, StringComparison.Ordinal);
+    }
+}
