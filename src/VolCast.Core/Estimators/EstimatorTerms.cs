@@ -25,9 +25,9 @@ namespace VolCast.Core.Estimators;
 /// </list>
 /// <para>
 /// Window sums come from prefix sums kept in double-double form (error-free TwoSum additions), so values do not
-/// drift along a long history. Sample variances are (Σx² − (Σx)²/N)/(N − 1) from these sums; a result that
-/// rounds below zero (a window of identical returns) is reported as zero. Instances are immutable and safe to
-/// share between threads.
+/// drift along a long history. Sample variances are (Σx² − (Σx)²/N)/(N − 1) from these sums with the
+/// subtraction carried in double-double, so a quiet window after a turbulent one keeps full precision; a window
+/// of identical returns gives exactly zero. Instances are immutable and safe to share between threads.
 /// </para>
 /// </remarks>
 public sealed class EstimatorTerms
@@ -49,18 +49,15 @@ public sealed class EstimatorTerms
         var n = prices.Count;
         var close = prices.Close;
         var a = new double[n];
-        var b = new double[n];
 
         // Element 0 of every series that needs the previous close is never inside a window; it is left at zero.
         for (var t = 1; t < n; t++)
         {
-            var r = Math.Log(close[t] / close[t - 1]);
-            a[t] = r;
-            b[t] = r * r;
+            a[t] = Math.Log(close[t] / close[t - 1]);
         }
 
         _closeReturn = new PrefixSum(a);
-        _closeReturnSquared = new PrefixSum(b);
+        _closeReturnSquared = PrefixSum.OfSquares(a);
         if (!HasRange)
         {
             return;
@@ -73,9 +70,7 @@ public sealed class EstimatorTerms
         var garmanKlass = new double[n];
         var rogersSatchell = new double[n];
         Array.Clear(a);
-        Array.Clear(b);
         var c = new double[n];
-        var c2 = new double[n];
         for (var t = 0; t < n; t++)
         {
             var o = open[t];
@@ -86,12 +81,9 @@ public sealed class EstimatorTerms
             garmanKlass[t] = BarVariance.GarmanKlassFromLogs(u, d, oc);
             rogersSatchell[t] = BarVariance.RogersSatchellFromLogs(u, d, oc);
             c[t] = oc;
-            c2[t] = oc * oc;
             if (t > 0)
             {
-                var overnight = Math.Log(o / close[t - 1]);
-                a[t] = overnight;
-                b[t] = overnight * overnight;
+                a[t] = Math.Log(o / close[t - 1]);
             }
         }
 
@@ -99,9 +91,9 @@ public sealed class EstimatorTerms
         _garmanKlass = new PrefixSum(garmanKlass);
         _rogersSatchell = new PrefixSum(rogersSatchell);
         _overnight = new PrefixSum(a);
-        _overnightSquared = new PrefixSum(b);
+        _overnightSquared = PrefixSum.OfSquares(a);
         _openToClose = new PrefixSum(c);
-        _openToCloseSquared = new PrefixSum(c2);
+        _openToCloseSquared = PrefixSum.OfSquares(c);
     }
 
     /// <summary>Gets the number of rows in the history the terms were built from.</summary>
@@ -263,13 +255,9 @@ public sealed class EstimatorTerms
 
     private static void SampleVariance(PrefixSum sum, PrefixSum sumOfSquares, int window, int first, Span<double> output)
     {
-        var n = (double)window;
         for (var i = 0; i < output.Length; i++)
         {
-            var t = first + i;
-            var s1 = sum.Window(t, window);
-            var s2 = sumOfSquares.Window(t, window);
-            output[i] = Math.Max(0.0, (s2 - (s1 * s1 / n)) / (n - 1));
+            output[i] = PrefixSum.SampleVariance(sum, sumOfSquares, first + i, window);
         }
     }
 
@@ -285,12 +273,8 @@ public sealed class EstimatorTerms
         for (var i = 0; i < output.Length; i++)
         {
             var t = first + i;
-            var o1 = overnight.Window(t, window);
-            var o2 = overnightSquared.Window(t, window);
-            var c1 = openToClose.Window(t, window);
-            var c2 = openToCloseSquared.Window(t, window);
-            var vo = Math.Max(0.0, (o2 - (o1 * o1 / n)) / (n - 1));
-            var vc = Math.Max(0.0, (c2 - (c1 * c1 / n)) / (n - 1));
+            var vo = PrefixSum.SampleVariance(overnight, overnightSquared, t, window);
+            var vc = PrefixSum.SampleVariance(openToClose, openToCloseSquared, t, window);
             var vrs = rogersSatchell.Window(t, window) / n;
             output[i] = vo + (k * vc) + ((1 - k) * vrs);
         }
