@@ -12,7 +12,7 @@ internal static class EstimatorGuard
     /// <exception cref="ArgumentOutOfRangeException">The value is not defined.</exception>
     public static void Defined(Estimator estimator, string paramName)
     {
-        if ((uint)estimator > (uint)Estimator.YangZhang)
+        if (estimator is < Estimator.CloseToClose or > Estimator.YangZhang)
         {
             throw new ArgumentOutOfRangeException(paramName, estimator, string.Create(CultureInfo.InvariantCulture,
                 $"{paramName} must be one of close-to-close, parkinson, garman-klass, rogers-satchell, yang-zhang (was {(int)estimator})."));
