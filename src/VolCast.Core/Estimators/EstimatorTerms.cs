@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Globalization;
 using VolCast.Core.Data;
 
@@ -48,52 +49,74 @@ public sealed class EstimatorTerms
         HasRange = prices.HasRange;
         var n = prices.Count;
         var close = prices.Close;
-        var a = new double[n];
 
-        // Element 0 of every series that needs the previous close is never inside a window; it is left at zero.
-        for (var t = 1; t < n; t++)
+        // The per-bar series live in pooled scratch buffers only while the prefix sums are built.
+        var pool = ArrayPool<double>.Shared;
+        var first = pool.Rent(n);
+        try
         {
-            a[t] = Math.Log(close[t] / close[t - 1]);
-        }
+            var series = first.AsSpan(0, n);
 
-        _closeReturn = new PrefixSum(a);
-        _closeReturnSquared = PrefixSum.OfSquares(a);
-        if (!HasRange)
-        {
-            return;
-        }
-
-        var open = prices.Open;
-        var high = prices.High;
-        var low = prices.Low;
-        var parkinson = new double[n];
-        var garmanKlass = new double[n];
-        var rogersSatchell = new double[n];
-        Array.Clear(a);
-        var c = new double[n];
-        for (var t = 0; t < n; t++)
-        {
-            var o = open[t];
-            var u = Math.Log(high[t] / o);
-            var d = Math.Log(low[t] / o);
-            var oc = Math.Log(close[t] / o);
-            parkinson[t] = BarVariance.ParkinsonFromLogs(u, d);
-            garmanKlass[t] = BarVariance.GarmanKlassFromLogs(u, d, oc);
-            rogersSatchell[t] = BarVariance.RogersSatchellFromLogs(u, d, oc);
-            c[t] = oc;
-            if (t > 0)
+            // Element 0 of every series that needs the previous close is never inside a window; it is left at zero.
+            series.Clear();
+            for (var t = 1; t < series.Length; t++)
             {
-                a[t] = Math.Log(o / close[t - 1]);
+                series[t] = Math.Log(close[t] / close[t - 1]);
+            }
+
+            _closeReturn = new PrefixSum(series);
+            _closeReturnSquared = new PrefixSum(series, squares: true);
+            if (!HasRange)
+            {
+                return;
+            }
+
+            var open = prices.Open;
+            var high = prices.High;
+            var low = prices.Low;
+            var second = pool.Rent(n);
+            var third = pool.Rent(n);
+            var fourth = pool.Rent(n);
+            var fifth = pool.Rent(n);
+            try
+            {
+                var parkinson = second.AsSpan(0, n);
+                var garmanKlass = third.AsSpan(0, n);
+                var rogersSatchell = fourth.AsSpan(0, n);
+                var openToClose = fifth.AsSpan(0, n);
+                for (var t = 0; t < series.Length; t++)
+                {
+                    var o = open[t];
+                    var u = Math.Log(high[t] / o);
+                    var d = Math.Log(low[t] / o);
+                    var c = Math.Log(close[t] / o);
+                    parkinson[t] = BarVariance.ParkinsonFromLogs(u, d);
+                    garmanKlass[t] = BarVariance.GarmanKlassFromLogs(u, d, c);
+                    rogersSatchell[t] = BarVariance.RogersSatchellFromLogs(u, d, c);
+                    openToClose[t] = c;
+                    series[t] = t > 0 ? Math.Log(o / close[t - 1]) : 0.0;
+                }
+
+                _parkinson = new PrefixSum(parkinson);
+                _garmanKlass = new PrefixSum(garmanKlass);
+                _rogersSatchell = new PrefixSum(rogersSatchell);
+                _overnight = new PrefixSum(series);
+                _overnightSquared = new PrefixSum(series, squares: true);
+                _openToClose = new PrefixSum(openToClose);
+                _openToCloseSquared = new PrefixSum(openToClose, squares: true);
+            }
+            finally
+            {
+                pool.Return(second);
+                pool.Return(third);
+                pool.Return(fourth);
+                pool.Return(fifth);
             }
         }
-
-        _parkinson = new PrefixSum(parkinson);
-        _garmanKlass = new PrefixSum(garmanKlass);
-        _rogersSatchell = new PrefixSum(rogersSatchell);
-        _overnight = new PrefixSum(a);
-        _overnightSquared = PrefixSum.OfSquares(a);
-        _openToClose = new PrefixSum(c);
-        _openToCloseSquared = PrefixSum.OfSquares(c);
+        finally
+        {
+            pool.Return(first);
+        }
     }
 
     /// <summary>Gets the number of rows in the history the terms were built from.</summary>

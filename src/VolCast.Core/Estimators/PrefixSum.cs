@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace VolCast.Core.Estimators;
 
 /// <summary>
@@ -8,33 +10,31 @@ namespace VolCast.Core.Estimators;
 /// <remarks>
 /// An add-and-subtract rolling sum drifts: every step leaves a rounding error behind, and over tens of
 /// thousands of bars these add up. Here each addition is an error-free transformation (Knuth's TwoSum):
-/// the rounding error of every step is kept in <c>_low</c>, so the prefix sum P[i] = Σ x[j&lt;i] is
-/// <c>_high[i] + _low[i]</c> to about 1e-32 relative. A window sum is (high difference) + (low difference);
-/// the high difference of two close neighbours is exact or rounded once, so nothing accumulates.
+/// the rounding error of every step is kept in the low part, so the prefix sum P[i] = Σ x[j&lt;i] is
+/// high[i] + low[i] to about 1e-32 relative. A window sum is (high difference) + (low difference); the high
+/// difference is itself split exactly, so nothing accumulates.  Filled once by its owner while it is built, then only read.
 /// </remarks>
 internal sealed class PrefixSum
 {
-    private readonly double[] _high;
-    private readonly double[] _low;
+    private readonly double[] _highs;
+    private readonly double[] _lows;
 
-    /// <summary>Builds the prefix sums of <paramref name="terms"/>; element i covers terms[0 .. i − 1].</summary>
-    public PrefixSum(ReadOnlySpan<double> terms)
-        : this(terms, squared: false)
+    /// <summary>Builds the prefix sums of <paramref name="terms"/> (or of their squares); element i covers terms[0 .. i − 1].</summary>
+    /// <param name="terms">The per-bar series.</param>
+    /// <param name="squares">True to sum x², each square's rounding error recovered exactly by a fused multiply-add.</param>
+    public PrefixSum(ReadOnlySpan<double> terms, bool squares = false)
     {
-    }
-
-    private PrefixSum(ReadOnlySpan<double> values, bool squared)
-    {
-        _high = new double[values.Length + 1];
-        _low = new double[values.Length + 1];
+        // Two arrays rather than interleaved pairs: each stays under the large-object threshold for a few
+        // thousand bars, which keeps repeated builds out of generation-2 collections.
+        var highs = new double[terms.Length + 1];
+        var lows = new double[terms.Length + 1];
         double high = 0, low = 0;
-        for (var i = 0; i < values.Length; i++)
+        for (var i = 0; i < terms.Length; i++)
         {
-            var x = values[i];
+            var x = terms[i];
             var extra = 0.0;
-            if (squared)
+            if (squares)
             {
-                // The rounding error of x² is recovered exactly by a fused multiply-add and kept with the rest.
                 var square = x * x;
                 extra = Math.FusedMultiplyAdd(x, x, -square);
                 x = square;
@@ -44,50 +44,64 @@ internal sealed class PrefixSum
             var virtualX = sum - high;
             low += (high - (sum - virtualX)) + (x - virtualX) + extra;
             high = sum;
-            _high[i + 1] = high;
-            _low[i + 1] = low;
+            highs[i + 1] = sum;
+            lows[i + 1] = low;
         }
+
+        _highs = highs;
+        _lows = lows;
     }
 
-    /// <summary>Builds the prefix sums of the squares of <paramref name="values"/>, each square carried exactly.</summary>
-    public static PrefixSum OfSquares(ReadOnlySpan<double> values) => new(values, squared: true);
-
     /// <summary>Returns the sum of terms[end − length + 1 .. end] (both inclusive).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public double Window(int end, int length)
     {
         var stop = end + 1;
         var start = stop - length;
-        return (_high[stop] - _high[start]) + (_low[stop] - _low[start]);
+        return (_highs[stop] - _highs[start]) + (_lows[stop] - _lows[start]);
     }
 
     /// <summary>Returns the same window sum as a double-double (<paramref name="high"/> + <paramref name="low"/>).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public void Window(int end, int length, out double high, out double low)
     {
         var stop = end + 1;
         var start = stop - length;
-        var a = _high[stop];
-        var b = -_high[start];
+        var a = _highs[stop];
+        var b = -_highs[start];
         var sum = a + b;
         var virtualB = sum - a;
-        var error = (a - (sum - virtualB)) + (b - virtualB) + (_low[stop] - _low[start]);
+        var error = (a - (sum - virtualB)) + (b - virtualB) + (_lows[stop] - _lows[start]);
         high = sum + error;
         low = error - (high - sum);
     }
-
     /// <summary>
     /// Returns the sample variance (divisor n − 1) of a window from the prefix sums of x and x², with the
     /// cancellation in Σx² − (Σx)²/n done in double-double arithmetic.
     /// </summary>
     /// <remarks>
     /// In plain doubles that difference loses about log10(Σx² / Σ(x − x̄)²) digits: a window of nearly equal
-    /// returns after a turbulent period would be off in the tenth digit. Carried in double-double, the result is
-    /// accurate to a few units in the last place of the variance itself. A window of identical values gives zero.
+    /// returns would be off in the tenth digit. When more than one bit would be lost it is carried in
+    /// double-double, so the result is accurate to a few units in the last place of the variance itself either
+    /// way. A window of identical values gives zero.
     /// </remarks>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public static double SampleVariance(PrefixSum sum, PrefixSum sumOfSquares, int end, int length)
     {
+        double n = length;
+
+        // Fast path: when (Σx)²/n is at most half of Σx² (daily returns, whose mean is small beside their spread)
+        // the subtraction loses at most one bit and plain doubles are accurate to a few units in the last place.
+        var s1 = sum.Window(end, length);
+        var s2 = sumOfSquares.Window(end, length);
+        var meanPart = s1 * s1 / n;
+        if (meanPart <= 0.5 * s2)
+        {
+            return (s2 - meanPart) / (n - 1);
+        }
+
         sum.Window(end, length, out var s1High, out var s1Low);
         sumOfSquares.Window(end, length, out var s2High, out var s2Low);
-        double n = length;
 
         // (Σx)² as a double-double: exact product of the high parts (fused multiply-add) plus the cross term.
         var square = s1High * s1High;
