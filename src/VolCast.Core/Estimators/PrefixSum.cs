@@ -26,8 +26,11 @@ internal sealed class PrefixSum
     {
         // Two arrays rather than interleaved pairs: each stays under the large-object threshold for a few
         // thousand bars, which keeps repeated builds out of generation-2 collections.
-        var highs = new double[terms.Length + 1];
-        var lows = new double[terms.Length + 1];
+        // Every element is written below, so the arrays need not be zeroed first.
+        var highs = GC.AllocateUninitializedArray<double>(terms.Length + 1);
+        var lows = GC.AllocateUninitializedArray<double>(terms.Length + 1);
+        highs[0] = 0;
+        lows[0] = 0;
         double high = 0, low = 0;
         for (var i = 0; i < terms.Length; i++)
         {
