@@ -31,6 +31,7 @@ public static class HtmlReport
         table{border-collapse:collapse;margin:.4em 0 .8em;font-size:.95em}
         th,td{border:1px solid #bbb;padding:4px 10px;text-align:right;vertical-align:top}
         th:first-child,td:first-child{text-align:left}
+        table.text th,table.text td{text-align:left}
         thead th{background:#f0f0f0}
         th .unit{display:block;font-weight:normal;font-size:.85em;color:#444}
         .note{font-size:.9em;color:#333}
@@ -145,7 +146,7 @@ public static class HtmlReport
 
     private static void Quality(StringBuilder html, DataQuality quality)
     {
-        html.Append("<section id=\"data-quality\">\n<h2>Data quality</h2>\n<table>\n<tbody>\n");
+        html.Append("<section id=\"data-quality\">\n<h2>Data quality</h2>\n<table class=\"text\">\n<tbody>\n");
         Row(html, "Price rows read", quality.RowsRead.ToString(CultureInfo.InvariantCulture));
         Row(html, "Rows dropped", quality.RowsDropped.ToString(CultureInfo.InvariantCulture));
         Row(html, "Dates scored", quality.ForecastDates.ToString(CultureInfo.InvariantCulture));
@@ -168,7 +169,7 @@ public static class HtmlReport
 
     private static void Run(StringBuilder html, RunInfo run)
     {
-        html.Append("<section id=\"run\">\n<h2>Settings and inputs</h2>\n<table>\n<tbody>\n");
+        html.Append("<section id=\"run\">\n<h2>Settings and inputs</h2>\n<table class=\"text\">\n<tbody>\n");
         Row(html, "Tool version", "volcast " + run.ToolVersion);
         Row(html, "Run started (UTC)", run.StartedAt.ToUniversalTime().ToString("yyyy-MM-dd HH:mm:ss", CultureInfo.InvariantCulture));
         Row(html, "Run time", run.Elapsed.TotalSeconds.ToString("0.00", CultureInfo.InvariantCulture) + " s");
@@ -177,7 +178,7 @@ public static class HtmlReport
             Row(html, setting.Name, setting.Value);
         }
 
-        html.Append("</tbody>\n</table>\n<h3>Input files</h3>\n<table>\n<thead><tr><th>Role</th><th>File</th><th>SHA-256</th></tr></thead>\n<tbody>\n");
+        html.Append("</tbody>\n</table>\n<h3>Input files</h3>\n<table class=\"text\">\n<thead><tr><th>Role</th><th>File</th><th>SHA-256</th></tr></thead>\n<tbody>\n");
         foreach (var input in run.Inputs)
         {
             html.Append("<tr><td>").Append(E(input.Role)).Append("</td><td><code>").Append(E(input.Path))

@@ -39,6 +39,15 @@ public sealed class ReportChartsTests
     }
 
     [Fact]
+    public void ChartFont_IsInstalled_SoLabelsRender()
+    {
+        // Without DejaVu (Debian's fonts-dejavu-core, installed by .ci/run) SkiaSharp falls back to a font that may lack glyphs.
+        using var typeface = SkiaSharp.SKTypeface.FromFamilyName("DejaVu Sans");
+
+        Assert.Equal("DejaVu Sans", typeface.FamilyName);
+    }
+
+    [Fact]
     public void Charts_SameInput_SameBytes()
     {
         var first = ReportCharts.Cone(Sample.Cone, Sample.Overlays);
