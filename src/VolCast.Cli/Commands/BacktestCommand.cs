@@ -1,11 +1,8 @@
-using System.Collections.Immutable;
 using System.CommandLine;
 using System.Globalization;
-using System.Reflection;
 using VolCast.Core.Backtest;
 using VolCast.IO;
 using VolCast.IO.Config;
-using VolCast.IO.Results;
 
 namespace VolCast.Cli.Commands;
 
@@ -46,7 +43,6 @@ internal static class BacktestCommand
 
     private static int Run(CliConsole console, Arguments a)
     {
-        var started = DateTimeOffset.UtcNow;
         if (a.Horizon is not null && a.Tenor is not null)
         {
             throw new UsageException("give either --horizon (trading days) or --tenor (calendar days such as 30d), not both.");
@@ -88,64 +84,18 @@ internal static class BacktestCommand
             throw new UsageException($"{outFolder}: the output folder already exists; choose another --out or pass --force to replace its results files.");
         }
 
-        var priceLoad = PriceFileReader.Read(a.Prices);
-        var inputWarnings = new List<string>();
-        foreach (var warning in priceLoad.Warnings)
-        {
-            console.Warn(warning.ToString());
-            inputWarnings.Add(warning.ToString());
-        }
-
-        ImpliedLoad? impliedLoad = null;
-        if (a.Implied is not null)
-        {
-            var unit = a.IvUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };
-            impliedLoad = ImpliedFileReader.Read(a.Implied, unit);
-            foreach (var warning in impliedLoad.Warnings)
-            {
-                console.Warn(warning.ToString());
-                inputWarnings.Add(warning.ToString());
-            }
-        }
-
+        var unit = a.IvUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };
+        var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestResult result;
         try
         {
-            result = Backtester.Run(priceLoad.History, impliedLoad?.Series, settings, progress: progress);
+            (result, _) = BacktestPipeline.Run(job, console.Warn, progress);
         }
-        catch (BacktestDataException ex)
+        finally
         {
             progress.Finish();
-            throw new InputDataException(a.Implied is not null && ex.Message.StartsWith("No date is shared", StringComparison.Ordinal) ? a.Implied : a.Prices, null, null, ex.Message);
         }
-        catch (ArgumentException ex)
-        {
-            progress.Finish();
-            throw new UsageException(ex.Message);
-        }
-
-        progress.Finish();
-        var inputs = ImmutableArray.CreateBuilder<InputFileInfo>();
-        inputs.Add(new InputFileInfo("prices", a.Prices, priceLoad.Sha256));
-        if (impliedLoad is not null)
-        {
-            inputs.Add(new InputFileInfo("implied", a.Implied!, impliedLoad.Sha256));
-        }
-
-        if (a.Config is not null)
-        {
-            inputs.Add(new InputFileInfo("config", a.Config, Sha256(a.Config)));
-        }
-
-        var run = new BacktestRunInfo(
-            ToolVersion(),
-            inputs.ToImmutable(),
-            started,
-            DateTimeOffset.UtcNow,
-            impliedLoad is null ? null : (impliedLoad.UnitUsed == ImpliedUnit.Percent ? "percent" : "decimal") + (impliedLoad.UnitInferred ? " (inferred)" : string.Empty),
-            [.. inputWarnings]);
-        BacktestResultsWriter.Write(outFolder, result, run, a.Force);
 
         var head = result.BaselineVersusCandidate;
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
@@ -162,15 +112,6 @@ internal static class BacktestCommand
             : throw new UsageException($"{option} must be a date written yyyy-MM-dd (was '{text}').");
 
     private static string Show(double? value) => value is double v && double.IsFinite(v) ? v.ToString("F4", CultureInfo.InvariantCulture) : "n/a";
-
-    private static string Sha256(string path)
-    {
-        using var stream = File.OpenRead(path);
-        return Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(stream));
-    }
-
-    private static string ToolVersion() =>
-        typeof(BacktestCommand).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
 
     private sealed record Arguments(
         string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force);
