@@ -48,12 +48,38 @@ public static class GarchFitter
         return Fit(returns, options, start, null);
     }
 
-    /// <summary>Fits starting from a previous fit's parameters and optimizer state.</summary>
+    /// <summary>
+    /// Fits starting from a previous fit's parameters and optimizer state (a walk-forward refit). When that estimate
+    /// ends on a constraint or does not converge, the window is also fitted from the cold start and the fit with the
+    /// higher likelihood is returned (a converged one before one that did not converge).
+    /// </summary>
+    /// <remarks>
+    /// The GJR likelihood often has two local maxima on short windows, one with γ = 0 and one with α = 0; which one is
+    /// higher changes as the window rolls. A chain of warm starts alone stays in whichever it first met, and on the
+    /// α = 0 side drifts to β → 1 with α, γ → 0, where the variance no longer reacts to returns. Both local maxima lie
+    /// on a constraint, so a warm estimate that is interior is kept without the extra fit.
+    /// </remarks>
     internal static GarchFit Fit(ReadOnlySpan<double> returns, GarchFitOptions options, GarchFit previous)
     {
+        ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(previous);
-        return Fit(returns, options, previous.Parameters,
-            previous.Variant == options.Variant && previous.IncludeMean == options.IncludeMean ? previous.InverseHessian : null);
+
+        // The optimizer state is only reused from an interior estimate: on a constraint its curvature along the
+        // coordinate that ran off is meaningless once the start is moved back inside.
+        var reuse = previous.Variant == options.Variant && previous.IncludeMean == options.IncludeMean && previous.ParametersOnBound.Count == 0;
+        var warm = Fit(returns, options, previous.Parameters, reuse ? previous.InverseHessian : null);
+        if (warm.Converged && warm.ParametersOnBound.Count == 0)
+        {
+            return warm;
+        }
+
+        var cold = Fit(returns, options, null, null);
+        if (warm.Converged != cold.Converged)
+        {
+            return warm.Converged ? warm : cold;
+        }
+
+        return cold.LogLikelihood > warm.LogLikelihood ? cold : warm;
     }
 
     private static GarchFit Fit(ReadOnlySpan<double> returns, GarchFitOptions options, GarchParameters? start, double[]? inverseHessian)

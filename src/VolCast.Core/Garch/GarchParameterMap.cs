@@ -11,6 +11,9 @@ namespace VolCast.Core.Garch;
 internal sealed class GarchParameterMap
 {
     private const double StartPersistence = 0.95;
+
+    // Smallest share of the persistence a weight gets in a warm start (see ToUnconstrained).
+    private const double WarmStartShareFloor = 0.01;
     private readonly int _offset;
 
     /// <summary>Creates the map for one model shape.</summary>
@@ -65,7 +68,10 @@ internal sealed class GarchParameterMap
         return theta;
     }
 
-    /// <summary>Returns θ for parameters in original units, given the scale the returns were divided by; values on a constraint are nudged inside.</summary>
+    /// <summary>
+    /// Returns θ for parameters in original units, given the scale the returns were divided by. A weight (α, γ/2, β) below
+    /// 1% of the persistence is raised to it, so that a start from a fit that ended on a constraint can leave it.
+    /// </summary>
     public double[] ToUnconstrained(GarchParameters p, double scale)
     {
         var theta = new double[Dimension];
@@ -78,7 +84,9 @@ internal sealed class GarchParameterMap
         var gamma = Variant == GarchVariant.GjrGarch ? p.Gamma : 0;
         var persistence = Math.Clamp(p.Alpha + p.Beta + (0.5 * gamma), 1e-4, 1 - 1e-8);
         theta[_offset + 1] = Logit(persistence);
-        var floor = 1e-8;
+        // A weight at (or near) zero would map to a coordinate far out on the flat tail of the logistic / softmax,
+        // where its gradient vanishes: the fit could never move it back inside, however much the likelihood wanted it.
+        var floor = WarmStartShareFloor * persistence;
         var a = Math.Max(p.Alpha, floor);
         var b = Math.Max(p.Beta, floor);
         if (Variant == GarchVariant.GjrGarch)
