@@ -7,7 +7,7 @@ namespace VolCast.Core.Calibration;
 /// <remarks>
 /// <see cref="ShareWithin"/> uses every date with a forecast (overlapping windows; a fair share, but its draws are
 /// not independent). The tests use non-overlapping dates only: every h-th aligned date from the first (indices 0, h,
-/// 2h, …), skipping a sampled date with no forecast; Christoffersen's transitions are counted only between
+/// 2h, …; with a per-date horizon, the next sampled date is t + h_t), skipping a sampled date with no forecast; Christoffersen's transitions are counted only between
 /// consecutive sampled dates that both have a forecast, so a gap never joins two distant dates. When fewer than the
 /// configured minimum of sampled dates have a forecast, <see cref="Status"/> is
 /// <see cref="CoverageTestStatus.NotEnoughData"/> and the three tests are null.

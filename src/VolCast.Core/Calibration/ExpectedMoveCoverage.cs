@@ -5,7 +5,7 @@ namespace VolCast.Core.Calibration;
 
 /// <summary>
 /// Backtests the expected-move ranges a volatility forecast implies: the standardized move
-/// z = ln(S_{t+h}/S_t) / (σ_F √(h/A)), the shares of |z| ≤ 1 and |z| ≤ 2 against 68.27% and 95.45%, the Kupiec and
+/// z = ln(S_{t+h}/S_t) / (σ_F √(h_t/A)), the shares of |z| ≤ 1 and |z| ≤ 2 against 68.27% and 95.45%, the Kupiec and
 /// Christoffersen tests on non-overlapping dates, and the tails.
 /// </summary>
 /// <remarks>
@@ -33,7 +33,8 @@ public static class ExpectedMoveCoverage
         CalibrationGuard.Aligned(outcomes, forecaster);
 
         var h = outcomes.HorizonDays;
-        var sqrtTau = Math.Sqrt(h / options.AnnualizationFactor);
+        var windows = outcomes.WindowArray;
+        var annualization = options.AnnualizationFactor;
         var start = outcomes.StartArray;
         var end = outcomes.EndArray;
         var sigmas = forecaster.Values;
@@ -50,7 +51,7 @@ public static class ExpectedMoveCoverage
                 continue;
             }
 
-            var value = Math.Log(end[t] / start[t]) / (sigma * sqrtTau);
+            var value = Math.Log(end[t] / start[t]) / (sigma * Math.Sqrt(windows[t] / annualization));
             z[t] = value;
             var a = Math.Abs(value);
             count++;
@@ -65,7 +66,7 @@ public static class ExpectedMoveCoverage
         foreach (var bound in Bounds)
         {
             var within = bound == 1.0 ? within1 : within2;
-            levels.Add(TestLevel(z, h, bound, count == 0 ? null : (double)within / count, options.MinimumNonOverlappingSamples));
+            levels.Add(TestLevel(z, windows, bound, count == 0 ? null : (double)within / count, options.MinimumNonOverlappingSamples));
         }
 
         return new CoverageResult(
@@ -86,14 +87,15 @@ public static class ExpectedMoveCoverage
     /// <returns>The nominal coverage: 0.682689… for 1, 0.954499… for 2.</returns>
     public static double NominalCoverage(double bound) => 2 * StandardNormal.Cdf(bound) - 1;
 
-    private static CoverageLevelResult TestLevel(double?[] z, int h, double bound, double? shareWithin, int minimum)
+    private static CoverageLevelResult TestLevel(double?[] z, int[] windows, double bound, double? shareWithin, int minimum)
     {
         var nominal = NominalCoverage(bound);
 
-        // Every h-th date from the first: their h-day windows do not overlap.
+        // From the first date, each next sampled date is the one where the last sampled window ends (t + h_t): the
+        // windows do not overlap. With a fixed horizon that is every h-th date.
         int sampled = 0, failures = 0, n00 = 0, n01 = 0, n10 = 0, n11 = 0;
         bool? previous = null;
-        for (var t = 0; t < z.Length; t += h)
+        for (var t = 0; t < z.Length; t += windows[t])
         {
             if (z[t] is not { } value)
             {

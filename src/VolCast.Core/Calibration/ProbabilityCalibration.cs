@@ -9,7 +9,7 @@ namespace VolCast.Core.Calibration;
 /// </summary>
 /// <remarks>
 /// <para>
-/// On each date with a forecast σ_F: τ = h / A (trading-day time, see <see cref="CalibrationOptions"/>),
+/// On each date with a forecast σ_F: τ = h_t / A (trading-day time, see <see cref="CalibrationOptions"/>),
 /// p = N(d2) with d2 = [ln(1/m) + (r − q − σ_F²/2)τ] / (σ_F√τ) (<see cref="AboveStrikeProbability"/>), outcome
 /// 1 when S_{t+h} &gt; m·S_t. Scores: the Brier score with its Murphy (1973) decomposition over equal-width bins
 /// (<see cref="BrierDecomposition"/>), the log score with p clipped to [ε, 1 − ε], and the reliability table with
@@ -40,9 +40,9 @@ public static class ProbabilityCalibration
         CalibrationGuard.Aligned(outcomes, forecaster);
 
         var h = outcomes.HorizonDays;
-        var tau = h / options.AnnualizationFactor;
-        var sqrtTau = Math.Sqrt(tau);
-        var driftTau = (options.RiskFreeRate - options.DividendYield) * tau;
+        var windows = outcomes.WindowArray;
+        var drift = options.RiskFreeRate - options.DividendYield;
+        var annualization = options.AnnualizationFactor;
         var moneyness = options.Moneyness;
         var strikes = moneyness.Length;
         var logInverseMoneyness = new double[strikes];
@@ -66,7 +66,10 @@ public static class ProbabilityCalibration
                 continue;
             }
 
-            var sd = sigma * sqrtTau;
+            // τ = h_t / A in trading-day time; σ√τ and the drift are per date, ln(1/m) per strike.
+            var tau = windows[t] / annualization;
+            var sd = sigma * Math.Sqrt(tau);
+            var driftTau = drift * tau;
             var growth = end[t] / start[t];
             for (var j = 0; j < strikes; j++)
             {
