@@ -1,5 +1,5 @@
-using Xunit.Abstractions;
 using VolCast.Core.Calibration;
+using Xunit.Abstractions;
 
 namespace VolCast.Core.Tests.Calibration;
 
