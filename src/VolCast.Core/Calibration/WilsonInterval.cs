@@ -12,9 +12,10 @@ namespace VolCast.Core.Calibration;
 /// Why n_eff = n / h: the outcome on date t depends on returns t+1 .. t+h, so outcomes on dates j apart share
 /// h − j of their h returns. For the h-day return itself the correlation is exactly 1 − j/h; taking the same
 /// triangle for the outcome indicator, the variance of a mean of many consecutive outcomes is inflated by
-/// 1 + 2 Σ_{j=1}^{h−1} (1 − j/h) = h, which is the same as having n / h independent outcomes. The dates in one
-/// probability bin are usually not all consecutive, so this widening is on the cautious side; it needs no estimate
-/// from the data, which matters in thin bins.
+/// 1 + 2 Σ_{j=1}^{h−1} (1 − j/h) = h, which is the same as having n / h independent outcomes. This is on the cautious
+/// side twice over: for the sign of a Gaussian sum the indicator's correlation is (2/π)·arcsin(ρ) ≤ ρ, and the dates
+/// in one probability bin are usually not all consecutive. It needs no estimate from the data, which matters in thin
+/// bins.
 /// </para>
 /// </remarks>
 public static class WilsonInterval

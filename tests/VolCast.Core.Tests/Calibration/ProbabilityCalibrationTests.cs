@@ -1,3 +1,4 @@
+using FsCheck.Xunit;
 using VolCast.Core.Calibration;
 using VolCast.Core.Options;
 
@@ -54,6 +55,25 @@ public sealed class ProbabilityCalibrationTests
             Assert.Equal(d.Brier, d.Reliability - d.Resolution + d.Uncertainty + d.WithinBinVariance - d.WithinBinCovariance, 12);
             Assert.True(d.WithinBinVariance > 0);
         }
+    }
+
+    [Property(MaxTest = 300)]
+    public bool Decompose_AnyForecastsAndBins_IdentityHolds(FsCheck.NonEmptyArray<FsCheck.NonNegativeInt> raw, FsCheck.PositiveInt bins)
+    {
+        // Same identity as above (Murphy 1973 with the within-bin terms [D]) for arbitrary inputs: forecasts k/1000
+        // clamped to [0, 1] (so 0, 1 and bin edges occur), outcome = forecast parity, 1 to 50 bins.
+        var values = raw.Get;
+        var p = new double[values.Length];
+        var o = new bool[values.Length];
+        for (var i = 0; i < values.Length; i++)
+        {
+            p[i] = Math.Min(values[i].Get, 1000) / 1000.0;
+            o[i] = values[i].Get % 2 == 1;
+        }
+
+        var d = ProbabilityCalibration.Decompose(p, o, 1 + (bins.Get % 50));
+        var sum = d.Reliability - d.Resolution + d.Uncertainty + d.WithinBinVariance - d.WithinBinCovariance;
+        return Math.Abs(d.Brier - sum) <= 1e-12 && Math.Abs(d.Brier - NaiveBrier(p, o)) <= 1e-12 && d.Reliability >= 0 && d.Resolution >= 0;
     }
 
     [Fact]
