@@ -23,6 +23,8 @@ internal static class Program
         root.Subcommands.Add(MakeDemoDataCommand.Create(console));
         root.Subcommands.Add(ImpliedCommand.Create(console));
         root.Subcommands.Add(FitCommand.Create(console));
+        root.Subcommands.Add(ConeCommand.Create(console));
+        root.Subcommands.Add(BacktestCommand.Create(console));
 
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)

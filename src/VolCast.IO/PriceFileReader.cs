@@ -15,8 +15,8 @@ namespace VolCast.IO;
 /// matched case-insensitively ignoring spaces, underscores, hyphens and dots ("Adj Close", "adj_close",
 /// "AdjClose", "Adjusted Close"); other columns are ignored with one warning. Dates are ISO 8601 yyyy-MM-dd,
 /// numbers use '.' as the decimal point (invariant culture). Blank lines are skipped.</para>
-/// <para>Each row must parse completely; prices must be finite, above zero and below 1e15 (larger values are
-/// taken as corrupt cells); high ≥ low and open and close must lie within [low, high]; volume, when given, must be
+/// <para>Each row must parse completely; prices must be finite, at least 1e-8 and below 1e15 (values outside are
+/// taken as corrupt cells, and the bounds keep every log price ratio finite); high ≥ low and open and close must lie within [low, high]; volume, when given, must be
 /// a finite number ≥ 0 or blank. A date may appear once. Rows out of date order are sorted (with a warning).</para>
 /// <para>Adjusted close: when <c>adj_close</c> is present, each row's open, high, low and close are multiplied
 /// by f = adj_close / close, so the close becomes adj_close (to rounding) and splits and dividends do not show up
@@ -28,6 +28,10 @@ public static class PriceFileReader
 {
     /// <summary>Prices at or above this are refused as corrupt cells (no traded price comes near it).</summary>
     public const double MaxPrice = 1e15;
+
+    /// <summary>The smallest price accepted. Together with <see cref="MaxPrice"/> it keeps every log price ratio of a
+    /// bar finite (the estimators take logarithms of high/low and close/open); smaller values are taken as corrupt cells.</summary>
+    public const double MinPrice = 1e-8;
 
     private const string Expected = "date, open, high, low, close (optional adj_close, volume), or date, close for a close-only file";
     private const string PriceExpected = "a price above zero, such as 101.25";
@@ -210,7 +214,7 @@ public static class PriceFileReader
         if (!Plausible(factor) || !Plausible(bar.Close) || (layout.HasRange && !(Plausible(bar.Open) && Plausible(bar.High) && Plausible(bar.Low))))
         {
             throw new InputDataException(file, line, header.Names[layout.AdjClose], string.Create(CultureInfo.InvariantCulture,
-                $"adjusting by adj_close / close = {ValueText.Number(adj)} / {ValueText.Number(close)} = {ValueText.Number(factor)} takes a price out of range (above zero and below {MaxPrice:0e0}); expected an adjusted close of the same order as the close."));
+                $"adjusting by adj_close / close = {ValueText.Number(adj)} / {ValueText.Number(close)} = {ValueText.Number(factor)} takes a price out of range (at least {MinPrice:0e0} and below {MaxPrice:0e0}); expected an adjusted close of the same order as the close."));
         }
 
         return bar;
@@ -226,6 +230,12 @@ public static class PriceFileReader
                 ValueText.Quote(row.Cells[index].Trim()) + " is not above zero; expected " + PriceExpected + ".");
         }
 
+        if (value < MinPrice)
+        {
+            throw new InputDataException(file, row.Line, column, ValueText.Quote(row.Cells[index].Trim()) + string.Create(CultureInfo.InvariantCulture,
+                $" is too small to be a price; expected a price of at least {MinPrice:0e0}, such as 101.25 (is the cell corrupt?)."));
+        }
+
         if (value >= MaxPrice)
         {
             throw new InputDataException(file, row.Line, column, ValueText.Quote(row.Cells[index].Trim()) + string.Create(CultureInfo.InvariantCulture,
@@ -235,7 +245,7 @@ public static class PriceFileReader
         return value;
     }
 
-    private static bool Plausible(double value) => double.IsFinite(value) && value > 0 && value < MaxPrice;
+    private static bool Plausible(double value) => double.IsFinite(value) && value >= MinPrice && value < MaxPrice;
 
     private static void CheckWithinRange(double value, int index, double low, double high, int line, HeaderMap header, string file)
     {

@@ -17,8 +17,8 @@ namespace VolCast.Benchmarks.Estimators;
 public class EstimatorBenchmarks
 {
     private const int OneWindow = 21;
-    private static readonly int[] _sweepWindows = [5, 10, 15, 21, 42, 63, 126, 252];
-    private static readonly Estimator[] _estimators = [Estimator.CloseToClose, Estimator.Parkinson, Estimator.GarmanKlass, Estimator.RogersSatchell, Estimator.YangZhang];
+    private static readonly int[] SweepWindows = [5, 10, 15, 21, 42, 63, 126, 252];
+    private static readonly Estimator[] Estimators = [Estimator.CloseToClose, Estimator.Parkinson, Estimator.GarmanKlass, Estimator.RogersSatchell, Estimator.YangZhang];
 
     private PriceHistory _prices = null!;
     private double[] _buffer = null!;
@@ -41,7 +41,7 @@ public class EstimatorBenchmarks
     public double NaiveAllFive()
     {
         double checksum = 0;
-        foreach (var estimator in _estimators)
+        foreach (var estimator in Estimators)
         {
             checksum += NaiveEstimators.AnnualizedSeries(_prices, estimator, OneWindow)[^1];
         }
@@ -56,7 +56,7 @@ public class EstimatorBenchmarks
     {
         var terms = EstimatorTerms.From(_prices);
         double checksum = 0;
-        foreach (var estimator in _estimators)
+        foreach (var estimator in Estimators)
         {
             var count = terms.RollingAnnualizedVolatility(estimator, OneWindow, _buffer);
             checksum += _buffer[count - 1];
@@ -71,7 +71,7 @@ public class EstimatorBenchmarks
     public double AllFiveThroughCompute()
     {
         double checksum = 0;
-        foreach (var estimator in _estimators)
+        foreach (var estimator in Estimators)
         {
             checksum += RollingVolatility.Compute(_prices, estimator, OneWindow).AnnualizedVolatility[^1];
         }
@@ -90,7 +90,7 @@ public class EstimatorBenchmarks
     public double RollingOnlyAllFive()
     {
         double checksum = 0;
-        foreach (var estimator in _estimators)
+        foreach (var estimator in Estimators)
         {
             var count = _terms.RollingAnnualizedVolatility(estimator, OneWindow, _buffer);
             checksum += _buffer[count - 1];
@@ -104,9 +104,9 @@ public class EstimatorBenchmarks
     public double NaiveSweep()
     {
         double checksum = 0;
-        foreach (var window in _sweepWindows)
+        foreach (var window in SweepWindows)
         {
-            foreach (var estimator in _estimators)
+            foreach (var estimator in Estimators)
             {
                 checksum += NaiveEstimators.AnnualizedSeries(_prices, estimator, window)[^1];
             }
@@ -121,9 +121,9 @@ public class EstimatorBenchmarks
     {
         var terms = EstimatorTerms.From(_prices);
         double checksum = 0;
-        foreach (var window in _sweepWindows)
+        foreach (var window in SweepWindows)
         {
-            foreach (var estimator in _estimators)
+            foreach (var estimator in Estimators)
             {
                 var count = terms.RollingAnnualizedVolatility(estimator, window, _buffer);
                 checksum += _buffer[count - 1];

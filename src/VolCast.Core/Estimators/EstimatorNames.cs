@@ -6,10 +6,10 @@ namespace VolCast.Core.Estimators;
 /// <remarks>Names are lower case with hyphens (<c>close-to-close</c>, <c>yang-zhang</c>); parsing ignores case.</remarks>
 public static class EstimatorNames
 {
-    private static readonly string[] _names = ["close-to-close", "parkinson", "garman-klass", "rogers-satchell", "yang-zhang"];
+    private static readonly string[] Names = ["close-to-close", "parkinson", "garman-klass", "rogers-satchell", "yang-zhang"];
 
     /// <summary>Gets every estimator name, in the order of <see cref="Estimator"/>.</summary>
-    public static IReadOnlyList<string> All { get; } = new ReadOnlyCollection<string>(_names);
+    public static IReadOnlyList<string> All { get; } = new ReadOnlyCollection<string>(Names);
 
     /// <summary>Returns the name of an estimator, for example <c>garman-klass</c>.</summary>
     /// <param name="e">The estimator.</param>
@@ -18,7 +18,7 @@ public static class EstimatorNames
     public static string Name(Estimator e)
     {
         EstimatorGuard.Defined(e, nameof(e));
-        return _names[(int)e];
+        return Names[(int)e];
     }
 
     /// <summary>Parses an estimator name, ignoring case.</summary>
@@ -27,9 +27,9 @@ public static class EstimatorNames
     /// <returns>True when the name is one of <see cref="All"/>.</returns>
     public static bool TryParse(string? name, out Estimator estimator)
     {
-        for (var i = 0; i < _names.Length; i++)
+        for (var i = 0; i < Names.Length; i++)
         {
-            if (string.Equals(_names[i], name, StringComparison.OrdinalIgnoreCase))
+            if (string.Equals(Names[i], name, StringComparison.OrdinalIgnoreCase))
             {
                 estimator = (Estimator)i;
                 return true;

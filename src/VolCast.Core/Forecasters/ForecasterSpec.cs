@@ -1,4 +1,5 @@
 using System.Globalization;
+using VolCast.Core.Estimators;
 using VolCast.Core.Garch;
 
 namespace VolCast.Core.Forecasters;
@@ -18,6 +19,7 @@ public static class ForecasterSpec
         "gjr-garch[:zero-mean]  (GJR-GARCH(1,1))",
         "har[:garman-klass]  (HAR on squared returns, or on the Garman-Klass range term)",
         "implied  (the implied-volatility series itself)",
+        "ESTIMATOR:WINDOW  (historical window, flat at today's rolling estimate; ESTIMATOR one of close-to-close, parkinson, garman-klass, rogers-satchell, yang-zhang; WINDOW at least 2 trading days; e.g. yang-zhang:21)",
     ];
 
     /// <summary>Parses a spec string into a forecaster.</summary>
@@ -66,8 +68,15 @@ public static class ForecasterSpec
             case "implied":
                 return parameter is null ? new ImpliedForecaster() : throw Invalid(spec, "implied takes no parameter");
             case "close-to-close" or "parkinson" or "garman-klass" or "rogers-satchell" or "yang-zhang":
-                // Historical-window forecasters wait for the rolling estimators; say so rather than "unknown".
-                throw Invalid(spec, $"historical-window forecasters ({name}:WINDOW) are not available in this build yet");
+                if (parameter is not null
+                    && int.TryParse(parameter, NumberStyles.None, CultureInfo.InvariantCulture, out var window)
+                    && window >= 2
+                    && EstimatorNames.TryParse(name, out var estimator))
+                {
+                    return new HistoricalWindowForecaster(estimator, window);
+                }
+
+                throw Invalid(spec, $"a historical-window forecaster is written {name}:WINDOW with WINDOW a whole number of trading days, at least 2 (was '{parameter ?? "missing"}')");
             default:
                 throw Invalid(spec, $"'{name}' is not a known forecaster");
         }

@@ -1,6 +1,7 @@
 using System.Globalization;
 using MathNet.Numerics.LinearAlgebra;
 using VolCast.Core.Data;
+using VolCast.Core.Estimators;
 
 namespace VolCast.Core.Forecasters;
 
@@ -103,12 +104,9 @@ internal sealed class HarForecaster : IVolatilityForecaster
                 var h = input.Prices.High;
                 var l = input.Prices.Low;
                 var c = input.Prices.Close;
-                var k = (2 * Math.Log(2)) - 1;
                 for (var d = 1; d < n; d++)
                 {
-                    var range = Math.Log(h[d] / l[d]);
-                    var body = Math.Log(c[d] / o[d]);
-                    _daily[d] = (0.5 * range * range) - (k * body * body);
+                    _daily[d] = BarVariance.GarmanKlass(o[d], h[d], l[d], c[d]);
                 }
             }
             else

@@ -1,4 +1,5 @@
 using System.Globalization;
+using VolCast.Core.Numerics;
 
 namespace VolCast.Core.Garch;
 
@@ -211,7 +212,7 @@ public static class GarchFitter
             }
         }
 
-        var inverse = SymmetricInverse.TryInvert(hessian);
+        var inverse = SymmetricMatrix.TryInvert(hessian);
         if (inverse is null)
         {
             return (null, null);

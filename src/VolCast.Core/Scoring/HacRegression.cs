@@ -1,5 +1,6 @@
 using System.Buffers;
 using System.Globalization;
+using VolCast.Core.Numerics;
 
 namespace VolCast.Core.Scoring;
 

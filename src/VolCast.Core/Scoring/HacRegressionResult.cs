@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Globalization;
 using MathNet.Numerics;
 using MathNet.Numerics.Distributions;
+using VolCast.Core.Numerics;
 
 namespace VolCast.Core.Scoring;
 

@@ -9,7 +9,7 @@ namespace VolCast.Core.Tests.Estimators;
 /// <summary>Invariants of the daily terms and the rolling estimators, as property tests.</summary>
 public sealed class BarVarianceTests
 {
-    private static readonly Estimator[] _all = [Estimator.CloseToClose, Estimator.Parkinson, Estimator.GarmanKlass, Estimator.RogersSatchell, Estimator.YangZhang];
+    private static readonly Estimator[] All = [Estimator.CloseToClose, Estimator.Parkinson, Estimator.GarmanKlass, Estimator.RogersSatchell, Estimator.YangZhang];
 
     [Fact]
     public void Constants_MatchPublishedValues()
@@ -65,7 +65,7 @@ public sealed class BarVarianceTests
         close.AsSpan(history.Count).Fill(flat);
         var terms = EstimatorTerms.From(PriceHistory.FromBars(Some.TradingDates(n), open, high, low, close));
 
-        foreach (var estimator in _all)
+        foreach (var estimator in All)
         {
             if (terms.RollingDailyVariance(estimator, window)[^1] != 0 || terms.RollingDailyVariance(estimator, window, zeroMean: true)[^1] != 0)
             {
@@ -84,7 +84,7 @@ public sealed class BarVarianceTests
         var factor = Math.Exp(Math.Clamp(logFactor.Get, -20, 20));
         var prices = Some.GbmBars(seed.Get, days: 80, overnightVolatility: 0.004);
         var scaled = Scale(prices, factor);
-        foreach (var estimator in _all)
+        foreach (var estimator in All)
         {
             foreach (var window in new[] { 2, 10, 40 })
             {

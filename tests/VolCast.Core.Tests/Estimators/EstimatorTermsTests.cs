@@ -5,7 +5,7 @@ namespace VolCast.Core.Tests.Estimators;
 
 public sealed class EstimatorTermsTests
 {
-    private static readonly int[] _sweepWindows = [5, 10, 15, 21, 42, 63, 126, 252];
+    private static readonly int[] SweepWindows = [5, 10, 15, 21, 42, 63, 126, 252];
 
     [Fact]
     public void RollingDailyVariance_SweepFromOneTermsObject_MatchesNaiveForEveryWindowAndEstimator()
@@ -15,7 +15,7 @@ public sealed class EstimatorTermsTests
         var buffer = new double[prices.Count];
         foreach (var estimator in Enum.GetValues<Estimator>())
         {
-            foreach (var window in _sweepWindows)
+            foreach (var window in SweepWindows)
             {
                 var written = terms.RollingAnnualizedVolatility(estimator, window, buffer);
 

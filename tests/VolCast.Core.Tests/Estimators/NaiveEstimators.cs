@@ -18,58 +18,58 @@ public static class NaiveEstimators
         switch (estimator)
         {
             case Estimator.CloseToClose:
-            {
-                var r = new double[window];
-                for (var i = 0; i < window; i++)
                 {
-                    r[i] = Math.Log(close[start + i] / close[start + i - 1]);
-                }
+                    var r = new double[window];
+                    for (var i = 0; i < window; i++)
+                    {
+                        r[i] = Math.Log(close[start + i] / close[start + i - 1]);
+                    }
 
-                return zeroMean ? SumOfSquares(r, 0.0) / window : SampleVariance(r);
-            }
+                    return zeroMean ? SumOfSquares(r, 0.0) / window : SampleVariance(r);
+                }
 
             case Estimator.Parkinson:
-            {
-                double sum = 0;
-                for (var t = start; t <= end; t++)
                 {
-                    var range = Math.Log(prices.High[t] / prices.Low[t]);
-                    sum += range * range;
-                }
+                    double sum = 0;
+                    for (var t = start; t <= end; t++)
+                    {
+                        var range = Math.Log(prices.High[t] / prices.Low[t]);
+                        sum += range * range;
+                    }
 
-                return sum / (4 * Math.Log(2) * window);
-            }
+                    return sum / (4 * Math.Log(2) * window);
+                }
 
             case Estimator.GarmanKlass:
-            {
-                double sum = 0;
-                for (var t = start; t <= end; t++)
                 {
-                    var range = Math.Log(prices.High[t] / prices.Low[t]);
-                    var c = Math.Log(prices.Close[t] / prices.Open[t]);
-                    sum += (0.5 * range * range) - (((2 * Math.Log(2)) - 1) * c * c);
-                }
+                    double sum = 0;
+                    for (var t = start; t <= end; t++)
+                    {
+                        var range = Math.Log(prices.High[t] / prices.Low[t]);
+                        var c = Math.Log(prices.Close[t] / prices.Open[t]);
+                        sum += (0.5 * range * range) - (((2 * Math.Log(2)) - 1) * c * c);
+                    }
 
-                return sum / window;
-            }
+                    return sum / window;
+                }
 
             case Estimator.RogersSatchell:
                 return RogersSatchell(prices, start, end) / window;
 
             case Estimator.YangZhang:
-            {
-                var o = new double[window];
-                var c = new double[window];
-                for (var i = 0; i < window; i++)
                 {
-                    var t = start + i;
-                    o[i] = Math.Log(prices.Open[t] / close[t - 1]);
-                    c[i] = Math.Log(close[t] / prices.Open[t]);
-                }
+                    var o = new double[window];
+                    var c = new double[window];
+                    for (var i = 0; i < window; i++)
+                    {
+                        var t = start + i;
+                        o[i] = Math.Log(prices.Open[t] / close[t - 1]);
+                        c[i] = Math.Log(close[t] / prices.Open[t]);
+                    }
 
-                var k = 0.34 / (1.34 + ((window + 1.0) / (window - 1.0)));
-                return SampleVariance(o) + (k * SampleVariance(c)) + ((1 - k) * RogersSatchell(prices, start, end) / window);
-            }
+                    var k = 0.34 / (1.34 + ((window + 1.0) / (window - 1.0)));
+                    return SampleVariance(o) + (k * SampleVariance(c)) + ((1 - k) * RogersSatchell(prices, start, end) / window);
+                }
 
             default:
                 throw new ArgumentOutOfRangeException(nameof(estimator), estimator, "Unknown estimator.");

@@ -30,10 +30,10 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
 
     private const double OvernightVolatility = 0.006;
 
-    private static readonly Lazy<PriceHistory> _continuousPath = new(() =>
+    private static readonly Lazy<PriceHistory> ContinuousPath = new(() =>
         Some.GbmBars(SimulationSeed, SimulatedDays, TrueDailyVolatility, StepsPerDay, continuousExtremes: true));
 
-    private static readonly Lazy<EstimatorTerms> _pathWithGaps = new(() => EstimatorTerms.From(
+    private static readonly Lazy<EstimatorTerms> PathWithGaps = new(() => EstimatorTerms.From(
         Some.GbmBars(seed: 77, days: 8_000, TrueDailyVolatility, StepsPerDay, OvernightVolatility, continuousExtremes: true)));
 
     [Theory]
@@ -42,7 +42,7 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
     {
         // Non-overlapping 21-day windows are independent, so their spread gives the standard error of the mean.
         const int window = 21;
-        var variance = EstimatorTerms.From(_continuousPath.Value).RollingDailyVariance(estimator, window);
+        var variance = EstimatorTerms.From(ContinuousPath.Value).RollingDailyVariance(estimator, window);
         var (mean, standardError) = MeanOfEvery(variance, window);
         output.WriteLine(FormattableString.Invariant($"{estimator}: mean / σ² = {mean / TrueDailyVariance:F4}, standard error {standardError / TrueDailyVariance:F4}"));
 
@@ -64,7 +64,7 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
     public void RollingDailyVariance_GbmWithOvernightGaps_OnlyCloseToCloseAndYangZhangSeeTheGap(Estimator estimator, bool includesGap)
     {
         const int window = 21;
-        var (mean, standardError) = MeanOfEvery(_pathWithGaps.Value.RollingDailyVariance(estimator, window), window);
+        var (mean, standardError) = MeanOfEvery(PathWithGaps.Value.RollingDailyVariance(estimator, window), window);
 
         output.WriteLine(FormattableString.Invariant($"{estimator}: mean {mean:E4} ± {standardError:E2}"));
         var expected = TrueDailyVariance + (includesGap ? OvernightVolatility * OvernightVolatility : 0.0);
@@ -82,7 +82,7 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
         // Efficiency = Var(r²) / Var(daily term), one-day estimators, r = ln(C/C₋₁) = ln(C/O) here (no gaps).
         // Its standard error comes from 20 batches of 1,500 days; the tolerance is 4 of them plus the rounding of
         // the published figure.
-        var (efficiency, standardError) = Efficiency(_continuousPath.Value, estimator, batches: 20);
+        var (efficiency, standardError) = Efficiency(ContinuousPath.Value, estimator, batches: 20);
         output.WriteLine(FormattableString.Invariant($"{estimator}: efficiency {efficiency:F3} ± {standardError:F3}"));
 
         Assert.InRange(efficiency, published - (4 * standardError) - 0.05, published + (4 * standardError) + 0.05);
@@ -94,9 +94,9 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
     {
         // Rogers-Satchell's efficiency is about 6 at zero drift (references.md §3 [M]): below Garman-Klass and
         // above Parkinson; the ordering is what is checked.
-        var (parkinson, _) = Efficiency(_continuousPath.Value, Estimator.Parkinson, batches: 20);
-        var (rogersSatchell, standardError) = Efficiency(_continuousPath.Value, Estimator.RogersSatchell, batches: 20);
-        var (garmanKlass, _) = Efficiency(_continuousPath.Value, Estimator.GarmanKlass, batches: 20);
+        var (parkinson, _) = Efficiency(ContinuousPath.Value, Estimator.Parkinson, batches: 20);
+        var (rogersSatchell, standardError) = Efficiency(ContinuousPath.Value, Estimator.RogersSatchell, batches: 20);
+        var (garmanKlass, _) = Efficiency(ContinuousPath.Value, Estimator.GarmanKlass, batches: 20);
         output.WriteLine(FormattableString.Invariant($"Rogers-Satchell efficiency {rogersSatchell:F3} ± {standardError:F3}"));
 
         Assert.InRange(rogersSatchell, 6.0 - (4 * standardError) - 0.5, 6.0 + (4 * standardError) + 0.5);
@@ -110,7 +110,7 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
         // low differ (grid points versus continuous path).
         const int days = 10_000;
         var sampled = Some.GbmBars(SimulationSeed, days, TrueDailyVolatility, StepsPerDay, continuousExtremes: false);
-        var continuous = _continuousPath.Value;
+        var continuous = ContinuousPath.Value;
         double sampledSum = 0, continuousSum = 0;
         for (var t = 0; t < days; t++)
         {

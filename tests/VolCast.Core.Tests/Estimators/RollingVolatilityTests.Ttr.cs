@@ -27,7 +27,7 @@ namespace VolCast.Core.Tests.Estimators;
 /// </remarks>
 public sealed partial class RollingVolatilityTests
 {
-    private static readonly Lazy<TtrFixture> _ttr = new(TtrFixture.Load);
+    private static readonly Lazy<TtrFixture> Ttr = new(TtrFixture.Load);
 
     [Theory]
     // TTR 0.24.3 volatility(), Debian r-cran-ttr [C: fixture produced by Fixtures/Ttr/make-ttrc-volatility.R].
@@ -43,7 +43,7 @@ public sealed partial class RollingVolatilityTests
     [InlineData("yang_zhang", 20)]
     public void Compute_TtrSampleData_AgreesWithTtrOnEveryDate(string ttrCalc, int ttrWindow)
     {
-        var fixture = _ttr.Value;
+        var fixture = Ttr.Value;
         var expected = fixture.Column($"{ttrCalc}_{ttrWindow}");
         var (estimator, window) = ttrCalc switch
         {
@@ -74,6 +74,7 @@ public sealed partial class RollingVolatilityTests
                 $"{ttrCalc} n={ttrWindow} at {fixture.Prices.Dates[series.FirstIndex + i]:yyyy-MM-dd}: TTR {reference:R}, ours {series.AnnualizedVolatility[i]:R}, relative {relative:E2}."));
         }
 
+        output.WriteLine(FormattableString.Invariant($"{ttrCalc} n={ttrWindow}: {series.Count} dates, worst relative difference {worst:E2}"));
         Assert.True(worst < 1e-10);
     }
 

@@ -8,13 +8,13 @@ namespace VolCast.Core.Tests.Estimators;
 public sealed partial class RollingVolatilityTests
 {
     // Hull, Options, Futures, and Other Derivatives 11e, Ex. 15.4 / Table 15.1 [C] (references.md §16).
-    private static readonly double[] _hullCloses =
+    private static readonly double[] HullCloses =
     [
         20.00, 20.10, 19.90, 20.00, 20.50, 20.25, 20.90, 20.90, 20.90, 20.75, 20.75,
         21.00, 21.10, 20.90, 20.90, 21.25, 21.40, 21.40, 21.25, 21.75, 22.00,
     ];
 
-    private static PriceHistory HullHistory() => PriceHistory.FromCloses(Some.TradingDates(_hullCloses.Length), _hullCloses);
+    private static PriceHistory HullHistory() => PriceHistory.FromCloses(Some.TradingDates(HullCloses.Length), HullCloses);
 
     /// <summary>
     /// The 3-bar convention history of references.md §4 [D]: row 0 carries only the previous close 99.5 (a flat bar),

@@ -17,6 +17,10 @@ public sealed class ForecasterSpecTests
     [InlineData("har", "har")]
     [InlineData("har:garman-klass", "har:garman-klass")]
     [InlineData("implied", "implied")]
+    // Historical windows: estimator names from design.md, window in trading days.
+    [InlineData("yang-zhang:21", "yang-zhang:21")]
+    [InlineData(" Close-To-Close:63 ", "close-to-close:63")]
+    [InlineData("parkinson:5", "parkinson:5")]
     public void Parse_ValidSpec_GivesCanonicalSpec(string spec, string canonical)
     {
         Assert.Equal(canonical, ForecasterSpec.Parse(spec).Spec);
@@ -42,10 +46,16 @@ public sealed class ForecasterSpecTests
         }
     }
 
-    [Fact]
-    public void Parse_HistoricalWindowSpec_SaysNotAvailableYet()
+    [Theory]
+    // Window missing, below 2, or not a whole number.
+    [InlineData("yang-zhang")]
+    [InlineData("close-to-close:1")]
+    [InlineData("parkinson:2.5")]
+    [InlineData("garman-klass:-5")]
+    public void Parse_BadHistoricalWindow_ThrowsNamingTheForm(string spec)
     {
-        var ex = Assert.Throws<ArgumentException>(() => ForecasterSpec.Parse("yang-zhang:21"));
-        Assert.Contains("not available in this build yet", ex.Message, StringComparison.Ordinal);
+        var ex = Assert.Throws<ArgumentException>(() => ForecasterSpec.Parse(spec));
+        Assert.Contains(":WINDOW", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("Valid forecasters", ex.Message, StringComparison.Ordinal);
     }
 }

@@ -5,13 +5,13 @@ namespace VolCast.Core.Tests.Scoring;
 
 public class DieboldMarianoTests(ITestOutputHelper output)
 {
-    private static readonly double[] _toy = [1, 2, 3, 4, 5];
+    private static readonly double[] Toy = [1, 2, 3, 4, 5];
 
     [Fact]
     public void Test_ToyHorizonOne_MatchesReferenceSheet()
     {
         // references.md §8 toy, d = [1..5], h = 1 [D]: DM = 4.743416, DM* = 4.242641 (6 decimals printed).
-        var r = DieboldMariano.Test(_toy, 1);
+        var r = DieboldMariano.Test(Toy, 1);
         Approx.Absolute(4.743416, r.UncorrectedStatistic!.Value, 5e-7);
         Approx.Absolute(4.242641, r.Statistic!.Value, 5e-7);
         Assert.Equal(0, r.Lag);
@@ -21,7 +21,7 @@ public class DieboldMarianoTests(ITestOutputHelper output)
     public void Test_ToyHorizonTwoRectangular_MatchesReferenceSheet()
     {
         // references.md §8 toy, h = 2, rectangular window [D]: V̂ = 3.6, DM = 3.535534, DM* = 2.449490.
-        var r = DieboldMariano.Test(_toy, 2, LongRunVarianceWindow.Rectangular);
+        var r = DieboldMariano.Test(Toy, 2, LongRunVarianceWindow.Rectangular);
         Approx.Relative(3.6, r.LongRunVariance, 1e-14);
         Approx.Absolute(3.535534, r.UncorrectedStatistic!.Value, 5e-7);
         Approx.Absolute(2.449490, r.Statistic!.Value, 5e-7);
@@ -32,7 +32,7 @@ public class DieboldMarianoTests(ITestOutputHelper output)
     public void Test_ToyHorizonTwoBartlett_MatchesReferenceSheet()
     {
         // references.md §8 toy, Bartlett with L = 1 [D]: DM = 4.008919 (before the HLN factor, which is √0.48 for T = 5, h = 2).
-        var r = DieboldMariano.Test(_toy, 2);
+        var r = DieboldMariano.Test(Toy, 2);
         Approx.Absolute(4.008919, r.UncorrectedStatistic!.Value, 5e-7);
         Approx.Relative(4.008919 * Math.Sqrt(0.48), r.Statistic!.Value, 1e-6);
     }
@@ -125,7 +125,7 @@ public class DieboldMarianoTests(ITestOutputHelper output)
     public void Test_TooFewForHorizon_Throws()
     {
         // T = 5, h = 4: T + 1 − 2h + h(h−1)/T = 0.4 / 5 > 0 passes; T = 4, h = 4 → (5 − 8 + 3)/4 = 0 fails.
-        Assert.NotNull(DieboldMariano.Test(_toy, 4).Statistic);
+        Assert.NotNull(DieboldMariano.Test(Toy, 4).Statistic);
         Assert.Throws<ArgumentException>(() => DieboldMariano.Test([1.0, 2, 3, 5], 4));
     }
 

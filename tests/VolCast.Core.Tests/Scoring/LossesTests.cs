@@ -7,28 +7,28 @@ public class LossesTests
 {
     // references.md §7 check [D]: proxy variance 0.0004, forecast variance 0.0002 → form A 0.3068528,
     // form B −6.5171932, MSE 4.0e−8. Our inputs are volatilities, so √0.0004 and √0.0002. Tolerance: the 7 decimals printed.
-    private static readonly double _realizedVol = Math.Sqrt(0.0004);
-    private static readonly double _forecastVol = Math.Sqrt(0.0002);
+    private static readonly double RealizedVol = Math.Sqrt(0.0004);
+    private static readonly double ForecastVol = Math.Sqrt(0.0002);
 
     [Fact]
     public void Qlike_ReferenceSheetCheck_MatchesFormA()
     {
         // Our normalized QLIKE is form A of references.md §7 [D].
-        Approx.Absolute(0.3068528, Losses.Qlike(_realizedVol, _forecastVol), 5e-8);
+        Approx.Absolute(0.3068528, Losses.Qlike(RealizedVol, ForecastVol), 5e-8);
     }
 
     [Fact]
     public void QlikeUnnormalized_ReferenceSheetCheck_MatchesFormB()
     {
         // references.md §7 form B, ln h + σ̂²/h [D].
-        Approx.Absolute(-6.5171932, Losses.QlikeUnnormalized(_realizedVol, _forecastVol), 5e-8);
+        Approx.Absolute(-6.5171932, Losses.QlikeUnnormalized(RealizedVol, ForecastVol), 5e-8);
     }
 
     [Fact]
     public void SquaredErrorVariance_ReferenceSheetCheck_Matches()
     {
         // references.md §7 MSE = 4.0e−8 [D].
-        Approx.Relative(4.0e-8, Losses.SquaredErrorVariance(_realizedVol, _forecastVol), 1e-12);
+        Approx.Relative(4.0e-8, Losses.SquaredErrorVariance(RealizedVol, ForecastVol), 1e-12);
     }
 
     [Fact]

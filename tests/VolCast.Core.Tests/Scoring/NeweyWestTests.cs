@@ -4,7 +4,7 @@ namespace VolCast.Core.Tests.Scoring;
 
 public class NeweyWestTests
 {
-    private static readonly double[] _toy = [1, 2, 3, 4, 5];
+    private static readonly double[] Toy = [1, 2, 3, 4, 5];
 
     [Theory]
     // references.md §9 lag table [D] from the rule L = floor(4(T/100)^(2/9)) [C: Patton's newey_west default].
@@ -33,8 +33,8 @@ public class NeweyWestTests
     public void Autocovariance_ReferenceToy_Matches()
     {
         // references.md §8 toy, d = [1..5]: γ̂_0 = 2, γ̂_1 = 0.8 [D] (divisor T, mean removed).
-        Approx.Relative(2.0, NeweyWest.Autocovariance(_toy, 0), 1e-14);
-        Approx.Relative(0.8, NeweyWest.Autocovariance(_toy, 1), 1e-14);
+        Approx.Relative(2.0, NeweyWest.Autocovariance(Toy, 0), 1e-14);
+        Approx.Relative(0.8, NeweyWest.Autocovariance(Toy, 1), 1e-14);
     }
 
     [Fact]
@@ -42,8 +42,8 @@ public class NeweyWestTests
     {
         // references.md §8 toy [D]: rectangular with L = 1 gives V̂ = 3.6; Bartlett L = 1 gives 2 + 2 · 0.5 · 0.8 = 2.8
         // (the value behind DM = 4.008919).
-        Approx.Relative(3.6, NeweyWest.LongRunVariance(_toy, 1, LongRunVarianceWindow.Rectangular), 1e-14);
-        Approx.Relative(2.8, NeweyWest.LongRunVariance(_toy, 1, LongRunVarianceWindow.Bartlett), 1e-14);
+        Approx.Relative(3.6, NeweyWest.LongRunVariance(Toy, 1, LongRunVarianceWindow.Rectangular), 1e-14);
+        Approx.Relative(2.8, NeweyWest.LongRunVariance(Toy, 1, LongRunVarianceWindow.Bartlett), 1e-14);
     }
 
     [Fact]
@@ -58,7 +58,7 @@ public class NeweyWestTests
     [Fact]
     public void LongRunVariance_LagNotBelowCount_Throws()
     {
-        var ex = Assert.Throws<ArgumentOutOfRangeException>(() => NeweyWest.LongRunVariance(_toy, 5));
+        var ex = Assert.Throws<ArgumentOutOfRangeException>(() => NeweyWest.LongRunVariance(Toy, 5));
         Assert.Contains("between 0 and the number of observations minus one (4), was 5", ex.Message, StringComparison.Ordinal);
     }
 

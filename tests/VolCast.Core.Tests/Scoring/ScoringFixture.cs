@@ -9,7 +9,7 @@ namespace VolCast.Core.Tests.Scoring;
 /// </summary>
 internal sealed class ScoringFixture
 {
-    private static readonly Lazy<ScoringFixture> _instance = new(Load);
+    private static readonly Lazy<ScoringFixture> Instance = new(Load);
 
     private ScoringFixture(double[] realized, double[] forecast, double[] implied, JsonElement reference)
     {
@@ -19,7 +19,7 @@ internal sealed class ScoringFixture
         Reference = reference;
     }
 
-    public static ScoringFixture Shared => _instance.Value;
+    public static ScoringFixture Shared => Instance.Value;
 
     public double[] Realized { get; }
 

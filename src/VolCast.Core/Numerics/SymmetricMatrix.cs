@@ -1,4 +1,4 @@
-namespace VolCast.Core.Scoring;
+namespace VolCast.Core.Numerics;
 
 /// <summary>Small dense symmetric positive-definite matrix routines (row-major, k × k with k a handful).</summary>
 internal static class SymmetricMatrix
@@ -9,6 +9,47 @@ internal static class SymmetricMatrix
     /// <param name="inverse">Receives the inverse, row-major k × k.</param>
     /// <returns>False when the matrix is not numerically positive definite.</returns>
     public static bool TryInvert(ReadOnlySpan<double> matrix, int size, Span<double> inverse)
+        => TryInvertCore(matrix, size, inverse);
+
+    /// <summary>Inverts a symmetric positive-definite matrix held as a two-dimensional array.</summary>
+    /// <param name="matrix">The matrix, k × k; left unchanged.</param>
+    /// <returns>The inverse, or null when the matrix is not numerically positive definite or not finite.</returns>
+    public static double[,]? TryInvert(double[,] matrix)
+    {
+        var size = matrix.GetLength(0);
+        var flat = new double[size * size];
+        for (var i = 0; i < size; i++)
+        {
+            for (var j = 0; j < size; j++)
+            {
+                if (!double.IsFinite(matrix[i, j]))
+                {
+                    return null;
+                }
+
+                flat[(i * size) + j] = matrix[i, j];
+            }
+        }
+
+        var inverse = new double[size * size];
+        if (!TryInvertCore(flat, size, inverse))
+        {
+            return null;
+        }
+
+        var result = new double[size, size];
+        for (var i = 0; i < size; i++)
+        {
+            for (var j = 0; j < size; j++)
+            {
+                result[i, j] = inverse[(i * size) + j];
+            }
+        }
+
+        return result;
+    }
+
+    private static bool TryInvertCore(ReadOnlySpan<double> matrix, int size, Span<double> inverse)
     {
         var l = new double[size * size];
         var scale = 0.0;

@@ -1,0 +1,118 @@
+using System.CommandLine;
+using System.Globalization;
+using VolCast.Core.Backtest;
+using VolCast.IO;
+using VolCast.IO.Config;
+
+namespace VolCast.Cli.Commands;
+
+/// <summary><c>volcast backtest</c>: the main job — forecasters walk forward, scored against the realized volatility that followed and against implied.</summary>
+internal static class BacktestCommand
+{
+    /// <summary>Builds the command.</summary>
+    public static Command Create(CliConsole console)
+    {
+        var prices = new Option<string>("--prices") { Description = "Daily price history CSV (date, open, high, low, close[, adj_close, volume]; or date, close). Read only.", Required = true };
+        var implied = new Option<string?>("--implied") { Description = "Implied-volatility CSV (date, iv). Optional: without it forecasters are ranked among themselves." };
+        var ivUnit = new Option<string?>("--iv-unit") { Description = "Unit of the iv column: percent (20 = 20%) or decimal (0.20); inferred with a warning when left out." };
+        ivUnit.AcceptOnlyFromAmong("percent", "decimal");
+        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate. Every setting is optional." };
+        var horizon = new Option<int?>("--horizon") { Description = "Forecast horizon in trading days (default 21). Overrides the configuration." };
+        var tenor = new Option<string?>("--tenor") { Description = "Forecast horizon as a calendar tenor such as 30d, mapped through the price file's own trading calendar. Overrides the configuration." };
+        var start = new Option<string?>("--start") { Description = "First forecast date, yyyy-MM-dd (earlier rows still warm the forecasters up)." };
+        var end = new Option<string?>("--end") { Description = "Last forecast date, yyyy-MM-dd." };
+        var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>)." };
+        var force = new Option<bool>("--force") { Description = "Use an existing output folder, replacing only volcast's own results files in it." };
+        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt.")
+        {
+            prices, implied, ivUnit, config, horizon, tenor, start, end, output, force,
+        };
+        command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
+            parse.GetValue(prices)!,
+            parse.GetValue(implied),
+            parse.GetValue(ivUnit),
+            parse.GetValue(config),
+            parse.GetValue(horizon),
+            parse.GetValue(tenor),
+            parse.GetValue(start),
+            parse.GetValue(end),
+            parse.GetValue(output),
+            parse.GetValue(force)))));
+        return command;
+    }
+
+    private static int Run(CliConsole console, Arguments a)
+    {
+        if (a.Horizon is not null && a.Tenor is not null)
+        {
+            throw new UsageException("give either --horizon (trading days) or --tenor (calendar days such as 30d), not both.");
+        }
+
+        if (a.Horizon is int h && h < 1)
+        {
+            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--horizon must be at least 1 trading day (was {h})."));
+        }
+
+        var settings = a.Config is null ? new BacktestSettings() : BacktestConfigFile.Read(a.Config);
+        if (a.Horizon is int days)
+        {
+            settings = settings with { Horizon = BacktestHorizon.Days(days) };
+        }
+
+        if (a.Tenor is string tenorText)
+        {
+            settings = settings with { Horizon = BacktestConfigFile.ParseTenor(tenorText) ?? throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d (was '{tenorText}').") };
+        }
+
+        settings = settings with
+        {
+            Start = a.Start is null ? settings.Start : Date(a.Start, "--start"),
+            End = a.End is null ? settings.End : Date(a.End, "--end"),
+        };
+        try
+        {
+            settings.Validate();
+        }
+        catch (ArgumentException ex)
+        {
+            throw new UsageException(ex.Message);
+        }
+
+        var outFolder = a.Out ?? Path.Combine("reports", "backtest-" + Path.GetFileNameWithoutExtension(a.Prices));
+        if (Directory.Exists(outFolder) && !a.Force)
+        {
+            throw new UsageException($"{outFolder}: the output folder already exists; choose another --out or pass --force to replace its results files.");
+        }
+
+        var unit = a.IvUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };
+        var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
+        var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
+        BacktestResult result;
+        try
+        {
+            (result, _) = BacktestPipeline.Run(job, console.Warn, progress);
+        }
+        finally
+        {
+            progress.Finish();
+        }
+
+        var head = result.BaselineVersusCandidate;
+        console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
+            $"{result.Dates.Length} forecast dates ({result.DataQuality.DatesWithTarget} with a realized target), {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}."));
+        console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
+            $"candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {Show(head.Qlike?.Statistic)} (p {Show(head.Qlike?.PValue)}), DM MSE {Show(head.MseVariance?.Statistic)} (p {Show(head.MseVariance?.PValue)}); negative favours the candidate."));
+        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt)");
+        return ExitCodes.Success;
+    }
+
+    private static DateOnly Date(string text, string option) =>
+        DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)
+            ? d
+            : throw new UsageException($"{option} must be a date written yyyy-MM-dd (was '{text}').");
+
+    private static string Show(double? value) => value is double v && double.IsFinite(v) ? v.ToString("F4", CultureInfo.InvariantCulture) : "n/a";
+
+    private sealed record Arguments(
+        string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force);
+}

@@ -1,0 +1,41 @@
+namespace VolCast.IO.Config;
+
+/// <summary>The JSON shape of a backtest configuration file; every property optional (camelCase in the file).</summary>
+internal sealed class BacktestConfigDocument
+{
+    public string[]? Forecasters { get; set; }
+
+    public int? Horizon { get; set; }
+
+    public string? Tenor { get; set; }
+
+    public string? Start { get; set; }
+
+    public string? End { get; set; }
+
+    public bool? Sweep { get; set; }
+
+    public string[]? SweepEstimators { get; set; }
+
+    public int[]? SweepLookbacks { get; set; }
+
+    public double[]? EwmaLambdas { get; set; }
+
+    public int? SelectionWindowDays { get; set; }
+
+    public McsConfigDocument? Mcs { get; set; }
+
+    public double? RuleThreshold { get; set; }
+
+    public string? RuleForecaster { get; set; }
+
+    public string? RuleHistorical { get; set; }
+
+    public string? Baseline { get; set; }
+
+    public string? Candidate { get; set; }
+
+    public double? AnnualizationFactor { get; set; }
+
+    public string? Target { get; set; }
+}

@@ -1,0 +1,205 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using System.Text.Json;
+using VolCast.Core.Backtest;
+using VolCast.Core.Estimators;
+using VolCast.Core.Forecasters;
+
+namespace VolCast.IO.Config;
+
+/// <summary>Reads a backtest configuration (JSON) into <see cref="BacktestSettings"/>; every setting is optional and defaulted.</summary>
+/// <remarks>
+/// Shape (camelCase; all optional): <c>{ "forecasters": ["yang-zhang:21", "garch"], "horizon": 21 | "tenor": "30d",
+/// "start": "2015-01-02", "end": "2024-12-31", "sweep": true, "sweepEstimators": ["yang-zhang"], "sweepLookbacks": [5, 10, 21],
+/// "ewmaLambdas": [0.94, 0.97], "selectionWindowDays": 504, "mcs": { "replications": 1000, "alpha": 0.10,
+/// "blockLength": 21, "seed": 1 }, "ruleThreshold": 0.02, "ruleForecaster": "garch", "ruleHistorical": "close-to-close:21",
+/// "baseline": "implied", "candidate": "garch", "annualizationFactor": 252, "target": "squared-returns" }</c>.
+/// Unknown properties are errors (a misspelt setting must not be silently ignored). Comments and trailing commas are allowed.
+/// </remarks>
+public static class BacktestConfigFile
+{
+    private static readonly JsonSerializerOptions Options = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
+        UnmappedMemberHandling = System.Text.Json.Serialization.JsonUnmappedMemberHandling.Disallow,
+        ReadCommentHandling = JsonCommentHandling.Skip,
+        AllowTrailingCommas = true,
+    };
+
+    /// <summary>Gets the accepted names of the realized target.</summary>
+    public static IReadOnlyList<string> TargetNames { get; } = ["squared-returns", "parkinson", "garman-klass", "rogers-satchell"];
+
+    /// <summary>Reads a configuration file.</summary>
+    /// <param name="path">The JSON file.</param>
+    /// <returns>The settings, defaults filled in for everything the file leaves out.</returns>
+    /// <exception cref="InputDataException">The file is not valid JSON, a property is unknown or has the wrong type
+    /// (with its line and property), or a value is out of range (with the property and the valid values).</exception>
+    /// <exception cref="FileNotFoundException">The file does not exist.</exception>
+    public static BacktestSettings Read(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        return Parse(File.ReadAllText(path), path);
+    }
+
+    /// <summary>Parses configuration text.</summary>
+    /// <param name="json">The JSON text.</param>
+    /// <param name="file">The file name to put in error messages.</param>
+    /// <returns>The settings.</returns>
+    /// <exception cref="InputDataException">As for <see cref="Read"/>.</exception>
+    public static BacktestSettings Parse(string json, string file)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        ArgumentNullException.ThrowIfNull(file);
+        BacktestConfigDocument? doc;
+        try
+        {
+            doc = JsonSerializer.Deserialize<BacktestConfigDocument>(json, Options);
+        }
+        catch (JsonException ex)
+        {
+            // LineNumber is zero-based; Path names the property ($.mcs.alpha).
+            var line = ex.LineNumber is long l ? (int)l + 1 : (int?)null;
+            var property = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? null : ex.Path.TrimStart('$', '.');
+            throw new InputDataException(file, line, property,
+                "the configuration is not valid: " + FirstSentence(ex.Message) + " Fix the JSON; every setting is optional, see 'volcast backtest --help'.");
+        }
+
+        if (doc is null)
+        {
+            throw new InputDataException(file, 1, null, "the configuration is 'null'; write an object such as { \"horizon\": 21 } or {} for the defaults.");
+        }
+
+        return ToSettings(doc, file);
+    }
+
+    private static BacktestSettings ToSettings(BacktestConfigDocument doc, string file)
+    {
+        var s = new BacktestSettings();
+        if (doc.Horizon is not null && doc.Tenor is not null)
+        {
+            throw Bad(file, "horizon", $"give either horizon (trading days) or tenor (calendar days such as \"30d\"), not both (horizon {doc.Horizon}, tenor \"{doc.Tenor}\")");
+        }
+
+        if (doc.Horizon is int h)
+        {
+            s = s with { Horizon = h >= 1 ? BacktestHorizon.Days(h) : throw Bad(file, "horizon", $"must be at least 1 trading day (was {h})") };
+        }
+
+        if (doc.Tenor is string tenor)
+        {
+            s = s with { Horizon = ParseTenor(tenor) ?? throw Bad(file, "tenor", $"must be a number of calendar days followed by d, such as \"30d\" (was \"{tenor}\")") };
+        }
+
+        s = s with
+        {
+            Start = doc.Start is null ? null : ParseDate(doc.Start, file, "start"),
+            End = doc.End is null ? null : ParseDate(doc.End, file, "end"),
+        };
+
+        if (doc.Forecasters is not null)
+        {
+            foreach (var spec in doc.Forecasters)
+            {
+                try
+                {
+                    ForecasterSpec.Parse(spec ?? string.Empty);
+                }
+                catch (ArgumentException ex)
+                {
+                    throw new InputDataException(file, null, "forecasters", ex.Message);
+                }
+            }
+
+            s = s with { Forecasters = [.. doc.Forecasters] };
+        }
+
+        if (doc.SweepEstimators is not null)
+        {
+            var list = ImmutableArray.CreateBuilder<Estimator>();
+            foreach (var name in doc.SweepEstimators)
+            {
+                list.Add(EstimatorNames.TryParse(name, out var e)
+                    ? e
+                    : throw Bad(file, "sweepEstimators", $"unknown estimator \"{name}\"; valid: {string.Join(", ", EstimatorNames.All)}"));
+            }
+
+            s = s with { SweepEstimators = list.ToImmutable() };
+        }
+
+        s = s with
+        {
+            Sweep = doc.Sweep ?? s.Sweep,
+            SweepLookbacks = doc.SweepLookbacks is null ? s.SweepLookbacks : [.. doc.SweepLookbacks],
+            EwmaLambdas = doc.EwmaLambdas is null ? s.EwmaLambdas : [.. doc.EwmaLambdas],
+            SelectionWindowDays = doc.SelectionWindowDays ?? s.SelectionWindowDays,
+            McsReplications = doc.Mcs?.Replications ?? s.McsReplications,
+            McsAlpha = doc.Mcs?.Alpha ?? s.McsAlpha,
+            McsBlockLength = doc.Mcs?.BlockLength ?? s.McsBlockLength,
+            McsSeed = doc.Mcs?.Seed ?? s.McsSeed,
+            RuleThreshold = doc.RuleThreshold ?? s.RuleThreshold,
+            RuleForecaster = doc.RuleForecaster ?? s.RuleForecaster,
+            RuleHistorical = doc.RuleHistorical ?? s.RuleHistorical,
+            Baseline = doc.Baseline ?? s.Baseline,
+            Candidate = doc.Candidate ?? s.Candidate,
+            AnnualizationFactor = doc.AnnualizationFactor ?? s.AnnualizationFactor,
+        };
+
+        if (doc.Target is string target)
+        {
+            var index = TargetNames.ToList().FindIndex(n => string.Equals(n, target.Trim(), StringComparison.OrdinalIgnoreCase));
+            s = s with { Target = index >= 0 ? (RealizedTarget)index : throw Bad(file, "target", $"unknown realized target \"{target}\"; valid: {string.Join(", ", TargetNames)}") };
+        }
+
+        foreach (var (property, spec) in new[] { ("ruleHistorical", s.RuleHistorical), ("ruleForecaster", s.RuleForecaster), ("baseline", s.Baseline), ("candidate", s.Candidate) })
+        {
+            if (spec is not null && !spec.Trim().Equals("implied", StringComparison.OrdinalIgnoreCase) && !spec.Trim().StartsWith("adaptive:", StringComparison.OrdinalIgnoreCase))
+            {
+                try
+                {
+                    ForecasterSpec.Parse(spec);
+                }
+                catch (ArgumentException ex)
+                {
+                    throw new InputDataException(file, null, property, ex.Message);
+                }
+            }
+        }
+
+        try
+        {
+            s.Validate();
+        }
+        catch (ArgumentException ex)
+        {
+            throw new InputDataException(file, null, null, ex.Message);
+        }
+
+        return s;
+    }
+
+    /// <summary>Parses a calendar tenor such as <c>30d</c>.</summary>
+    /// <param name="text">The text: a whole number of calendar days, at least 1, followed by d.</param>
+    /// <returns>The horizon, or null when the text is not a tenor.</returns>
+    public static BacktestHorizon? ParseTenor(string? text)
+    {
+        var t = text?.Trim().ToLowerInvariant();
+        return t is not null && t.EndsWith('d')
+            && int.TryParse(t.AsSpan(0, t.Length - 1), NumberStyles.None, CultureInfo.InvariantCulture, out var days) && days >= 1
+            ? BacktestHorizon.Tenor(days)
+            : null;
+    }
+
+    private static DateOnly ParseDate(string text, string file, string property) =>
+        DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)
+            ? d
+            : throw Bad(file, property, $"must be a date written yyyy-MM-dd (was \"{text}\")");
+
+    private static InputDataException Bad(string file, string property, FormattableString problem) =>
+        new(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");
+
+    private static string FirstSentence(string message)
+    {
+        var cut = message.IndexOf(" Path:", StringComparison.Ordinal);
+        return cut > 0 ? message[..cut] : message;
+    }
+}

@@ -1,0 +1,385 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using VolCast.Core.Backtest;
+using VolCast.Core.Scoring;
+
+namespace VolCast.IO.Results;
+
+/// <summary>Writes metrics.json and run.json: invariant culture, round-trip doubles, null (never NaN) where undefined.</summary>
+internal static class BacktestJson
+{
+    private static readonly JsonWriterOptions Options = new() { Indented = true };
+
+    public static void WriteMetrics(TextWriter writer, BacktestResult result) => writer.Write(Build(json => Metrics(json, result)));
+
+    public static void WriteRun(TextWriter writer, BacktestResult result, BacktestRunInfo run) => writer.Write(Build(json => Run(json, result, run)));
+
+    private static string Build(Action<Utf8JsonWriter> write)
+    {
+        using var stream = new MemoryStream();
+        using (var json = new Utf8JsonWriter(stream, Options))
+        {
+            write(json);
+        }
+
+        return Encoding.UTF8.GetString(stream.ToArray()).Replace("\r\n", "\n", StringComparison.Ordinal) + "\n";
+    }
+
+    private static void Metrics(Utf8JsonWriter json, BacktestResult r)
+    {
+        json.WriteStartObject();
+        json.WriteString("sign_convention", "Diebold-Mariano d_t = L(first) - L(second); a negative statistic means the first named has the lower loss. dm_* in a forecaster row: first = the forecaster, second = implied.");
+        json.WriteStartObject("baseline_vs_candidate");
+        json.WriteString("baseline", r.Baseline);
+        json.WriteString("candidate", r.Candidate);
+        json.WritePropertyName("comparison");
+        Pair(json, r.BaselineVersusCandidate);
+        json.WriteEndObject();
+        json.WriteNumber("hac_lag", r.HacLag);
+
+        json.WriteStartArray("forecasters");
+        foreach (var m in r.Metrics)
+        {
+            Row(json, m, r.Forecasts.FirstOrDefault(f => f.Spec == m.Spec));
+        }
+
+        json.WriteEndArray();
+
+        json.WriteStartArray("pairs");
+        foreach (var p in r.Pairs)
+        {
+            Pair(json, p);
+        }
+
+        json.WriteEndArray();
+
+        Mcs(json, r.ModelConfidenceSet);
+
+        json.WriteStartObject("sweep");
+        json.WriteBoolean("in_sample", true);
+        json.WriteString("note", "In-sample: each row is scored over the whole sample, so picking the best row is look-ahead; the adaptive forecasters are the honest choice.");
+        json.WriteStartArray("rows");
+        foreach (var s in r.Sweep)
+        {
+            json.WriteStartObject();
+            json.WriteString("family", s.Family);
+            json.WriteString("forecaster", s.Spec);
+            json.WriteNumber("n", s.Count);
+            Numbers.Write(json, "qlike", s.Qlike);
+            Numbers.Write(json, "mse_var", s.MseVariance);
+            Numbers.Write(json, "rmse_vol", s.RmseVolatility);
+            json.WriteBoolean("best_in_sample", s.IsBestInSample);
+            json.WriteEndObject();
+        }
+
+        json.WriteEndArray();
+        json.WriteEndObject();
+
+        json.WriteStartArray("adaptive");
+        foreach (var a in r.Adaptive)
+        {
+            json.WriteStartObject();
+            json.WriteString("forecaster", a.Spec);
+            json.WriteString("family", a.Family);
+            json.WriteNumber("selection_window_days", r.Settings.SelectionWindowDays);
+            json.WriteStartArray("candidates");
+            foreach (var c in a.Candidates)
+            {
+                json.WriteStringValue(c);
+            }
+
+            json.WriteEndArray();
+            json.WriteNumber("dates_with_choice", a.DatesWithChoice);
+            json.WriteNumber("choice_changes", a.ChangeCount);
+            json.WriteStartObject("days_chosen");
+            foreach (var c in a.Candidates)
+            {
+                json.WriteNumber(c, a.Choices.Count(x => x == c));
+            }
+
+            json.WriteEndObject();
+            json.WriteEndObject();
+        }
+
+        json.WriteEndArray();
+
+        if (r.RuleTest is RuleTestResult rule)
+        {
+            json.WriteStartObject("rule_test");
+            json.WriteString("caution", RuleTestResult.Caution);
+            json.WriteNumber("threshold_vol", rule.ThresholdVolatility);
+            json.WriteString("forecaster", rule.ForecastSpec);
+            json.WriteString("historical", rule.HistoricalSpec);
+            json.WriteStartArray("rows");
+            foreach (var row in rule.Rows)
+            {
+                json.WriteStartObject();
+                json.WriteString("source", row.Source);
+                json.WriteString("signal", row.Signal switch { RuleSignal.SellVolatility => "sell", RuleSignal.BuyVolatility => "buy", _ => "all" });
+                json.WriteNumber("n", row.Count);
+                Numbers.Write(json, "hit_rate", row.HitRate);
+                Numbers.Write(json, "hit_rate_se", row.HitRateStandardError);
+                Numbers.Write(json, "mean_iv_minus_rv_vol", row.MeanVolatilityGap);
+                Numbers.Write(json, "mean_iv_minus_rv_vol_se", row.MeanVolatilityGapStandardError);
+                Numbers.Write(json, "mean_iv2_minus_rv2_var", row.MeanVarianceGap);
+                Numbers.Write(json, "mean_iv2_minus_rv2_var_se", row.MeanVarianceGapStandardError);
+                json.WriteEndObject();
+            }
+
+            json.WriteEndArray();
+            json.WriteEndObject();
+        }
+        else
+        {
+            json.WriteNull("rule_test");
+        }
+
+        var q = r.DataQuality;
+        json.WriteStartObject("data_quality");
+        json.WriteNumber("price_rows", q.PriceRows);
+        json.WriteNumber("forecast_dates", q.ForecastDates);
+        json.WriteNumber("dates_with_target", q.DatesWithTarget);
+        json.WriteNumber("dates_without_target", q.DatesWithoutTarget);
+        json.WriteNumber("zero_realized_dates", q.ZeroRealizedDates);
+        json.WriteNumber("implied_rows", q.ImpliedRows);
+        json.WriteNumber("forecast_dates_with_implied", q.ForecastDatesWithImplied);
+        json.WriteNumber("forecast_dates_without_implied", q.ForecastDatesWithoutImplied);
+        json.WriteNumber("implied_dates_without_prices", q.ImpliedDatesWithoutPrices);
+        json.WriteNumber("min_window_days", q.MinimumHorizonDays);
+        json.WriteNumber("max_window_days", q.MaximumHorizonDays);
+        json.WriteEndObject();
+
+        json.WriteStartArray("warnings");
+        foreach (var w in r.Warnings)
+        {
+            json.WriteStringValue(w);
+        }
+
+        json.WriteEndArray();
+        json.WriteEndObject();
+    }
+
+    private static void Row(Utf8JsonWriter json, ForecasterMetrics m, ForecastSeries? series)
+    {
+        var l = m.Losses;
+        var mz = m.MincerZarnowitz;
+        var dm = m.VersusImplied;
+        var enc = m.Encompassing;
+        json.WriteStartObject();
+        json.WriteString("forecaster", m.Spec);
+        json.WriteString("kind", MetricsCsv.Kind(m.Kind));
+        json.WriteNumber("n", l?.Count ?? 0);
+        json.WriteNumber("missing", m.MissingForecasts);
+        Numbers.Write(json, "bias", l?.Bias);
+        Numbers.Write(json, "mae_vol", l?.MaeVolatility);
+        Numbers.Write(json, "rmse_vol", l?.RmseVolatility);
+        Numbers.Write(json, "mse_var", l?.MseVariance);
+        Numbers.Write(json, "qlike", l?.Qlike);
+        Numbers.Write(json, "mz_a", mz?.Intercept);
+        Numbers.Write(json, "mz_b", mz?.Slope);
+        Numbers.Write(json, "mz_a_se", mz?.InterceptStandardError);
+        Numbers.Write(json, "mz_b_se", mz?.SlopeStandardError);
+        Numbers.Write(json, "mz_r2", mz?.RSquared);
+        Numbers.Write(json, "mz_wald", mz?.Wald);
+        Numbers.Write(json, "mz_wald_p", mz?.WaldPValue);
+        Numbers.Write(json, "dm_n", dm?.Count);
+        Numbers.Write(json, "dm_qlike_stat", dm?.Qlike?.Statistic);
+        Numbers.Write(json, "dm_qlike_p", dm?.Qlike?.PValue);
+        Numbers.Write(json, "dm_mse_stat", dm?.MseVariance?.Statistic);
+        Numbers.Write(json, "dm_mse_p", dm?.MseVariance?.PValue);
+        Numbers.Write(json, "enc_implied_b", enc?.ImpliedSlope);
+        Numbers.Write(json, "enc_forecast_c", enc?.ForecastSlope);
+        Numbers.Write(json, "enc_forecast_c_se", enc?.ForecastStandardError);
+        Numbers.Write(json, "enc_forecast_c_p", enc?.ForecastPValue);
+        Numbers.Write(json, "mcs_p", m.McsPValue);
+        Numbers.Write(json, "in_mcs", m.InMcs);
+        Numbers.Write(json, "refits", series?.Counts.Refits);
+        Numbers.Write(json, "failed_fits", series?.Counts.FailedFits);
+        json.WriteEndObject();
+    }
+
+    private static void Pair(Utf8JsonWriter json, PairComparison p)
+    {
+        json.WriteStartObject();
+        json.WriteString("first", p.First);
+        json.WriteString("second", p.Second);
+        json.WriteNumber("n", p.Count);
+        Numbers.Write(json, "first_qlike", p.FirstLosses?.Qlike);
+        Numbers.Write(json, "second_qlike", p.SecondLosses?.Qlike);
+        Numbers.Write(json, "first_mse_var", p.FirstLosses?.MseVariance);
+        Numbers.Write(json, "second_mse_var", p.SecondLosses?.MseVariance);
+        Dm(json, "dm_qlike", p.Qlike);
+        Dm(json, "dm_mse", p.MseVariance);
+        json.WriteEndObject();
+    }
+
+    private static void Dm(Utf8JsonWriter json, string name, DieboldMarianoResult? dm)
+    {
+        if (dm is null)
+        {
+            json.WriteNull(name);
+            return;
+        }
+
+        json.WriteStartObject(name);
+        json.WriteNumber("n", dm.Count);
+        json.WriteNumber("lag", dm.Lag);
+        Numbers.Write(json, "mean_differential", dm.MeanDifferential);
+        Numbers.Write(json, "statistic", dm.Statistic);
+        Numbers.Write(json, "p_value", dm.PValue);
+        json.WriteEndObject();
+    }
+
+    private static void Mcs(Utf8JsonWriter json, McsSummary mcs)
+    {
+        json.WriteStartObject("mcs");
+        json.WriteString("loss", "qlike");
+        json.WriteNumber("common_dates", mcs.CommonDates);
+        if (mcs.Result is ModelConfidenceSetResult result)
+        {
+            json.WriteNumber("alpha", result.Options.Alpha);
+            json.WriteNumber("replications", result.Options.BootstrapReplications);
+            json.WriteNumber("block_length", result.Options.BlockLength);
+            json.WriteNumber("seed", result.Options.Seed);
+            json.WriteString("bootstrap", "moving-block");
+            json.WriteString("statistic", result.Options.Statistic.ToString());
+        }
+
+        json.WriteStartArray("members");
+        for (var i = 0; i < mcs.Members.Length; i++)
+        {
+            json.WriteStartObject();
+            json.WriteString("forecaster", mcs.Members[i]);
+            Numbers.Write(json, "mcs_p", mcs.Result?.PValues[i]);
+            Numbers.Write(json, "in_mcs", mcs.Result?.InSet[i]);
+            json.WriteEndObject();
+        }
+
+        json.WriteEndArray();
+        json.WriteStartArray("excluded");
+        foreach (var e in mcs.Excluded)
+        {
+            json.WriteStringValue(e);
+        }
+
+        json.WriteEndArray();
+        if (mcs.Note is null)
+        {
+            json.WriteNull("note");
+        }
+        else
+        {
+            json.WriteString("note", mcs.Note);
+        }
+
+        json.WriteEndObject();
+    }
+
+    private static void Run(Utf8JsonWriter json, BacktestResult r, BacktestRunInfo run)
+    {
+        var s = r.Settings;
+        json.WriteStartObject();
+        json.WriteString("tool", "volcast");
+        json.WriteString("version", run.ToolVersion);
+        json.WriteString("started_utc", run.StartedUtc.ToUniversalTime().ToString("O", CultureInfo.InvariantCulture));
+        json.WriteString("finished_utc", run.FinishedUtc.ToUniversalTime().ToString("O", CultureInfo.InvariantCulture));
+        json.WriteStartArray("inputs");
+        foreach (var input in run.Inputs)
+        {
+            json.WriteStartObject();
+            json.WriteString("role", input.Role);
+            json.WriteString("path", input.Path);
+            json.WriteString("sha256", input.Sha256);
+            json.WriteEndObject();
+        }
+
+        json.WriteEndArray();
+        if (run.ImpliedUnit is null)
+        {
+            json.WriteNull("implied_unit");
+        }
+        else
+        {
+            json.WriteString("implied_unit", run.ImpliedUnit);
+        }
+
+        json.WriteStartObject("settings");
+        if (s.Horizon.TradingDays is int h)
+        {
+            json.WriteNumber("horizon", h);
+            json.WriteNull("tenor");
+        }
+        else
+        {
+            json.WriteNull("horizon");
+            json.WriteString("tenor", s.Horizon.ToString());
+        }
+
+        json.WriteNumber("nominal_horizon_days", s.Horizon.NominalDays);
+        WriteDate(json, "start", s.Start);
+        WriteDate(json, "end", s.End);
+        json.WriteString("first_forecast_date", r.Dates[0].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+        json.WriteString("last_forecast_date", r.Dates[^1].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+        Strings(json, "forecasters", s.Forecasters);
+        json.WriteBoolean("sweep", s.Sweep);
+        Strings(json, "sweepEstimators", s.SweepEstimators.Select(Core.Estimators.EstimatorNames.Name));
+        json.WriteStartArray("sweepLookbacks");
+        foreach (var w in s.SweepLookbacks)
+        {
+            json.WriteNumberValue(w);
+        }
+
+        json.WriteEndArray();
+        json.WriteStartArray("ewmaLambdas");
+        foreach (var l in s.EwmaLambdas)
+        {
+            json.WriteNumberValue(l);
+        }
+
+        json.WriteEndArray();
+        json.WriteNumber("selectionWindowDays", s.SelectionWindowDays);
+        json.WriteStartObject("mcs");
+        json.WriteNumber("replications", s.McsReplications);
+        json.WriteNumber("alpha", s.McsAlpha);
+        Numbers.Write(json, "blockLength", s.McsBlockLength);
+        json.WriteNumber("seed", s.McsSeed);
+        json.WriteEndObject();
+        json.WriteNumber("ruleThreshold", s.RuleThreshold);
+        WriteString(json, "ruleForecaster", s.RuleForecaster);
+        WriteString(json, "ruleHistorical", s.RuleHistorical);
+        WriteString(json, "baseline", s.Baseline);
+        WriteString(json, "candidate", s.Candidate);
+        json.WriteNumber("annualizationFactor", s.AnnualizationFactor);
+        json.WriteString("target", Config.BacktestConfigFile.TargetNames[(int)s.Target]);
+        json.WriteEndObject();
+        Strings(json, "input_warnings", run.InputWarnings);
+        json.WriteEndObject();
+    }
+
+    private static void Strings(Utf8JsonWriter json, string name, IEnumerable<string> values)
+    {
+        json.WriteStartArray(name);
+        foreach (var v in values)
+        {
+            json.WriteStringValue(v);
+        }
+
+        json.WriteEndArray();
+    }
+
+    private static void WriteString(Utf8JsonWriter json, string name, string? value)
+    {
+        if (value is null)
+        {
+            json.WriteNull(name);
+        }
+        else
+        {
+            json.WriteString(name, value);
+        }
+    }
+
+    private static void WriteDate(Utf8JsonWriter json, string name, DateOnly? date) =>
+        WriteString(json, name, date?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+}

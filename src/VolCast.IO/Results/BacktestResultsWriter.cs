@@ -1,0 +1,82 @@
+using VolCast.Core.Backtest;
+
+namespace VolCast.IO.Results;
+
+/// <summary>Writes a backtest's results into a new output folder: forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt.</summary>
+/// <remarks>
+/// The files are built in a temporary sibling folder (each through <see cref="AtomicFile"/>) and the folder is moved
+/// into place, so a failure leaves no half-written report. An existing folder is refused unless <c>force</c> is set;
+/// with it, only the files this writer produces are replaced and anything else in the folder is left alone.
+/// </remarks>
+public static class BacktestResultsWriter
+{
+    /// <summary>Gets the names of the files this writer produces.</summary>
+    public static IReadOnlyList<string> FileNames { get; } = ["forecasts.csv", "metrics.csv", "metrics.json", "run.json", "summary.txt"];
+
+    /// <summary>Writes the results folder.</summary>
+    /// <param name="folder">The output folder; must not exist unless <paramref name="force"/>.</param>
+    /// <param name="result">The backtest result.</param>
+    /// <param name="run">Version, inputs with their SHA-256, and times, for run.json.</param>
+    /// <param name="force">Replace this writer's files in an existing folder.</param>
+    /// <returns>The full paths of the files written.</returns>
+    /// <exception cref="IOException">The folder exists and <paramref name="force"/> is false, or an input file would be overwritten.</exception>
+    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, bool force = false)
+    {
+        ArgumentNullException.ThrowIfNull(folder);
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentNullException.ThrowIfNull(run);
+        var target = Path.GetFullPath(folder).TrimEnd(Path.DirectorySeparatorChar);
+        var exists = Directory.Exists(target);
+        if (exists && !force)
+        {
+            throw new IOException($"{folder}: the output folder already exists; choose another --out or pass --force to replace its results files.");
+        }
+
+        if (File.Exists(target))
+        {
+            throw new IOException($"{folder}: a file of that name exists; --out must name a folder.");
+        }
+
+        foreach (var input in run.Inputs)
+        {
+            var full = Path.GetFullPath(input.Path);
+            if (FileNames.Any(name => string.Equals(full, Path.Combine(target, name), StringComparison.Ordinal)))
+            {
+                throw new IOException($"{folder}: writing the results would overwrite the input file {input.Path}; choose another --out.");
+            }
+        }
+
+        var parent = Path.GetDirectoryName(target)!;
+        Directory.CreateDirectory(parent);
+        var temp = Path.Combine(parent, $".{Path.GetFileName(target)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
+        Directory.CreateDirectory(temp);
+        try
+        {
+            AtomicFile.WriteText(Path.Combine(temp, "forecasts.csv"), w => ForecastsCsv.Write(w, result));
+            AtomicFile.WriteText(Path.Combine(temp, "metrics.csv"), w => MetricsCsv.Write(w, result));
+            AtomicFile.WriteText(Path.Combine(temp, "metrics.json"), w => BacktestJson.WriteMetrics(w, result));
+            AtomicFile.WriteText(Path.Combine(temp, "run.json"), w => BacktestJson.WriteRun(w, result, run));
+            AtomicFile.WriteText(Path.Combine(temp, "summary.txt"), w => SummaryText.Write(w, result, run));
+            if (!Directory.Exists(target))
+            {
+                Directory.Move(temp, target);
+            }
+            else
+            {
+                foreach (var name in FileNames)
+                {
+                    File.Move(Path.Combine(temp, name), Path.Combine(target, name), overwrite: true);
+                }
+            }
+        }
+        finally
+        {
+            if (Directory.Exists(temp))
+            {
+                Directory.Delete(temp, recursive: true);
+            }
+        }
+
+        return [.. FileNames.Select(name => Path.Combine(target, name))];
+    }
+}

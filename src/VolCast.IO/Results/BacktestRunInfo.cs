@@ -1,0 +1,18 @@
+using System.Collections.Immutable;
+
+namespace VolCast.IO.Results;
+
+/// <summary>What run.json records besides the resolved settings: the tool version, the inputs and their hashes, and the times.</summary>
+/// <param name="ToolVersion">The version of volcast that ran.</param>
+/// <param name="Inputs">The input files with their SHA-256.</param>
+/// <param name="StartedUtc">When the run started.</param>
+/// <param name="FinishedUtc">When the computation finished (before the files were written).</param>
+/// <param name="ImpliedUnit">The unit the implied file was read in (<c>percent</c> or <c>decimal</c>) and whether it was inferred, or null without implied.</param>
+/// <param name="InputWarnings">Warnings raised while reading the inputs, repeated in the summary.</param>
+public sealed record BacktestRunInfo(
+    string ToolVersion,
+    ImmutableArray<InputFileInfo> Inputs,
+    DateTimeOffset StartedUtc,
+    DateTimeOffset FinishedUtc,
+    string? ImpliedUnit,
+    ImmutableArray<string> InputWarnings);

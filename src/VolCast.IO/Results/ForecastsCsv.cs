@@ -1,0 +1,35 @@
+using System.Globalization;
+using VolCast.Core.Backtest;
+
+namespace VolCast.IO.Results;
+
+/// <summary>Writes forecasts.csv: <c>date, realized, implied</c>, then one column per forecaster named by its spec; decimal annualized vol, empty where undefined.</summary>
+internal static class ForecastsCsv
+{
+    public static void Write(TextWriter writer, BacktestResult result)
+    {
+        writer.Write("date,realized,implied");
+        foreach (var f in result.Forecasts)
+        {
+            writer.Write(',');
+            writer.Write(Numbers.Field(f.Spec));
+        }
+
+        writer.Write('\n');
+        for (var t = 0; t < result.Dates.Length; t++)
+        {
+            writer.Write(result.Dates[t].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+            writer.Write(',');
+            writer.Write(Numbers.Csv(result.Realized[t]));
+            writer.Write(',');
+            writer.Write(Numbers.Csv(result.Implied[t]));
+            foreach (var f in result.Forecasts)
+            {
+                writer.Write(',');
+                writer.Write(Numbers.Csv(f.Values[t]));
+            }
+
+            writer.Write('\n');
+        }
+    }
+}

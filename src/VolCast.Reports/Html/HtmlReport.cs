@@ -1,0 +1,204 @@
+using System.Globalization;
+using System.Net;
+using System.Text;
+using VolCast.Reports.Model;
+
+namespace VolCast.Reports.Html;
+
+/// <summary>
+/// Renders a <see cref="ReportModel"/> as one self-contained HTML page: inline CSS, charts as PNG data URIs, no
+/// scripts, and a Content-Security-Policy that forbids loading anything from elsewhere.
+/// </summary>
+/// <remarks>
+/// Sections, in order: verdict, metrics, charts, data quality, run details, cautions. Every string from the model is
+/// HTML-escaped; numbers are formatted with the invariant culture, so the same model gives the same bytes.
+/// </remarks>
+public static class HtmlReport
+{
+    /// <summary>The Content-Security-Policy the page declares: images only from data URIs, inline styles only, nothing else.</summary>
+    public const string ContentSecurityPolicy = "default-src 'none'; img-src data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'";
+
+    /// <summary>The section ids, in the order they appear.</summary>
+    public static IReadOnlyList<string> SectionIds { get; } = ["verdict", "metrics", "charts", "data-quality", "run", "cautions"];
+
+    private const string Css = """
+        body{font-family:"DejaVu Sans",Arial,Helvetica,sans-serif;color:#111;background:#fff;max-width:1240px;margin:0 auto;padding:16px 24px;line-height:1.45}
+        h1{font-size:1.7em;margin:.2em 0 .4em}
+        h2{font-size:1.3em;border-bottom:2px solid #0072B2;padding-bottom:4px;margin-top:1.6em}
+        h3{font-size:1.05em;margin:1.2em 0 .4em}
+        .verdict{border:2px solid #0072B2;background:#eef6fb;padding:12px 18px;border-radius:4px}
+        .verdict .headline{font-size:1.25em;font-weight:bold;margin:0 0 .4em}
+        table{border-collapse:collapse;margin:.4em 0 .8em;font-size:.95em}
+        th,td{border:1px solid #bbb;padding:4px 10px;text-align:right;vertical-align:top}
+        th:first-child,td:first-child{text-align:left}
+        table.text th,table.text td{text-align:left}
+        thead th{background:#f0f0f0}
+        th .unit{display:block;font-weight:normal;font-size:.85em;color:#444}
+        .note{font-size:.9em;color:#333}
+        figure{margin:1em 0 1.6em;page-break-inside:avoid;break-inside:avoid}
+        figure img{width:100%;max-width:1200px;height:auto;border:1px solid #ddd}
+        figcaption{font-size:.92em;color:#333}
+        figcaption strong{display:block;color:#111;font-size:1.05em}
+        code{font-family:"DejaVu Sans Mono",monospace;font-size:.9em;word-break:break-all}
+        .cautions{border-left:4px solid #D55E00;padding-left:14px}
+        @media print{body{max-width:none;padding:0}h2{page-break-after:avoid;break-after:avoid}table,.verdict{page-break-inside:avoid;break-inside:avoid}}
+        """;
+
+    /// <summary>Renders the report.</summary>
+    /// <param name="model">The report's content.</param>
+    /// <returns>The complete HTML document.</returns>
+    public static string Render(ReportModel model)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        var html = new StringBuilder(256 * 1024);
+        html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
+        html.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"").Append(ContentSecurityPolicy).Append("\">\n");
+        html.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
+        html.Append("<title>").Append(E(model.Title)).Append("</title>\n<style>\n").Append(Css).Append("\n</style>\n</head>\n<body>\n");
+        html.Append("<h1>").Append(E(model.Title)).Append("</h1>\n");
+
+        Verdict(html, model.Verdict);
+        Metrics(html, model.Tables);
+        Charts(html, model.Charts);
+        Quality(html, model.DataQuality);
+        Run(html, model.Run);
+        Cautions(html, model.Cautions);
+        html.Append("</body>\n</html>\n");
+        return html.ToString();
+    }
+
+    /// <summary>Escapes text for HTML content and attribute values.</summary>
+    /// <param name="text">Any user or model text.</param>
+    /// <returns>The text with &amp;, &lt;, &gt;, quotes and apostrophes escaped.</returns>
+    public static string E(string text) => WebUtility.HtmlEncode(text);
+
+    /// <summary>Formats a cell: the value with its format in the invariant culture, a dash when null, stars for significance.</summary>
+    internal static string Cell(MetricCell cell)
+    {
+        var text = cell.Value is double v ? v.ToString(cell.Format, CultureInfo.InvariantCulture) : "—";
+        var stars = cell.Significance switch
+        {
+            Significance.OnePercent => "***",
+            Significance.FivePercent => "**",
+            Significance.TenPercent => "*",
+            _ => string.Empty,
+        };
+        return stars.Length == 0 ? E(text) : E(text) + "<sup>" + stars + "</sup>";
+    }
+
+    private static void Verdict(StringBuilder html, Verdict verdict)
+    {
+        html.Append("<section id=\"verdict\">\n<h2>Verdict</h2>\n<div class=\"verdict\">\n<p class=\"headline\">")
+            .Append(E(verdict.Headline)).Append("</p>\n<ul>\n");
+        foreach (var point in verdict.Points)
+        {
+            html.Append("<li>").Append(E(point)).Append("</li>\n");
+        }
+
+        html.Append("</ul>\n</div>\n</section>\n");
+    }
+
+    private static void Metrics(StringBuilder html, IReadOnlyList<MetricTable> tables)
+    {
+        html.Append("<section id=\"metrics\">\n<h2>Metrics</h2>\n");
+        foreach (var table in tables)
+        {
+            html.Append("<h3>").Append(E(table.Title)).Append("</h3>\n<table>\n<thead><tr><th>&nbsp;</th>");
+            foreach (var column in table.Columns)
+            {
+                html.Append("<th>").Append(E(column.Header)).Append("<span class=\"unit\">").Append(E(column.Unit)).Append("</span></th>");
+            }
+
+            html.Append("</tr></thead>\n<tbody>\n");
+            foreach (var row in table.Rows)
+            {
+                html.Append("<tr><td>").Append(E(row.Label)).Append("</td>");
+                foreach (var cell in row.Cells)
+                {
+                    html.Append("<td>").Append(Cell(cell)).Append("</td>");
+                }
+
+                html.Append("</tr>\n");
+            }
+
+            html.Append("</tbody>\n</table>\n");
+            if (table.Note is not null)
+            {
+                html.Append("<p class=\"note\">").Append(E(table.Note)).Append("</p>\n");
+            }
+        }
+
+        html.Append("<p class=\"note\">Significance: * p &lt; 0.10, ** p &lt; 0.05, *** p &lt; 0.01, from tests with Newey-West (HAC) standard errors.</p>\n</section>\n");
+    }
+
+    private static void Charts(StringBuilder html, IReadOnlyList<ChartImage> charts)
+    {
+        html.Append("<section id=\"charts\">\n<h2>Charts</h2>\n");
+        foreach (var chart in charts)
+        {
+            html.Append("<figure>\n<img src=\"data:image/png;base64,").Append(Convert.ToBase64String(chart.Png.Span))
+                .Append("\" width=\"1200\" height=\"600\" alt=\"").Append(E(chart.Description)).Append("\">\n<figcaption><strong>")
+                .Append(E(chart.Title)).Append("</strong>").Append(E(chart.Description)).Append("</figcaption>\n</figure>\n");
+        }
+
+        html.Append("</section>\n");
+    }
+
+    private static void Quality(StringBuilder html, DataQuality quality)
+    {
+        html.Append("<section id=\"data-quality\">\n<h2>Data quality</h2>\n<table class=\"text\">\n<tbody>\n");
+        Row(html, "Price rows read", quality.RowsRead.ToString(CultureInfo.InvariantCulture));
+        Row(html, "Rows dropped", quality.RowsDropped.ToString(CultureInfo.InvariantCulture));
+        Row(html, "Dates scored", quality.ForecastDates.ToString(CultureInfo.InvariantCulture));
+        Row(html, "Implied coverage of scored dates", quality.ImpliedCoverage is double c ? c.ToString("0.0%", CultureInfo.InvariantCulture) : "no implied file");
+        Row(html, "Warnings", quality.Warnings.Count.ToString(CultureInfo.InvariantCulture));
+        html.Append("</tbody>\n</table>\n");
+        if (quality.Warnings.Count > 0)
+        {
+            html.Append("<ul>\n");
+            foreach (var warning in quality.Warnings)
+            {
+                html.Append("<li>").Append(E(warning)).Append("</li>\n");
+            }
+
+            html.Append("</ul>\n");
+        }
+
+        html.Append("</section>\n");
+    }
+
+    private static void Run(StringBuilder html, RunInfo run)
+    {
+        html.Append("<section id=\"run\">\n<h2>Settings and inputs</h2>\n<table class=\"text\">\n<tbody>\n");
+        Row(html, "Tool version", "volcast " + run.ToolVersion);
+        Row(html, "Run started (UTC)", run.StartedAt.ToUniversalTime().ToString("yyyy-MM-dd HH:mm:ss", CultureInfo.InvariantCulture));
+        Row(html, "Run time", run.Elapsed.TotalSeconds.ToString("0.00", CultureInfo.InvariantCulture) + " s");
+        foreach (var setting in run.Settings)
+        {
+            Row(html, setting.Name, setting.Value);
+        }
+
+        html.Append("</tbody>\n</table>\n<h3>Input files</h3>\n<table class=\"text\">\n<thead><tr><th>Role</th><th>File</th><th>SHA-256</th></tr></thead>\n<tbody>\n");
+        foreach (var input in run.Inputs)
+        {
+            html.Append("<tr><td>").Append(E(input.Role)).Append("</td><td><code>").Append(E(input.Path))
+                .Append("</code></td><td><code>").Append(E(input.Sha256)).Append("</code></td></tr>\n");
+        }
+
+        html.Append("</tbody>\n</table>\n</section>\n");
+    }
+
+    private static void Cautions(StringBuilder html, IReadOnlyList<string> cautions)
+    {
+        html.Append("<section id=\"cautions\">\n<h2>Cautions</h2>\n<div class=\"cautions\">\n");
+        foreach (var caution in cautions)
+        {
+            html.Append("<p>").Append(E(caution)).Append("</p>\n");
+        }
+
+        html.Append("</div>\n</section>\n");
+    }
+
+    private static void Row(StringBuilder html, string name, string value) =>
+        html.Append("<tr><th scope=\"row\">").Append(E(name)).Append("</th><td>").Append(E(value)).Append("</td></tr>\n");
+}

@@ -1,0 +1,48 @@
+using VolCast.IO;
+using VolCast.Reports.Model;
+
+namespace VolCast.Reports.Html;
+
+/// <summary>Writes a report into a folder: report.html and every chart as its own PNG, each file atomically.</summary>
+public static class ReportFiles
+{
+    /// <summary>The report's file name inside the output folder.</summary>
+    public const string ReportFileName = "report.html";
+
+    /// <summary>Writes report.html and the chart PNGs into <paramref name="folder"/>.</summary>
+    /// <param name="model">The report.</param>
+    /// <param name="folder">The output folder; created when missing.</param>
+    /// <param name="overwrite">Replace files that already exist; without it an existing file stops the write.</param>
+    /// <returns>The paths written, report.html last.</returns>
+    /// <exception cref="IOException">A file exists and <paramref name="overwrite"/> is false.</exception>
+    public static IReadOnlyList<string> Write(ReportModel model, string folder, bool overwrite)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(folder);
+        var html = HtmlReport.Render(model);
+        var written = new List<string>();
+        var reportPath = Path.Combine(folder, ReportFileName);
+        if (!overwrite)
+        {
+            // Check every target first, so a refused write leaves nothing half-written.
+            foreach (var target in model.Charts.Select(c => Path.Combine(folder, c.FileName)).Append(reportPath))
+            {
+                if (File.Exists(target))
+                {
+                    throw new IOException($"{target}: the output file already exists; choose another --out or pass --force to replace it.");
+                }
+            }
+        }
+
+        foreach (var chart in model.Charts)
+        {
+            var path = Path.Combine(folder, chart.FileName);
+            AtomicBytes.Write(path, chart.Png.Span, overwrite);
+            written.Add(path);
+        }
+
+        AtomicFile.WriteText(reportPath, w => w.Write(html), overwrite);
+        written.Add(reportPath);
+        return written;
+    }
+}

@@ -1,0 +1,20 @@
+namespace VolCast.Reports.Model;
+
+/// <summary>Everything one report shows, as plain values; <see cref="Html.HtmlReport"/> renders it.</summary>
+/// <param name="Title">The report's title, e.g. the instrument and horizon.</param>
+/// <param name="Verdict">The verdict in plain words.</param>
+/// <param name="Tables">The metric tables.</param>
+/// <param name="Charts">The rendered charts, in the order to show them.</param>
+/// <param name="DataQuality">What the inputs looked like.</param>
+/// <param name="Run">Settings, tool version, run time and input hashes.</param>
+public sealed record ReportModel(
+    string Title,
+    Verdict Verdict,
+    IReadOnlyList<MetricTable> Tables,
+    IReadOnlyList<ChartImage> Charts,
+    DataQuality DataQuality,
+    RunInfo Run)
+{
+    /// <summary>The cautions printed at the end of every report.</summary>
+    public IReadOnlyList<string> Cautions { get; init; } = ReportText.Cautions;
+}

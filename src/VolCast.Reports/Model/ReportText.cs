@@ -1,0 +1,15 @@
+namespace VolCast.Reports.Model;
+
+/// <summary>Fixed wording shared by every report.</summary>
+public static class ReportText
+{
+    /// <summary>The cautions every report ends with.</summary>
+    public static IReadOnlyList<string> Cautions { get; } =
+    [
+        "These results describe how the methods would have done in the past, on the data given here, and nothing more.",
+        "Nothing in this report is investment, trading or risk advice.",
+        "A forecaster that ranked well on this history can do worse on new data; models fail out of sample.",
+        "Trading options can lose money, including more than the premium paid when selling.",
+        "Follow your firm's rules and those of your jurisdiction, and consult a licensed professional before acting on any of this.",
+    ];
+}

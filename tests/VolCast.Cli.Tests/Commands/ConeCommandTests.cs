@@ -1,0 +1,122 @@
+using System.Globalization;
+using System.Text;
+using VolCast.Cli.Tests.Support;
+
+namespace VolCast.Cli.Tests.Commands;
+
+public sealed class ConeCommandTests : IDisposable
+{
+    private readonly string _folder = Directory.CreateTempSubdirectory("volcast-cone-").FullName;
+
+    public void Dispose() => Directory.Delete(_folder, recursive: true);
+
+    private (string Path, double[] Closes) WriteCloses(string name, int count, int seed)
+    {
+        var random = new Random(seed);
+        var closes = new double[count];
+        var price = 100.0;
+        var text = new StringBuilder("date,close\n");
+        var date = new DateOnly(2015, 1, 5);
+        for (var i = 0; i < count; i++)
+        {
+            price *= Math.Exp(0.015 * ((random.NextDouble() * 2) - 1));
+            closes[i] = Math.Round(price, 4);
+            text.Append(CultureInfo.InvariantCulture, $"{date:yyyy-MM-dd},{closes[i]:0.####}\n");
+            date = date.AddDays(date.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
+        }
+
+        var path = Path.Combine(_folder, name);
+        File.WriteAllText(path, text.ToString());
+        return (path, closes);
+    }
+
+    [Fact]
+    public void Cone_LongHistory_WritesPngAndCsvWithTheDirectMedian()
+    {
+        var (prices, closes) = WriteCloses("prices.csv", 900, 1);
+        var output = Path.Combine(_folder, "out");
+
+        var result = CliRunner.Run("cone", "--prices", prices, "--out", output);
+
+        Assert.Equal(0, result.ExitCode);
+        var png = File.ReadAllBytes(Path.Combine(output, "cone.png"));
+        Assert.Equal([0x89, 0x50, 0x4E, 0x47], png[..4]);
+        var lines = File.ReadAllLines(Path.Combine(output, "cone.csv"));
+        Assert.StartsWith("horizon_days,windows,ht_variance_factor,min,p10,p25,median", lines[0], StringComparison.Ordinal);
+        Assert.Equal(8, lines.Length); // 899 returns cover all seven default horizons (252 needs 755).
+
+        // The 5-day median worked out here from the closes: zero-mean annualized vol of every 5-return window,
+        // type 7 median of the 895 windows = the 448th smallest.
+        var vols = new List<double>();
+        for (var s = 1; s + 4 < closes.Length; s++)
+        {
+            var sum = 0.0;
+            for (var k = s; k < s + 5; k++)
+            {
+                var r = Math.Log(closes[k] / closes[k - 1]);
+                sum += r * r;
+            }
+
+            vols.Add(Math.Sqrt(252.0 / 5 * sum));
+        }
+
+        vols.Sort();
+        var row = lines[1].Split(',');
+        Assert.Equal("5", row[0]);
+        Assert.Equal(vols.Count.ToString(CultureInfo.InvariantCulture), row[1]);
+        Assert.Equal(vols[vols.Count / 2], double.Parse(row[6], CultureInfo.InvariantCulture), 12);
+    }
+
+    [Fact]
+    public void Cone_ExistingOutput_RefusedWithoutForceAndReplacedWithIt()
+    {
+        var (prices, _) = WriteCloses("prices.csv", 400, 2);
+        var output = Path.Combine(_folder, "out");
+
+        var first = CliRunner.Run("cone", "--prices", prices, "--out", output);
+        var second = CliRunner.Run("cone", "--prices", prices, "--out", output);
+        var forced = CliRunner.Run("cone", "--prices", prices, "--out", output, "--force");
+
+        Assert.Equal(0, first.ExitCode);
+        Assert.Equal(3, second.ExitCode);
+        Assert.Contains("--force", second.Stderr, StringComparison.Ordinal);
+        Assert.Equal(0, forced.ExitCode);
+    }
+
+    [Fact]
+    public void Cone_ShortHistory_WarnsAboutTheHorizonsLeftOut()
+    {
+        var (prices, _) = WriteCloses("prices.csv", 200, 3);
+
+        var result = CliRunner.Run("cone", "--prices", prices, "--out", Path.Combine(_folder, "out"));
+
+        Assert.Equal(0, result.ExitCode);
+        Assert.Contains("the 126-day horizon needs at least 377 daily returns", result.Stderr, StringComparison.Ordinal);
+        Assert.Equal(6, File.ReadAllLines(Path.Combine(_folder, "out", "cone.csv")).Length); // header + 5, 10, 21, 42, 63 (63 needs 188 of the 199 returns)
+    }
+
+    [Fact]
+    public void Cone_TooShortForAnyHorizon_ExitsThreeNamingTheFile()
+    {
+        var (prices, _) = WriteCloses("short.csv", 10, 4);
+
+        var result = CliRunner.Run("cone", "--prices", prices, "--out", Path.Combine(_folder, "out"));
+
+        Assert.Equal(3, result.ExitCode);
+        Assert.Contains("short.csv", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("needs at least 14", result.Stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Cone_WithImplied_Succeeds()
+    {
+        var (prices, _) = WriteCloses("prices.csv", 400, 5);
+        var impliedPath = Path.Combine(_folder, "implied.csv");
+        File.WriteAllText(impliedPath, "date,iv\n2015-01-05,0.2\n2015-01-06,0.25\n");
+
+        var result = CliRunner.Run("cone", "--prices", prices, "--implied", impliedPath, "--out", Path.Combine(_folder, "out"));
+
+        Assert.Equal(0, result.ExitCode);
+        Assert.True(File.Exists(Path.Combine(_folder, "out", "cone.png")));
+    }
+}

@@ -1,0 +1,139 @@
+using System.Diagnostics;
+using System.Text.RegularExpressions;
+using SkiaSharp;
+using VolCast.Reports.Html;
+using VolCast.Reports.Tests.Support;
+using Xunit.Abstractions;
+
+namespace VolCast.Reports.Tests.Html;
+
+/// <summary>
+/// Opens a written report in headless Chromium (Debian's package, which .ci/run installs) and checks what a reader
+/// would get: every section, decodable images, nothing loaded from elsewhere, and a page that is not blank.
+/// Without the browser the test fails under CI (CI=true) and otherwise returns early with a note in its output.
+/// </summary>
+public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
+{
+    private const string Chromium = "/usr/bin/chromium";
+
+    private readonly string _folder = Directory.CreateTempSubdirectory("volcast-browser-").FullName;
+
+    public void Dispose() => Directory.Delete(_folder, recursive: true);
+
+    [GeneratedRegex("<img [^>]*src=\"([^\"]*)\"")]
+    private static partial Regex ImagePattern();
+
+    [GeneratedRegex("(src|href)=\"https?:", RegexOptions.IgnoreCase)]
+    private static partial Regex RemotePattern();
+
+    [Fact]
+    public void Report_InHeadlessChromium_ShowsEverySectionAndEveryImage()
+    {
+        if (!File.Exists(Chromium))
+        {
+            Assert.False(
+                string.Equals(Environment.GetEnvironmentVariable("CI"), "true", StringComparison.OrdinalIgnoreCase),
+                $"{Chromium} is missing; .ci/run installs Debian's chromium package, so under CI the browser check must run.");
+            output.WriteLine($"NOT RUN: {Chromium} is missing; install Debian's chromium to run the browser check.");
+            return;
+        }
+
+        var report = ReportFiles.Write(SampleReport.Model(SampleReport.Create().Charts(), "<script>alert(1)</script>.csv"), Path.Combine(_folder, "out"), overwrite: false)[^1];
+        var url = new Uri(report).AbsoluteUri;
+
+        var dom = RunChromium("--dump-dom", url);
+        var shot = Path.Combine(_folder, "shot.png");
+        RunChromium($"--screenshot={shot}", "--window-size=1200,3000", url);
+
+        Assert.Contains("ranks first on QLIKE", dom, StringComparison.Ordinal);
+        foreach (var id in HtmlReport.SectionIds)
+        {
+            Assert.Contains($"<section id=\"{id}\">", dom, StringComparison.Ordinal);
+        }
+
+        // The hostile file name arrived as text, not as a script element.
+        Assert.Contains("&lt;script&gt;alert(1)&lt;/script&gt;.csv", dom, StringComparison.Ordinal);
+        Assert.DoesNotContain("<script", dom, StringComparison.OrdinalIgnoreCase);
+        Assert.DoesNotMatch(RemotePattern(), dom);
+
+        var sources = ImagePattern().Matches(dom).Select(m => m.Groups[1].Value).ToArray();
+        Assert.Equal(7, sources.Length);
+        foreach (var source in sources)
+        {
+            Assert.StartsWith("data:image/png;base64,", source, StringComparison.Ordinal);
+            using var image = SKBitmap.Decode(Convert.FromBase64String(source["data:image/png;base64,".Length..]));
+            Assert.NotNull(image);
+            Assert.True(image.Width > 0 && image.Height > 0);
+        }
+
+        using var screenshot = SKBitmap.Decode(shot);
+        Assert.NotNull(screenshot);
+        Assert.Equal(1200, screenshot.Width);
+        Assert.True(LumaVariance(screenshot) > 100, "the screenshot is blank or nearly so");
+        File.Copy(shot, Path.Combine(AppContext.BaseDirectory, "browser-screenshot.png"), overwrite: true);
+    }
+
+    private static double LumaVariance(SKBitmap bitmap)
+    {
+        double sum = 0, sumSquares = 0;
+        var count = 0;
+        for (var y = 0; y < bitmap.Height; y += 4)
+        {
+            for (var x = 0; x < bitmap.Width; x += 4)
+            {
+                var c = bitmap.GetPixel(x, y);
+                var luma = (0.299 * c.Red) + (0.587 * c.Green) + (0.114 * c.Blue);
+                sum += luma;
+                sumSquares += luma * luma;
+                count++;
+            }
+        }
+
+        var mean = sum / count;
+        return (sumSquares / count) - (mean * mean);
+    }
+
+    private string RunChromium(params string[] args)
+    {
+        var profile = Directory.CreateTempSubdirectory("volcast-chromium-").FullName;
+        try
+        {
+            var start = new ProcessStartInfo(Chromium)
+            {
+                RedirectStandardOutput = true,
+                RedirectStandardError = true,
+                UseShellExecute = false,
+                WorkingDirectory = _folder,
+            };
+            foreach (var flag in new[]
+            {
+                "--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update",
+                "--disable-sync", "--no-first-run", "--hide-scrollbars", $"--user-data-dir={profile}",
+            })
+            {
+                start.ArgumentList.Add(flag);
+            }
+
+            foreach (var arg in args)
+            {
+                start.ArgumentList.Add(arg);
+            }
+
+            using var process = Process.Start(start)!;
+            var stdout = process.StandardOutput.ReadToEndAsync();
+            var stderr = process.StandardError.ReadToEndAsync();
+            if (!process.WaitForExit(TimeSpan.FromSeconds(90)))
+            {
+                process.Kill(entireProcessTree: true);
+                throw new TimeoutException("chromium did not finish within 90 s.");
+            }
+
+            Assert.True(process.ExitCode == 0, $"chromium exited {process.ExitCode}: {stderr.Result}");
+            return stdout.Result;
+        }
+        finally
+        {
+            Directory.Delete(profile, recursive: true);
+        }
+    }
+}
