@@ -1,0 +1,66 @@
+using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
+using VolCast.Core.Tests.Backtest;
+
+namespace VolCast.Core.Tests.Calibration;
+
+public sealed class BacktestCalibratorTests
+{
+    private static BacktestSettings Settings(BacktestHorizon horizon) => new()
+    {
+        Horizon = horizon,
+        Forecasters = ["close-to-close:21", "ewma:0.94"],
+        Sweep = false,
+        McsReplications = 200,
+    };
+
+    [Fact]
+    public void Evaluate_BacktestWithImplied_ScoresImpliedThenEveryForecastOnTheClosedWindows()
+    {
+        var (prices, implied) = BacktestData.GarchWithTrueImplied(1200, 21, seed: 3);
+        var result = Backtester.Run(prices, implied, Settings(BacktestHorizon.Days(21)));
+
+        var calibration = BacktestCalibrator.Evaluate(result, prices);
+
+        var names = new[] { "implied" }.Concat(result.Forecasts.Select(f => f.Spec)).ToArray();
+        Assert.Equal(names, calibration.Report.Calibrations.Select(c => c.Forecaster).ToArray());
+        Assert.Equal(names, calibration.Report.Coverages.Select(c => c.Forecaster).ToArray());
+        Assert.Equal(names.Length, calibration.Verdicts.Length);
+        Assert.Equal(names.Length, calibration.Regimes.Length);
+
+        // The dates are exactly those whose window closed, with S_t and S_{t+21} from the history.
+        var closed = Enumerable.Range(0, result.Dates.Length).Where(i => result.WindowDays[i] is not null).ToArray();
+        Assert.Equal(closed, calibration.Aligned.DateIndices.ToArray());
+        var close = prices.Close.ToArray();
+        var dates = prices.Dates.ToArray();
+        var k = closed[^1];
+        var j = Array.IndexOf(dates, result.Dates[k]);
+        Assert.Equal(close[j], calibration.Aligned.Outcomes.StartClose[^1]);
+        Assert.Equal(close[j + 21], calibration.Aligned.Outcomes.EndClose[^1]);
+
+        // Same numbers as the aligned-array call on the same columns.
+        var direct = ExpectedMoveCoverage.Evaluate(calibration.Aligned.Outcomes, calibration.Aligned.Select("ewma:0.94", result.Forecasts[1].Values));
+        Assert.Equal(direct.ZScale, calibration.Report.Coverages[2].ZScale);
+        Assert.Equal(direct.Levels[0], calibration.Report.Coverages[2].Levels[0]);
+
+        // Lookback forecasters have a warm-up with no value: counted, not dropped.
+        var warmUp = closed.Count(i => result.Forecasts[0].Values[i] is null);
+        Assert.Equal(warmUp, calibration.Report.Coverages[1].MissingCount);
+        Assert.All(calibration.InvalidValueCounts, c => Assert.Equal(0, c));
+        Assert.All(calibration.Regimes, r => Assert.Equal(3, r.Length));
+    }
+
+    [Fact]
+    public void Evaluate_CalendarTenor_UsesEachDatesTradingDayWindow()
+    {
+        var (prices, _) = BacktestData.GarchWithTrueImplied(600, 21, seed: 4);
+        var result = Backtester.Run(prices, null, Settings(BacktestHorizon.Tenor(30)));
+
+        var calibration = BacktestCalibrator.Evaluate(result, prices);
+
+        var expected = result.WindowDays.Where(w => w is not null).Select(w => w!.Value).ToArray();
+        Assert.Equal(expected, calibration.Aligned.Outcomes.WindowDays.ToArray());
+        Assert.True(expected.Distinct().Count() > 1, "a 30-day tenor over weekdays should give windows of different lengths");
+        Assert.Equal(result.Forecasts.Select(f => f.Spec).ToArray(), calibration.Report.Coverages.Select(c => c.Forecaster).ToArray());
+    }
+}
