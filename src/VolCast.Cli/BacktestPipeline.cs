@@ -3,11 +3,12 @@ using System.Reflection;
 using VolCast.Core.Backtest;
 using VolCast.IO;
 using VolCast.IO.Results;
+using VolCast.Reports;
 
 namespace VolCast.Cli;
 
 /// <summary>
-/// Loads one job's inputs, runs the backtest and writes its results folder. Holds no shared state, so jobs for
+/// Loads one job's inputs, runs the backtest and writes its results folder (results files, report.html and its charts). Holds no shared state, so jobs for
 /// different assets can run side by side (and, one day, on different machines).
 /// </summary>
 internal static class BacktestPipeline
@@ -78,7 +79,13 @@ internal static class BacktestPipeline
             DateTimeOffset.UtcNow,
             impliedLoad is null ? null : (impliedLoad.UnitUsed == ImpliedUnit.Percent ? "percent" : "decimal") + (impliedLoad.UnitInferred ? " (inferred)" : string.Empty),
             [.. inputWarnings]);
-        BacktestResultsWriter.Write(job.OutputFolder, result, run, job.Force);
+        // The report is built inside the results writer's temporary folder, so it moves into place with the rest or not at all.
+        BacktestResultsWriter.Write(
+            job.OutputFolder,
+            result,
+            run,
+            job.Force,
+            temp => ReportWriter.Write(temp, result, run, priceLoad.History, priceLoad.RowsRead));
         return (result, run);
     }
 

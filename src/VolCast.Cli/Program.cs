@@ -19,8 +19,8 @@ internal static class Program
         var console = new CliConsole(stdout, stderr);
         var root = new RootCommand(
             "VolCast: backtest volatility forecasts against the realized volatility that followed and the implied volatility quoted at the time.");
+        root.Subcommands.Add(DemoCommand.Create(console));
         root.Subcommands.Add(EstimateCommand.Create(console));
-        root.Subcommands.Add(MakeDemoDataCommand.Create(console));
         root.Subcommands.Add(ImpliedCommand.Create(console));
         root.Subcommands.Add(FitCommand.Create(console));
         root.Subcommands.Add(ConeCommand.Create(console));

@@ -23,7 +23,7 @@ internal static class BacktestCommand
         var end = new Option<string?>("--end") { Description = "Last forecast date, yyyy-MM-dd." };
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>)." };
         var force = new Option<bool>("--force") { Description = "Use an existing output folder, replacing only volcast's own results files in it." };
-        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt.")
+        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt.")
         {
             prices, implied, ivUnit, config, horizon, tenor, start, end, output, force,
         };
@@ -102,7 +102,7 @@ internal static class BacktestCommand
             $"{result.Dates.Length} forecast dates ({result.DataQuality.DatesWithTarget} with a realized target), {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}."));
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {Show(head.Qlike?.Statistic)} (p {Show(head.Qlike?.PValue)}), DM MSE {Show(head.MseVariance?.Statistic)} (p {Show(head.MseVariance?.PValue)}); negative favours the candidate."));
-        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt)");
+        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt)");
         return ExitCodes.Success;
     }
 

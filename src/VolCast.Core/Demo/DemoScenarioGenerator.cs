@@ -22,31 +22,36 @@ namespace VolCast.Core.Demo;
 public sealed class DemoScenarioGenerator
 {
     private const int StepsPerDay = 78;
-    private const double Persistence = 0.985;
-    private const double LogVolShock = 0.05;
-    private const double Leverage = -0.55;
     private const double OvernightShare = 0.2;
-    private const double JumpProbability = 1.0 / 250;
-    private const double JumpMean = -0.04;
     private const double JumpStdDev = 0.03;
-    private const double MeanPremium = 0.025;
     private const double QuoteNoise = 0.004;
     private const double MissingShare = 0.03;
     private const int TenorCalendarDays = 30;
-    private const double IndexBase = 0.16;
-    private const double IndexStressed = 0.38;
-    private const double IndexCalm = 0.10;
 
     private readonly Random _random;
+    private readonly DemoAssetParameters _parameters;
     private double? _spareNormal;
 
-    /// <summary>Creates a generator.</summary>
+    /// <summary>Creates a generator of the demo index scenario.</summary>
     /// <param name="seed">The random seed; the same seed gives the same scenario bit for bit.</param>
     /// <param name="years">How many calendar years to generate, at least 2.</param>
     public DemoScenarioGenerator(int seed, int years = 20)
+        : this(seed, DemoAssetParameters.Index, years)
     {
+    }
+
+    /// <summary>Creates a generator of an asset with the given behaviour.</summary>
+    /// <param name="seed">The random seed; the same seed and parameters give the same data bit for bit.</param>
+    /// <param name="parameters">How the asset behaves (<see cref="DemoAssetParameters.Index"/> for the demo index).</param>
+    /// <param name="years">How many calendar years to generate, at least 2.</param>
+    /// <exception cref="ArgumentOutOfRangeException">A parameter is out of range, or fewer than 2 years.</exception>
+    public DemoScenarioGenerator(int seed, DemoAssetParameters parameters, int years)
+    {
+        ArgumentNullException.ThrowIfNull(parameters);
         ArgumentOutOfRangeException.ThrowIfLessThan(years, 2);
+        parameters.Validate();
         _random = new Random(seed);
+        _parameters = parameters;
         Years = years;
     }
 
@@ -59,12 +64,27 @@ public sealed class DemoScenarioGenerator
         var dates = TradingCalendar(new DateOnly(2005, 1, 3), Years);
         var n = dates.Length;
         var dailyVol = new double[n];
-        var index = SimulateBars(dates, dailyVol, IndexBase, IndexStressed, IndexCalm, startLevel: 1000);
-        var expected = ExpectedVolatility(dates, dailyVol);
-        var implied = ImpliedFromExpected(dates, expected);
+        var index = SimulateBars(dates, dailyVol, _parameters);
+        var expected = ExpectedVolatility(dates, dailyVol, _parameters);
+        var implied = ImpliedFromExpected(dates, expected, _parameters.MeanPremium);
         var secondVol = new double[n];
-        var second = SimulateBars(dates, secondVol, annualBase: 0.28, stressed: 0.55, calm: 0.20, startLevel: 40);
+        var second = SimulateBars(dates, secondVol, _parameters with { BaseVolatility = 0.28, StressedVolatility = 0.55, CalmVolatility = 0.20, StartPrice = 40 });
         return new DemoScenario(index, implied, expected, PriceHistory.FromCloses(dates, second.Close));
+    }
+
+    /// <summary>Generates one asset with this generator's parameters: bars, implied volatility and expected volatility.</summary>
+    /// <param name="name">The asset's invented name.</param>
+    /// <param name="start">The first calendar date; the calendar runs <see cref="Years"/> years from it.</param>
+    /// <returns>The asset.</returns>
+    public DemoAsset GenerateAsset(string name, DateOnly start)
+    {
+        ArgumentNullException.ThrowIfNull(name);
+        var dates = TradingCalendar(start, Years);
+        var dailyVol = new double[dates.Length];
+        var prices = SimulateBars(dates, dailyVol, _parameters);
+        var expected = ExpectedVolatility(dates, dailyVol, _parameters);
+        var implied = ImpliedFromExpected(dates, expected, _parameters.MeanPremium);
+        return new DemoAsset(name, _parameters, prices, implied, expected);
     }
 
     private static DateOnly[] TradingCalendar(DateOnly start, int years)
@@ -90,20 +110,23 @@ public sealed class DemoScenarioGenerator
         || (d.Month == 6 && d.DayOfWeek == DayOfWeek.Monday && d.Day is > 7 and <= 14);
 
     // Regime level of annualized volatility by fraction of the sample, with smooth (logistic) transitions.
-    private static double RegimeVolatility(double yearsIn, double annualBase, double stressed, double calm)
+    private static double RegimeVolatility(double yearsIn, DemoAssetParameters p)
     {
+        var annualBase = p.BaseVolatility;
+        var calm = p.CalmVolatility;
+        var stressed = p.StressedVolatility;
         static double Window(double x, double from, double to) =>
             1 / (1 + Math.Exp(-(x - from) * 6)) * (1 / (1 + Math.Exp((x - to) * 6)));
 
-        var calmWeight = Window(yearsIn, 2, 5);
-        var stressWeight = Window(yearsIn, 8, 9.5);
+        var calmWeight = Window(yearsIn, p.CalmFromYear, p.CalmToYear);
+        var stressWeight = Window(yearsIn, p.StressFromYear, p.StressToYear);
         var logVol = Math.Log(annualBase)
             + (calmWeight * (Math.Log(calm) - Math.Log(annualBase)))
             + (stressWeight * (Math.Log(stressed) - Math.Log(annualBase)));
         return Math.Exp(logVol);
     }
 
-    private PriceHistory SimulateBars(DateOnly[] dates, double[] dailyVol, double annualBase, double stressed, double calm, double startLevel)
+    private PriceHistory SimulateBars(DateOnly[] dates, double[] dailyVol, DemoAssetParameters p)
     {
         var n = dates.Length;
         var open = new double[n];
@@ -111,22 +134,22 @@ public sealed class DemoScenarioGenerator
         var low = new double[n];
         var close = new double[n];
         var first = dates[0];
-        var previousClose = startLevel;
+        var previousClose = p.StartPrice;
         var deviation = 0.0; // log daily vol minus its regime level
         var previousShock = 0.0;
         var stepScale = Math.Sqrt((1 - OvernightShare) / StepsPerDay);
         for (var t = 0; t < n; t++)
         {
             var yearsIn = (dates[t].DayNumber - first.DayNumber) / 365.25;
-            var level = Math.Log(RegimeVolatility(yearsIn, annualBase, stressed, calm) / Math.Sqrt(252));
-            var volShock = (Leverage * previousShock) + (Math.Sqrt(1 - (Leverage * Leverage)) * Normal());
-            deviation = (Persistence * deviation) + (LogVolShock * volShock);
+            var level = Math.Log(RegimeVolatility(yearsIn, p) / Math.Sqrt(252));
+            var volShock = (p.Leverage * previousShock) + (Math.Sqrt(1 - (p.Leverage * p.Leverage)) * Normal());
+            deviation = (p.Persistence * deviation) + (p.LogVolatilityShock * volShock);
             var sigma = Math.Exp(level + deviation);
             dailyVol[t] = sigma;
 
             var overnight = sigma * Math.Sqrt(OvernightShare) * Normal();
             var o = Math.Round(previousClose * Math.Exp(overnight - (0.5 * OvernightShare * sigma * sigma)), 2);
-            var jumpStep = _random.NextDouble() < JumpProbability ? _random.Next(StepsPerDay) : -1;
+            var jumpStep = _random.NextDouble() < p.JumpProbability ? _random.Next(StepsPerDay) : -1;
             var logPrice = Math.Log(o);
             var hi = logPrice;
             var lo = logPrice;
@@ -138,7 +161,7 @@ public sealed class DemoScenarioGenerator
                 diffusive += sigma * stepScale * z;
                 if (s == jumpStep)
                 {
-                    step += JumpMean + (JumpStdDev * Normal());
+                    step += p.JumpMean + (JumpStdDev * Normal());
                 }
 
                 logPrice += step;
@@ -160,13 +183,13 @@ public sealed class DemoScenarioGenerator
 
     // E[sigma^2(t+k) | sigma(t)] for the log-AR(1): exp(2(level + phi^k dev) + 2 s_k^2), s_k^2 = eta^2 (1 - phi^2k) / (1 - phi^2),
     // averaged over the trading days in (t, t + 30 calendar days], plus the jumps' expected variance; annualized with 252.
-    private static double[] ExpectedVolatility(DateOnly[] dates, double[] dailyVol)
+    private static double[] ExpectedVolatility(DateOnly[] dates, double[] dailyVol, DemoAssetParameters p)
     {
         var n = dates.Length;
         var result = new double[n];
         var first = dates[0];
-        var jumpVariance = JumpProbability * ((JumpMean * JumpMean) + (JumpStdDev * JumpStdDev));
-        var stationary = LogVolShock * LogVolShock / (1 - (Persistence * Persistence));
+        var jumpVariance = p.JumpProbability * ((p.JumpMean * p.JumpMean) + (JumpStdDev * JumpStdDev));
+        var stationary = p.LogVolatilityShock * p.LogVolatilityShock / (1 - (p.Persistence * p.Persistence));
         var end = 0;
         for (var t = 0; t < n; t++)
         {
@@ -180,13 +203,13 @@ public sealed class DemoScenarioGenerator
             // Near the end of the sample the 30 days run past the calendar: assume 21 trading days there.
             var h = end - t >= 15 ? end - t : 21;
             var yearsIn = (dates[t].DayNumber - first.DayNumber) / 365.25;
-            var regime = Math.Log(RegimeVolatility(yearsIn, IndexBase, IndexStressed, IndexCalm) / Math.Sqrt(252));
+            var regime = Math.Log(RegimeVolatility(yearsIn, p) / Math.Sqrt(252));
             var deviation = Math.Log(dailyVol[t]) - regime;
             var sum = 0.0;
             var phiK = 1.0;
             for (var k = 1; k <= h; k++)
             {
-                phiK *= Persistence;
+                phiK *= p.Persistence;
                 var noise = stationary * (1 - (phiK * phiK));
                 sum += Math.Exp((2 * (regime + (phiK * deviation))) + (2 * noise));
             }
@@ -197,14 +220,14 @@ public sealed class DemoScenarioGenerator
         return result;
     }
 
-    private ImpliedSeries ImpliedFromExpected(DateOnly[] dates, double[] expected)
+    private ImpliedSeries ImpliedFromExpected(DateOnly[] dates, double[] expected, double meanPremium)
     {
         var keptDates = new List<DateOnly>(dates.Length);
         var keptVol = new List<double>(dates.Length);
-        var premium = MeanPremium;
+        var premium = meanPremium;
         for (var t = 0; t < dates.Length; t++)
         {
-            premium = MeanPremium + (0.97 * (premium - MeanPremium)) + (0.003 * Normal());
+            premium = meanPremium + (0.97 * (premium - meanPremium)) + (0.003 * Normal());
             var iv = expected[t] + premium + (QuoteNoise * Normal());
             var missing = _random.NextDouble() < MissingShare;
             if (missing)

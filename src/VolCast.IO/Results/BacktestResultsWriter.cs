@@ -18,9 +18,13 @@ public static class BacktestResultsWriter
     /// <param name="result">The backtest result.</param>
     /// <param name="run">Version, inputs with their SHA-256, and times, for run.json.</param>
     /// <param name="force">Replace this writer's files in an existing folder.</param>
+    /// <param name="writeMore">
+    /// Writes further files of the same run (the HTML report and its charts) into the temporary folder it is given and
+    /// returns their names, so they are moved into place with the rest, and with <paramref name="force"/> replaced like them; or null.
+    /// </param>
     /// <returns>The full paths of the files written.</returns>
     /// <exception cref="IOException">The folder exists and <paramref name="force"/> is false, or an input file would be overwritten.</exception>
-    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, bool force = false)
+    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, bool force = false, Func<string, IReadOnlyList<string>>? writeMore = null)
     {
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(result);
@@ -50,6 +54,7 @@ public static class BacktestResultsWriter
         Directory.CreateDirectory(parent);
         var temp = Path.Combine(parent, $".{Path.GetFileName(target)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
         Directory.CreateDirectory(temp);
+        var names = new List<string>(FileNames);
         try
         {
             AtomicFile.WriteText(Path.Combine(temp, "forecasts.csv"), w => ForecastsCsv.Write(w, result));
@@ -57,13 +62,14 @@ public static class BacktestResultsWriter
             AtomicFile.WriteText(Path.Combine(temp, "metrics.json"), w => BacktestJson.WriteMetrics(w, result));
             AtomicFile.WriteText(Path.Combine(temp, "run.json"), w => BacktestJson.WriteRun(w, result, run));
             AtomicFile.WriteText(Path.Combine(temp, "summary.txt"), w => SummaryText.Write(w, result, run));
+            names.AddRange(writeMore?.Invoke(temp) ?? []);
             if (!Directory.Exists(target))
             {
                 Directory.Move(temp, target);
             }
             else
             {
-                foreach (var name in FileNames)
+                foreach (var name in names)
                 {
                     File.Move(Path.Combine(temp, name), Path.Combine(target, name), overwrite: true);
                 }
@@ -77,6 +83,6 @@ public static class BacktestResultsWriter
             }
         }
 
-        return [.. FileNames.Select(name => Path.Combine(target, name))];
+        return [.. names.Select(name => Path.Combine(target, name))];
     }
 }

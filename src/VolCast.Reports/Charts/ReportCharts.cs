@@ -54,7 +54,7 @@ public static class ReportCharts
     {
         using var plot = BuildLossVsLookback(curves);
         return new ChartImage("loss-vs-lookback.png", "Loss against lookback",
-            "Mean QLIKE loss (lower is better) for each lookback; the large markers are the lookbacks the walk-forward selection chose, sized by how often.",
+            "Mean QLIKE loss (lower is better) for each lookback, in sample; the open circles are the lookbacks the walk-forward selection chose out of sample on at least 2% of dates, sized by how often. EWMA decays are in the lookback table, not here.",
             ChartStyle.Png(plot));
     }
 
@@ -198,7 +198,7 @@ public static class ReportCharts
     internal static Plot BuildLossVsLookback(IReadOnlyList<LookbackCurve> curves)
     {
         ArgumentNullException.ThrowIfNull(curves);
-        var plot = ChartStyle.NewPlot("Mean QLIKE loss against lookback (circles: chosen out of sample)", "Lookback (trading days)", "Mean QLIKE loss (lower is better)");
+        var plot = ChartStyle.NewPlot("Mean QLIKE against lookback (circles: chosen out of sample, by share)", "Lookback (trading days)", "Mean QLIKE loss (lower is better)");
         var colour = 1;
         foreach (var curve in curves)
         {
@@ -227,7 +227,9 @@ public static class ReportCharts
             foreach (var (lookback, times) in counts)
             {
                 var index = IndexOf(curve.LookbackDays, lookback);
-                if (index < 0)
+
+                // A lookback picked on under 2% of dates is noise on this chart; the table lists every choice.
+                if (index < 0 || times < 0.02 * curve.ChosenLookbackDays.Count)
                 {
                     continue;
                 }
@@ -236,7 +238,7 @@ public static class ReportCharts
                 marker.Color = color;
                 marker.MarkerShape = MarkerShape.OpenCircle;
                 marker.MarkerLineWidth = 2.5f;
-                marker.Size = 14 + (10f * times / curve.ChosenLookbackDays.Count);
+                marker.Size = 10 + (30f * times / curve.ChosenLookbackDays.Count);
             }
         }
 

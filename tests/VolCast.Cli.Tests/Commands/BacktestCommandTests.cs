@@ -67,6 +67,14 @@ public sealed class BacktestCommandTests : IDisposable
         Assert.Equal(Sha256(_implied), inputs[1].GetProperty("sha256").GetString(), StringComparer.OrdinalIgnoreCase);
         Assert.Equal(21, run.RootElement.GetProperty("settings").GetProperty("horizon").GetInt32());
         Assert.True(File.Exists(Path.Combine(output, "summary.txt")));
+        // The report and its charts are written beside the results, inside the same folder move.
+        var html = File.ReadAllText(Path.Combine(output, "report.html"));
+        Assert.Contains("ranks first on QLIKE", html, StringComparison.Ordinal);
+        foreach (var png in new[] { "forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png", "mincer-zarnowitz.png", "cone.png", "rule-test.png" })
+        {
+            Assert.Equal([0x89, 0x50, 0x4E, 0x47], File.ReadAllBytes(Path.Combine(output, png))[..4]);
+        }
+
         Assert.Empty(Directory.GetDirectories(_folder, ".out.*"));
     }
 
@@ -77,6 +85,7 @@ public sealed class BacktestCommandTests : IDisposable
         Directory.CreateDirectory(output);
         File.WriteAllText(Path.Combine(output, "notes.txt"), "mine");
         File.WriteAllText(Path.Combine(output, "metrics.csv"), "old");
+        File.WriteAllText(Path.Combine(output, "report.html"), "old");
         string[] args = ["backtest", "--prices", _prices, "--out", output, "--config", WriteConfig("fast.json", "{ \"sweep\": false, \"forecasters\": [\"ewma:0.94\", \"close-to-close:21\"] }")];
 
         var refused = CliRunner.Run(args);
@@ -88,6 +97,7 @@ public sealed class BacktestCommandTests : IDisposable
         Assert.True(forced.ExitCode == 0, forced.Stderr);
         Assert.Equal("mine", File.ReadAllText(Path.Combine(output, "notes.txt")));
         Assert.StartsWith("forecaster,", File.ReadAllText(Path.Combine(output, "metrics.csv")), StringComparison.Ordinal);
+        Assert.StartsWith("<!DOCTYPE html>", File.ReadAllText(Path.Combine(output, "report.html")), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -1,0 +1,192 @@
+using System.Globalization;
+using VolCast.Core.Backtest;
+using VolCast.Core.Scoring;
+using VolCast.Reports.Model;
+
+namespace VolCast.Reports;
+
+/// <summary>Builds the report's metric tables from a backtest: every column with its unit, tests marked with stars.</summary>
+internal static class ReportTables
+{
+    private static readonly MetricColumn Dates = new("Dates", "count");
+    private static readonly MetricColumn Qlike = new("QLIKE", "unitless, lower is better");
+    private static readonly MetricColumn Mse = new("MSE of variance", "×10⁻³, annualized variance²");
+    private static readonly MetricColumn Rmse = new("RMSE", "vol points");
+    private static readonly MetricColumn Bias = new("Bias", "vol points, forecast − realized");
+
+    /// <summary>The tables, head-to-head first (it leads the results).</summary>
+    public static IReadOnlyList<MetricTable> Build(BacktestResult result)
+    {
+        var tables = new List<MetricTable> { HeadToHead(result), Losses(result) };
+        if (result.Adaptive.Length > 0)
+        {
+            tables.Add(Lookbacks(result));
+        }
+
+        if (result.RuleTest is RuleTestResult rule)
+        {
+            tables.Add(Rule(rule));
+        }
+
+        return tables;
+    }
+
+    /// <summary>Stars for a two-sided p-value: * below 0.10, ** below 0.05, *** below 0.01.</summary>
+    public static Significance Stars(double? p) => p switch
+    {
+        < 0.01 => Significance.OnePercent,
+        < 0.05 => Significance.FivePercent,
+        < 0.10 => Significance.TenPercent,
+        _ => Significance.None,
+    };
+
+    private static MetricTable HeadToHead(BacktestResult result)
+    {
+        var h = result.BaselineVersusCandidate;
+        var rows = new List<MetricRow>
+        {
+            LossRow("candidate " + result.Candidate, h.FirstLosses),
+            LossRow("baseline " + result.Baseline, h.SecondLosses),
+        };
+        if (h.FirstLosses is LossSummary c && h.SecondLosses is LossSummary b)
+        {
+            rows.Add(new MetricRow("difference (candidate − baseline)",
+            [
+                new MetricCell(h.Count, "0"),
+                new MetricCell(c.Qlike - b.Qlike, "0.0000", Stars(h.Qlike?.PValue)),
+                new MetricCell((c.MseVariance - b.MseVariance) * 1e3, "0.000", Stars(h.MseVariance?.PValue)),
+                new MetricCell((c.RmseVolatility - b.RmseVolatility) * 100, "0.00"),
+                new MetricCell((c.Bias - b.Bias) * 100, "0.00"),
+            ]));
+        }
+
+        var note = string.Create(CultureInfo.InvariantCulture,
+            $"On the {h.Count} dates both forecast. Stars on the difference: Diebold-Mariano test (QLIKE: {Stat(h.Qlike)}; MSE: {Stat(h.MseVariance)}), HAC lag {result.HacLag}; a negative difference favours the candidate.");
+        return new MetricTable($"Head to head: candidate {result.Candidate} against baseline {result.Baseline}", [Dates, Qlike, Mse, Rmse, Bias], rows, note);
+    }
+
+    private static MetricTable Losses(BacktestResult result)
+    {
+        var ordered = result.Metrics
+            .Select((m, i) => (m, i))
+            .OrderBy(p => p.m.Losses?.Qlike ?? double.PositiveInfinity)
+            .ThenBy(p => p.i)
+            .Select(p => p.m);
+        var rows = new List<MetricRow>();
+        foreach (var m in ordered)
+        {
+            var l = m.Losses;
+            var dm = m.VersusImplied?.Qlike;
+            var label = m.InMcs == true ? m.Spec + " ✓" : m.Spec;
+            rows.Add(new MetricRow(label,
+            [
+                new MetricCell(l?.Count, "0"),
+                new MetricCell(l?.Qlike, "0.0000"),
+                new MetricCell(l?.MseVariance * 1e3, "0.000"),
+                new MetricCell(l?.RmseVolatility * 100, "0.00"),
+                new MetricCell(l?.Bias * 100, "0.00"),
+                new MetricCell(dm?.Statistic, "0.00", Stars(dm?.PValue)),
+                new MetricCell(m.MincerZarnowitz?.Slope, "0.000", Stars(m.MincerZarnowitz?.WaldPValue)),
+                new MetricCell(m.MincerZarnowitz?.RSquared, "0.000"),
+                new MetricCell(m.Encompassing?.ForecastSlope, "0.000", Stars(m.Encompassing?.ForecastPValue)),
+                new MetricCell(m.McsPValue, "0.000"),
+            ]));
+        }
+
+        var alpha = result.ModelConfidenceSet.Result?.Options.Alpha ?? result.Settings.McsAlpha;
+        var note = string.Create(CultureInfo.InvariantCulture,
+            $"Each forecaster on its own scored dates. DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better, stars = differs from implied. MZ slope b of RV² = a + b F², stars = unbiasedness (a = 0, b = 1) rejected by the Wald test. Encompassing c: weight on the forecast in RV² = a + b IV² + c F², stars = it adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). All tests use Newey-West errors with lag {result.HacLag}.");
+        return new MetricTable("Forecast losses, ranked on QLIKE",
+            [Dates, Qlike, Mse, Rmse, Bias, new("DM vs implied", "t-statistic"), new("MZ slope b", "1 = unbiased"), new("MZ R²", "0 to 1"), new("Encompassing c", "weight on forecast"), new("MCS p", "probability")],
+            rows, note);
+    }
+
+    private static MetricTable Lookbacks(BacktestResult result)
+    {
+        var rows = new List<MetricRow>();
+        foreach (var adaptive in result.Adaptive)
+        {
+            var best = result.Sweep.FirstOrDefault(s => s.Family == adaptive.Family && s.IsBestInSample);
+            var metrics = result.Metrics.FirstOrDefault(m => m.Spec == adaptive.Spec);
+            var counts = new Dictionary<string, int>(StringComparer.Ordinal);
+            foreach (var choice in adaptive.Choices)
+            {
+                if (choice is not null)
+                {
+                    counts[choice] = counts.GetValueOrDefault(choice) + 1;
+                }
+            }
+
+            (string? Key, int Value) top = counts.Count == 0 ? (null, 0) : counts.OrderByDescending(p => p.Value).Select(p => ((string?)p.Key, p.Value)).First();
+            rows.Add(new MetricRow(adaptive.Spec,
+            [
+                new MetricCell(Parameter(best?.Spec), "0.##"),
+                new MetricCell(best?.Qlike, "0.0000"),
+                new MetricCell(Parameter(top.Key), "0.##"),
+                new MetricCell(adaptive.DatesWithChoice == 0 ? null : top.Value * 100.0 / adaptive.DatesWithChoice, "0"),
+                new MetricCell(adaptive.ChangeCount, "0"),
+                new MetricCell(metrics?.Losses?.Qlike, "0.0000"),
+            ]));
+        }
+
+        return new MetricTable("Lookback: in-sample best against the out-of-sample adaptive choice",
+            [new("Best in sample", "days, or EWMA decay"), new("Its QLIKE", "in-sample, hindsight"), new("Chosen most often", "days, or EWMA decay"), new("Share of dates", "%"), new("Changes", "count"), new("Adaptive QLIKE", "out of sample")],
+            rows,
+            string.Create(CultureInfo.InvariantCulture,
+                $"The in-sample best is picked with hindsight over the whole sample (look-ahead, for reference only); the adaptive forecaster picks, each date, the lookback with the lowest QLIKE over the previous {result.Settings.SelectionWindowDays} trading days whose targets were known."));
+    }
+
+    private static MetricTable Rule(RuleTestResult rule)
+    {
+        var rows = new List<MetricRow>();
+        foreach (var row in rule.Rows)
+        {
+            var signal = row.Signal switch
+            {
+                RuleSignal.SellVolatility => "sell signals",
+                RuleSignal.BuyVolatility => "buy signals",
+                _ => "all dates",
+            };
+            var t = row.MeanVolatilityGap is double g && row.MeanVolatilityGapStandardError is double se && se > 0 ? g / se : (double?)null;
+            rows.Add(new MetricRow($"{row.Source}: {signal}",
+            [
+                new MetricCell(row.Count, "0"),
+                new MetricCell(row.HitRate * 100, "0.0"),
+                new MetricCell(row.MeanVolatilityGap * 100, "0.00", t is double tv ? Stars(TwoSidedNormalP(tv)) : Significance.None),
+                new MetricCell(row.MeanVolatilityGapStandardError * 100, "0.00"),
+            ]));
+        }
+
+        return new MetricTable(
+            string.Create(CultureInfo.InvariantCulture, $"Rule test: sell volatility when implied exceeds the forecast by more than {rule.ThresholdVolatility * 100:0.0} points (buy for the mirror)"),
+            [Dates, new("Hit rate", "% of dates the side was right"), new("Mean IV − RV", "vol points"), new("Standard error", "vol points, HAC")],
+            rows,
+            RuleTestResult.Caution + " Stars: mean IV − RV differs from zero (normal approximation to the HAC t-statistic).");
+    }
+
+    private static double? Parameter(string? spec)
+    {
+        if (spec is null)
+        {
+            return null;
+        }
+
+        var colon = spec.LastIndexOf(':');
+        return colon > 0 && double.TryParse(spec.AsSpan(colon + 1), NumberStyles.Float, CultureInfo.InvariantCulture, out var value) ? value : null;
+    }
+
+    private static MetricRow LossRow(string label, LossSummary? l) => new(label,
+    [
+        new MetricCell(l?.Count, "0"),
+        new MetricCell(l?.Qlike, "0.0000"),
+        new MetricCell(l?.MseVariance * 1e3, "0.000"),
+        new MetricCell(l?.RmseVolatility * 100, "0.00"),
+        new MetricCell(l?.Bias * 100, "0.00"),
+    ]);
+
+    private static string Stat(DieboldMarianoResult? dm) => dm is { Statistic: double t, PValue: double p }
+        ? string.Create(CultureInfo.InvariantCulture, $"{t:0.00}, p = {p:0.0000}")
+        : "not computable";
+
+    private static double TwoSidedNormalP(double z) => 2 * MathNet.Numerics.Distributions.Normal.CDF(0, 1, -Math.Abs(z));
+}

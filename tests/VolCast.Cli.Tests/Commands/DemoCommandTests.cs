@@ -1,0 +1,186 @@
+using System.Globalization;
+using System.Text.Json;
+using VolCast.Cli.Commands;
+using VolCast.Cli.Tests.Support;
+
+namespace VolCast.Cli.Tests.Commands;
+
+/// <summary>
+/// The path a new user walks: <c>volcast demo</c> on the committed data-demo/ writes the whole report, and the numbers
+/// in it show what data-demo/README.md says is true of the invented scenario. One demo run is shared by the class.
+/// </summary>
+public sealed class DemoCommandTests(DemoCommandTests.DemoRun demo) : IClassFixture<DemoCommandTests.DemoRun>
+{
+    [Fact]
+    public void Demo_Out_WritesTheReportChartsAndResults()
+    {
+        Assert.True(demo.ExitCode == 0, demo.Stderr);
+        foreach (var name in new[]
+        {
+            "report.html", "forecasts.csv", "metrics.csv", "metrics.json", "run.json", "summary.txt", "forecast-vs-realized.png",
+            "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png", "mincer-zarnowitz.png", "cone.png", "rule-test.png",
+        })
+        {
+            Assert.True(new FileInfo(Path.Combine(demo.Folder, name)).Length > 1000, name);
+        }
+
+        var html = File.ReadAllText(Path.Combine(demo.Folder, "report.html"));
+        Assert.Contains("ranks first on QLIKE", html, StringComparison.Ordinal);
+        Assert.Contains("candidate garch against baseline yang-zhang:21", html, StringComparison.Ordinal);
+        Assert.True(html.Length < 5 * 1024 * 1024, "the report must stay under 5 MB");
+        Assert.Contains("report.html", demo.Stdout, StringComparison.Ordinal);
+        Assert.Empty(Directory.GetDirectories(Path.GetDirectoryName(demo.Folder)!, ".out.*"));
+    }
+
+    [Fact]
+    public void Demo_ImpliedMinusRealized_IsAboutTheGeneratorsPremium()
+    {
+        // The generator sets implied = the model's expected 30-day volatility + a premium averaging 2.5 vol points
+        // (data-demo/README.md). Realized volatility is the square root of a noisy variance, so on average it sits
+        // below the expected volatility (Jensen): mean IV − RV is the premium plus that gap, never less than the
+        // premium in expectation. The gap from a 21-day chi-square-like sampling error at 16% vol is about 0.2 points,
+        // and volatility of volatility and jumps add a few tenths more; the 20-year mean itself has a HAC standard
+        // error of about 0.25 points. So the band is [2.5, 3.5] vol points: the premium, plus up to a point for the
+        // Jensen gap and sampling error. (The README says "about 3 points on this seed".)
+        var lines = File.ReadAllLines(Path.Combine(demo.Folder, "forecasts.csv"));
+        var header = lines[0].Split(',');
+        var realized = Array.IndexOf(header, "realized");
+        var implied = Array.IndexOf(header, "implied");
+        var sum = 0.0;
+        var count = 0;
+        foreach (var line in lines.Skip(1))
+        {
+            var cells = line.Split(',');
+            if (cells[realized].Length > 0 && cells[implied].Length > 0)
+            {
+                sum += double.Parse(cells[implied], CultureInfo.InvariantCulture) - double.Parse(cells[realized], CultureInfo.InvariantCulture);
+                count++;
+            }
+        }
+
+        Assert.True(count > 4500, $"expected most of the 5,151 scored dates to have implied, got {count}");
+        Assert.InRange(sum / count * 100, 2.5, 3.5);
+    }
+
+    [Fact]
+    public void Demo_ForecasterThatKnowsTheDynamics_RanksAheadOfShortWindows()
+    {
+        // The scenario's volatility clusters with persistence 0.985 a day (data-demo/README.md): GARCH models that
+        // mean-reverting persistence, while 5- and 10-day windows mostly measure noise. So garch's QLIKE is lower.
+        using var metrics = JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.Folder, "metrics.json")));
+        var qlike = metrics.RootElement.GetProperty("forecasters").EnumerateArray()
+            .ToDictionary(f => f.GetProperty("forecaster").GetString()!, f => f.GetProperty("qlike").GetDouble());
+
+        Assert.True(qlike["garch"] < qlike["close-to-close:5"], $"garch {qlike["garch"]} vs close-to-close:5 {qlike["close-to-close:5"]}");
+        Assert.True(qlike["garch"] < qlike["close-to-close:10"], $"garch {qlike["garch"]} vs close-to-close:10 {qlike["close-to-close:10"]}");
+    }
+
+    [Fact]
+    public void Demo_RunJson_RecordsTheDemoConfigurationAndInputs()
+    {
+        using var run = JsonDocument.Parse(File.ReadAllText(Path.Combine(demo.Folder, "run.json")));
+        var roles = run.RootElement.GetProperty("inputs").EnumerateArray().Select(i => i.GetProperty("role").GetString()!).ToArray();
+        Assert.Equal(["prices", "implied", "config"], roles);
+        var settings = run.RootElement.GetProperty("settings");
+        Assert.Equal("30d", settings.GetProperty("tenor").GetString());
+        Assert.Equal("yang-zhang:21", settings.GetProperty("baseline").GetString());
+        Assert.Equal("garch", settings.GetProperty("candidate").GetString());
+    }
+
+    [Fact]
+    public void Demo_ExistingOutWithoutForce_Exit2AndNothingChanged()
+    {
+        var folder = Directory.CreateTempSubdirectory("volcast-demo-existing-").FullName;
+        try
+        {
+            File.WriteAllText(Path.Combine(folder, "report.html"), "mine");
+            var result = CliRunner.Run("demo", "--out", folder);
+            Assert.Equal(2, result.ExitCode);
+            Assert.Contains("--force", result.Stderr, StringComparison.Ordinal);
+            Assert.Equal("mine", File.ReadAllText(Path.Combine(folder, "report.html")));
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void Demo_DataFolderMissing_Exit3SayingHowToCreateIt()
+    {
+        var result = CliRunner.Run("demo", "--data", Path.Combine(Path.GetTempPath(), $"no-such-demo-{Guid.NewGuid():N}"), "--out", Path.Combine(Path.GetTempPath(), $"x-{Guid.NewGuid():N}"));
+        Assert.Equal(3, result.ExitCode);
+        Assert.Contains("--regenerate", result.Stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Demo_Regenerate_MatchesTheCommittedFilesByteForByte()
+    {
+        var committed = Path.Combine(DemoRun.RepositoryRoot(), "data-demo");
+        var folder = Directory.CreateTempSubdirectory("volcast-regen-").FullName;
+        try
+        {
+            var result = CliRunner.Run("demo", "--regenerate", "--data", folder);
+            Assert.True(result.ExitCode == 0, result.Stderr);
+            Assert.Equal(46, DemoFiles.GeneratedFiles.Count);
+            foreach (var file in DemoFiles.GeneratedFiles)
+            {
+                var expected = File.ReadAllBytes(Path.Combine(committed, file));
+                var actual = File.ReadAllBytes(Path.Combine(folder, file));
+                Assert.True(expected.AsSpan().SequenceEqual(actual), $"{file} differs from the committed data-demo/{file}");
+            }
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void Demo_Help_SaysTheDefaultReplacesReportsDemo()
+    {
+        var result = CliRunner.Run("demo", "--help");
+        Assert.Equal(0, result.ExitCode);
+        Assert.Contains("implicitly --force", result.Stdout, StringComparison.Ordinal);
+        Assert.Contains("--regenerate", result.Stdout, StringComparison.Ordinal);
+    }
+
+    /// <summary>Runs <c>volcast demo --out TEMP</c> once for the class.</summary>
+    public sealed class DemoRun : IDisposable
+    {
+        private readonly string _parent = Directory.CreateTempSubdirectory("volcast-demo-").FullName;
+
+        public DemoRun()
+        {
+            Folder = Path.Combine(_parent, "out");
+            var result = CliRunner.Run("demo", "--out", Folder);
+            ExitCode = result.ExitCode;
+            Stdout = result.Stdout;
+            Stderr = result.Stderr;
+        }
+
+        public string Folder { get; }
+
+        public int ExitCode { get; }
+
+        public string Stdout { get; }
+
+        public string Stderr { get; }
+
+        /// <summary>The folder holding VolCast.sln above the test assembly.</summary>
+        public static string RepositoryRoot()
+        {
+            for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
+            {
+                if (File.Exists(Path.Combine(folder.FullName, "VolCast.sln")))
+                {
+                    return folder.FullName;
+                }
+            }
+
+            throw new DirectoryNotFoundException("VolCast.sln was not found above " + AppContext.BaseDirectory);
+        }
+
+        public void Dispose() => Directory.Delete(_parent, recursive: true);
+    }
+}
