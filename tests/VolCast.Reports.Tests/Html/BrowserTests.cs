@@ -29,16 +29,64 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
     [Fact]
     public void Report_InHeadlessChromium_ShowsEverySectionAndEveryImage()
     {
-        if (!File.Exists(Chromium))
+        if (!BrowserAvailable())
         {
-            Assert.False(
-                string.Equals(Environment.GetEnvironmentVariable("CI"), "true", StringComparison.OrdinalIgnoreCase),
-                $"{Chromium} is missing; .ci/run installs Debian's chromium package, so under CI the browser check must run.");
-            output.WriteLine($"NOT RUN: {Chromium} is missing; install Debian's chromium to run the browser check.");
             return;
         }
 
         var report = ReportFiles.Write(SampleReport.Model(SampleReport.Create().Charts(), "<script>alert(1)</script>.csv"), Path.Combine(_folder, "out"), overwrite: false)[^1];
+        var dom = CheckInChromium(report, "browser-screenshot.png");
+
+        // The hostile file name arrived as text, not as a script element.
+        Assert.Contains("&lt;script&gt;alert(1)&lt;/script&gt;.csv", dom, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void CommittedDemoReport_InHeadlessChromium_ShowsEverySectionAndEveryImage()
+    {
+        if (!BrowserAvailable())
+        {
+            return;
+        }
+
+        // The report the README shows: reports/demo/report.html as committed, written by volcast demo.
+        var report = Path.Combine(RepositoryRoot(), "reports", "demo", "report.html");
+        Assert.True(File.Exists(report), $"{report} is missing; run volcast demo from the repository's root and commit reports/demo.");
+        var dom = CheckInChromium(report, "demo-screenshot.png");
+
+        Assert.Contains("candidate garch against baseline yang-zhang:21", dom, StringComparison.Ordinal);
+    }
+
+    private static string RepositoryRoot()
+    {
+        for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
+        {
+            if (File.Exists(Path.Combine(folder.FullName, "VolCast.sln")))
+            {
+                return folder.FullName;
+            }
+        }
+
+        throw new DirectoryNotFoundException("VolCast.sln was not found above " + AppContext.BaseDirectory);
+    }
+
+    private bool BrowserAvailable()
+    {
+        if (File.Exists(Chromium))
+        {
+            return true;
+        }
+
+        Assert.False(
+            string.Equals(Environment.GetEnvironmentVariable("CI"), "true", StringComparison.OrdinalIgnoreCase),
+            $"{Chromium} is missing; .ci/run installs Debian's chromium package, so under CI the browser check must run.");
+        output.WriteLine($"NOT RUN: {Chromium} is missing; install Debian's chromium to run the browser check.");
+        return false;
+    }
+
+    /// <summary>Opens the report in headless Chromium, checks sections, images, remote loads and the screenshot, and returns the DOM.</summary>
+    private string CheckInChromium(string report, string screenshotName)
+    {
         var url = new Uri(report).AbsoluteUri;
 
         var dom = RunChromium("--dump-dom", url);
@@ -51,8 +99,6 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
             Assert.Contains($"<section id=\"{id}\">", dom, StringComparison.Ordinal);
         }
 
-        // The hostile file name arrived as text, not as a script element.
-        Assert.Contains("&lt;script&gt;alert(1)&lt;/script&gt;.csv", dom, StringComparison.Ordinal);
         Assert.DoesNotContain("<script", dom, StringComparison.OrdinalIgnoreCase);
         Assert.DoesNotMatch(RemotePattern(), dom);
 
@@ -70,7 +116,8 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
         Assert.NotNull(screenshot);
         Assert.Equal(1200, screenshot.Width);
         Assert.True(LumaVariance(screenshot) > 100, "the screenshot is blank or nearly so");
-        File.Copy(shot, Path.Combine(AppContext.BaseDirectory, "browser-screenshot.png"), overwrite: true);
+        File.Copy(shot, Path.Combine(AppContext.BaseDirectory, screenshotName), overwrite: true);
+        return dom;
     }
 
     private static double LumaVariance(SKBitmap bitmap)

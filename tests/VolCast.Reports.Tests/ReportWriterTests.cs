@@ -1,0 +1,168 @@
+using VolCast.Core.Backtest;
+using VolCast.Core.Demo;
+using VolCast.IO.Results;
+using VolCast.Reports.Html;
+using VolCast.Reports.Tests.Support;
+
+namespace VolCast.Reports.Tests;
+
+/// <summary>
+/// The mapping from a backtest to its report: which forecaster leads, the series each chart is handed, and what is
+/// left out without implied. Runs a small backtest on invented demo data (3 years), not reference data.
+/// </summary>
+public sealed class ReportWriterTests
+{
+    private static readonly DemoScenario Scenario = new DemoScenarioGenerator(5, years: 3).Generate();
+
+    private static readonly BacktestSettings Settings = new()
+    {
+        Forecasters = ["close-to-close:5", "close-to-close:21", "ewma:0.94", "garch"],
+        SweepEstimators = [Core.Estimators.Estimator.CloseToClose, Core.Estimators.Estimator.YangZhang],
+        SweepLookbacks = [10, 21, 63],
+        EwmaLambdas = [0.94, 0.97],
+        SelectionWindowDays = 126,
+        McsReplications = 200,
+        Baseline = "close-to-close:21",
+        Candidate = "garch",
+    };
+
+    private static readonly BacktestResult WithImplied = Backtester.Run(Scenario.Index, Scenario.Implied, Settings);
+
+    private static readonly BacktestRunInfo Run = new(
+        "0.1.0-test",
+        [new InputFileInfo("prices", "<script>alert(1)</script>.csv", new string('a', 64)), new InputFileInfo("implied", "implied.csv", new string('b', 64))],
+        new DateTimeOffset(2025, 1, 2, 3, 4, 5, TimeSpan.Zero),
+        new DateTimeOffset(2025, 1, 2, 3, 4, 7, TimeSpan.Zero),
+        "decimal",
+        ["implied.csv: a warning & <b>bold</b>"]);
+
+    [Fact]
+    public void Build_Verdict_NamesTheLowestQlikeForecasterFirst()
+    {
+        var lowest = WithImplied.Metrics.Where(m => m.Kind != ForecastKind.Implied && m.Losses is not null).MinBy(m => m.Losses!.Qlike)!;
+
+        var model = ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count);
+
+        Assert.StartsWith($"{lowest.Spec} ranks first on QLIKE", model.Verdict.Headline, StringComparison.Ordinal);
+        Assert.Contains("Diebold-Mariano", model.Verdict.Headline, StringComparison.Ordinal);
+        Assert.StartsWith("Head to head, candidate garch against baseline close-to-close:21", model.Verdict.Points[0], StringComparison.Ordinal);
+        Assert.Contains(model.Verdict.Points, p => p.Contains("model confidence set", StringComparison.Ordinal));
+        Assert.Contains(model.Verdict.Points, p => p.StartsWith("Adaptive yang-zhang choice", StringComparison.Ordinal));
+        Assert.Equal("Head to head: candidate garch against baseline close-to-close:21", model.Tables[0].Title);
+    }
+
+    [Fact]
+    public void Build_WithImplied_DrawsAllSevenCharts()
+    {
+        var model = ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count);
+
+        Assert.Equal(
+            ["forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png", "mincer-zarnowitz.png", "cone.png", "rule-test.png"],
+            model.Charts.Select(c => c.FileName));
+        Assert.All(model.Charts, c => Assert.True(Png.HasSignature(c.Png.Span), c.FileName));
+        Assert.Equal(Scenario.Index.Count, model.DataQuality.RowsRead);
+        Assert.Equal(WithImplied.DataQuality.ForecastDatesWithImplied / (double)WithImplied.DataQuality.ForecastDates, model.DataQuality.ImpliedCoverage);
+    }
+
+    [Fact]
+    public void Build_WithoutImplied_LeavesOutTheChartsThatNeedIt()
+    {
+        var result = Backtester.Run(Scenario.Index, null, Settings with { Baseline = null });
+        var run = Run with { Inputs = [Run.Inputs[0]], ImpliedUnit = null };
+
+        var model = ReportWriter.Build(result, run, Scenario.Index, Scenario.Index.Count);
+
+        Assert.Equal(["forecast-vs-realized.png", "loss-vs-lookback.png", "mincer-zarnowitz.png", "cone.png"], model.Charts.Select(c => c.FileName));
+        Assert.Contains("no implied series", model.Verdict.Headline, StringComparison.Ordinal);
+        Assert.Null(model.DataQuality.ImpliedCoverage);
+    }
+
+    [Fact]
+    public void Premium_IsImpliedMinusRealizedOnDatesWithBoth()
+    {
+        var premium = ReportSeries.Premium(WithImplied);
+
+        var expected = new List<(DateOnly, double)>();
+        for (var i = 0; i < WithImplied.Dates.Length; i++)
+        {
+            if (WithImplied.Implied[i] is double iv && WithImplied.Realized[i] is double rv)
+            {
+                expected.Add((WithImplied.Dates[i], iv - rv));
+            }
+        }
+
+        Assert.Equal(expected.Select(e => e.Item1), premium.Dates);
+        Assert.Equal(expected.Select(e => e.Item2), premium.Values);
+    }
+
+    [Fact]
+    public void QlikeDifferential_MatchesTheFormulaOnCommonDates()
+    {
+        var differential = ReportSeries.QlikeDifferential(WithImplied, "garch");
+        var garch = WithImplied.Forecasts.Single(f => f.Spec == "garch").Values;
+
+        // QLIKE(RV, F) = RV²/F² − ln(RV²/F²) − 1 (Patton 2011's normalized form, as design.md ranks on).
+        static double Qlike(double rv, double f) => (rv * rv / (f * f)) - Math.Log(rv * rv / (f * f)) - 1;
+        var expected = new List<double>();
+        for (var i = 0; i < WithImplied.Dates.Length; i++)
+        {
+            if (garch[i] is double f && WithImplied.Implied[i] is double iv && WithImplied.Realized[i] is double rv && rv > 0)
+            {
+                expected.Add(Qlike(rv, f) - Qlike(rv, iv));
+            }
+        }
+
+        Assert.Equal(expected.Count, differential.Values.Count);
+        for (var i = 0; i < expected.Count; i++)
+        {
+            Assert.Equal(expected[i], differential.Values[i], 12);
+        }
+    }
+
+    [Fact]
+    public void LookbackCurves_OneCurvePerWindowFamilyWithEveryAdaptiveChoice()
+    {
+        var curves = ReportSeries.LookbackCurves(WithImplied);
+
+        Assert.Equal(["close-to-close", "yang-zhang"], curves.Select(c => c.Family));
+        foreach (var curve in curves)
+        {
+            Assert.Equal([10, 21, 63], curve.LookbackDays);
+            var adaptive = WithImplied.Adaptive.Single(a => a.Family == curve.Family);
+            Assert.Equal(adaptive.DatesWithChoice, curve.ChosenLookbackDays.Count);
+            var sweep = WithImplied.Sweep.Where(s => s.Family == curve.Family).Select(s => s.Qlike!.Value);
+            Assert.Equal(sweep, curve.MeanLoss);
+        }
+    }
+
+    [Fact]
+    public void RuleGaps_SellDatesAreThoseWhereImpliedExceedsTheForecastByTheThreshold()
+    {
+        var (all, sell) = ReportSeries.RuleGaps(WithImplied);
+        var rows = WithImplied.RuleTest!.Rows.Where(r => r.Source == WithImplied.RuleTest.ForecastSpec).ToArray();
+
+        Assert.Equal(rows.Single(r => r.Signal == RuleSignal.AllDates).Count, all.Length);
+        Assert.Equal(rows.Single(r => r.Signal == RuleSignal.SellVolatility).Count, sell.Length);
+        Assert.Equal(rows.Single(r => r.Signal == RuleSignal.SellVolatility).MeanVolatilityGap!.Value, sell.Average(), 12);
+    }
+
+    [Fact]
+    public void Render_UserStrings_AreEscaped()
+    {
+        var html = HtmlReport.Render(ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count));
+
+        Assert.Contains("&lt;script&gt;alert(1)&lt;/script&gt;.csv", html, StringComparison.Ordinal);
+        Assert.Contains("a warning &amp; &lt;b&gt;bold&lt;/b&gt;", html, StringComparison.Ordinal);
+        Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+    }
+
+    [Fact]
+    public void Stars_FollowTheLegendThresholds()
+    {
+        Assert.Equal(Model.Significance.OnePercent, ReportTables.Stars(0.009));
+        Assert.Equal(Model.Significance.FivePercent, ReportTables.Stars(0.01));
+        Assert.Equal(Model.Significance.TenPercent, ReportTables.Stars(0.05));
+        Assert.Equal(Model.Significance.None, ReportTables.Stars(0.10));
+        Assert.Equal(Model.Significance.None, ReportTables.Stars(null));
+    }
+}
