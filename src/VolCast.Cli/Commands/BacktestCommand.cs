@@ -9,6 +9,9 @@ namespace VolCast.Cli.Commands;
 /// <summary><c>volcast backtest</c>: the main job — forecasters walk forward, scored against the realized volatility that followed and against implied.</summary>
 internal static class BacktestCommand
 {
+    /// <summary>The exit code of a run stopped by Ctrl-C: 128 + SIGINT (2), as shells report a process ended by Ctrl-C.</summary>
+    public const int InterruptedExitCode = 130;
+
     /// <summary>Builds the command.</summary>
     public static Command Create(CliConsole console)
     {
@@ -88,12 +91,27 @@ internal static class BacktestCommand
         var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestResult result;
+        using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
+        ConsoleCancelEventHandler onCtrlC = (_, e) =>
+        {
+            // Keep the process alive: the run stops at its next check and the results folder, built in a temporary
+            // sibling, is never moved into place, so nothing half-written is left behind.
+            e.Cancel = true;
+            interrupted.Cancel();
+        };
+        Console.CancelKeyPress += onCtrlC;
         try
         {
-            (result, _) = BacktestPipeline.Run(job, console.Warn, progress);
+            (result, _) = BacktestPipeline.Run(job, console.Warn, progress, interrupted.Token);
+        }
+        catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
+        {
+            console.Error.WriteLine($"interrupted: the backtest was stopped before it finished; no results were written to {outFolder}.");
+            return InterruptedExitCode;
         }
         finally
         {
+            Console.CancelKeyPress -= onCtrlC;
             progress.Finish();
         }
 
