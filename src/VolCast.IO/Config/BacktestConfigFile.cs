@@ -64,6 +64,12 @@ public static class BacktestConfigFile
                 "the configuration is not valid: " + Plain(FirstSentence(ex.Message), property) + " Fix the JSON; every setting is optional, see 'volcast backtest --help'.");
         }
 
+        catch (ArgumentException ex) when (ex.InnerException is System.Text.EncoderFallbackException)
+        {
+            // A lone surrogate in the text cannot be transcoded for the JSON reader: bad input, not a crash.
+            throw new InputDataException(file, null, null, "the configuration holds characters that are not valid Unicode text; save it as UTF-8.");
+        }
+
         if (doc is null)
         {
             throw new InputDataException(file, 1, null, "the configuration is 'null'; write an object such as { \"horizon\": 21 } or {} for the defaults.");
