@@ -26,7 +26,7 @@ internal static class BacktestCommand
         var end = new Option<string?>("--end") { Description = "Last forecast date, yyyy-MM-dd." };
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>)." };
         var force = new Option<bool>("--force") { Description = "Use an existing output folder, replacing only volcast's own results files in it." };
-        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt.")
+        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt. Ctrl-C stops the run without writing any results (exit code 130).")
         {
             prices, implied, ivUnit, config, horizon, tenor, start, end, output, force,
         };

@@ -21,6 +21,8 @@ namespace VolCast.IO.Quotes;
 /// yield outside [−1, 1] (most likely a percent). What is passed on, to be counted and reported by
 /// <see cref="ConstantTenorSeries"/>: a price at or below zero (recorded chains hold zero bids) and an expiry
 /// on or before the quote date (the expiry day itself is ordinary data). The file is opened read-only.</para>
+/// <para>Blank lines are skipped but counted, so every line number is the physical line of the file; a line break
+/// inside quotes is refused as malformed quoting on the line where the quote opened.</para>
 /// </remarks>
 public static class OptionQuoteCsvReader
 {
