@@ -6,13 +6,19 @@ namespace VolCast.Cli;
 /// The writers a command talks to, and the one place where failures become exit codes and messages
 /// (never a stack trace, unless the failure is unexpected and VOLCAST_DEBUG is set).
 /// </summary>
-internal sealed class CliConsole(TextWriter output, TextWriter error)
+/// <param name="output">Where results and progress go.</param>
+/// <param name="error">Where errors and warnings go.</param>
+/// <param name="interrupt">Cancelled to stop a long command as Ctrl-C would (tests use it to interrupt a run in-process).</param>
+internal sealed class CliConsole(TextWriter output, TextWriter error, CancellationToken interrupt = default)
 {
     /// <summary>Gets where results and progress go.</summary>
     public TextWriter Out { get; } = output;
 
     /// <summary>Gets where errors and warnings go.</summary>
     public TextWriter Error { get; } = error;
+
+    /// <summary>Gets the token that stops a long command besides Ctrl-C; none by default.</summary>
+    public CancellationToken Interrupt { get; } = interrupt;
 
     /// <summary>Writes a warning line.</summary>
     public void Warn(string message) => Error.WriteLine($"warning: {message}");

@@ -26,7 +26,7 @@ public sealed class BadInputCatalogueTests
     public void Catalogue_CoversEveryFileInTheFolder()
     {
         var listed = Rows().Select(r => (string)r[0]).ToHashSet(StringComparer.Ordinal);
-        var present = Directory.GetFiles(Folder, "*.csv").Select(Path.GetFileName).ToHashSet(StringComparer.Ordinal);
+        var present = Directory.GetFiles(Folder, "*.csv").Concat(Directory.GetFiles(Folder, "*.json")).Select(Path.GetFileName).ToHashSet(StringComparer.Ordinal);
         Assert.Equal(present.Order(), listed.Order());
         Assert.True(listed.Count >= 40, $"expected at least 40 bad inputs, found {listed.Count}");
     }
@@ -38,11 +38,27 @@ public sealed class BadInputCatalogueTests
         var path = Path.Combine(Folder, file);
         var before = File.ReadAllBytes(path);
 
+        if (reader == "quotes" && line is null && column is null)
+        {
+            // The quotes read, but none is usable: the refusal belongs to the implied command (no constant-tenor point).
+            var quotes = VolCast.IO.Quotes.OptionQuoteCsvReader.Read(path, null);
+            Assert.Empty(VolCast.Core.Options.ConstantTenorSeries.Compute(quotes, new VolCast.Core.Options.ConstantTenorOptions(30)).Points);
+            return;
+        }
+
         var error = Assert.Throws<InputDataException>(() =>
         {
             if (reader == "prices")
             {
                 PriceFileReader.Read(path);
+            }
+            else if (reader == "quotes")
+            {
+                VolCast.IO.Quotes.OptionQuoteCsvReader.Read(path, null);
+            }
+            else if (reader == "config")
+            {
+                VolCast.IO.Config.BacktestConfigFile.Read(path);
             }
             else
             {

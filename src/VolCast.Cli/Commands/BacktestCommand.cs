@@ -9,6 +9,9 @@ namespace VolCast.Cli.Commands;
 /// <summary><c>volcast backtest</c>: the main job — forecasters walk forward, scored against the realized volatility that followed and against implied.</summary>
 internal static class BacktestCommand
 {
+    /// <summary>The exit code of a run stopped by Ctrl-C: 128 + SIGINT (2), as shells report a process ended by Ctrl-C.</summary>
+    public const int InterruptedExitCode = 130;
+
     /// <summary>Builds the command.</summary>
     public static Command Create(CliConsole console)
     {
@@ -23,7 +26,7 @@ internal static class BacktestCommand
         var end = new Option<string?>("--end") { Description = "Last forecast date, yyyy-MM-dd." };
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>)." };
         var force = new Option<bool>("--force") { Description = "Use an existing output folder, replacing only volcast's own results files in it." };
-        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt.")
+        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt. Ctrl-C stops the run without writing any results (exit code 130).")
         {
             prices, implied, ivUnit, config, horizon, tenor, start, end, output, force,
         };
@@ -88,12 +91,27 @@ internal static class BacktestCommand
         var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestResult result;
+        using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
+        ConsoleCancelEventHandler onCtrlC = (_, e) =>
+        {
+            // Keep the process alive: the run stops at its next check and the results folder, built in a temporary
+            // sibling, is never moved into place, so nothing half-written is left behind.
+            e.Cancel = true;
+            interrupted.Cancel();
+        };
+        Console.CancelKeyPress += onCtrlC;
         try
         {
-            (result, _) = BacktestPipeline.Run(job, console.Warn, progress);
+            (result, _) = BacktestPipeline.Run(job, console.Warn, progress, interrupted.Token);
+        }
+        catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
+        {
+            console.Error.WriteLine($"interrupted: the backtest was stopped before it finished; no results were written to {outFolder}.");
+            return InterruptedExitCode;
         }
         finally
         {
+            Console.CancelKeyPress -= onCtrlC;
             progress.Finish();
         }
 

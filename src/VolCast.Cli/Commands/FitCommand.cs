@@ -84,14 +84,23 @@ internal static class FitCommand
         {
             fit = GarchFitter.Fit(returns, new GarchFitOptions { Variant = variant, IncludeMean = includeMean, AnnualizationFactor = annualization });
         }
-        catch (ArgumentException ex)
+        catch (ArgumentException ex) when (ex.ParamName == "returns")
         {
-            throw new InputDataException(pricesPath, null, "close", ex.Message);
+            // Only the fitter's checks of the data become bad input; any other argument error is a bug and stays one (exit 1).
+            throw new InputDataException(pricesPath, null, "close", string.Create(CultureInfo.InvariantCulture,
+                $"a {modelName} fit cannot use the daily log returns of these {load.History.Count} prices: {WithoutParameterName(ex.Message)} A fit needs at least {GarchFitter.MinimumReturns} finite daily returns that are not all equal; supply a longer history in which prices move."));
         }
 
         AtomicFile.WriteText(output, writer => GarchFitJson.Write(writer, fit), force, [pricesPath]);
         WriteSummary(console, fit, modelName, output);
         return ExitCodes.Success;
+    }
+
+    /// <summary>Drops the " (Parameter 'returns')" that .NET appends to an argument error: users never see parameter names.</summary>
+    private static string WithoutParameterName(string message)
+    {
+        var cut = message.IndexOf(" (Parameter '", StringComparison.Ordinal);
+        return cut >= 0 ? message[..cut] : message;
     }
 
     private static void WriteSummary(CliConsole console, GarchFit fit, string modelName, string output)

@@ -27,7 +27,7 @@ internal sealed class Scorer(double?[] realized, List<int> scored, int lag, int 
         {
             return Scoring.MincerZarnowitz.FitWithLag(rv, f, lag);
         }
-        catch (ArgumentException ex)
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException)
         {
             warnings.Add(Invariant($"{spec}: Mincer-Zarnowitz not computed: {ex.Message}"));
             return null;
@@ -56,7 +56,7 @@ internal sealed class Scorer(double?[] realized, List<int> scored, int lag, int 
         {
             return EncompassingRegression.FitWithLag(rv, iv, f, lag);
         }
-        catch (ArgumentException ex)
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException)
         {
             warnings.Add(Invariant($"{spec}: encompassing regression not computed: {ex.Message}"));
             return null;

@@ -61,7 +61,13 @@ public static class BacktestConfigFile
             var line = ex.LineNumber is long l ? (int)l + 1 : (int?)null;
             var property = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? null : ex.Path.TrimStart('$', '.');
             throw new InputDataException(file, line, property,
-                "the configuration is not valid: " + FirstSentence(ex.Message) + " Fix the JSON; every setting is optional, see 'volcast backtest --help'.");
+                "the configuration is not valid: " + Plain(FirstSentence(ex.Message), property) + " Fix the JSON; every setting is optional, see 'volcast backtest --help'.");
+        }
+
+        catch (ArgumentException ex) when (ex.InnerException is System.Text.EncoderFallbackException)
+        {
+            // A lone surrogate in the text cannot be transcoded for the JSON reader: bad input, not a crash.
+            throw new InputDataException(file, null, null, "the configuration holds characters that are not valid Unicode text; save it as UTF-8.");
         }
 
         if (doc is null)
@@ -196,6 +202,34 @@ public static class BacktestConfigFile
 
     private static InputDataException Bad(string file, string property, FormattableString problem) =>
         new(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");
+
+    /// <summary>Rephrases the serializer's messages that name .NET types (users never see type names).</summary>
+    private static string Plain(string message, string? property)
+    {
+        if (message.Contains("could not be mapped to any .NET member", StringComparison.Ordinal))
+        {
+            return $"'{property}' is not a known setting (check its spelling).";
+        }
+
+        const string Converted = "could not be converted to ";
+        var at = message.IndexOf(Converted, StringComparison.Ordinal);
+        if (at < 0)
+        {
+            return message;
+        }
+
+        var type = message[(at + Converted.Length)..].TrimEnd('.');
+        var expected =
+            type.Contains("Int32", StringComparison.Ordinal) ? "a whole number, such as 21"
+            : type.Contains("Double", StringComparison.Ordinal) ? "a number, such as 0.1"
+            : type.Contains("Boolean", StringComparison.Ordinal) ? "true or false"
+            : type.Contains("[]", StringComparison.Ordinal) ? "a list in square brackets, such as [\"garch\", \"ewma:0.94\"]"
+            : type.Contains("String", StringComparison.Ordinal) ? "text in double quotes"
+            : "an object in braces, such as { \"horizon\": 21 }";
+        return property is null
+            ? $"the configuration has the wrong shape; expected {expected}."
+            : $"'{property}' has a value of the wrong type; expected {expected}.";
+    }
 
     private static string FirstSentence(string message)
     {

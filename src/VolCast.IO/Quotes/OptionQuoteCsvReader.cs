@@ -1,7 +1,6 @@
 using System.Globalization;
-using CsvHelper;
-using CsvHelper.Configuration;
 using VolCast.Core.Options;
+using VolCast.IO.Reading;
 
 namespace VolCast.IO.Quotes;
 
@@ -22,6 +21,8 @@ namespace VolCast.IO.Quotes;
 /// yield outside [−1, 1] (most likely a percent). What is passed on, to be counted and reported by
 /// <see cref="ConstantTenorSeries"/>: a price at or below zero (recorded chains hold zero bids) and an expiry
 /// on or before the quote date (the expiry day itself is ordinary data). The file is opened read-only.</para>
+/// <para>Blank lines are skipped but counted, so every line number is the physical line of the file; a line break
+/// inside quotes is refused as malformed quoting on the line where the quote opened.</para>
 /// </remarks>
 public static class OptionQuoteCsvReader
 {
@@ -78,31 +79,28 @@ public static class OptionQuoteCsvReader
     {
         ArgumentNullException.ThrowIfNull(reader);
         ArgumentNullException.ThrowIfNull(file);
-        var config = new CsvConfiguration(CultureInfo.InvariantCulture)
-        {
-            HasHeaderRecord = true,
-            TrimOptions = TrimOptions.Trim,
-            BadDataFound = args => throw new InputDataException(file, args.Context.Parser?.RawRow, null,
-                $"malformed CSV near '{args.Field}': a quote character inside an unquoted field."),
-        };
-        using var parser = new CsvParser(reader, config);
-        if (!parser.Read() || parser.Record is not { } header)
+        // The shared row reader refuses a line break inside quotes, so a quote left open is reported on the line
+        // where its record starts, not on the last line the parser consumed looking for the closing quote.
+        using var rows = new CsvRowReader(reader.ReadToEnd(), file);
+        if (!rows.TryRead(out var headerRow))
         {
             throw new InputDataException(file, 1, null, "the file is empty; expected a header row: date,underlying,expiry,strike,type,price[,rate,dividend_yield].");
         }
 
-        var columns = MapHeader(header, file, parser.RawRow);
+        var header = Trimmed(headerRow.Cells);
+        rows.UseHeader(header);
+        var columns = MapHeader(header, file, headerRow.Line);
         if (!columns.ContainsKey("rate") && defaultRate is null)
         {
-            throw new InputDataException(file, parser.RawRow, "rate",
+            throw new InputDataException(file, headerRow.Line, "rate",
                 "there is no rate column and no --rate was given; add a rate column (decimal, 0.05 = 5%) or pass --rate.");
         }
 
         var quotes = new List<OptionQuote>();
-        while (parser.Read())
+        while (rows.TryRead(out var csvRow))
         {
-            var record = parser.Record!;
-            var line = (int)parser.RawRow;
+            var record = Trimmed(csvRow.Cells);
+            var line = csvRow.Line;
             if (record.Length < header.Length)
             {
                 throw new InputDataException(file, line, null,
@@ -123,14 +121,32 @@ public static class OptionQuoteCsvReader
 
         if (quotes.Count == 0)
         {
-            throw new InputDataException(file, null, null, "the file has a header but no quotes.");
+            throw new InputDataException(file, headerRow.Line + 1, null, "the file has a header but no quotes; expected one row per quote after the header.");
         }
 
         return quotes;
     }
 
+    private static string[] Trimmed(string[] cells)
+    {
+        var trimmed = new string[cells.Length];
+        for (var i = 0; i < cells.Length; i++)
+        {
+            trimmed[i] = cells[i].Trim();
+        }
+
+        return trimmed;
+    }
+
     private static Dictionary<string, int> MapHeader(string[] header, string file, long line)
     {
+        if (header.Length == 1 && header[0].IndexOfAny([';', '\t', '|']) >= 0)
+        {
+            var delimiter = header[0].Contains(';', StringComparison.Ordinal) ? "semicolon" : header[0].Contains('\t', StringComparison.Ordinal) ? "tab" : "pipe";
+            throw new InputDataException(file, (int)line, null,
+                $"the header looks {delimiter}-delimited; expected comma-separated columns date,underlying,expiry,strike,type,price. Re-export the file with commas and '.' as the decimal point.");
+        }
+
         var columns = new Dictionary<string, int>(StringComparer.Ordinal);
         for (var i = 0; i < header.Length; i++)
         {

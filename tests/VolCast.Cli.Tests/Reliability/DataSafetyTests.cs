@@ -1,0 +1,131 @@
+using System.CommandLine;
+using VolCast.Cli.Commands;
+using VolCast.Cli.Tests.Support;
+
+namespace VolCast.Cli.Tests.Reliability;
+
+// Data safety (issue 8): an interrupted backtest leaves no half-written results and says so; no command changes an
+// input (bytes or timestamp); an existing output is refused without --force.
+public sealed class DataSafetyTests : IDisposable
+{
+    private readonly string _work = Directory.CreateTempSubdirectory("volcast-safety-").FullName;
+
+    public void Dispose() => Directory.Delete(_work, recursive: true);
+
+    [Fact]
+    public void Backtest_InterruptedBeforeItStarts_Exits130SaysSoAndWritesNothing()
+    {
+        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 600, seed: 1);
+        var output = Path.Combine(_work, "out");
+        using var interrupt = new CancellationTokenSource();
+        interrupt.Cancel();
+
+        var (code, _, stderr) = RunBacktest(interrupt.Token, "--prices", prices, "--out", output);
+
+        Assert.Equal(BacktestCommand.InterruptedExitCode, code);
+        Assert.Equal(130, code); // 128 + SIGINT, as shells report Ctrl-C (common practice, no source)
+        Assert.Contains("interrupted", stderr, StringComparison.Ordinal);
+        Assert.Contains("no results were written", stderr, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(output));
+        Assert.Empty(Directory.GetFileSystemEntries(_work, ".out.*"));
+    }
+
+    [Theory]
+    [InlineData(0)] // at once
+    [InlineData(50)] // while the forecasters run
+    [InlineData(300)]
+    [InlineData(1500)] // perhaps after the results are written
+    public void Backtest_InterruptedAtAnyMoment_LeavesEitherNoFolderOrACompleteOne(int afterMilliseconds)
+    {
+        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 2500, seed: 2);
+        var output = Path.Combine(_work, "out");
+        using var interrupt = new CancellationTokenSource();
+        interrupt.CancelAfter(afterMilliseconds);
+
+        var (code, _, stderr) = RunBacktest(interrupt.Token, "--prices", prices, "--out", output);
+
+        if (code == 0)
+        {
+            // Finished first: every results file is whole (the folder was moved into place in one step).
+            Assert.Equal(["forecasts.csv", "metrics.csv", "metrics.json", "run.json", "summary.txt"],
+                Directory.GetFiles(output).Select(Path.GetFileName).Order());
+            Assert.EndsWith("}", File.ReadAllText(Path.Combine(output, "run.json")).TrimEnd(), StringComparison.Ordinal);
+        }
+        else
+        {
+            Assert.True(code == 130, stderr);
+            Assert.Contains("interrupted", stderr, StringComparison.Ordinal);
+            Assert.False(Directory.Exists(output));
+        }
+
+        Assert.Empty(Directory.GetFileSystemEntries(_work, ".out.*"));
+    }
+
+    [Fact]
+    public void EveryCommand_ValidInputs_LeavesTheInputBytesAndTimestampsUnchanged()
+    {
+        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 400, seed: 3);
+        var implied = ReliabilityFiles.Implied(_work, "implied.csv", new DateOnly(1990, 1, 1), 400);
+        var config = ReliabilityFiles.FastConfig(_work);
+        var demo = Path.Combine(_work, "demo");
+        Assert.Equal(0, CliRunner.Run("make-demo-data", "--out", demo).ExitCode);
+        var quotes = Directory.GetFiles(demo, "*option-quotes.csv").Single();
+        string[] inputs = [prices, implied, config, quotes];
+        var before = inputs.ToDictionary(p => p, p => (Bytes: File.ReadAllBytes(p), Written: File.GetLastWriteTimeUtc(p)));
+        // Outputs are written beside the inputs, the place most likely to catch an accidental overwrite.
+        string[][] runs =
+        [
+            ["estimate", "--prices", prices, "--estimator", "yang-zhang", "--window", "21", "--out", Path.Combine(_work, "vol.csv")],
+            ["fit", "--prices", prices, "--model", "gjr-garch", "--out", Path.Combine(_work, "fit.json")],
+            ["cone", "--prices", prices, "--implied", implied, "--out", Path.Combine(_work, "cone")],
+            ["implied", "--quotes", quotes, "--tenor", "30d", "--out", Path.Combine(_work, "iv.csv")],
+            ["backtest", "--prices", prices, "--implied", implied, "--iv-unit", "decimal", "--config", config, "--out", Path.Combine(_work, "bt")],
+            ["backtest", "--prices", prices, "--config", config, "--out", _work, "--force"], // results beside the inputs
+        ];
+
+        foreach (var run in runs)
+        {
+            var result = CliRunner.Run(run);
+            Assert.True(result.ExitCode == 0, $"{string.Join(' ', run)}: {result.Stderr}");
+        }
+
+        foreach (var input in inputs)
+        {
+            Assert.Equal(before[input].Bytes, File.ReadAllBytes(input));
+            Assert.Equal(before[input].Written, File.GetLastWriteTimeUtc(input));
+        }
+    }
+
+    [Theory]
+    [InlineData("backtest", "metrics.csv")] // backtest refuses an existing results folder
+    [InlineData("cone", "cone.csv")] // cone writes into a folder and refuses its own existing files
+    public void Command_ExistingOutput_RefusedWithoutForceAndLeftAlone(string command, string ownFile)
+    {
+        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 400, seed: 4);
+        var output = Path.Combine(_work, "existing");
+        Directory.CreateDirectory(output);
+        File.WriteAllText(Path.Combine(output, "notes.txt"), "keep me");
+        File.WriteAllText(Path.Combine(output, ownFile), "an earlier result");
+        string[] args = command == "backtest"
+            ? ["backtest", "--prices", prices, "--config", ReliabilityFiles.FastConfig(_work), "--out", output]
+            : ["cone", "--prices", prices, "--out", output];
+
+        var result = CliRunner.Run(args);
+
+        Assert.NotEqual(0, result.ExitCode);
+        Assert.Contains("--force", result.Stderr, StringComparison.Ordinal);
+        Assert.Equal(new[] { "notes.txt", ownFile }.Order(StringComparer.Ordinal), Directory.GetFileSystemEntries(output).Select(Path.GetFileName).Order(StringComparer.Ordinal));
+        Assert.Equal("keep me", File.ReadAllText(Path.Combine(output, "notes.txt")));
+        Assert.Equal("an earlier result", File.ReadAllText(Path.Combine(output, ownFile)));
+    }
+
+    private static (int Code, string Stdout, string Stderr) RunBacktest(CancellationToken interrupt, params string[] args)
+    {
+        using var stdout = new StringWriter();
+        using var stderr = new StringWriter();
+        var console = new CliConsole(stdout, stderr, interrupt);
+        var command = BacktestCommand.Create(console);
+        var code = command.Parse(args).Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
+        return (code, stdout.ToString(), stderr.ToString());
+    }
+}
