@@ -1,0 +1,128 @@
+using System.CommandLine;
+using System.Globalization;
+using VolCast.Cli.Scan;
+using VolCast.Core.Backtest;
+using VolCast.IO;
+using VolCast.IO.Config;
+
+namespace VolCast.Cli.Commands;
+
+/// <summary><c>volcast scan</c>: the backtest over every name in a folder, in parallel and resumable, with a cross-asset summary.</summary>
+internal static class ScanCommand
+{
+    /// <summary>Builds the command.</summary>
+    public static Command Create(CliConsole console)
+    {
+        var pricesDir = new Option<string>("--prices-dir") { Description = "Folder of daily price files, one NAME.csv per asset (same columns as backtest --prices). Read only.", Required = true };
+        var impliedDir = new Option<string?>("--implied-dir") { Description = "Folder of implied-volatility files matched by name (NAME.csv with date, iv). A name without one is ranked among forecasters only and marked in the summary." };
+        var ivUnit = new Option<string?>("--iv-unit") { Description = "Unit of every implied file's iv column: percent (20 = 20%) or decimal (0.20); inferred per file with a warning when left out." };
+        ivUnit.AcceptOnlyFromAmong("percent", "decimal");
+        var config = new Option<string?>("--config") { Description = "JSON configuration used for every name (same keys as backtest --config). Every setting is optional." };
+        var horizon = new Option<int?>("--horizon") { Description = "Forecast horizon in trading days (default 21). Overrides the configuration." };
+        var tenor = new Option<string?>("--tenor") { Description = "Forecast horizon as a calendar tenor such as 30d, mapped through each price file's own trading calendar. Overrides the configuration." };
+        var output = new Option<string?>("--out") { Description = "Scan folder (default reports/scan): assets/NAME/ per name, summary.csv and summary.html. An existing scan folder is resumed." };
+        var jobs = new Option<int?>("--jobs") { Description = "How many names run at the same time (default: the number of processor cores)." };
+        var force = new Option<bool>("--force") { Description = "Recompute every name, even those whose results are complete and whose inputs and configuration are unchanged." };
+        var command = new Command("scan", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted scan resumes; one bad file fails only its name. Writes summary.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly.")
+        {
+            pricesDir, impliedDir, ivUnit, config, horizon, tenor, output, jobs, force,
+        };
+        command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
+            parse.GetValue(pricesDir)!,
+            parse.GetValue(impliedDir),
+            parse.GetValue(ivUnit),
+            parse.GetValue(config),
+            parse.GetValue(horizon),
+            parse.GetValue(tenor),
+            parse.GetValue(output),
+            parse.GetValue(jobs),
+            parse.GetValue(force)))));
+        return command;
+    }
+
+    /// <summary>Turns the command-line values into a scan request, checking them.</summary>
+    private static ScanRequest Request(Arguments a)
+    {
+        if (a.Horizon is not null && a.Tenor is not null)
+        {
+            throw new UsageException("give either --horizon (trading days) or --tenor (calendar days such as 30d), not both.");
+        }
+
+        if (a.Horizon is int h && h < 1)
+        {
+            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--horizon must be at least 1 trading day (was {h})."));
+        }
+
+        if (a.Jobs is int j && j < 1)
+        {
+            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--jobs must be at least 1 (was {j})."));
+        }
+
+        var settings = a.Config is null ? new BacktestSettings() : BacktestConfigFile.Read(a.Config);
+        if (a.Horizon is int days)
+        {
+            settings = settings with { Horizon = BacktestHorizon.Days(days) };
+        }
+
+        if (a.Tenor is string tenorText)
+        {
+            settings = settings with { Horizon = BacktestConfigFile.ParseTenor(tenorText) ?? throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d (was '{tenorText}').") };
+        }
+
+        try
+        {
+            settings.Validate();
+        }
+        catch (ArgumentException ex)
+        {
+            throw new UsageException(ex.Message);
+        }
+
+        var unit = a.IvUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };
+        return new ScanRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, a.Out ?? Path.Combine("reports", "scan"), a.Jobs ?? Environment.ProcessorCount, a.Force);
+    }
+
+    private static int Run(CliConsole console, Arguments a)
+    {
+        var request = Request(a);
+        using var stop = new CancellationTokenSource();
+        ConsoleCancelEventHandler onCancel = (_, e) =>
+        {
+            // Let running names stop between forecasters and keep every finished one; a second Ctrl-C ends the process.
+            e.Cancel = !stop.IsCancellationRequested;
+            stop.Cancel();
+        };
+        Console.CancelKeyPress += onCancel;
+        var progress = new ScanConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
+        ScanOutcome outcome;
+        try
+        {
+            outcome = ScanRunner.Run(request, progress, stop.Token);
+        }
+        finally
+        {
+            progress.Finish();
+            Console.CancelKeyPress -= onCancel;
+        }
+
+        foreach (var row in outcome.Rows.Where(r => !r.Succeeded))
+        {
+            console.Error.WriteLine($"error: {row.Name}: {row.Error}");
+        }
+
+        if (outcome.Cancelled)
+        {
+            console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"scan stopped: {outcome.Rows.Count} names finished and kept in {request.OutputFolder}{Path.DirectorySeparatorChar}assets; run the same command again to resume."));
+            return ExitCodes.UnexpectedFailure;
+        }
+
+        console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
+            $"{outcome.Rows.Count} names: {outcome.Computed - outcome.Failed} computed, {outcome.Reused} kept from an earlier run, {outcome.Failed} failed."));
+        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, summary.html)");
+        return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
+    }
+
+    private sealed record Arguments(
+        string PricesDir, string? ImpliedDir, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Out, int? Jobs, bool Force);
+}

@@ -1,0 +1,129 @@
+using System.Collections.Immutable;
+using System.Security.Cryptography;
+using VolCast.Core.Backtest;
+using VolCast.IO;
+using VolCast.IO.Results;
+
+namespace VolCast.Cli.Scan;
+
+/// <summary>
+/// The scan's unit of work: one asset, one configuration, inputs identified by content hash, results written
+/// atomically into the asset's own folder. Reads nothing but its inputs and its folder and shares no state, so many
+/// run side by side, and any worker anywhere could run one.
+/// </summary>
+/// <param name="Asset">The asset.</param>
+/// <param name="ImpliedUnit">The unit of the implied file's iv column.</param>
+/// <param name="Settings">The resolved settings.</param>
+/// <param name="Config">The configuration file, if any (recorded in run.json).</param>
+/// <param name="Folder">The asset's results folder, <c>OUT/assets/NAME</c>.</param>
+/// <param name="Fingerprint">The fingerprint of the resolved configuration (<see cref="ScanFingerprint"/>).</param>
+/// <param name="Force">Recompute even when the folder is complete and up to date.</param>
+internal sealed record ScanAssetJob(
+    ScanAsset Asset,
+    ImpliedUnit ImpliedUnit,
+    BacktestSettings Settings,
+    string? Config,
+    string Folder,
+    string Fingerprint,
+    bool Force)
+{
+    /// <summary>Runs the asset, or keeps its results when they are complete and its inputs and configuration are unchanged.</summary>
+    /// <returns>The summary row and whether the earlier results were kept. A failure is a row with its message, never an exception, except cancellation.</returns>
+    /// <exception cref="OperationCanceledException">The token was cancelled; the folder is left as it was or complete.</exception>
+    public (ScanAssetRow Row, bool Reused) Run(CancellationToken cancellationToken)
+    {
+        var hasImplied = Asset.Implied is not null;
+        try
+        {
+            var hashes = ImmutableSortedDictionary.CreateBuilder<string, string>(StringComparer.Ordinal);
+            hashes["prices"] = Sha256(Asset.Prices);
+            if (Asset.Implied is not null)
+            {
+                hashes["implied"] = Sha256(Asset.Implied);
+            }
+
+            if (Config is not null)
+            {
+                hashes["config"] = Sha256(Config);
+            }
+
+            var inputs = hashes.ToImmutable();
+            if (!Force && UpToDate(inputs) is ScanAssetRow kept)
+            {
+                return (kept, true);
+            }
+
+            cancellationToken.ThrowIfCancellationRequested();
+            var job = new BacktestJob(Asset.Prices, Asset.Implied, ImpliedUnit, Settings, Config, Folder, Force: Directory.Exists(Folder));
+            var (result, _) = BacktestPipeline.Run(job, static _ => { }, null, cancellationToken);
+            var row = ScanRows.FromResult(Asset.Name, result);
+
+            // Written last: its presence says the folder is complete for these inputs and this configuration.
+            ScanAssetJson.Write(Folder, new ScanAssetRecord(inputs, Fingerprint, row));
+            return (row, false);
+        }
+        catch (OperationCanceledException)
+        {
+            throw;
+        }
+        catch (Exception ex) when (ex is InputDataException or UsageException or IOException or UnauthorizedAccessException)
+        {
+            return (ScanRows.Failed(Asset.Name, hasImplied, ex.Message), false);
+        }
+#pragma warning disable CA1031 // One asset's unexpected failure must not stop the others; its message goes into the summary.
+        catch (Exception ex)
+#pragma warning restore CA1031
+        {
+            return (ScanRows.Failed(Asset.Name, hasImplied, "unexpected failure: " + ex.Message), false);
+        }
+    }
+
+    private ScanAssetRow? UpToDate(ImmutableSortedDictionary<string, string> inputs)
+    {
+        if (!Directory.Exists(Folder) || ScanAssetJson.TryRead(Folder) is not { } record)
+        {
+            return null;
+        }
+
+        if (record.ConfigurationFingerprint != Fingerprint || !SameHashes(record.InputHashes, inputs) || record.Row.Name != Asset.Name)
+        {
+            return null;
+        }
+
+        foreach (var name in BacktestResultsWriter.FileNames)
+        {
+            if (!File.Exists(Path.Combine(Folder, name)))
+            {
+                return null;
+            }
+        }
+
+        // run.json must agree too: it is what a reader traces the results back to.
+        var run = ScanAssetJson.TryReadRunInputs(Folder);
+        return run is not null && SameHashes(run, inputs) ? record.Row : null;
+    }
+
+    private static bool SameHashes(ImmutableSortedDictionary<string, string> a, ImmutableSortedDictionary<string, string> b)
+    {
+        if (a.Count != b.Count)
+        {
+            return false;
+        }
+
+        foreach (var (role, sha) in a)
+        {
+            if (!b.TryGetValue(role, out var other) || !string.Equals(sha, other, StringComparison.Ordinal))
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    private static string Sha256(string path)
+    {
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+        return Convert.ToHexStringLower(SHA256.HashData(stream));
+    }
+}

@@ -1,0 +1,44 @@
+using System.Globalization;
+using System.Security.Cryptography;
+using System.Text;
+using VolCast.Core.Backtest;
+using VolCast.Core.Estimators;
+using VolCast.IO;
+
+namespace VolCast.Cli.Scan;
+
+/// <summary>
+/// The SHA-256 of a resolved configuration: every setting, the implied unit and the tool version, written in one
+/// canonical text. Two runs with the same fingerprint and the same input bytes produce the same results.
+/// </summary>
+internal static class ScanFingerprint
+{
+    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion)
+    {
+        var text = new StringBuilder();
+        void Line(string name, object? value) => text.Append(name).Append('=').Append(Convert.ToString(value, CultureInfo.InvariantCulture) ?? "null").Append('\n');
+        Line("tool", toolVersion);
+        Line("ivUnit", unit);
+        Line("horizon", s.Horizon.TradingDays is int h ? "days:" + h.ToString(CultureInfo.InvariantCulture) : "tenor:" + s.Horizon);
+        Line("start", s.Start?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+        Line("end", s.End?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+        Line("forecasters", string.Join(';', s.Forecasters));
+        Line("sweep", s.Sweep);
+        Line("sweepEstimators", string.Join(';', s.SweepEstimators.Select(EstimatorNames.Name)));
+        Line("sweepLookbacks", string.Join(';', s.SweepLookbacks.Select(x => x.ToString(CultureInfo.InvariantCulture))));
+        Line("ewmaLambdas", string.Join(';', s.EwmaLambdas.Select(x => x.ToString("R", CultureInfo.InvariantCulture))));
+        Line("selectionWindowDays", s.SelectionWindowDays);
+        Line("mcsReplications", s.McsReplications);
+        Line("mcsAlpha", s.McsAlpha.ToString("R", CultureInfo.InvariantCulture));
+        Line("mcsBlockLength", s.McsBlockLength);
+        Line("mcsSeed", s.McsSeed);
+        Line("ruleThreshold", s.RuleThreshold.ToString("R", CultureInfo.InvariantCulture));
+        Line("ruleForecaster", s.RuleForecaster);
+        Line("ruleHistorical", s.RuleHistorical);
+        Line("baseline", s.Baseline);
+        Line("candidate", s.Candidate);
+        Line("annualizationFactor", s.AnnualizationFactor.ToString("R", CultureInfo.InvariantCulture));
+        Line("target", s.Target);
+        return Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text.ToString())));
+    }
+}

@@ -1,0 +1,111 @@
+using System.Diagnostics;
+using VolCast.IO.Results;
+
+namespace VolCast.Cli.Scan;
+
+/// <summary>
+/// Runs a scan: one <see cref="ScanAssetJob"/> per asset on a bounded number of workers, keeping only each asset's
+/// summary row (so memory does not grow with the number of names), then writes summary.csv and summary.html.
+/// </summary>
+internal static class ScanRunner
+{
+    /// <summary>The folder under the scan's output folder that holds one results folder per asset.</summary>
+    public const string AssetsFolder = "assets";
+
+    /// <summary>Runs the scan.</summary>
+    /// <param name="request">What to scan.</param>
+    /// <param name="progress">Receives one report per finished asset, or null.</param>
+    /// <param name="cancellationToken">Stops the scan: no new asset starts, running ones stop between forecasters, finished ones stay.</param>
+    /// <returns>What happened; the summary is written only when every asset finished or failed.</returns>
+    /// <exception cref="UsageException">The prices folder is missing or holds no CSV file.</exception>
+    public static ScanOutcome Run(ScanRequest request, IProgress<ScanProgress>? progress, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(request);
+        if (!Directory.Exists(request.PricesFolder))
+        {
+            throw new UsageException($"{request.PricesFolder}: the prices folder does not exist; --prices-dir must name a folder of NAME.csv price files.");
+        }
+
+        if (request.ImpliedFolder is not null && !Directory.Exists(request.ImpliedFolder))
+        {
+            throw new UsageException($"{request.ImpliedFolder}: the implied folder does not exist; --implied-dir must name a folder of NAME.csv implied files.");
+        }
+
+        var assets = ScanAsset.Find(request.PricesFolder, request.ImpliedFolder);
+        if (assets.Count == 0)
+        {
+            throw new UsageException($"{request.PricesFolder}: no .csv price file found; the scan runs one backtest per NAME.csv in this folder.");
+        }
+
+        var fingerprint = ScanFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion());
+        var rows = new ScanAssetRow?[assets.Count];
+        var gate = new Lock();
+        int done = 0, reused = 0, failed = 0, computed = 0;
+        var clock = Stopwatch.StartNew();
+        var computeTime = TimeSpan.Zero;
+        var cancelled = false;
+        try
+        {
+            Parallel.For(
+                0,
+                assets.Count,
+                new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, request.Jobs), CancellationToken = cancellationToken },
+                (i, state) =>
+                {
+                    var asset = assets[i];
+                    var job = new ScanAssetJob(
+                        asset, request.ImpliedUnit, request.Settings, request.Config,
+                        Path.Combine(request.OutputFolder, AssetsFolder, asset.Name), fingerprint, request.Force);
+                    var started = clock.Elapsed;
+                    var (row, wasReused) = job.Run(cancellationToken);
+                    ScanProgress report;
+                    lock (gate)
+                    {
+                        rows[i] = row;
+                        if (!row.Succeeded)
+                        {
+                            failed++;
+                        }
+                        else
+                        {
+                            done++;
+                        }
+
+                        if (wasReused)
+                        {
+                            reused++;
+                        }
+                        else
+                        {
+                            computed++;
+                            computeTime += clock.Elapsed - started;
+                        }
+
+                        var remaining = assets.Count - done - failed;
+                        TimeSpan? eta = computed == 0
+                            ? null
+                            : TimeSpan.FromTicks(computeTime.Ticks / computed * remaining / Math.Max(1, Math.Min(request.Jobs, Math.Max(1, remaining))));
+                        report = new ScanProgress(done, reused, failed, assets.Count, clock.Elapsed, eta, asset.Name);
+                    }
+
+                    progress?.Report(report);
+                });
+        }
+        catch (OperationCanceledException)
+        {
+            cancelled = true;
+        }
+        catch (AggregateException ex) when (ex.InnerExceptions.All(e => e is OperationCanceledException))
+        {
+            cancelled = true;
+        }
+
+        var finished = rows.Where(r => r is not null).Select(r => r!).ToList();
+        if (!cancelled)
+        {
+            ScanSummaryWriter.Write(request, finished);
+        }
+
+        return new ScanOutcome(finished, computed, reused, failed, cancelled);
+    }
+}

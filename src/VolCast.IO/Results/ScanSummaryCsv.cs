@@ -1,0 +1,55 @@
+using System.Globalization;
+
+namespace VolCast.IO.Results;
+
+/// <summary>Writes a scan's summary.csv: one row per asset, in name order, invariant culture, empty cells where undefined.</summary>
+public static class ScanSummaryCsv
+{
+    /// <summary>Gets the column names.</summary>
+    public static IReadOnlyList<string> Columns { get; } =
+    [
+        "asset", "status", "implied", "n", "best_qlike", "best_qlike_value", "best_dm_qlike_stat", "best_dm_qlike_p",
+        "mcs", "lookbacks", "mean_iv_minus_rv_vol", "error",
+    ];
+
+    /// <summary>Writes the CSV.</summary>
+    /// <param name="writer">Where to write.</param>
+    /// <param name="rows">The rows, already in the order wanted.</param>
+    /// <exception cref="ArgumentNullException">An argument is null.</exception>
+    public static void Write(TextWriter writer, IEnumerable<ScanAssetRow> rows)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        ArgumentNullException.ThrowIfNull(rows);
+        writer.Write(string.Join(',', Columns));
+        writer.Write('\n');
+        foreach (var r in rows)
+        {
+            string[] cells =
+            [
+                Numbers.Field(r.Name),
+                r.Succeeded ? "done" : "failed",
+                r.HasImplied ? "yes" : "no (forecasters ranked among themselves)",
+                Numbers.Csv(r.Dates),
+                Numbers.Field(r.BestQlike ?? string.Empty),
+                Numbers.Csv(r.BestQlikeValue),
+                Numbers.Csv(r.BestDmStatistic),
+                Numbers.Csv(r.BestDmPValue),
+                Numbers.Field(string.Join(';', r.McsMembers)),
+                Numbers.Field(string.Join(';', r.Lookbacks.Select(Lookback))),
+                Numbers.Csv(r.MeanPremium),
+                Numbers.Field(r.Error ?? string.Empty),
+            ];
+            writer.Write(string.Join(',', cells));
+            writer.Write('\n');
+        }
+    }
+
+    /// <summary>Formats one lookback choice as <c>spec (share% of dates, N changes)</c>.</summary>
+    /// <param name="lookback">The choice.</param>
+    /// <returns>The text.</returns>
+    public static string Lookback(ScanLookback lookback)
+    {
+        ArgumentNullException.ThrowIfNull(lookback);
+        return string.Create(CultureInfo.InvariantCulture, $"{lookback.MostChosen} ({lookback.Share:0%} of dates, {lookback.Changes} changes)");
+    }
+}

@@ -1,0 +1,95 @@
+using VolCast.IO.Results;
+using VolCast.Reports.Html;
+using VolCast.Reports.Model;
+using VolCast.Reports.Scan;
+
+namespace VolCast.Reports.Tests.Scan;
+
+public sealed class ScanSummaryHtmlTests
+{
+    private static readonly ScanAssetRow[] Rows =
+    [
+        Row("AAA", -3.1, 0.001, 0.031),
+        Row("B<b>&'\"", 0.8, 0.40, -0.012),
+        new() { Name = "CCC", Succeeded = true, HasImplied = false, Dates = 500, BestQlike = "har", BestQlikeValue = -3.2 },
+        ScanRows.Failed("DDD", hasImplied: true, "DDD.csv, line 3, column 1: 'x<y' is not a date"),
+    ];
+
+    [Fact]
+    public void Render_Rows_SelfContainedWithEverySectionAndEscapedText()
+    {
+        var html = ScanSummaryHtml.Render(Rows, [new Setting("Horizon", "21 trading days")]);
+
+        Assert.Contains("content=\"" + HtmlReport.ContentSecurityPolicy + "\"", html, StringComparison.Ordinal);
+        foreach (var id in ScanSummaryHtml.SectionIds)
+        {
+            Assert.Contains($"<section id=\"{id}\">", html, StringComparison.Ordinal);
+        }
+
+        Assert.Contains("Benjamini-Hochberg", html, StringComparison.Ordinal);
+        Assert.Contains("false discovery rate", html, StringComparison.Ordinal);
+        Assert.Contains("href=\"assets/AAA/report.html\"", html, StringComparison.Ordinal);
+        Assert.Contains("href=\"assets/B%3Cb%3E%26%27%22/report.html\"", html, StringComparison.Ordinal);
+        Assert.Contains("B&lt;b&gt;&amp;&#39;&quot;", html, StringComparison.Ordinal);
+        Assert.DoesNotContain("<b>&", html, StringComparison.Ordinal);
+        Assert.Contains("x&lt;y", html, StringComparison.Ordinal);
+        Assert.Equal(2, CountOf(html, "data:image/png;base64,"));
+        Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+        Assert.DoesNotContain("http://", html, StringComparison.Ordinal);
+        Assert.DoesNotContain("https://", html, StringComparison.Ordinal);
+        var folder = Path.Combine(AppContext.BaseDirectory, "look", nameof(ScanSummaryHtmlTests));
+        Directory.CreateDirectory(folder);
+        File.WriteAllText(Path.Combine(folder, "summary.html"), html);
+    }
+
+    [Fact]
+    public void Table_FourNames_CountsWinsBeforeAndAfterBenjaminiHochberg()
+    {
+        // Hand-worked, common practice, no source: p = 0.01, 0.04, 0.03, 0.20 with m = 4 sorted 0.01, 0.03, 0.04, 0.20
+        // give BH-adjusted 0.04, 0.0533, 0.0533, 0.20; at q = 0.05 only the first is a discovery.
+        ScanAssetRow[] rows =
+        [
+            Row("n1", -2.9, 0.01, 0.0),
+            Row("n2", -2.1, 0.04, 0.0),
+            Row("n3", -2.2, 0.03, 0.0),
+            Row("n4", 1.3, 0.20, 0.0),
+        ];
+
+        var table = ScanFdr.Table(rows);
+
+        var row = Assert.Single(table);
+        Assert.Equal("garch", row.Spec);
+        Assert.Equal(4, row.NamesTested);
+        Assert.Equal(3, row.BeatsUncorrected);
+        Assert.Equal(1, row.BeatsAfterFdr);
+        Assert.Equal(0, row.LosesAfterFdr);
+        Assert.Equal(0.25, row.ShareBeatsAfterFdr);
+    }
+
+    private static ScanAssetRow Row(string name, double dm, double p, double premium) => new()
+    {
+        Name = name,
+        Succeeded = true,
+        HasImplied = true,
+        Dates = 700,
+        BestQlike = "garch",
+        BestQlikeValue = -3.4,
+        BestDmStatistic = dm,
+        BestDmPValue = p,
+        McsMembers = ["garch", "implied"],
+        Lookbacks = [new ScanLookback("yang-zhang", "yang-zhang:21", 0.8, 12)],
+        MeanPremium = premium,
+        VersusImplied = [new ScanForecasterTest("garch", dm, p)],
+    };
+
+    private static int CountOf(string text, string part)
+    {
+        var count = 0;
+        for (var i = text.IndexOf(part, StringComparison.Ordinal); i >= 0; i = text.IndexOf(part, i + 1, StringComparison.Ordinal))
+        {
+            count++;
+        }
+
+        return count;
+    }
+}
