@@ -74,7 +74,7 @@ internal static class ReportOdds
             ],
             rows,
             string.Create(c,
-                $"z = ln(S(t+h)/S(t)) / (σ √(h/A)), the move over the horizon in units of the forecaster's own range. Shares use every date; the Kupiec (proportion of failures) and Christoffersen (conditional coverage: right share and no clustering) tests use only every {horizon}th date, so that the windows do not overlap; low p-values reject calibrated ranges. A dash means fewer than {needed} non-overlapping dates had a value, too few for the tests. A forecaster missing on some dates keeps its row; the count is in the last column."));
+                $"z = ln(S(t+h)/S(t)) / (σ √(h/A)), the move over the horizon in units of the forecaster's own range. Shares use every date; the Kupiec (proportion of failures) and Christoffersen (conditional coverage: right share and no clustering) tests use only non-overlapping dates (each one horizon, {horizon} trading days, after the last), so that the windows do not overlap; low p-values reject calibrated ranges. A dash means fewer than {needed} non-overlapping dates had a value, too few for the tests. A forecaster missing on some dates keeps its row; the count is in the last column."));
 
         var verdicts = shown.Select(i => Capitalize(calibration.Verdicts[i]) + ".").ToList();
         var notes = new List<string>

@@ -106,7 +106,7 @@ public static class ReportCharts
     {
         using var plot = BuildReliability(curves, pooling);
         return new ChartImage(ReliabilityFileName, "Reliability: predicted probability against what happened",
-            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did. Points on the dashed 45° line mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Above the line in the low bins and below it in the high bins means the probabilities were too cautious (volatility too high).",
+            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did. Points on the dashed 45° line mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Below the line in the low bins and above it in the high bins means the probabilities stayed too close to 50% (the volatility was too high); the reverse means they were too bold.",
             ChartStyle.Png(plot));
     }
 
