@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Reflection;
 using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
 using VolCast.IO;
 using VolCast.IO.Results;
 using VolCast.Reports;
@@ -60,6 +61,9 @@ internal static class BacktestPipeline
             throw new UsageException(ex.Message);
         }
 
+        // Do the odds hold? N(d2) probabilities at the default strikes and the expected-move ranges, on the same dates and prices.
+        var calibration = BacktestCalibrator.Evaluate(result, priceLoad.History);
+
         var inputs = ImmutableArray.CreateBuilder<InputFileInfo>();
         inputs.Add(new InputFileInfo("prices", job.Prices, priceLoad.Sha256));
         if (impliedLoad is not null)
@@ -85,7 +89,8 @@ internal static class BacktestPipeline
             result,
             run,
             job.Force,
-            temp => ReportWriter.Write(temp, result, run, priceLoad.History, priceLoad.RowsRead));
+            temp => ReportWriter.Write(temp, result, run, priceLoad.History, priceLoad.RowsRead, calibration),
+            calibration);
         return (result, run);
     }
 

@@ -1,5 +1,6 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
 using VolCast.Core.Cone;
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
@@ -25,7 +26,7 @@ public static class ReportWriter
     public static IReadOnlyList<string> FileNames { get; } =
     [
         ReportFiles.ReportFileName, "forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png",
-        "mincer-zarnowitz.png", "cone.png", "rule-test.png",
+        "mincer-zarnowitz.png", "cone.png", "rule-test.png", ReportCharts.ReliabilityFileName,
     ];
 
     /// <summary>Builds the report of one backtest.</summary>
@@ -33,8 +34,9 @@ public static class ReportWriter
     /// <param name="run">Tool version, inputs with their SHA-256, times and input warnings.</param>
     /// <param name="prices">The price history the backtest ran on (the cone is drawn from its closes).</param>
     /// <param name="priceRowsRead">Data rows read from the price file, for the data-quality section.</param>
+    /// <param name="calibration">The probability-calibration and coverage checks of the same run (<see cref="BacktestCalibrator.Evaluate"/>), or null to leave the "Do the odds hold?" section saying they were not run.</param>
     /// <returns>The report model.</returns>
-    public static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead)
+    public static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null)
     {
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(run);
@@ -48,7 +50,10 @@ public static class ReportWriter
             ReportTables.Build(result),
             Charts(result, prices),
             Quality(result, run, prices, priceRowsRead),
-            new RunInfo(run.ToolVersion, run.StartedUtc, run.FinishedUtc - run.StartedUtc, Settings(result, run), [.. run.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]));
+            new RunInfo(run.ToolVersion, run.StartedUtc, run.FinishedUtc - run.StartedUtc, Settings(result, run), [.. run.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
+        {
+            Odds = calibration is null ? null : ReportOdds.Build(result, calibration),
+        };
     }
 
     /// <summary>Builds the report and writes report.html and its PNGs into <paramref name="folder"/>.</summary>
@@ -57,11 +62,12 @@ public static class ReportWriter
     /// <param name="run">Tool version, inputs, times and warnings.</param>
     /// <param name="prices">The price history the backtest ran on.</param>
     /// <param name="priceRowsRead">Data rows read from the price file.</param>
+    /// <param name="calibration">The odds checks of the same run, or null.</param>
     /// <returns>The file names written (without the folder).</returns>
     /// <exception cref="IOException">A report file already exists in the folder.</exception>
-    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead)
+    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null)
     {
-        var model = Build(result, run, prices, priceRowsRead);
+        var model = Build(result, run, prices, priceRowsRead, calibration);
         return [.. ReportFiles.Write(model, folder, overwrite: false).Select(Path.GetFileName).OfType<string>()];
     }
 

@@ -1,4 +1,5 @@
 using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
 using VolCast.Core.Demo;
 using VolCast.IO.Results;
 using VolCast.Reports.Html;
@@ -164,5 +165,78 @@ public sealed class ReportWriterTests
         Assert.Equal(Model.Significance.TenPercent, ReportTables.Stars(0.05));
         Assert.Equal(Model.Significance.None, ReportTables.Stars(0.10));
         Assert.Equal(Model.Significance.None, ReportTables.Stars(null));
+    }
+
+    [Fact]
+    public void Build_WithCalibration_OddsSectionHoldsDiagramTableAndVerdicts()
+    {
+        var calibration = BacktestCalibrator.Evaluate(WithImplied, Scenario.Index);
+
+        var model = ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count, calibration);
+
+        var odds = model.Odds!;
+        Assert.Equal("reliability.png", odds.Reliability!.FileName);
+        Assert.True(Png.HasSignature(odds.Reliability.Png.Span));
+        Assert.DoesNotContain(model.Charts, c => c.FileName == "reliability.png");
+        Assert.Equal(calibration.Report.Coverages.Length, odds.Coverage.Rows.Count);
+        Assert.Equal("implied", odds.Coverage.Rows[0].Label);
+        var implied = calibration.Report.Coverages[0];
+        Assert.Equal(implied.Levels[0].NonOverlappingCount, odds.Coverage.Rows[0].Cells[0].Value);
+        Assert.Equal(implied.Levels[0].ShareWithin, odds.Coverage.Rows[0].Cells[1].Value);
+        Assert.Equal(implied.Levels[0].Kupiec?.PValue, odds.Coverage.Rows[0].Cells[2].Value);
+        Assert.Equal(implied.Levels[0].ConditionalCoverage?.PValue, odds.Coverage.Rows[0].Cells[3].Value);
+        Assert.Equal(implied.Levels[1].ShareWithin, odds.Coverage.Rows[0].Cells[4].Value);
+        Assert.Equal(implied.MaxAbsZ, odds.Coverage.Rows[0].Cells[7].Value);
+        Assert.Equal(implied.ShareAboveThree, odds.Coverage.Rows[0].Cells[8].Value);
+        Assert.Equal(implied.MissingCount, odds.Coverage.Rows[0].Cells[9].Value);
+        Assert.StartsWith("Ranges from implied", odds.Verdicts[0], StringComparison.Ordinal);
+
+        var html = HtmlReport.Render(model);
+        Assert.Contains("<h2>Do the odds hold?</h2>", html, StringComparison.Ordinal);
+        Assert.True(html.IndexOf("id=\"odds\"", StringComparison.Ordinal) < html.IndexOf("id=\"data-quality\"", StringComparison.Ordinal));
+        Assert.Contains("calibrated odds in the past do not make calibrated odds in the future", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ReliabilityCurves_ImpliedAndTwoLeading_PooledBinsMatchAHandSum()
+    {
+        var calibration = BacktestCalibrator.Evaluate(WithImplied, Scenario.Index);
+
+        var curves = ReportOdds.Curves(WithImplied, calibration);
+
+        Assert.Equal(["implied", .. ReportSeries.Leading(WithImplied).Take(2)], curves.Select(c => c.Name));
+        foreach (var curve in curves)
+        {
+            // Pool by hand: for each bin, counts add up and the means are count-weighted over the five strikes.
+            var strikes = calibration.Report.Calibrations.Single(f => f.Forecaster == curve.Name).Strikes;
+            var k = 0;
+            for (var bin = 0; bin < 10; bin++)
+            {
+                var rows = strikes.Select(s => s.Bins[bin]).Where(b => b.Count > 0).ToArray();
+                if (rows.Length == 0)
+                {
+                    continue;
+                }
+
+                var n = rows.Sum(b => b.Count);
+                Assert.Equal(n, curve.Counts[k]);
+                Assert.Equal(rows.Sum(b => b.Count * b.MeanPredicted!.Value) / n, curve.Predicted[k], 12);
+                Assert.Equal(rows.Sum(b => b.Count * b.ObservedFrequency!.Value) / n, curve.Observed[k], 12);
+                Assert.True(curve.Lower[k] <= curve.Observed[k] && curve.Observed[k] <= curve.Upper[k]);
+                k++;
+            }
+
+            Assert.Equal(k, curve.Counts.Count);
+            Assert.Equal(strikes.Length * strikes[0].Decomposition.Count, curve.Counts.Sum());
+        }
+    }
+
+    [Fact]
+    public void Build_WithoutCalibration_OddsSectionSaysNotRun()
+    {
+        var html = HtmlReport.Render(ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count));
+
+        Assert.Contains("<section id=\"odds\">", html, StringComparison.Ordinal);
+        Assert.Contains("were not run", html, StringComparison.Ordinal);
     }
 }

@@ -54,11 +54,11 @@ public static class CoverageVerdict
                 text.Append(c, $" by about {by * 100:0}%");
             }
 
-            text.Append(c, $": {held} (Kupiec p = {FormatP(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");
+            text.Append(c, $": {held} (Kupiec p {FormatP(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");
         }
         else
         {
-            text.Append(c, $" held as forecast: {held} (Kupiec p = {FormatP(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");
+            text.Append(c, $" held as forecast: {held} (Kupiec p {FormatP(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");
         }
 
         if (coverage.MissingCount > 0)
@@ -84,5 +84,5 @@ public static class CoverageVerdict
         return text.ToString();
     }
 
-    private static string FormatP(double p) => p < 0.001 ? "< 0.001" : p.ToString("0.000", CultureInfo.InvariantCulture);
+    private static string FormatP(double p) => p < 0.001 ? "< 0.001" : "= " + p.ToString("0.000", CultureInfo.InvariantCulture);
 }

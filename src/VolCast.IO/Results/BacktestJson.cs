@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
 using VolCast.Core.Scoring;
 
 namespace VolCast.IO.Results;
@@ -11,7 +12,8 @@ internal static class BacktestJson
 {
     private static readonly JsonWriterOptions Options = new() { Indented = true };
 
-    public static void WriteMetrics(TextWriter writer, BacktestResult result) => writer.Write(Build(json => Metrics(json, result)));
+    public static void WriteMetrics(TextWriter writer, BacktestResult result, BacktestCalibration? calibration = null) =>
+        writer.Write(Build(json => Metrics(json, result, calibration)));
 
     public static void WriteRun(TextWriter writer, BacktestResult result, BacktestRunInfo run) => writer.Write(Build(json => Run(json, result, run)));
 
@@ -26,7 +28,7 @@ internal static class BacktestJson
         return Encoding.UTF8.GetString(stream.ToArray()).Replace("\r\n", "\n", StringComparison.Ordinal) + "\n";
     }
 
-    private static void Metrics(Utf8JsonWriter json, BacktestResult r)
+    private static void Metrics(Utf8JsonWriter json, BacktestResult r, BacktestCalibration? calibration)
     {
         json.WriteStartObject();
         json.WriteString("sign_convention", "Diebold-Mariano d_t = L(first) - L(second); a negative statistic means the first named has the lower loss. dm_* in a forecaster row: first = the forecaster, second = implied.");
@@ -133,6 +135,16 @@ internal static class BacktestJson
         else
         {
             json.WriteNull("rule_test");
+        }
+
+        if (calibration is null)
+        {
+            json.WriteNull("calibration");
+            json.WriteNull("coverage");
+        }
+        else
+        {
+            CalibrationJson.Write(json, calibration);
         }
 
         var q = r.DataQuality;

@@ -1,8 +1,12 @@
 using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
 
 namespace VolCast.IO.Results;
 
-/// <summary>Writes a backtest's results into a new output folder: forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt.</summary>
+/// <summary>
+/// Writes a backtest's results into a new output folder: forecasts.csv, metrics.csv, metrics.json, run.json and
+/// summary.txt, and with the odds checks also calibration.csv and coverage.csv (their numbers repeated in metrics.json).
+/// </summary>
 /// <remarks>
 /// The files are built in a temporary sibling folder (each through <see cref="AtomicFile"/>) and the folder is moved
 /// into place, so a failure leaves no half-written report. An existing folder is refused unless <c>force</c> is set;
@@ -11,7 +15,14 @@ namespace VolCast.IO.Results;
 public static class BacktestResultsWriter
 {
     /// <summary>Gets the names of the files this writer produces.</summary>
-    public static IReadOnlyList<string> FileNames { get; } = ["forecasts.csv", "metrics.csv", "metrics.json", "run.json", "summary.txt"];
+    public static IReadOnlyList<string> FileNames { get; } =
+        ["forecasts.csv", "metrics.csv", "metrics.json", "run.json", "summary.txt", CalibrationFileName, CoverageFileName];
+
+    /// <summary>The probability-calibration table's file name (see <see cref="CalibrationCsv"/>).</summary>
+    public const string CalibrationFileName = "calibration.csv";
+
+    /// <summary>The range-coverage table's file name (see <see cref="CoverageCsv"/>).</summary>
+    public const string CoverageFileName = "coverage.csv";
 
     /// <summary>Writes the results folder.</summary>
     /// <param name="folder">The output folder; must not exist unless <paramref name="force"/>.</param>
@@ -22,9 +33,20 @@ public static class BacktestResultsWriter
     /// Writes further files of the same run (the HTML report and its charts) into the temporary folder it is given and
     /// returns their names, so they are moved into place with the rest, and with <paramref name="force"/> replaced like them; or null.
     /// </param>
+    /// <param name="calibration">
+    /// The probability-calibration and range-coverage checks of the same run (<see cref="BacktestCalibrator.Evaluate"/>),
+    /// written to calibration.csv and coverage.csv, to metrics.json (sections <c>calibration</c> and <c>coverage</c>) and
+    /// summarized in summary.txt; or null to leave them out (metrics.json then holds null for both sections).
+    /// </param>
     /// <returns>The full paths of the files written.</returns>
     /// <exception cref="IOException">The folder exists and <paramref name="force"/> is false, or an input file would be overwritten.</exception>
-    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, bool force = false, Func<string, IReadOnlyList<string>>? writeMore = null)
+    public static IReadOnlyList<string> Write(
+        string folder,
+        BacktestResult result,
+        BacktestRunInfo run,
+        bool force = false,
+        Func<string, IReadOnlyList<string>>? writeMore = null,
+        BacktestCalibration? calibration = null)
     {
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(result);
@@ -55,13 +77,25 @@ public static class BacktestResultsWriter
         var temp = Path.Combine(parent, $".{Path.GetFileName(target)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
         Directory.CreateDirectory(temp);
         var names = new List<string>(FileNames);
+        if (calibration is null)
+        {
+            names.Remove(CalibrationFileName);
+            names.Remove(CoverageFileName);
+        }
+
         try
         {
             AtomicFile.WriteText(Path.Combine(temp, "forecasts.csv"), w => ForecastsCsv.Write(w, result));
             AtomicFile.WriteText(Path.Combine(temp, "metrics.csv"), w => MetricsCsv.Write(w, result));
-            AtomicFile.WriteText(Path.Combine(temp, "metrics.json"), w => BacktestJson.WriteMetrics(w, result));
+            AtomicFile.WriteText(Path.Combine(temp, "metrics.json"), w => BacktestJson.WriteMetrics(w, result, calibration));
             AtomicFile.WriteText(Path.Combine(temp, "run.json"), w => BacktestJson.WriteRun(w, result, run));
-            AtomicFile.WriteText(Path.Combine(temp, "summary.txt"), w => SummaryText.Write(w, result, run));
+            AtomicFile.WriteText(Path.Combine(temp, "summary.txt"), w => SummaryText.Write(w, result, run, calibration));
+            if (calibration is not null)
+            {
+                CalibrationCsv.WriteFile(Path.Combine(temp, CalibrationFileName), calibration.Report.Calibrations);
+                CoverageCsv.WriteFile(Path.Combine(temp, CoverageFileName), calibration.Report.Coverages, calibration.Verdicts);
+            }
+
             names.AddRange(writeMore?.Invoke(temp) ?? []);
             if (!Directory.Exists(target))
             {

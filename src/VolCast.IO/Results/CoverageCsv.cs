@@ -27,12 +27,23 @@ public static class CoverageCsv
     /// <summary>Writes the table to a writer the caller owns.</summary>
     /// <param name="writer">Where the text goes.</param>
     /// <param name="coverages">One result per forecaster.</param>
+    /// <param name="verdicts">
+    /// One verdict per forecaster in the same order (for example <see cref="BacktestCalibration.Verdicts"/>, which names the
+    /// regimes where the ranges failed); or null to use <see cref="CoverageVerdict.Describe"/> without regimes.
+    /// </param>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
-    /// <exception cref="ArgumentException">A result does not hold the |z| ≤ 1 and |z| ≤ 2 levels.</exception>
-    public static void Write(TextWriter writer, IReadOnlyList<CoverageResult> coverages)
+    /// <exception cref="ArgumentException">A result does not hold the |z| ≤ 1 and |z| ≤ 2 levels, or the verdicts are not one per result.</exception>
+    public static void Write(TextWriter writer, IReadOnlyList<CoverageResult> coverages, IReadOnlyList<string>? verdicts = null)
     {
         ArgumentNullException.ThrowIfNull(writer);
         ArgumentNullException.ThrowIfNull(coverages);
+        if (verdicts is not null && verdicts.Count != coverages.Count)
+        {
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"verdicts must hold one sentence per coverage result ({coverages.Count}), had {verdicts.Count}."), nameof(verdicts));
+        }
+
+        var row = 0;
         writer.Write(Header);
         writer.Write('\n');
         foreach (var c in coverages)
@@ -54,7 +65,8 @@ public static class CoverageCsv
             }
 
             writer.Write(',');
-            writer.Write(CalibrationCsvText.Field(CoverageVerdict.Describe(c), alwaysQuote: true));
+            writer.Write(CalibrationCsvText.Field(verdicts?[row] ?? CoverageVerdict.Describe(c), alwaysQuote: true));
+            row++;
             writer.Write('\n');
         }
     }
@@ -62,12 +74,13 @@ public static class CoverageCsv
     /// <summary>Writes the table to a file atomically (temporary file, then move).</summary>
     /// <param name="path">The file to create.</param>
     /// <param name="coverages">One result per forecaster.</param>
+    /// <param name="verdicts">One verdict per forecaster, or null for the verdicts without regimes.</param>
     /// <param name="overwrite">Whether an existing file may be replaced.</param>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
     /// <exception cref="IOException">The file exists and <paramref name="overwrite"/> is false.</exception>
-    public static void WriteFile(string path, IReadOnlyList<CoverageResult> coverages, bool overwrite = false)
+    public static void WriteFile(string path, IReadOnlyList<CoverageResult> coverages, IReadOnlyList<string>? verdicts = null, bool overwrite = false)
     {
         ArgumentNullException.ThrowIfNull(coverages);
-        AtomicFile.WriteText(path, w => Write(w, coverages), overwrite);
+        AtomicFile.WriteText(path, w => Write(w, coverages, verdicts), overwrite);
     }
 }

@@ -1,5 +1,6 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
 using VolCast.Core.Scoring;
 
 namespace VolCast.IO.Results;
@@ -7,7 +8,7 @@ namespace VolCast.IO.Results;
 /// <summary>Writes summary.txt, a plain-text digest of the results (until the HTML report exists), leading with baseline vs candidate.</summary>
 internal static class SummaryText
 {
-    public static void Write(TextWriter w, BacktestResult r, BacktestRunInfo run)
+    public static void Write(TextWriter w, BacktestResult r, BacktestRunInfo run, BacktestCalibration? calibration = null)
     {
         var c = CultureInfo.InvariantCulture;
         var q = r.DataQuality;
@@ -47,6 +48,11 @@ internal static class SummaryText
             ? "  Model confidence set not computed: " + mcs.Note + "\n"
             : string.Create(c, $"  * in the {(1 - mcs.Result.Options.Alpha) * 100:F0}% model confidence set (QLIKE, {mcs.CommonDates} common dates, B = {mcs.Result.Options.BootstrapReplications}, block {mcs.Result.Options.BlockLength}).\n"));
 
+        if (calibration is not null)
+        {
+            Odds(w, calibration);
+        }
+
         if (r.Adaptive.Length > 0)
         {
             w.Write("\nLookback sweep (IN-SAMPLE: the best row is chosen with hindsight) and the out-of-sample adaptive choice\n");
@@ -79,6 +85,25 @@ internal static class SummaryText
         }
 
         w.Write("\nResults describe the past on the data given; they are not advice. Models can fail out of sample; trading options carries risk of loss.\n");
+    }
+
+    private static void Odds(TextWriter w, BacktestCalibration calibration)
+    {
+        var c = CultureInfo.InvariantCulture;
+        w.Write("\nDo the odds hold? Expected-move ranges: share of dates with |z| <= 1 (68.3% if calibrated) and |z| <= 2 (95.4%), Kupiec p on non-overlapping dates; details in coverage.csv and calibration.csv\n");
+        w.Write(string.Create(c, $"  {"forecaster",-26} {"n",6} {"missing",7} {"|z|<=1",7} {"p",7} {"|z|<=2",7} {"p",7} {"max|z|",7}\n"));
+        var coverages = calibration.Report.Coverages;
+        for (var i = 0; i < coverages.Length; i++)
+        {
+            var cov = coverages[i];
+            var one = cov.Levels[0];
+            var two = cov.Levels[1];
+            w.Write(string.Create(c,
+                $"  {cov.Forecaster,-26} {cov.Count,6} {cov.MissingCount,7} {F(one.ShareWithin, "0.0%"),7} {F(one.Kupiec?.PValue, "F3"),7} {F(two.ShareWithin, "0.0%"),7} {F(two.Kupiec?.PValue, "F3"),7} {F(cov.MaxAbsZ, "F2"),7}\n"));
+            w.Write("    " + (i < calibration.Verdicts.Length ? calibration.Verdicts[i] : CoverageVerdict.Describe(cov)) + "\n");
+        }
+
+        w.Write("  Calibrated odds in the past do not make calibrated odds in the future.\n");
     }
 
     private static string Dm(double? first, double? second, DieboldMarianoResult? dm) =>

@@ -98,6 +98,69 @@ public static class ReportCharts
             ChartStyle.Png(plot));
     }
 
+    /// <summary>The reliability diagram: observed frequency against predicted probability per bin, with the 45° line and interval bars.</summary>
+    /// <param name="curves">One curve per forecaster (implied first when there is one).</param>
+    /// <param name="pooling">Which strikes the bins pool, e.g. <c>pooled over strikes 0.90–1.10 × close</c>, for the title.</param>
+    /// <returns>The chart as <c>reliability.png</c>.</returns>
+    public static ChartImage Reliability(IReadOnlyList<ReliabilityCurve> curves, string pooling)
+    {
+        using var plot = BuildReliability(curves, pooling);
+        return new ChartImage(ReliabilityFileName, "Reliability: predicted probability against what happened",
+            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did. Points on the dashed 45° line mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Below the line in the low bins and above it in the high bins means the probabilities stayed too close to 50% (the volatility was too high); the reverse means they were too bold.",
+            ChartStyle.Png(plot));
+    }
+
+    /// <summary>The reliability diagram's file name.</summary>
+    internal const string ReliabilityFileName = "reliability.png";
+
+    internal static Plot BuildReliability(IReadOnlyList<ReliabilityCurve> curves, string pooling)
+    {
+        ArgumentNullException.ThrowIfNull(curves);
+        ArgumentNullException.ThrowIfNull(pooling);
+        var plot = ChartStyle.NewPlot("Reliability of P(close at horizon > strike), " + pooling, "Predicted probability (%)", "Observed frequency (%)");
+        var diagonal = plot.Add.Line(0, 0, 100, 100);
+        diagonal.Color = ChartStyle.Reference;
+        diagonal.LineWidth = 2;
+        diagonal.LinePattern = LinePattern.Dashed;
+        diagonal.LegendText = "45° line (odds held)";
+        var shapes = new[] { MarkerShape.FilledCircle, MarkerShape.FilledSquare, MarkerShape.FilledTriangleUp, MarkerShape.FilledDiamond };
+        for (var k = 0; k < curves.Count; k++)
+        {
+            var curve = curves[k];
+            var n = curve.Predicted.Count;
+            if (curve.Observed.Count != n || curve.Lower.Count != n || curve.Upper.Count != n)
+            {
+                throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                    $"curve '{curve.Name}' has {n} predicted values but {curve.Observed.Count} observed, {curve.Lower.Count} lower and {curve.Upper.Count} upper; expected one of each per bin."), nameof(curves));
+            }
+
+            // Implied keeps the palette's first colour, as in the other charts; forecasters follow.
+            var color = ChartStyle.Series(curve.Name == "implied" ? 0 : k + (curves[0].Name == "implied" ? 0 : 1));
+            var xs = new double[n];
+            var ys = new double[n];
+            for (var i = 0; i < n; i++)
+            {
+                xs[i] = curve.Predicted[i] * 100.0;
+                ys[i] = curve.Observed[i] * 100.0;
+                var bar = plot.Add.Line(xs[i], curve.Lower[i] * 100.0, xs[i], curve.Upper[i] * 100.0);
+                bar.Color = color.WithAlpha(0.7);
+                bar.LineWidth = 2;
+                bar.LegendText = string.Empty;
+            }
+
+            var line = plot.Add.Scatter(xs, ys);
+            line.Color = color;
+            line.LineWidth = 2;
+            line.MarkerSize = 9;
+            line.MarkerShape = shapes[k % shapes.Length];
+            line.LegendText = curve.Name;
+        }
+
+        plot.Axes.SetLimits(-2, 102, -2, 102);
+        ChartStyle.LegendBelow(plot);
+        return plot;
+    }
+
     internal static Plot BuildForecastVsRealized(TimeSeries realized, TimeSeries? implied, IReadOnlyList<TimeSeries> forecasts)
     {
         ArgumentNullException.ThrowIfNull(realized);

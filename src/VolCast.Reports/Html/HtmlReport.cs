@@ -10,7 +10,8 @@ namespace VolCast.Reports.Html;
 /// scripts, and a Content-Security-Policy that forbids loading anything from elsewhere.
 /// </summary>
 /// <remarks>
-/// Sections, in order: verdict, metrics, charts, data quality, run details, cautions. Every string from the model is
+/// Sections, in order: verdict, metrics, charts, "Do the odds hold?" (probability calibration and range coverage),
+/// data quality, run details, cautions. Every string from the model is
 /// HTML-escaped; numbers are formatted with the invariant culture, so the same model gives the same bytes.
 /// </remarks>
 public static class HtmlReport
@@ -19,7 +20,7 @@ public static class HtmlReport
     public const string ContentSecurityPolicy = "default-src 'none'; img-src data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'";
 
     /// <summary>The section ids, in the order they appear.</summary>
-    public static IReadOnlyList<string> SectionIds { get; } = ["verdict", "metrics", "charts", "data-quality", "run", "cautions"];
+    public static IReadOnlyList<string> SectionIds { get; } = ["verdict", "metrics", "charts", "odds", "data-quality", "run", "cautions"];
 
     private const string Css = """
         body{font-family:"DejaVu Sans",Arial,Helvetica,sans-serif;color:#111;background:#fff;max-width:1240px;margin:0 auto;padding:16px 24px;line-height:1.45}
@@ -60,6 +61,7 @@ public static class HtmlReport
         Verdict(html, model.Verdict);
         Metrics(html, model.Tables);
         Charts(html, model.Charts);
+        Odds(html, model.Odds);
         Quality(html, model.DataQuality);
         Run(html, model.Run);
         Cautions(html, model.Cautions);
@@ -103,32 +105,72 @@ public static class HtmlReport
         html.Append("<section id=\"metrics\">\n<h2>Metrics</h2>\n");
         foreach (var table in tables)
         {
-            html.Append("<h3>").Append(E(table.Title)).Append("</h3>\n<table>\n<thead><tr><th>&nbsp;</th>");
-            foreach (var column in table.Columns)
-            {
-                html.Append("<th>").Append(E(column.Header)).Append("<span class=\"unit\">").Append(E(column.Unit)).Append("</span></th>");
-            }
-
-            html.Append("</tr></thead>\n<tbody>\n");
-            foreach (var row in table.Rows)
-            {
-                html.Append("<tr><td>").Append(E(row.Label)).Append("</td>");
-                foreach (var cell in row.Cells)
-                {
-                    html.Append("<td>").Append(Cell(cell)).Append("</td>");
-                }
-
-                html.Append("</tr>\n");
-            }
-
-            html.Append("</tbody>\n</table>\n");
-            if (table.Note is not null)
-            {
-                html.Append("<p class=\"note\">").Append(E(table.Note)).Append("</p>\n");
-            }
+            Table(html, table);
         }
 
         html.Append("<p class=\"note\">Significance: * p &lt; 0.10, ** p &lt; 0.05, *** p &lt; 0.01, from tests with Newey-West (HAC) standard errors.</p>\n</section>\n");
+    }
+
+    private static void Odds(StringBuilder html, OddsSection? odds)
+    {
+        html.Append("<section id=\"odds\">\n<h2>Do the odds hold?</h2>\n");
+        if (odds is null)
+        {
+            html.Append("<p class=\"note\">The probability-calibration and range-coverage checks were not run for this report.</p>\n</section>\n");
+            return;
+        }
+
+        html.Append("<p>A volatility number implies odds: the chance that the price ends above a strike, and a range the price should stay in about two times out of three. This section checks, on this history, how often those odds held for implied volatility and the forecasters.</p>\n");
+        if (odds.Verdicts.Count > 0)
+        {
+            html.Append("<ul>\n");
+            foreach (var verdict in odds.Verdicts)
+            {
+                html.Append("<li>").Append(E(verdict)).Append("</li>\n");
+            }
+
+            html.Append("</ul>\n");
+        }
+
+        if (odds.Reliability is { } chart)
+        {
+            Figure(html, chart);
+        }
+
+        Table(html, odds.Coverage);
+        foreach (var note in odds.Notes)
+        {
+            html.Append("<p class=\"note\">").Append(E(note)).Append("</p>\n");
+        }
+
+        html.Append("</section>\n");
+    }
+
+    private static void Table(StringBuilder html, MetricTable table)
+    {
+        html.Append("<h3>").Append(E(table.Title)).Append("</h3>\n<table>\n<thead><tr><th>&nbsp;</th>");
+        foreach (var column in table.Columns)
+        {
+            html.Append("<th>").Append(E(column.Header)).Append("<span class=\"unit\">").Append(E(column.Unit)).Append("</span></th>");
+        }
+
+        html.Append("</tr></thead>\n<tbody>\n");
+        foreach (var row in table.Rows)
+        {
+            html.Append("<tr><td>").Append(E(row.Label)).Append("</td>");
+            foreach (var cell in row.Cells)
+            {
+                html.Append("<td>").Append(Cell(cell)).Append("</td>");
+            }
+
+            html.Append("</tr>\n");
+        }
+
+        html.Append("</tbody>\n</table>\n");
+        if (table.Note is not null)
+        {
+            html.Append("<p class=\"note\">").Append(E(table.Note)).Append("</p>\n");
+        }
     }
 
     private static void Charts(StringBuilder html, IReadOnlyList<ChartImage> charts)
@@ -136,13 +178,16 @@ public static class HtmlReport
         html.Append("<section id=\"charts\">\n<h2>Charts</h2>\n");
         foreach (var chart in charts)
         {
-            html.Append("<figure>\n<img src=\"data:image/png;base64,").Append(Convert.ToBase64String(chart.Png.Span))
-                .Append("\" width=\"1200\" height=\"600\" alt=\"").Append(E(chart.Description)).Append("\">\n<figcaption><strong>")
-                .Append(E(chart.Title)).Append("</strong>").Append(E(chart.Description)).Append("</figcaption>\n</figure>\n");
+            Figure(html, chart);
         }
 
         html.Append("</section>\n");
     }
+
+    private static void Figure(StringBuilder html, ChartImage chart) =>
+        html.Append("<figure>\n<img src=\"data:image/png;base64,").Append(Convert.ToBase64String(chart.Png.Span))
+            .Append("\" width=\"1200\" height=\"600\" alt=\"").Append(E(chart.Description)).Append("\">\n<figcaption><strong>")
+            .Append(E(chart.Title)).Append("</strong>").Append(E(chart.Description)).Append("</figcaption>\n</figure>\n");
 
     private static void Quality(StringBuilder html, DataQuality quality)
     {

@@ -3,7 +3,7 @@ using VolCast.Reports.Model;
 
 namespace VolCast.Reports.Html;
 
-/// <summary>Writes a report into a folder: report.html and every chart as its own PNG, each file atomically.</summary>
+/// <summary>Writes a report into a folder: report.html and every chart (the reliability diagram included) as its own PNG, each file atomically.</summary>
 public static class ReportFiles
 {
     /// <summary>The report's file name inside the output folder.</summary>
@@ -21,11 +21,12 @@ public static class ReportFiles
         ArgumentNullException.ThrowIfNull(folder);
         var html = HtmlReport.Render(model);
         var written = new List<string>();
+        var charts = model.Odds?.Reliability is { } reliability ? [.. model.Charts, reliability] : model.Charts;
         var reportPath = Path.Combine(folder, ReportFileName);
         if (!overwrite)
         {
             // Check every target first, so a refused write leaves nothing half-written.
-            foreach (var target in model.Charts.Select(c => Path.Combine(folder, c.FileName)).Append(reportPath))
+            foreach (var target in charts.Select(c => Path.Combine(folder, c.FileName)).Append(reportPath))
             {
                 if (File.Exists(target))
                 {
@@ -34,7 +35,7 @@ public static class ReportFiles
             }
         }
 
-        foreach (var chart in model.Charts)
+        foreach (var chart in charts)
         {
             var path = Path.Combine(folder, chart.FileName);
             AtomicBytes.Write(path, chart.Png.Span, overwrite);

@@ -17,4 +17,7 @@ public sealed record ReportModel(
 {
     /// <summary>The cautions printed at the end of every report.</summary>
     public IReadOnlyList<string> Cautions { get; init; } = ReportText.Cautions;
+
+    /// <summary>The probability-calibration and range-coverage section, or null when the checks were not run.</summary>
+    public OddsSection? Odds { get; init; }
 }

@@ -9,6 +9,7 @@ public static class ReportText
         "These results describe how the methods would have done in the past, on the data given here, and nothing more.",
         "Nothing in this report is investment, trading or risk advice.",
         "A forecaster that ranked well on this history can do worse on new data; models fail out of sample.",
+        "Probabilities and ranges that held on this history can fail on new data: calibrated odds in the past do not make calibrated odds in the future.",
         "Trading options can lose money, including more than the premium paid when selling.",
         "Follow your firm's rules and those of your jurisdiction, and consult a licensed professional before acting on any of this.",
     ];

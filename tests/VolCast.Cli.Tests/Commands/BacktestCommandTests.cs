@@ -76,6 +76,29 @@ public sealed class BacktestCommandTests : IDisposable
         }
 
         Assert.Empty(Directory.GetDirectories(_folder, ".out.*"));
+
+        // Do the odds hold? calibration.csv and coverage.csv with their documented columns, the same numbers in metrics.json,
+        // the reliability diagram and the section in the report, a block in the summary.
+        var calibration = File.ReadAllLines(Path.Combine(output, "calibration.csv"));
+        Assert.Equal(
+            "forecaster,horizon_days,moneyness,dates_scored,dates_missing,brier,reliability,resolution,uncertainty,within_bin_variance,within_bin_covariance,log_score,log_score_clipped,mean_predicted,observed_frequency,bin,bin_lower,bin_upper,bin_count,bin_effective_count,bin_mean_predicted,bin_observed_frequency,bin_interval_lower,bin_interval_upper",
+            calibration[0]);
+        Assert.StartsWith("implied,21,0.9,", calibration[1], StringComparison.Ordinal);
+        var coverage = File.ReadAllLines(Path.Combine(output, "coverage.csv"));
+        var coverageHeader = coverage[0].Split(',');
+        Assert.Equal(["forecaster", "horizon_days", "dates_scored", "dates_missing", "z_scale", "max_abs_z", "share_abs_z_above_3", "within1_share", "within1_expected", "within1_status"], coverageHeader[..10]);
+        Assert.Equal("verdict", coverageHeader[^1]);
+        Assert.Contains("within2_kupiec_p", coverageHeader);
+        Assert.Contains("within1_conditional_p", coverageHeader);
+        Assert.Equal(header.Length - 2, coverage.Length - 1); // implied and every forecaster (forecasts.csv columns after date and realized), one row each
+        Assert.Equal(root.GetProperty("forecasters").GetArrayLength(), root.GetProperty("coverage").GetProperty("forecasters").GetArrayLength());
+        Assert.Equal(root.GetProperty("forecasters").GetArrayLength(), root.GetProperty("calibration").GetProperty("forecasters").GetArrayLength());
+        var impliedCoverage = root.GetProperty("coverage").GetProperty("forecasters")[0];
+        Assert.Equal("implied", impliedCoverage.GetProperty("forecaster").GetString());
+        Assert.Equal(coverage[1].Split(',')[7], impliedCoverage.GetProperty("within1").GetProperty("share").GetDouble().ToString("R", CultureInfo.InvariantCulture));
+        Assert.Equal([0x89, 0x50, 0x4E, 0x47], File.ReadAllBytes(Path.Combine(output, "reliability.png"))[..4]);
+        Assert.Contains("<h2>Do the odds hold?</h2>", html, StringComparison.Ordinal);
+        Assert.Contains("Do the odds hold?", File.ReadAllText(Path.Combine(output, "summary.txt")), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -86,6 +109,8 @@ public sealed class BacktestCommandTests : IDisposable
         File.WriteAllText(Path.Combine(output, "notes.txt"), "mine");
         File.WriteAllText(Path.Combine(output, "metrics.csv"), "old");
         File.WriteAllText(Path.Combine(output, "report.html"), "old");
+        File.WriteAllText(Path.Combine(output, "calibration.csv"), "old");
+        File.WriteAllText(Path.Combine(output, "coverage.csv"), "old");
         string[] args = ["backtest", "--prices", _prices, "--out", output, "--config", WriteConfig("fast.json", "{ \"sweep\": false, \"forecasters\": [\"ewma:0.94\", \"close-to-close:21\"] }")];
 
         var refused = CliRunner.Run(args);
@@ -98,6 +123,8 @@ public sealed class BacktestCommandTests : IDisposable
         Assert.Equal("mine", File.ReadAllText(Path.Combine(output, "notes.txt")));
         Assert.StartsWith("forecaster,", File.ReadAllText(Path.Combine(output, "metrics.csv")), StringComparison.Ordinal);
         Assert.StartsWith("<!DOCTYPE html>", File.ReadAllText(Path.Combine(output, "report.html")), StringComparison.Ordinal);
+        Assert.StartsWith("forecaster,", File.ReadAllText(Path.Combine(output, "calibration.csv")), StringComparison.Ordinal);
+        Assert.StartsWith("forecaster,", File.ReadAllText(Path.Combine(output, "coverage.csv")), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -19,6 +19,7 @@ public sealed class DemoCommandTests(DemoCommandTests.DemoRun demo) : IClassFixt
         {
             "report.html", "forecasts.csv", "metrics.csv", "metrics.json", "run.json", "summary.txt", "forecast-vs-realized.png",
             "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png", "mincer-zarnowitz.png", "cone.png", "rule-test.png",
+            "reliability.png", "calibration.csv", "coverage.csv",
         })
         {
             Assert.True(new FileInfo(Path.Combine(demo.Folder, name)).Length > 1000, name);
@@ -60,6 +61,34 @@ public sealed class DemoCommandTests(DemoCommandTests.DemoRun demo) : IClassFixt
 
         Assert.True(count > 4500, $"expected most of the 5,151 scored dates to have implied, got {count}");
         Assert.InRange(sum / count * 100, 2.5, 3.5);
+    }
+
+    [Fact]
+    public void Demo_Coverage_ImpliedRangesTooWideGarchNearCalibrated()
+    {
+        // Implied = the model's expected 30-day volatility + a premium averaging 2.5 vol points (data-demo/README.md),
+        // so its ranges are too wide: with the index's volatility around 16%, z has a standard deviation of about
+        // 16 / 18.5 = 0.86, and |z| <= 1 holds about 2N(1/0.86) - 1 = 75% of the time against 68.3% (normal arithmetic,
+        // common practice, no source). Measured on this seed: share 77.6%, sqrt(mean z^2) = 0.85, Kupiec p < 0.001 on
+        // 252 non-overlapping dates. The bands allow for jumps and the 20-year sampling error of a share on about 250
+        // independent windows (se about 2.9 points). garch knows the generator's dynamics, so its z scale is near 1
+        // (measured 0.998; share 72.3%, a little above 68.3% because jumps fatten the tails and thin the middle).
+        var lines = File.ReadAllLines(Path.Combine(demo.Folder, "coverage.csv"));
+        var header = lines[0].Split(',');
+        string[] Row(string name) => lines.Single(l => l.StartsWith(name + ",", StringComparison.Ordinal)).Split(',');
+        double Cell(string[] row, string column) => double.Parse(row[Array.IndexOf(header, column)], CultureInfo.InvariantCulture);
+
+        var implied = Row("implied");
+        Assert.InRange(Cell(implied, "within1_share"), 0.72, 0.84);
+        Assert.InRange(Cell(implied, "within2_share"), 0.9545, 0.995);
+        Assert.InRange(Cell(implied, "z_scale"), 0.78, 0.92);
+        Assert.True(Cell(implied, "within1_kupiec_p") < 0.05, "Kupiec should reject implied's |z| <= 1 coverage");
+        Assert.True(Cell(implied, "within1_nonoverlapping_dates") >= 230, "about 5,000 dates / 21-22 days");
+        Assert.Contains("ranges from implied were too wide", lines.Single(l => l.StartsWith("implied,", StringComparison.Ordinal)), StringComparison.Ordinal);
+
+        var garch = Row("garch");
+        Assert.InRange(Cell(garch, "z_scale"), 0.9, 1.1);
+        Assert.InRange(Cell(garch, "within1_share"), 0.64, 0.78);
     }
 
     [Fact]

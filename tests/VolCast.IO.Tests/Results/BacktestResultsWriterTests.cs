@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text.Json;
 using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
 using VolCast.Core.Data;
 using VolCast.IO.Results;
 
@@ -8,7 +9,9 @@ namespace VolCast.IO.Tests.Results;
 
 public sealed class BacktestResultsWriterTests
 {
-    private static BacktestResult SmallResult()
+    private static BacktestResult SmallResult() => SmallRun().Result;
+
+    private static (BacktestResult Result, PriceHistory Prices) SmallRun()
     {
         // Invented random-walk closes (not reference data), enough for every statistic.
         var random = new Random(3);
@@ -38,7 +41,7 @@ public sealed class BacktestResultsWriterTests
             SelectionWindowDays = 100,
             McsReplications = 100,
         };
-        return Backtester.Run(prices, implied, settings);
+        return (Backtester.Run(prices, implied, settings), prices);
     }
 
     private static BacktestRunInfo Run() => new("0.1.0-test", [new InputFileInfo("prices", "p.csv", "ab12")], DateTimeOffset.UnixEpoch, DateTimeOffset.UnixEpoch, "decimal", []);
@@ -91,5 +94,116 @@ public sealed class BacktestResultsWriterTests
         Assert.True(File.Exists(Path.Combine(folder, "metrics.json")));
         Assert.Equal("x", File.ReadAllText(Path.Combine(folder, "keep.txt")));
         Assert.Single(Directory.GetDirectories(temp.Path));
+    }
+
+    [Fact]
+    public void Write_WithCalibration_WritesBothTablesTheJsonSectionsAndASummaryLine()
+    {
+        using var temp = new TempFolder();
+        var (result, prices) = SmallRun();
+        var calibration = BacktestCalibrator.Evaluate(result, prices);
+        var folder = Path.Combine(temp.Path, "report");
+
+        var written = BacktestResultsWriter.Write(folder, result, Run(), calibration: calibration);
+
+        Assert.Contains(Path.Combine(Path.GetFullPath(folder), "calibration.csv"), written);
+        Assert.Contains(Path.Combine(Path.GetFullPath(folder), "coverage.csv"), written);
+        var calibrationCsv = File.ReadAllLines(Path.Combine(folder, "calibration.csv"));
+        var coverageCsv = File.ReadAllLines(Path.Combine(folder, "coverage.csv"));
+        Assert.Equal(CalibrationCsv.Header, calibrationCsv[0]);
+        Assert.Equal(CoverageCsv.Header, coverageCsv[0]);
+
+        // One coverage row per forecaster, implied first; 5 strikes x 10 bins calibration rows per forecaster.
+        Assert.Equal(result.Forecasts.Length + 2, coverageCsv.Length);
+        Assert.StartsWith("implied,", coverageCsv[1], StringComparison.Ordinal);
+        Assert.Equal(((result.Forecasts.Length + 1) * 5 * 10) + 1, calibrationCsv.Length);
+
+        // Independent recomputation of implied's |z| <= 1 share from the closes: z = ln(S(t+h)/S(t)) / (iv sqrt(h/252)).
+        // Implied is quoted on the first 300 of 400 dates only, so some scorable dates miss it: they are counted, not dropped.
+        int within = 0, scored = 0, missing = 0;
+        for (var t = 0; t < result.Dates.Length; t++)
+        {
+            if (result.WindowDays[t] is not int h)
+            {
+                continue;
+            }
+
+            if (result.Implied[t] is not double iv)
+            {
+                missing++;
+                continue;
+            }
+
+            var i = prices.Dates.IndexOf(result.Dates[t]);
+            var z = Math.Log(prices.Close[i + h] / prices.Close[i]) / (iv * Math.Sqrt(h / 252.0));
+            scored++;
+            within += Math.Abs(z) <= 1 ? 1 : 0;
+        }
+
+        Assert.True(missing > 0, "the test needs dates without implied");
+        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "metrics.json")));
+        var implied = json.RootElement.GetProperty("coverage").GetProperty("forecasters")[0];
+        Assert.Equal("implied", implied.GetProperty("forecaster").GetString());
+        Assert.Equal(scored, implied.GetProperty("dates_scored").GetInt32());
+        Assert.Equal(missing, implied.GetProperty("dates_missing").GetInt32());
+        Assert.Equal(missing, implied.GetProperty("missing_dates").GetArrayLength());
+        var one = implied.GetProperty("within1");
+        Assert.Equal((double)within / scored, one.GetProperty("share").GetDouble(), 12);
+        Assert.Equal(0.6826894921370859, one.GetProperty("expected").GetDouble(), 12); // 2N(1) - 1, common practice, no source
+        Assert.Equal(calibration.Report.Coverages[0].Levels[0].Kupiec!.PValue, one.GetProperty("kupiec").GetProperty("p_value").GetDouble());
+        Assert.True(one.TryGetProperty("christoffersen_conditional_coverage", out _));
+        Assert.True(implied.TryGetProperty("max_abs_z", out _));
+        Assert.True(implied.TryGetProperty("share_abs_z_above_3", out _));
+        var coverageCells = coverageCsv[1].Split(',');
+        Assert.Equal(missing.ToString(CultureInfo.InvariantCulture), coverageCells[3]);
+
+        var strikes = json.RootElement.GetProperty("calibration").GetProperty("forecasters")[0].GetProperty("strikes");
+        Assert.Equal([0.90, 0.95, 1.00, 1.05, 1.10], strikes.EnumerateArray().Select(s => s.GetProperty("moneyness").GetDouble()));
+        foreach (var strike in strikes.EnumerateArray())
+        {
+            // Murphy (1973) identity with the two within-bin terms, as documented on BrierDecomposition.
+            var sum = strike.GetProperty("reliability").GetDouble() - strike.GetProperty("resolution").GetDouble() + strike.GetProperty("uncertainty").GetDouble()
+                + strike.GetProperty("within_bin_variance").GetDouble() - strike.GetProperty("within_bin_covariance").GetDouble();
+            Assert.Equal(strike.GetProperty("brier").GetDouble(), sum, 12);
+            Assert.True(strike.GetProperty("log_score").GetDouble() > 0);
+            Assert.Equal(10, strike.GetProperty("bins").GetArrayLength());
+        }
+
+        var summary = File.ReadAllText(Path.Combine(folder, "summary.txt"));
+        Assert.Contains("Do the odds hold?", summary, StringComparison.Ordinal);
+        Assert.Contains("ranges from implied", summary, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Write_ForcedWithCalibration_ReplacesBothTables()
+    {
+        using var temp = new TempFolder();
+        var (result, prices) = SmallRun();
+        var folder = Path.Combine(temp.Path, "report");
+        Directory.CreateDirectory(folder);
+        File.WriteAllText(Path.Combine(folder, "calibration.csv"), "old");
+        File.WriteAllText(Path.Combine(folder, "coverage.csv"), "old");
+
+        BacktestResultsWriter.Write(folder, result, Run(), force: true, calibration: BacktestCalibrator.Evaluate(result, prices));
+
+        Assert.Contains("calibration.csv", BacktestResultsWriter.FileNames);
+        Assert.Contains("coverage.csv", BacktestResultsWriter.FileNames);
+        Assert.StartsWith("forecaster,", File.ReadAllText(Path.Combine(folder, "calibration.csv")), StringComparison.Ordinal);
+        Assert.StartsWith("forecaster,", File.ReadAllText(Path.Combine(folder, "coverage.csv")), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Write_WithoutCalibration_NoTablesAndNullSections()
+    {
+        using var temp = new TempFolder();
+        var folder = Path.Combine(temp.Path, "report");
+
+        BacktestResultsWriter.Write(folder, SmallResult(), Run());
+
+        Assert.False(File.Exists(Path.Combine(folder, "calibration.csv")));
+        Assert.False(File.Exists(Path.Combine(folder, "coverage.csv")));
+        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "metrics.json")));
+        Assert.Equal(JsonValueKind.Null, json.RootElement.GetProperty("calibration").ValueKind);
+        Assert.Equal(JsonValueKind.Null, json.RootElement.GetProperty("coverage").ValueKind);
     }
 }

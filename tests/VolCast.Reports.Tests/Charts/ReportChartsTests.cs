@@ -197,4 +197,26 @@ public sealed class ReportChartsTests
 
         public int GetHashCode(double obj) => 0;
     }
+
+    [Fact]
+    public void Reliability_SeriesAreTheBinsInPercentWithDiagonalAndIntervalBars()
+    {
+        var curves = new[]
+        {
+            new ReliabilityCurve("implied", [0.05, 0.5, 0.9], [0.02, 0.55, 0.97], [0.0, 0.4, 0.9], [0.1, 0.7, 1.0], [40, 20, 40]),
+            new ReliabilityCurve("garch", [0.1, 0.6], [0.12, 0.58], [0.05, 0.45], [0.2, 0.7], [50, 50]),
+        };
+
+        using var plot = ReportCharts.BuildReliability(curves, "pooled over strikes");
+
+        AssertSeries(Line(plot, "implied"), [5, 50, 90], [2, 55, 97]);
+        AssertSeries(Line(plot, "garch"), [10, 60], [12, 58]);
+        var lines = plot.GetPlottables().OfType<LinePlot>().ToArray();
+        var diagonal = lines.Single(l => l.LegendText.StartsWith("45", StringComparison.Ordinal));
+        Assert.Equal((0.0, 0.0, 100.0, 100.0), (diagonal.Start.X, diagonal.Start.Y, diagonal.End.X, diagonal.End.Y));
+        var bars = lines.Where(l => l.LegendText.Length == 0).ToArray();
+        Assert.Equal(5, bars.Length);
+        Assert.Contains(bars, b => b.Start.X == 50 && b.End.X == 50 && Math.Abs(b.Start.Y - 40) < 1e-9 && Math.Abs(b.End.Y - 70) < 1e-9);
+        Assert.Equal("reliability.png", ReportCharts.Reliability(curves, "pooled").FileName);
+    }
 }

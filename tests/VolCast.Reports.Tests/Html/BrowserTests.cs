@@ -35,7 +35,7 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
         }
 
         var report = ReportFiles.Write(SampleReport.Model(SampleReport.Create().Charts(), "<script>alert(1)</script>.csv"), Path.Combine(_folder, "out"), overwrite: false)[^1];
-        var dom = CheckInChromium(report, "browser-screenshot.png");
+        var dom = CheckInChromium(report, "browser-screenshot.png", images: 7);
 
         // The hostile file name arrived as text, not as a script element.
         Assert.Contains("&lt;script&gt;alert(1)&lt;/script&gt;.csv", dom, StringComparison.Ordinal);
@@ -52,9 +52,13 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
         // The report the README shows: reports/demo/report.html as committed, written by volcast demo.
         var report = Path.Combine(RepositoryRoot(), "reports", "demo", "report.html");
         Assert.True(File.Exists(report), $"{report} is missing; run volcast demo from the repository's root and commit reports/demo.");
-        var dom = CheckInChromium(report, "demo-screenshot.png");
+        var dom = CheckInChromium(report, "demo-screenshot.png", images: 8);
 
         Assert.Contains("candidate garch against baseline yang-zhang:21", dom, StringComparison.Ordinal);
+
+        // The demo runs the odds checks: the section has its heading, the reliability diagram and implied's verdict.
+        Assert.Contains("<h2>Do the odds hold?</h2>", dom, StringComparison.Ordinal);
+        Assert.Contains("Ranges from implied were too wide", dom, StringComparison.Ordinal);
     }
 
     private static string RepositoryRoot()
@@ -85,7 +89,7 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
     }
 
     /// <summary>Opens the report in headless Chromium, checks sections, images, remote loads and the screenshot, and returns the DOM.</summary>
-    private string CheckInChromium(string report, string screenshotName)
+    private string CheckInChromium(string report, string screenshotName, int images)
     {
         var url = new Uri(report).AbsoluteUri;
 
@@ -103,7 +107,7 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
         Assert.DoesNotMatch(RemotePattern(), dom);
 
         var sources = ImagePattern().Matches(dom).Select(m => m.Groups[1].Value).ToArray();
-        Assert.Equal(7, sources.Length);
+        Assert.Equal(images, sources.Length);
         foreach (var source in sources)
         {
             Assert.StartsWith("data:image/png;base64,", source, StringComparison.Ordinal);

@@ -1,0 +1,187 @@
+using System.Globalization;
+using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
+using VolCast.Reports.Charts;
+using VolCast.Reports.Model;
+
+namespace VolCast.Reports;
+
+/// <summary>
+/// Builds the "Do the odds hold?" section from a <see cref="BacktestCalibration"/>: the reliability curves pooled over
+/// strikes, the coverage table and the verdicts.
+/// </summary>
+/// <remarks>
+/// The reliability diagram pools every strike: the at-the-money probability N(d2) stays near 50% whatever the
+/// volatility, so its bins alone would show one point. Pooled bin k holds every strike's forecasts in that bin:
+/// n = Σ n_k, the mean predicted and observed frequency are n-weighted means, and the Wilson interval uses the summed
+/// n_eff = Σ n_k / h. Strikes of one date usually fall in different bins, so pooling adds little dependence inside a bin.
+/// </remarks>
+internal static class ReportOdds
+{
+    /// <summary>The interval's normal quantile (95%).</summary>
+    private const double IntervalZ = 1.959963984540054;
+
+    public static OddsSection Build(BacktestResult result, BacktestCalibration calibration)
+    {
+        var shown = Shown(result, calibration);
+        var curves = Curves(result, calibration);
+
+        var c = CultureInfo.InvariantCulture;
+        var moneyness = calibration.Report.Calibrations.SelectMany(f => f.Strikes.IsDefault ? [] : f.Strikes).Select(s => s.Moneyness).Distinct().Order().ToArray();
+        var pooling = moneyness.Length == 0
+            ? "no strikes"
+            : moneyness.Length == 1
+                ? string.Create(c, $"strike {moneyness[0]:0.00} × close")
+                : string.Create(c, $"pooled over strikes {moneyness[0]:0.00}–{moneyness[^1]:0.00} × close");
+        var chart = curves.Count == 0 ? null : ReportCharts.Reliability(curves, pooling);
+
+        var rows = new List<MetricRow>();
+        var needed = 0;
+        foreach (var cov in calibration.Report.Coverages)
+        {
+            var one = cov.Levels[0];
+            var two = cov.Levels[1];
+            needed = Math.Max(needed, one.SamplesNeeded);
+            rows.Add(new MetricRow(cov.Forecaster,
+            [
+                new MetricCell(one.NonOverlappingCount, "0"),
+                new MetricCell(one.ShareWithin, "0.0%"),
+                new MetricCell(one.Kupiec?.PValue, "0.000"),
+                new MetricCell(one.ConditionalCoverage?.PValue, "0.000"),
+                new MetricCell(two.ShareWithin, "0.0%"),
+                new MetricCell(two.Kupiec?.PValue, "0.000"),
+                new MetricCell(two.ConditionalCoverage?.PValue, "0.000"),
+                new MetricCell(cov.MaxAbsZ, "0.00"),
+                new MetricCell(cov.ShareAboveThree, "0.00%"),
+                new MetricCell(cov.MissingCount, "0"),
+            ]));
+        }
+
+        var horizon = calibration.Report.Coverages.Length > 0 ? calibration.Report.Coverages[0].HorizonDays : result.Settings.Horizon.NominalDays;
+        var table = new MetricTable(
+            "Coverage of expected-move ranges",
+            [
+                new MetricColumn("Non-overlapping dates", "count, for the tests"),
+                new MetricColumn("|z| ≤ 1", "share; 68.3% if calibrated"),
+                new MetricColumn("Kupiec p", "|z| ≤ 1"),
+                new MetricColumn("Christoffersen CC p", "|z| ≤ 1"),
+                new MetricColumn("|z| ≤ 2", "share; 95.4% if calibrated"),
+                new MetricColumn("Kupiec p", "|z| ≤ 2"),
+                new MetricColumn("Christoffersen CC p", "|z| ≤ 2"),
+                new MetricColumn("Largest |z|", "standard deviations"),
+                new MetricColumn("|z| > 3", "share; 0.27% if normal"),
+                new MetricColumn("Dates missing", "count, not scored"),
+            ],
+            rows,
+            string.Create(c,
+                $"z = ln(S(t+h)/S(t)) / (σ √(h/A)), the move over the horizon in units of the forecaster's own range. Shares use every date; the Kupiec (proportion of failures) and Christoffersen (conditional coverage: right share and no clustering) tests use only non-overlapping dates (each one horizon, {horizon} trading days, after the last), so that the windows do not overlap; low p-values reject calibrated ranges. A dash means fewer than {needed} non-overlapping dates had a value, too few for the tests. A forecaster missing on some dates keeps its row; the count is in the last column."));
+
+        var verdicts = shown.Select(i => Capitalize(calibration.Verdicts[i]) + ".").ToList();
+        var notes = new List<string>
+        {
+            string.Create(c, $"Probabilities are N(d2), the lognormal chance that the close {horizon} trading days later ends above each strike (0.90 to 1.10 times the close), from the forecaster's volatility with no rate or dividend (r = q = 0): a risk-neutral-style probability with drift −σ²/2 in the log price, not a forecast of the drift."),
+            "The reliability diagram pools the strikes (at the money alone, every probability is near 50% and the diagram would show one point); each forecaster's Brier score, its decomposition and the log score per strike are in calibration.csv and metrics.json.",
+            "Verdicts are shown for implied, the leading forecasters, the baseline and the candidate; every forecaster's verdict is in coverage.csv. Regimes are thirds of the realized volatility that followed, known only in hindsight.",
+        };
+        return new OddsSection(chart, table, verdicts, notes);
+    }
+
+    /// <summary>Indices into the calibration's forecasters to show: implied, the leading three, the baseline and the candidate, without repeats.</summary>
+    internal static IReadOnlyList<int> Shown(BacktestResult result, BacktestCalibration calibration)
+    {
+        var names = new List<string>();
+        if (result.HasImplied)
+        {
+            names.Add("implied");
+        }
+
+        names.AddRange(ReportSeries.Leading(result));
+        names.Add(result.Baseline);
+        names.Add(result.Candidate);
+        var indices = new List<int>();
+        foreach (var name in names)
+        {
+            for (var i = 0; i < calibration.Report.Coverages.Length; i++)
+            {
+                if (calibration.Report.Coverages[i].Forecaster == name && !indices.Contains(i))
+                {
+                    indices.Add(i);
+                }
+            }
+        }
+
+        return indices;
+    }
+
+    /// <summary>The forecasters drawn on the reliability diagram: implied and the two leading forecasters, or the three leading without implied.</summary>
+    internal static IReadOnlyList<ReliabilityCurve> Curves(BacktestResult result, BacktestCalibration calibration)
+    {
+        var names = new List<string>();
+        if (result.HasImplied)
+        {
+            names.Add("implied");
+        }
+
+        names.AddRange(ReportSeries.Leading(result).Take(3 - names.Count));
+        var curves = new List<ReliabilityCurve>();
+        foreach (var name in names)
+        {
+            var forecaster = calibration.Report.Calibrations.FirstOrDefault(f => f.Forecaster == name);
+            if (forecaster is not null && Pooled(forecaster) is { } curve)
+            {
+                curves.Add(curve);
+            }
+        }
+
+        return curves;
+    }
+
+    /// <summary>Pools a forecaster's bins over its strikes (see the remarks); null when it has no forecast.</summary>
+    internal static ReliabilityCurve? Pooled(ForecasterCalibration forecaster)
+    {
+        if (forecaster.Strikes.IsDefaultOrEmpty)
+        {
+            return null;
+        }
+
+        var bins = forecaster.Strikes[0].Bins.Length;
+        var predicted = new List<double>();
+        var observed = new List<double>();
+        var lower = new List<double>();
+        var upper = new List<double>();
+        var counts = new List<int>();
+        for (var k = 0; k < bins; k++)
+        {
+            var n = 0;
+            double effective = 0, sumPredicted = 0, sumObserved = 0;
+            foreach (var strike in forecaster.Strikes)
+            {
+                var bin = strike.Bins[k];
+                if (bin.Count > 0 && bin.MeanPredicted is { } p && bin.ObservedFrequency is { } o)
+                {
+                    n += bin.Count;
+                    effective += bin.EffectiveCount;
+                    sumPredicted += bin.Count * p;
+                    sumObserved += bin.Count * o;
+                }
+            }
+
+            if (n == 0)
+            {
+                continue;
+            }
+
+            var frequency = Math.Clamp(sumObserved / n, 0, 1);
+            var (lo, hi) = WilsonInterval.Compute(frequency, effective, IntervalZ);
+            predicted.Add(sumPredicted / n);
+            observed.Add(frequency);
+            lower.Add(lo);
+            upper.Add(hi);
+            counts.Add(n);
+        }
+
+        return counts.Count == 0 ? null : new ReliabilityCurve(forecaster.Forecaster, predicted, observed, lower, upper, counts);
+    }
+
+    private static string Capitalize(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];
+}
