@@ -38,7 +38,7 @@ public static class ReportFiles
         foreach (var chart in charts)
         {
             var path = Path.Combine(folder, chart.FileName);
-            AtomicBytes.Write(path, chart.Png.Span, overwrite);
+            AtomicFile.WriteBytes(path, chart.Png, overwrite);
             written.Add(path);
         }
 
