@@ -46,48 +46,14 @@ internal static class BacktestCommand
 
     private static int Run(CliConsole console, Arguments a)
     {
-        if (a.Horizon is not null && a.Tenor is not null)
-        {
-            throw new UsageException("give either --horizon (trading days) or --tenor (calendar days such as 30d), not both.");
-        }
-
-        if (a.Horizon is int h && h < 1)
-        {
-            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--horizon must be at least 1 trading day (was {h})."));
-        }
-
-        var settings = a.Config is null ? new BacktestSettings() : BacktestConfigFile.Read(a.Config);
-        if (a.Horizon is int days)
-        {
-            settings = settings with { Horizon = BacktestHorizon.Days(days) };
-        }
-
-        if (a.Tenor is string tenorText)
-        {
-            settings = settings with { Horizon = BacktestConfigFile.ParseTenor(tenorText) ?? throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d (was '{tenorText}').") };
-        }
-
-        settings = settings with
-        {
-            Start = a.Start is null ? settings.Start : Date(a.Start, "--start"),
-            End = a.End is null ? settings.End : Date(a.End, "--end"),
-        };
-        try
-        {
-            settings.Validate();
-        }
-        catch (ArgumentException ex)
-        {
-            throw new UsageException(ex.Message);
-        }
-
+        var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor, a.Start, a.End);
         var outFolder = a.Out ?? Path.Combine("reports", "backtest-" + Path.GetFileNameWithoutExtension(a.Prices));
         if (Directory.Exists(outFolder) && !a.Force)
         {
             throw new UsageException($"{outFolder}: the output folder already exists; choose another --out or pass --force to replace its results files.");
         }
 
-        var unit = a.IvUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };
+        var unit = BacktestOptions.Unit(a.IvUnit);
         var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestResult result;
@@ -123,11 +89,6 @@ internal static class BacktestCommand
         console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt)");
         return ExitCodes.Success;
     }
-
-    private static DateOnly Date(string text, string option) =>
-        DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)
-            ? d
-            : throw new UsageException($"{option} must be a date written yyyy-MM-dd (was '{text}').");
 
     private static string Show(double? value) => value is double v && double.IsFinite(v) ? v.ToString("F4", CultureInfo.InvariantCulture) : "n/a";
 

@@ -43,42 +43,13 @@ internal static class ScanCommand
     /// <summary>Turns the command-line values into a scan request, checking them.</summary>
     private static ScanRequest Request(Arguments a)
     {
-        if (a.Horizon is not null && a.Tenor is not null)
-        {
-            throw new UsageException("give either --horizon (trading days) or --tenor (calendar days such as 30d), not both.");
-        }
-
-        if (a.Horizon is int h && h < 1)
-        {
-            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--horizon must be at least 1 trading day (was {h})."));
-        }
-
         if (a.Jobs is int j && j < 1)
         {
             throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--jobs must be at least 1 (was {j})."));
         }
 
-        var settings = a.Config is null ? new BacktestSettings() : BacktestConfigFile.Read(a.Config);
-        if (a.Horizon is int days)
-        {
-            settings = settings with { Horizon = BacktestHorizon.Days(days) };
-        }
-
-        if (a.Tenor is string tenorText)
-        {
-            settings = settings with { Horizon = BacktestConfigFile.ParseTenor(tenorText) ?? throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d (was '{tenorText}').") };
-        }
-
-        try
-        {
-            settings.Validate();
-        }
-        catch (ArgumentException ex)
-        {
-            throw new UsageException(ex.Message);
-        }
-
-        var unit = a.IvUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };
+        var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor);
+        var unit = BacktestOptions.Unit(a.IvUnit);
         return new ScanRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, a.Out ?? Path.Combine("reports", "scan"), a.Jobs ?? Environment.ProcessorCount, a.Force);
     }
 

@@ -1,0 +1,68 @@
+using System.Globalization;
+using VolCast.Core.Backtest;
+using VolCast.IO;
+using VolCast.IO.Config;
+
+namespace VolCast.Cli;
+
+/// <summary>Turns the options that <c>backtest</c> and <c>scan</c> share into resolved, checked settings.</summary>
+internal static class BacktestOptions
+{
+    /// <summary>Reads the configuration (if any), applies the command-line overrides and checks the result.</summary>
+    /// <param name="config">The JSON configuration file, or null for the defaults.</param>
+    /// <param name="horizon">--horizon in trading days, or null.</param>
+    /// <param name="tenor">--tenor such as 30d, or null.</param>
+    /// <param name="start">--start as written, or null.</param>
+    /// <param name="end">--end as written, or null.</param>
+    /// <returns>The settings.</returns>
+    /// <exception cref="UsageException">The options conflict or a value is out of range.</exception>
+    /// <exception cref="InputDataException">The configuration file cannot be used.</exception>
+    public static BacktestSettings Resolve(string? config, int? horizon, string? tenor, string? start = null, string? end = null)
+    {
+        if (horizon is not null && tenor is not null)
+        {
+            throw new UsageException("give either --horizon (trading days) or --tenor (calendar days such as 30d), not both.");
+        }
+
+        if (horizon is int h && h < 1)
+        {
+            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--horizon must be at least 1 trading day (was {h})."));
+        }
+
+        var settings = config is null ? new BacktestSettings() : BacktestConfigFile.Read(config);
+        if (horizon is int days)
+        {
+            settings = settings with { Horizon = BacktestHorizon.Days(days) };
+        }
+
+        if (tenor is string tenorText)
+        {
+            settings = settings with { Horizon = BacktestConfigFile.ParseTenor(tenorText) ?? throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d (was '{tenorText}').") };
+        }
+
+        settings = settings with
+        {
+            Start = start is null ? settings.Start : Date(start, "--start"),
+            End = end is null ? settings.End : Date(end, "--end"),
+        };
+        try
+        {
+            settings.Validate();
+        }
+        catch (ArgumentException ex)
+        {
+            throw new UsageException(ex.Message);
+        }
+
+        return settings;
+    }
+
+    /// <summary>Maps --iv-unit to the reader's unit (inferred when not given).</summary>
+    public static ImpliedUnit Unit(string? ivUnit) =>
+        ivUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };
+
+    private static DateOnly Date(string text, string option) =>
+        DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)
+            ? d
+            : throw new UsageException($"{option} must be a date written yyyy-MM-dd (was '{text}').");
+}
