@@ -19,6 +19,23 @@ public static class AtomicFile
     public static void WriteText(string path, Action<TextWriter> write, bool overwrite = false, IEnumerable<string>? protectedInputs = null)
     {
         ArgumentNullException.ThrowIfNull(write);
+        Write(path, stream =>
+        {
+            using var writer = new StreamWriter(stream, Utf8NoBom) { NewLine = "\n" };
+            write(writer);
+        }, overwrite, protectedInputs);
+    }
+
+    /// <summary>Writes bytes to <paramref name="path"/> through a temporary file.</summary>
+    /// <param name="path">The file to create or replace.</param>
+    /// <param name="bytes">The content.</param>
+    /// <param name="overwrite">Whether an existing file may be replaced.</param>
+    /// <exception cref="IOException">The target exists and <paramref name="overwrite"/> is false.</exception>
+    public static void WriteBytes(string path, ReadOnlyMemory<byte> bytes, bool overwrite = false) =>
+        Write(path, stream => stream.Write(bytes.Span), overwrite, null);
+
+    private static void Write(string path, Action<Stream> write, bool overwrite, IEnumerable<string>? protectedInputs)
+    {
         var full = Path.GetFullPath(path);
         if (protectedInputs is not null)
         {
@@ -42,9 +59,8 @@ public static class AtomicFile
         try
         {
             using (var stream = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None))
-            using (var writer = new StreamWriter(stream, Utf8NoBom) { NewLine = "\n" })
             {
-                write(writer);
+                write(stream);
             }
 
             File.Move(temp, full, overwrite);

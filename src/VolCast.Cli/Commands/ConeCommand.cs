@@ -111,7 +111,7 @@ internal static class ConeCommand
 
             var chart = ReportCharts.Cone(cone, overlays);
             AtomicFile.WriteText(csvPath, w => ConeCsv.Write(w, cone), overwrite, inputs);
-            AtomicBytes.Write(pngPath, chart.Png.Span, overwrite);
+            AtomicFile.WriteBytes(pngPath, chart.Png, overwrite);
             console.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
                 $"wrote the volatility cone ({cone.Horizons.Count} horizons from {returns.Length} daily returns) to {csvPath} and {pngPath}"));
             return ExitCodes.Success;
