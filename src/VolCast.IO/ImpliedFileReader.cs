@@ -145,6 +145,13 @@ public static class ImpliedFileReader
                 $"the implied-volatility unit was not declared; read as {(unit == ImpliedUnit.Percent ? "percent" : "decimal")} because the median value {ValueText.Number(median)} is {(unit == ImpliedUnit.Percent ? "above" : "not above")} {PercentThreshold}. Declare it with --iv-unit percent|decimal.")));
         }
 
+        else if (unit == ImpliedUnit.Percent && Median(raw) is var declaredMedian && declaredMedian <= 1)
+        {
+            // Declared percent, but a median of 1% or less is far below any traded volatility: most likely decimals.
+            warnings.Add(new InputWarning(file, null, string.Create(CultureInfo.InvariantCulture,
+                $"the file was declared percent, but its median value {ValueText.Number(declaredMedian)} would mean {ValueText.Number(declaredMedian)}% a year; if the values are decimals (0.20 = 20%), use --iv-unit decimal.")));
+        }
+
         var scale = unit == ImpliedUnit.Percent ? 0.01 : 1.0;
         var lineArray = lines.ToArray();
         var decimals = new double[raw.Length];

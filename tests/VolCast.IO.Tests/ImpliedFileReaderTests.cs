@@ -27,6 +27,18 @@ public sealed class ImpliedFileReaderTests : IDisposable
     }
 
     [Fact]
+    public void Read_DeclaredPercentButValuesLookDecimal_WarnsAndSaysHowToFix()
+    {
+        // 0.18 read as percent is 0.18% a year, far below any traded volatility: common practice, no source.
+        var load = ImpliedFileReader.Read(_temp.Write("iv.csv", "date,iv\n2024-01-02,0.18\n2024-01-03,0.19\n"), ImpliedUnit.Percent);
+
+        Assert.Equal(0.0018, load.Series.Volatility[0], 1e-15);
+        var warning = Assert.Single(load.Warnings);
+        Assert.Contains("declared percent", warning.Message, StringComparison.Ordinal);
+        Assert.Contains("--iv-unit decimal", warning.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Read_DeclaredDecimal_KeepsValues()
     {
         var load = ReadText("date,iv\n2024-01-02,0.2\n2024-01-03,0.215\n", ImpliedUnit.Decimal);
