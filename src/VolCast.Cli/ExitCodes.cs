@@ -14,4 +14,7 @@ internal static class ExitCodes
 
     /// <summary>An input file held data that could not be used.</summary>
     public const int BadInput = 3;
+
+    /// <summary>The user pressed Ctrl-C: the run stopped and wrote no half-finished output (128 + SIGINT, as shells do).</summary>
+    public const int Interrupted = 130;
 }

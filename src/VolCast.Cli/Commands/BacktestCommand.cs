@@ -9,9 +9,6 @@ namespace VolCast.Cli.Commands;
 /// <summary><c>volcast backtest</c>: the main job — forecasters walk forward, scored against the realized volatility that followed and against implied.</summary>
 internal static class BacktestCommand
 {
-    /// <summary>The exit code of a run stopped by Ctrl-C: 128 + SIGINT (2), as shells report a process ended by Ctrl-C.</summary>
-    public const int InterruptedExitCode = 130;
-
     /// <summary>Builds the command.</summary>
     public static Command Create(CliConsole console)
     {
@@ -73,7 +70,7 @@ internal static class BacktestCommand
         catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
         {
             console.Error.WriteLine($"interrupted: the backtest was stopped before it finished; no results were written to {outFolder}.");
-            return InterruptedExitCode;
+            return ExitCodes.Interrupted;
         }
         finally
         {

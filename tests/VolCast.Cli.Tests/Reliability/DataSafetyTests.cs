@@ -22,7 +22,7 @@ public sealed class DataSafetyTests : IDisposable
 
         var (code, _, stderr) = RunBacktest(interrupt.Token, "--prices", prices, "--out", output);
 
-        Assert.Equal(BacktestCommand.InterruptedExitCode, code);
+        Assert.Equal(ExitCodes.Interrupted, code);
         Assert.Equal(130, code); // 128 + SIGINT, as shells report Ctrl-C (common practice, no source)
         Assert.Contains("interrupted", stderr, StringComparison.Ordinal);
         Assert.Contains("no results were written", stderr, StringComparison.Ordinal);
