@@ -41,7 +41,7 @@ public sealed class ReaderFuzzTests
         Prop.ForAll(Mutations(), Gen.Elements(ValidOhlc, ValidClose).ToArbitrary(), (seeds, valid) =>
         {
             var text = Mutate(valid, seeds);
-            return Outcome(() => CheckPrices(PriceFileReader.Read(new StringReader(text), "fuzz.csv")));
+            return FuzzOutcome.SucceedsOrRefusesCleanly(() => CheckPrices(PriceFileReader.Read(new StringReader(text), "fuzz.csv")));
         });
 
     [Property(MaxTest = 1000)]
@@ -49,7 +49,7 @@ public sealed class ReaderFuzzTests
         Prop.ForAll(Mutations(), seeds =>
         {
             var bytes = MutateBytes(Encoding.UTF8.GetBytes(ValidOhlc), seeds);
-            return Outcome(() => CheckPrices(PriceFileReader.ReadBytes(bytes, "fuzz.csv")));
+            return FuzzOutcome.SucceedsOrRefusesCleanly(() => CheckPrices(PriceFileReader.ReadBytes(bytes, "fuzz.csv")));
         });
 
     [Property(MaxTest = 1500)]
@@ -57,7 +57,7 @@ public sealed class ReaderFuzzTests
         Prop.ForAll(Mutations(), Gen.Elements(ImpliedUnit.Infer, ImpliedUnit.Percent, ImpliedUnit.Decimal).ToArbitrary(), (seeds, unit) =>
         {
             var text = Mutate(ValidImplied, seeds);
-            return Outcome(() =>
+            return FuzzOutcome.SucceedsOrRefusesCleanly(() =>
             {
                 var load = ImpliedFileReader.Read(new StringReader(text), "fuzz.csv", unit);
                 var v = load.Series.Volatility;
@@ -77,22 +77,6 @@ public sealed class ReaderFuzzTests
         Assert.Equal(6, PriceFileReader.Read(new StringReader(Mutate(ValidOhlc, [])), "v.csv").RowsRead);
         Assert.Equal(4, PriceFileReader.Read(new StringReader(ValidClose), "v.csv").RowsRead);
         Assert.Equal(3, ImpliedFileReader.Read(new StringReader(ValidImplied), "v.csv").Series.Count);
-    }
-
-    private static bool Outcome(Action read)
-    {
-        try
-        {
-            read();
-            return true;
-        }
-        catch (InputDataException e)
-        {
-            Assert.False(string.IsNullOrWhiteSpace(e.Problem));
-            Assert.Equal("fuzz.csv", e.File);
-            Assert.True(e.Line is null or >= 1, $"line {e.Line}");
-            return true;
-        }
     }
 
     private static void CheckPrices(PriceLoad load)
