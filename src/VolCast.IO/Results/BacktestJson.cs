@@ -358,10 +358,10 @@ internal static class BacktestJson
         json.WriteNumber("seed", s.McsSeed);
         json.WriteEndObject();
         json.WriteNumber("ruleThreshold", s.RuleThreshold);
-        WriteString(json, "ruleForecaster", s.RuleForecaster);
-        WriteString(json, "ruleHistorical", s.RuleHistorical);
-        WriteString(json, "baseline", s.Baseline);
-        WriteString(json, "candidate", s.Candidate);
+        Numbers.Write(json, "ruleForecaster", s.RuleForecaster);
+        Numbers.Write(json, "ruleHistorical", s.RuleHistorical);
+        Numbers.Write(json, "baseline", s.Baseline);
+        Numbers.Write(json, "candidate", s.Candidate);
         json.WriteNumber("annualizationFactor", s.AnnualizationFactor);
         json.WriteString("target", Config.BacktestConfigFile.TargetNames[(int)s.Target]);
         json.WriteEndObject();
@@ -380,18 +380,6 @@ internal static class BacktestJson
         json.WriteEndArray();
     }
 
-    private static void WriteString(Utf8JsonWriter json, string name, string? value)
-    {
-        if (value is null)
-        {
-            json.WriteNull(name);
-        }
-        else
-        {
-            json.WriteString(name, value);
-        }
-    }
-
     private static void WriteDate(Utf8JsonWriter json, string name, DateOnly? date) =>
-        WriteString(json, name, date?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+        Numbers.Write(json, name, date?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
 }

@@ -59,8 +59,8 @@ public static class GarchFitJson
 
         json.WriteNumber("log_likelihood", fit.LogLikelihood);
         json.WriteNumber("persistence", fit.Persistence);
-        WriteNullable(json, "half_life_days", fit.HalfLifeDays);
-        WriteNullable(json, "long_run_vol", fit.LongRunVolatility);
+        Numbers.Write(json, "half_life_days", fit.HalfLifeDays);
+        Numbers.Write(json, "long_run_vol", fit.LongRunVolatility);
         json.WriteNumber("n", fit.ObservationCount);
         json.WriteBoolean("converged", fit.Converged);
         json.WriteNumber("iterations", fit.Iterations);
@@ -88,7 +88,7 @@ public static class GarchFitJson
         json.WriteStartObject(name);
         if (includeMean)
         {
-            WriteNullable(json, "mu", errors.Mu);
+            Numbers.Write(json, "mu", errors.Mu);
         }
 
         json.WriteNumber("omega", errors.Omega);
@@ -96,21 +96,9 @@ public static class GarchFitJson
         json.WriteNumber("beta", errors.Beta);
         if (gjr)
         {
-            WriteNullable(json, "gamma", errors.Gamma);
+            Numbers.Write(json, "gamma", errors.Gamma);
         }
 
         json.WriteEndObject();
-    }
-
-    private static void WriteNullable(Utf8JsonWriter json, string name, double? value)
-    {
-        if (value is double v && double.IsFinite(v))
-        {
-            json.WriteNumber(name, v);
-        }
-        else
-        {
-            json.WriteNull(name);
-        }
     }
 }

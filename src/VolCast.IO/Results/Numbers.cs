@@ -3,7 +3,7 @@ using System.Text.Json;
 
 namespace VolCast.IO.Results;
 
-/// <summary>Number formatting shared by the results writers: invariant culture, round-trip doubles, empty (CSV) or null (JSON) where undefined.</summary>
+/// <summary>Value formatting shared by the results writers: invariant culture, round-trip doubles, empty (CSV) or null (JSON) where undefined.</summary>
 internal static class Numbers
 {
     public static string Csv(double? value) =>
@@ -46,6 +46,18 @@ internal static class Numbers
         else
         {
             json.WriteNull(name);
+        }
+    }
+
+    public static void Write(Utf8JsonWriter json, string name, string? value)
+    {
+        if (value is null)
+        {
+            json.WriteNull(name);
+        }
+        else
+        {
+            json.WriteString(name, value);
         }
     }
 

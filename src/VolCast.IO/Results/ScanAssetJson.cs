@@ -119,7 +119,7 @@ public static class ScanAssetJson
             json.WriteBoolean("succeeded", r.Succeeded);
             json.WriteBoolean("has_implied", r.HasImplied);
             Numbers.Write(json, "n", r.Dates);
-            WriteString(json, "best_qlike", r.BestQlike);
+            Numbers.Write(json, "best_qlike", r.BestQlike);
             Numbers.Write(json, "best_qlike_value", r.BestQlikeValue);
             Numbers.Write(json, "best_dm_qlike_stat", r.BestDmStatistic);
             Numbers.Write(json, "best_dm_qlike_p", r.BestDmPValue);
@@ -154,24 +154,12 @@ public static class ScanAssetJson
             }
 
             json.WriteEndArray();
-            WriteString(json, "error", r.Error);
+            Numbers.Write(json, "error", r.Error);
             json.WriteEndObject();
             json.WriteEndObject();
         }
 
         return Encoding.UTF8.GetString(stream.ToArray()).Replace("\r\n", "\n", StringComparison.Ordinal) + "\n";
-    }
-
-    private static void WriteString(Utf8JsonWriter json, string name, string? value)
-    {
-        if (value is null)
-        {
-            json.WriteNull(name);
-        }
-        else
-        {
-            json.WriteString(name, value);
-        }
     }
 
     private static string? Str(JsonElement e, string name) => e.GetProperty(name).ValueKind == JsonValueKind.Null ? null : e.GetProperty(name).GetString();
