@@ -19,11 +19,15 @@ public class BacktestBenchmarks
     public int Days { get; set; }
 
     [GlobalSetup]
-    public void Setup()
+    public void Setup() => (_prices, _implied) = DefaultBacktestData(Days);
+
+    [Benchmark]
+    public BacktestResult DefaultBacktest() => Backtester.Run(_prices, _implied, new BacktestSettings());
+
+    /// <summary>The seeded GARCH(1,1) OHLC path with an implied series near the conditional vol (invented data), shared with CalibrationBenchmarks.</summary>
+    internal static (PriceHistory Prices, ImpliedSeries Implied) DefaultBacktestData(int n)
     {
-        // Seeded GARCH(1,1) OHLC path with an implied series near the conditional vol (invented data).
         var random = new Random(42);
-        var n = Days;
         var dates = new DateOnly[n];
         var open = new double[n];
         var high = new double[n];
@@ -37,8 +41,7 @@ public class BacktestBenchmarks
         {
             dates[i] = d;
             d = d.AddDays(d.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
-            var z = Normal(random);
-            var e = Math.Sqrt(h) * z;
+            var e = Math.Sqrt(h) * Normal(random);
             open[i] = previous * Math.Exp(0.2 * Math.Sqrt(h) * Normal(random));
             close[i] = previous * Math.Exp(e);
             high[i] = Math.Max(open[i], close[i]) * Math.Exp(0.5 * Math.Sqrt(h) * Math.Abs(Normal(random)));
@@ -48,12 +51,8 @@ public class BacktestBenchmarks
             h = 2e-6 + (0.08 * e * e) + (0.9 * h);
         }
 
-        _prices = PriceHistory.FromBars(dates, open, high, low, close);
-        _implied = new ImpliedSeries(dates, iv);
+        return (PriceHistory.FromBars(dates, open, high, low, close), new ImpliedSeries(dates, iv));
     }
-
-    [Benchmark]
-    public BacktestResult DefaultBacktest() => Backtester.Run(_prices, _implied, new BacktestSettings());
 
     private static double Normal(Random random) =>
         Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());

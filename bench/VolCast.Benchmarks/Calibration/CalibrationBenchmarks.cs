@@ -46,7 +46,7 @@ public class CalibrationBenchmarks
         }
 
         _outcomes = new HorizonOutcomes(Horizon, closes[..Dates], closes[Horizon..(Dates + Horizon)]);
-        (_prices, var implied) = DefaultBacktestData(Dates);
+        (_prices, var implied) = Backtest.BacktestBenchmarks.DefaultBacktestData(Dates);
         _backtest = Backtester.Run(_prices, implied, new BacktestSettings());
         _forecasters = new ForecasterVolatility[Models];
         for (var i = 0; i < Models; i++)
@@ -112,36 +112,6 @@ public class CalibrationBenchmarks
 
     [Benchmark]
     public BacktestCalibration OnDefaultBacktest() => BacktestCalibrator.Evaluate(_backtest, _prices);
-
-    /// <summary>The seeded GARCH(1,1) OHLC path and implied series of BacktestBenchmarks (invented data).</summary>
-    private static (PriceHistory Prices, ImpliedSeries Implied) DefaultBacktestData(int n)
-    {
-        var random = new Random(42);
-        var dates = new DateOnly[n];
-        var open = new double[n];
-        var high = new double[n];
-        var low = new double[n];
-        var close = new double[n];
-        var iv = new double[n];
-        var d = new DateOnly(2000, 1, 3);
-        var h = 1e-4;
-        var previous = 100.0;
-        for (var i = 0; i < n; i++)
-        {
-            dates[i] = d;
-            d = d.AddDays(d.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
-            var e = Math.Sqrt(h) * Normal(random);
-            open[i] = previous * Math.Exp(0.2 * Math.Sqrt(h) * Normal(random));
-            close[i] = previous * Math.Exp(e);
-            high[i] = Math.Max(open[i], close[i]) * Math.Exp(0.5 * Math.Sqrt(h) * Math.Abs(Normal(random)));
-            low[i] = Math.Min(open[i], close[i]) * Math.Exp(-0.5 * Math.Sqrt(h) * Math.Abs(Normal(random)));
-            iv[i] = Math.Sqrt(252 * h) * 1.1;
-            previous = close[i];
-            h = 2e-6 + (0.08 * e * e) + (0.9 * h);
-        }
-
-        return (PriceHistory.FromBars(dates, open, high, low, close), new ImpliedSeries(dates, iv));
-    }
 
     private static double Normal(Random random)
     {
