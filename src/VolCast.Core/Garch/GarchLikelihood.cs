@@ -66,17 +66,7 @@ internal sealed class GarchLikelihood
         var y = _y.AsSpan(0, _length);
         double mu = q[Mu], omega = q[Omega], alpha = q[Alpha], gamma = q[Gamma], beta = q[Beta];
         var persistence = alpha + beta + (0.5 * gamma);
-
-        double sumSq = 0, sum = 0;
-        for (var i = 0; i < y.Length; i++)
-        {
-            var e = y[i] - mu;
-            sumSq += e * e;
-            sum += e;
-        }
-
-        var m = sumSq / y.Length;
-        var dmDmu = -2 * sum / y.Length;
+        var (m, dmDmu) = ResidualMeanSquare(y, mu);
         double h, dMu, dOmega, dAlpha, dGamma, dBeta;
         if (_start == VarianceStart.Backcast)
         {
@@ -200,16 +190,7 @@ internal sealed class GarchLikelihood
         var y = _y.AsSpan(0, _length);
         double mu = q[Mu], omega = q[Omega], alpha = q[Alpha], gamma = q[Gamma], beta = q[Beta];
         var persistence = alpha + beta + (0.5 * gamma);
-        double sumSq = 0, sum = 0;
-        for (var i = 0; i < y.Length; i++)
-        {
-            var e = y[i] - mu;
-            sumSq += e * e;
-            sum += e;
-        }
-
-        var m = sumSq / y.Length;
-        var dmDmu = -2 * sum / y.Length;
+        var (m, dmDmu) = ResidualMeanSquare(y, mu);
         var backcast = _start == VarianceStart.Backcast;
         var fixedStart = _start == VarianceStart.Fixed;
         var h = backcast ? omega + (persistence * m) : fixedStart ? _fixedStart : m;
@@ -244,5 +225,19 @@ internal sealed class GarchLikelihood
             d[Beta] = h + (beta * d[Beta]);
             h = omega + (arch * e2) + (beta * h);
         }
+    }
+
+    // The mean square of the residuals y − mu over the window (the variance start's base) and its derivative in mu.
+    private static (double MeanSquare, double DerivativeInMu) ResidualMeanSquare(ReadOnlySpan<double> y, double mu)
+    {
+        double sumSq = 0, sum = 0;
+        for (var i = 0; i < y.Length; i++)
+        {
+            var e = y[i] - mu;
+            sumSq += e * e;
+            sum += e;
+        }
+
+        return (sumSq / y.Length, -2 * sum / y.Length);
     }
 }
