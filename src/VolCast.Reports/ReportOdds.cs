@@ -11,23 +11,18 @@ namespace VolCast.Reports;
 /// strikes, the coverage table and the verdicts.
 /// </summary>
 /// <remarks>
-/// The reliability diagram pools every strike: the at-the-money probability N(d2) stays near 50% whatever the
-/// volatility, so its bins alone would show one point. Pooled bin k holds every strike's forecasts in that bin:
-/// n = Σ n_k, the mean predicted and observed frequency are n-weighted means, and the Wilson interval uses the summed
-/// n_eff = Σ n_k / h. Strikes of one date usually fall in different bins, so pooling adds little dependence inside a bin.
+/// The reliability diagram draws each forecaster's curve pooled over strikes, computed in Core
+/// (<see cref="ReliabilityPooling"/>) and written to metrics.json, so every point of the chart is in a data file.
 /// </remarks>
 internal static class ReportOdds
 {
-    /// <summary>The interval's normal quantile (95%).</summary>
-    private const double IntervalZ = 1.959963984540054;
-
     public static OddsSection Build(BacktestResult result, BacktestCalibration calibration)
     {
         var shown = Shown(result, calibration);
         var curves = Curves(result, calibration);
 
         var c = CultureInfo.InvariantCulture;
-        var moneyness = calibration.Report.Calibrations.SelectMany(f => f.Strikes.IsDefault ? [] : f.Strikes).Select(s => s.Moneyness).Distinct().Order().ToArray();
+        var moneyness = calibration.Forecasters.SelectMany(f => f.Calibration.Strikes.IsDefault ? [] : f.Calibration.Strikes).Select(s => s.Moneyness).Distinct().Order().ToArray();
         var pooling = moneyness.Length == 0
             ? "no strikes"
             : moneyness.Length == 1
@@ -37,8 +32,9 @@ internal static class ReportOdds
 
         var rows = new List<MetricRow>();
         var needed = 0;
-        foreach (var cov in calibration.Report.Coverages)
+        foreach (var odds in calibration.Forecasters)
         {
+            var cov = odds.Coverage;
             var one = cov.Levels[0];
             var two = cov.Levels[1];
             needed = Math.Max(needed, one.SamplesNeeded);
@@ -57,7 +53,7 @@ internal static class ReportOdds
             ]));
         }
 
-        var horizon = calibration.Report.Coverages.Length > 0 ? calibration.Report.Coverages[0].HorizonDays : result.Settings.Horizon.NominalDays;
+        var horizon = calibration.Forecasters.Length > 0 ? calibration.Forecasters[0].Coverage.HorizonDays : result.Settings.Horizon.NominalDays;
         var table = new MetricTable(
             "Coverage of expected-move ranges",
             [
@@ -76,7 +72,7 @@ internal static class ReportOdds
             string.Create(c,
                 $"z = ln(S(t+h)/S(t)) / (σ √(h/A)), the move over the horizon in units of the forecaster's own range. Shares use every date; the Kupiec (proportion of failures) and Christoffersen (conditional coverage: right share and no clustering) tests use only non-overlapping dates (each one horizon, {horizon} trading days, after the last), so that the windows do not overlap; low p-values reject calibrated ranges. A dash means fewer than {needed} non-overlapping dates had a value, too few for the tests. A forecaster missing on some dates keeps its row; the count is in the last column."));
 
-        var verdicts = shown.Select(i => Capitalize(calibration.Verdicts[i]) + ".").ToList();
+        var verdicts = shown.Select(i => Capitalize(calibration.Forecasters[i].Verdict) + ".").ToList();
         var notes = new List<string>
         {
             string.Create(c, $"Probabilities are N(d2), the lognormal chance that the close {horizon} trading days later ends above each strike (0.90 to 1.10 times the close), from the forecaster's volatility with no rate or dividend (r = q = 0): a risk-neutral-style probability with drift −σ²/2 in the log price, not a forecast of the drift."),
@@ -101,9 +97,9 @@ internal static class ReportOdds
         var indices = new List<int>();
         foreach (var name in names)
         {
-            for (var i = 0; i < calibration.Report.Coverages.Length; i++)
+            for (var i = 0; i < calibration.Forecasters.Length; i++)
             {
-                if (calibration.Report.Coverages[i].Forecaster == name && !indices.Contains(i))
+                if (calibration.Forecasters[i].Forecaster == name && !indices.Contains(i))
                 {
                     indices.Add(i);
                 }
@@ -126,7 +122,7 @@ internal static class ReportOdds
         var curves = new List<ReliabilityCurve>();
         foreach (var name in names)
         {
-            var forecaster = calibration.Report.Calibrations.FirstOrDefault(f => f.Forecaster == name);
+            var forecaster = calibration.Forecasters.FirstOrDefault(f => f.Forecaster == name);
             if (forecaster is not null && Pooled(forecaster) is { } curve)
             {
                 curves.Add(curve);
@@ -136,51 +132,22 @@ internal static class ReportOdds
         return curves;
     }
 
-    /// <summary>Pools a forecaster's bins over its strikes (see the remarks); null when it has no forecast.</summary>
-    internal static ReliabilityCurve? Pooled(ForecasterCalibration forecaster)
+    /// <summary>The forecaster's reliability curve pooled over strikes, as computed in Core; null when it has no forecast.</summary>
+    internal static ReliabilityCurve? Pooled(ForecasterOdds forecaster)
     {
-        if (forecaster.Strikes.IsDefaultOrEmpty)
+        var bins = forecaster.PooledReliability;
+        if (bins.IsDefaultOrEmpty)
         {
             return null;
         }
 
-        var bins = forecaster.Strikes[0].Bins.Length;
-        var predicted = new List<double>();
-        var observed = new List<double>();
-        var lower = new List<double>();
-        var upper = new List<double>();
-        var counts = new List<int>();
-        for (var k = 0; k < bins; k++)
-        {
-            var n = 0;
-            double effective = 0, sumPredicted = 0, sumObserved = 0;
-            foreach (var strike in forecaster.Strikes)
-            {
-                var bin = strike.Bins[k];
-                if (bin.Count > 0 && bin.MeanPredicted is { } p && bin.ObservedFrequency is { } o)
-                {
-                    n += bin.Count;
-                    effective += bin.EffectiveCount;
-                    sumPredicted += bin.Count * p;
-                    sumObserved += bin.Count * o;
-                }
-            }
-
-            if (n == 0)
-            {
-                continue;
-            }
-
-            var frequency = Math.Clamp(sumObserved / n, 0, 1);
-            var (lo, hi) = WilsonInterval.Compute(frequency, effective, IntervalZ);
-            predicted.Add(sumPredicted / n);
-            observed.Add(frequency);
-            lower.Add(lo);
-            upper.Add(hi);
-            counts.Add(n);
-        }
-
-        return counts.Count == 0 ? null : new ReliabilityCurve(forecaster.Forecaster, predicted, observed, lower, upper, counts);
+        return new ReliabilityCurve(
+            forecaster.Forecaster,
+            [.. bins.Select(b => b.MeanPredicted)],
+            [.. bins.Select(b => b.ObservedFrequency)],
+            [.. bins.Select(b => b.IntervalLower)],
+            [.. bins.Select(b => b.IntervalUpper)],
+            [.. bins.Select(b => b.Count)]);
     }
 
     private static string Capitalize(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];

@@ -4,6 +4,8 @@ using VolCast.Core.Calibration;
 using VolCast.Core.Cone;
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
+using VolCast.IO;
+using VolCast.IO.Csv;
 using VolCast.IO.Results;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Html;
@@ -26,8 +28,11 @@ public static class ReportWriter
     public static IReadOnlyList<string> FileNames { get; } =
     [
         ReportFiles.ReportFileName, "forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png",
-        "mincer-zarnowitz.png", "cone.png", "rule-test.png", ReportCharts.ReliabilityFileName,
+        "mincer-zarnowitz.png", "cone.png", ConeFileName, "rule-test.png", ReportCharts.ReliabilityFileName,
     ];
+
+    /// <summary>The cone's data file: the percentiles the cone chart draws, in the columns of <see cref="ConeCsv"/>.</summary>
+    public const string ConeFileName = "cone.csv";
 
     /// <summary>Builds the report of one backtest.</summary>
     /// <param name="result">The backtest result.</param>
@@ -39,24 +44,11 @@ public static class ReportWriter
     public static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null)
     {
         ArgumentNullException.ThrowIfNull(result);
-        ArgumentNullException.ThrowIfNull(run);
         ArgumentNullException.ThrowIfNull(prices);
-        var pricesFile = run.Inputs.FirstOrDefault(i => i.Role == "prices")?.Path ?? "prices";
-        var title = string.Create(CultureInfo.InvariantCulture,
-            $"Volatility forecast backtest: {Path.GetFileNameWithoutExtension(pricesFile)}, {HorizonText(result.Settings.Horizon)}");
-        return new ReportModel(
-            title,
-            ReportVerdict.Build(result),
-            ReportTables.Build(result),
-            Charts(result, prices),
-            Quality(result, run, prices, priceRowsRead),
-            new RunInfo(run.ToolVersion, run.StartedUtc, run.FinishedUtc - run.StartedUtc, Settings(result, run), [.. run.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
-        {
-            Odds = calibration is null ? null : ReportOdds.Build(result, calibration),
-        };
+        return Build(result, run, prices, priceRowsRead, calibration, Cone(result, prices));
     }
 
-    /// <summary>Builds the report and writes report.html and its PNGs into <paramref name="folder"/>.</summary>
+    /// <summary>Builds the report and writes report.html, its PNGs and, when the cone is drawn, cone.csv (its numbers) into <paramref name="folder"/>.</summary>
     /// <param name="folder">The output folder; created when missing.</param>
     /// <param name="result">The backtest result.</param>
     /// <param name="run">Tool version, inputs, times and warnings.</param>
@@ -67,11 +59,43 @@ public static class ReportWriter
     /// <exception cref="IOException">A report file already exists in the folder.</exception>
     public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null)
     {
-        var model = Build(result, run, prices, priceRowsRead, calibration);
-        return [.. ReportFiles.Write(model, folder, overwrite: false).Select(Path.GetFileName).OfType<string>()];
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentNullException.ThrowIfNull(prices);
+        var cone = Cone(result, prices);
+        var model = Build(result, run, prices, priceRowsRead, calibration, cone);
+        var written = ReportFiles.Write(model, folder, overwrite: false).Select(Path.GetFileName).OfType<string>().ToList();
+        if (cone.Horizons.Count > 0)
+        {
+            AtomicFile.WriteText(Path.Combine(folder, ConeFileName), w => ConeCsv.Write(w, cone));
+            written.Insert(0, ConeFileName);
+        }
+
+        return written;
     }
 
-    internal static IReadOnlyList<ChartImage> Charts(BacktestResult result, PriceHistory prices)
+    /// <summary>The volatility cone of the closes the backtest ran on, with the backtest's annualization factor.</summary>
+    internal static VolatilityConeResult Cone(BacktestResult result, PriceHistory prices) =>
+        VolatilityCone.Compute(Returns.LogReturns(prices.Close), VolatilityCone.DefaultHorizons, result.Settings.AnnualizationFactor);
+
+    private static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration, VolatilityConeResult cone)
+    {
+        ArgumentNullException.ThrowIfNull(run);
+        var pricesFile = run.Inputs.FirstOrDefault(i => i.Role == "prices")?.Path ?? "prices";
+        var title = string.Create(CultureInfo.InvariantCulture,
+            $"Volatility forecast backtest: {Path.GetFileNameWithoutExtension(pricesFile)}, {HorizonText(result.Settings.Horizon)}");
+        return new ReportModel(
+            title,
+            ReportVerdict.Build(result),
+            ReportTables.Build(result),
+            Charts(result, cone),
+            Quality(result, run, prices, priceRowsRead),
+            new RunInfo(run.ToolVersion, run.StartedUtc, run.FinishedUtc - run.StartedUtc, Settings(result, run), [.. run.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
+        {
+            Odds = calibration is null ? null : ReportOdds.Build(result, calibration),
+        };
+    }
+
+    internal static IReadOnlyList<ChartImage> Charts(BacktestResult result, VolatilityConeResult cone)
     {
         var charts = new List<ChartImage>();
         var leading = ReportSeries.Leading(result);
@@ -97,8 +121,6 @@ public static class ReportWriter
             charts.Add(ReportCharts.MincerZarnowitz(leader.Spec, forecast, realizedVariance, leader.MincerZarnowitz!.Intercept, leader.MincerZarnowitz.Slope));
         }
 
-        var returns = Returns.LogReturns(prices.Close);
-        var cone = VolatilityCone.Compute(returns, VolatilityCone.DefaultHorizons, result.Settings.AnnualizationFactor);
         if (cone.Horizons.Count > 0)
         {
             charts.Add(ReportCharts.Cone(cone, ConeOverlays(result, leading)));

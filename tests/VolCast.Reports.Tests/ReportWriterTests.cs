@@ -178,9 +178,9 @@ public sealed class ReportWriterTests
         Assert.Equal("reliability.png", odds.Reliability!.FileName);
         Assert.True(Png.HasSignature(odds.Reliability.Png.Span));
         Assert.DoesNotContain(model.Charts, c => c.FileName == "reliability.png");
-        Assert.Equal(calibration.Report.Coverages.Length, odds.Coverage.Rows.Count);
+        Assert.Equal(calibration.Forecasters.Length, odds.Coverage.Rows.Count);
         Assert.Equal("implied", odds.Coverage.Rows[0].Label);
-        var implied = calibration.Report.Coverages[0];
+        var implied = calibration.Forecasters[0].Coverage;
         Assert.Equal(implied.Levels[0].NonOverlappingCount, odds.Coverage.Rows[0].Cells[0].Value);
         Assert.Equal(implied.Levels[0].ShareWithin, odds.Coverage.Rows[0].Cells[1].Value);
         Assert.Equal(implied.Levels[0].Kupiec?.PValue, odds.Coverage.Rows[0].Cells[2].Value);
@@ -208,7 +208,7 @@ public sealed class ReportWriterTests
         foreach (var curve in curves)
         {
             // Pool by hand: for each bin, counts add up and the means are count-weighted over the five strikes.
-            var strikes = calibration.Report.Calibrations.Single(f => f.Forecaster == curve.Name).Strikes;
+            var strikes = calibration.Forecasters.Single(f => f.Forecaster == curve.Name).Calibration.Strikes;
             var k = 0;
             for (var bin = 0; bin < 10; bin++)
             {

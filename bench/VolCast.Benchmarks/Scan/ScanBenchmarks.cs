@@ -1,7 +1,7 @@
 using BenchmarkDotNet.Attributes;
 using VolCast.Core.Scoring;
 using VolCast.IO.Results;
-using VolCast.Reports.Scan;
+using VolCast.IO.Tables;
 
 namespace VolCast.Benchmarks.Scan;
 
@@ -80,5 +80,5 @@ public class ScanBenchmarks
     public double[] BenjaminiHochberg() => FalseDiscoveryRate.BenjaminiHochberg(_p.AsSpan());
 
     [Benchmark]
-    public IReadOnlyList<ScanFdrRow> FdrTable() => ScanFdr.Table(_rows);
+    public IReadOnlyList<VersusImpliedFdrRow> FdrTable() => VersusImpliedTable.Rows(_rows);
 }

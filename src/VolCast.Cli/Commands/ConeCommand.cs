@@ -6,7 +6,7 @@ using VolCast.IO;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Html;
 using VolCast.Reports.Model;
-using VolCast.Reports.Tables;
+using VolCast.IO.Csv;
 
 namespace VolCast.Cli.Commands;
 

@@ -1,7 +1,7 @@
 using VolCast.Core.Demo;
 using VolCast.IO;
 using VolCast.IO.Quotes;
-using VolCast.IO.Writers;
+using VolCast.IO.Csv;
 
 namespace VolCast.Cli.Commands;
 
@@ -99,7 +99,7 @@ internal static class DemoFiles
         Text(folder, ExpectedVolatility, w => HistoryCsv.WriteSeries(w, "expected_vol", scenario.Index.Dates, scenario.ExpectedVolatility.ToArray()));
         Text(folder, SecondAsset, w => HistoryCsv.WritePrices(w, scenario.SecondAsset));
         var quotes = DemoOptionChain.Build(scenario.Index, scenario.Implied, QuoteDays);
-        Text(folder, OptionQuotes, w => OptionQuoteCsvWriter.Write(w, quotes));
+        Text(folder, OptionQuotes, w => OptionQuotesCsv.Write(w, quotes));
         Text(folder, Config, w => w.Write(ConfigJson.ReplaceLineEndings("\n")));
         foreach (var asset in DemoUniverse.Generate(UniverseSeed))
         {

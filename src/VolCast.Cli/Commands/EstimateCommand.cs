@@ -2,7 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using VolCast.Core.Estimators;
 using VolCast.IO;
-using VolCast.IO.Writers;
+using VolCast.IO.Csv;
 
 namespace VolCast.Cli.Commands;
 

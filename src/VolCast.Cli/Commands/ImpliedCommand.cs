@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using VolCast.Core.Options;
 using VolCast.IO.Quotes;
+using VolCast.IO.Csv;
 
 namespace VolCast.Cli.Commands;
 
@@ -80,7 +81,7 @@ internal static class ImpliedCommand
         var quotes = OptionQuoteCsvReader.Read(quotesPath, rate, dividendYield);
         var result = ConstantTenorSeries.Compute(quotes, new ConstantTenorOptions(tenorDays, extrapolation));
         string[] inputs = [quotesPath];
-        QuoteDiagnosticsCsvWriter.Write(diagnosticsPath, result.Diagnostics, force, inputs);
+        QuoteDiagnosticsCsv.Write(diagnosticsPath, result.Diagnostics, force, inputs);
         var summary = string.Create(CultureInfo.InvariantCulture,
             $"{quotes.Count} quotes: {result.RejectedQuoteCount} quotes and {result.RejectedExpiryCount} expiries rejected, {result.RejectedDateCount} dates without a {DayCount.FormatTenor(tenorDays)} value; diagnostics in {diagnosticsPath}");
         if (result.Points.IsEmpty)
@@ -89,7 +90,7 @@ internal static class ImpliedCommand
             return ExitCodes.BadInput;
         }
 
-        ConstantTenorCsvWriter.Write(output, result.Points, force, inputs);
+        ConstantTenorCsv.Write(output, result.Points, force, inputs);
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture, $"wrote {result.Points.Length} dates to {output}"));
         console.Out.WriteLine(summary);
         if (result.RejectedDateCount > 0)

@@ -23,7 +23,7 @@ internal static class ScanCommand
         var output = new Option<string?>("--out") { Description = "Scan folder (default reports/scan): assets/NAME/ per name, summary.csv and summary.html. An existing scan folder is resumed." };
         var jobs = new Option<int?>("--jobs") { Description = "How many names run at the same time (default: the number of processor cores)." };
         var force = new Option<bool>("--force") { Description = "Recompute every name, even those whose results are complete and whose inputs and configuration are unchanged." };
-        var command = new Command("scan", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted scan resumes; one bad file fails only its name. Writes summary.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
+        var command = new Command("scan", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted scan resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
             pricesDir, impliedDir, ivUnit, config, horizon, tenor, output, jobs, force,
         };
@@ -90,7 +90,7 @@ internal static class ScanCommand
 
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{outcome.Rows.Count} names: {outcome.Computed - outcome.Failed} computed, {outcome.Reused} kept from an earlier run, {outcome.Failed} failed."));
-        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, summary.html)");
+        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, beats-implied.csv, summary.html)");
         return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
     }
 

@@ -5,7 +5,7 @@ namespace VolCast.Cli.Scan;
 
 /// <summary>
 /// Runs a scan: one <see cref="ScanAssetJob"/> per asset on a bounded number of workers, keeping only each asset's
-/// summary row (so memory does not grow with the number of names), then writes summary.csv and summary.html.
+/// summary row (so memory does not grow with the number of names), then writes summary.csv, beats-implied.csv and summary.html.
 /// </summary>
 internal static class ScanRunner
 {

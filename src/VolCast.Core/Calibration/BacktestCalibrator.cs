@@ -16,7 +16,7 @@ namespace VolCast.Core.Calibration;
 /// <para>
 /// A value that is not a finite volatility above zero is treated like a missing one, as the backtest's scoring does
 /// (it scores only forecasts above zero): it is counted in the result's missing dates and in
-/// <see cref="BacktestCalibration.InvalidValueCounts"/>. Regimes are terciles of the realized target RV(t, h_t)
+/// <see cref="ForecasterOdds.InvalidValueCount"/>. Regimes are terciles of the realized target RV(t, h_t)
 /// (hindsight: see <see cref="CoverageRegimes"/>); they are left empty when a scorable date has no realized value.
 /// </para>
 /// </remarks>
@@ -26,7 +26,7 @@ public static class BacktestCalibrator
     /// <param name="result">The backtest.</param>
     /// <param name="prices">The price history the backtest ran on.</param>
     /// <param name="options">Strikes, drift, bins and the minimum sample; the defaults when null. Its annualization factor is replaced by the backtest's.</param>
-    /// <returns>Results per forecaster, implied first.</returns>
+    /// <returns>One record per forecaster, implied first.</returns>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
     /// <exception cref="ArgumentException">A forecast date is not in the price history, or an option is invalid.</exception>
     public static BacktestCalibration Evaluate(BacktestResult result, PriceHistory prices, CalibrationOptions? options = null)
@@ -37,46 +37,66 @@ public static class BacktestCalibrator
         options.Validate();
 
         var aligned = OutcomeAlignment.FromPrices(prices, result.Dates, result.WindowDays);
-        var forecasters = new List<ForecasterVolatility>(result.Forecasts.Length + 1);
-        var invalid = ImmutableArray.CreateBuilder<int>(result.Forecasts.Length + 1);
+        var regimeValues = RegimeValues(result, aligned);
+        var odds = ImmutableArray.CreateBuilder<ForecasterOdds>(result.Forecasts.Length + 1);
         if (result.HasImplied)
         {
-            forecasters.Add(Pick(aligned, "implied", result.Implied, out var bad));
-            invalid.Add(bad);
+            odds.Add(Score(aligned.Outcomes, Pick(aligned, "implied", result.Implied, out var bad), options, regimeValues, bad));
         }
 
         foreach (var series in result.Forecasts)
         {
-            forecasters.Add(Pick(aligned, series.Spec, series.Values, out var bad));
-            invalid.Add(bad);
+            odds.Add(Score(aligned.Outcomes, Pick(aligned, series.Spec, series.Values, out var bad), options, regimeValues, bad));
         }
 
-        var report = CalibrationSuite.Evaluate(aligned.Outcomes, forecasters, options);
+        return new BacktestCalibration(aligned, odds.ToImmutable());
+    }
 
-        double[]? regimeValues = new double[aligned.DateIndices.Length];
-        for (var i = 0; i < regimeValues.Length; i++)
+    /// <summary>Runs every odds check on one forecaster.</summary>
+    /// <param name="outcomes">The closes at t and t + h.</param>
+    /// <param name="forecaster">The forecaster's volatility, aligned with <paramref name="outcomes"/>.</param>
+    /// <param name="options">Strikes, drift, bins, the interval's quantile and the minimum sample (validated here).</param>
+    /// <param name="regimeValues">The realized volatility per aligned date for the regimes, or null to leave the regimes empty.</param>
+    /// <param name="invalidValueCount">How many of the forecaster's values were dropped as invalid before the call.</param>
+    /// <returns>The forecaster's record.</returns>
+    /// <exception cref="ArgumentNullException">An argument is null.</exception>
+    /// <exception cref="ArgumentException">The series is not aligned, or an option is invalid.</exception>
+    public static ForecasterOdds Score(HorizonOutcomes outcomes, ForecasterVolatility forecaster, CalibrationOptions options, double[]? regimeValues = null, int invalidValueCount = 0)
+    {
+        ArgumentNullException.ThrowIfNull(outcomes);
+        ArgumentNullException.ThrowIfNull(forecaster);
+        ArgumentNullException.ThrowIfNull(options);
+        options.Validate();
+        var calibration = ProbabilityCalibration.Evaluate(outcomes, forecaster, options);
+        var coverage = ExpectedMoveCoverage.Evaluate(outcomes, forecaster, options);
+        var regimes = regimeValues is null ? ImmutableArray<RegimeCoverage>.Empty : CoverageRegimes.ByTerciles(coverage, regimeValues, options.IntervalZ);
+        return new ForecasterOdds(
+            forecaster.Name,
+            calibration,
+            coverage,
+            regimes,
+            CoverageVerdict.Describe(coverage, regimes),
+            invalidValueCount,
+            ReliabilityPooling.Pool(calibration, options.IntervalZ));
+    }
+
+    /// <summary>The realized target per aligned date, or null when a scorable date has none (the regimes are then left out).</summary>
+    private static double[]? RegimeValues(BacktestResult result, AlignedOutcomes aligned)
+    {
+        var values = new double[aligned.DateIndices.Length];
+        for (var i = 0; i < values.Length; i++)
         {
             if (result.Realized[aligned.DateIndices[i]] is { } rv && double.IsFinite(rv))
             {
-                regimeValues[i] = rv;
+                values[i] = rv;
             }
             else
             {
-                regimeValues = null;
-                break;
+                return null;
             }
         }
 
-        var regimes = ImmutableArray.CreateBuilder<ImmutableArray<RegimeCoverage>>(forecasters.Count);
-        var verdicts = ImmutableArray.CreateBuilder<string>(forecasters.Count);
-        foreach (var coverage in report.Coverages)
-        {
-            var rows = regimeValues is null ? ImmutableArray<RegimeCoverage>.Empty : CoverageRegimes.ByTerciles(coverage, regimeValues, options.IntervalZ);
-            regimes.Add(rows);
-            verdicts.Add(CoverageVerdict.Describe(coverage, rows));
-        }
-
-        return new BacktestCalibration(aligned, report, regimes.MoveToImmutable(), verdicts.MoveToImmutable(), invalid.ToImmutable());
+        return values;
     }
 
     private static ForecasterVolatility Pick(AlignedOutcomes aligned, string name, ImmutableArray<double?> values, out int invalid)

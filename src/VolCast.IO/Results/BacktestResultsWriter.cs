@@ -1,5 +1,6 @@
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
+using VolCast.IO.Csv;
 
 namespace VolCast.IO.Results;
 
@@ -87,13 +88,13 @@ public static class BacktestResultsWriter
         {
             AtomicFile.WriteText(Path.Combine(temp, "forecasts.csv"), w => ForecastsCsv.Write(w, result));
             AtomicFile.WriteText(Path.Combine(temp, "metrics.csv"), w => MetricsCsv.Write(w, result));
-            AtomicFile.WriteText(Path.Combine(temp, "metrics.json"), w => BacktestJson.WriteMetrics(w, result, calibration));
-            AtomicFile.WriteText(Path.Combine(temp, "run.json"), w => BacktestJson.WriteRun(w, result, run));
+            AtomicFile.WriteText(Path.Combine(temp, "metrics.json"), w => MetricsJson.Write(w, result, calibration));
+            AtomicFile.WriteText(Path.Combine(temp, "run.json"), w => RunJson.Write(w, result, run));
             AtomicFile.WriteText(Path.Combine(temp, "summary.txt"), w => SummaryText.Write(w, result, run, calibration));
             if (calibration is not null)
             {
-                CalibrationCsv.WriteFile(Path.Combine(temp, CalibrationFileName), calibration.Report.Calibrations);
-                CoverageCsv.WriteFile(Path.Combine(temp, CoverageFileName), calibration.Report.Coverages, calibration.Verdicts);
+                CalibrationCsv.WriteFile(Path.Combine(temp, CalibrationFileName), [.. calibration.Forecasters.Select(f => f.Calibration)]);
+                CoverageCsv.WriteFile(Path.Combine(temp, CoverageFileName), calibration.Forecasters);
             }
 
             names.AddRange(writeMore?.Invoke(temp) ?? []);

@@ -14,21 +14,21 @@ internal static class CalibrationJson
 {
     public static void Write(Utf8JsonWriter json, BacktestCalibration calibration)
     {
-        var report = calibration.Report;
         json.WriteStartObject("calibration");
         json.WriteString("probability", "N(d2): the lognormal probability that the close at t + h ends above K = moneyness x close at t, with the forecaster's volatility, the configured r and q (0 by default) and time h / A years; a risk-neutral-style probability, with drift r - q - sigma^2/2 in the log price.");
         json.WriteString("bins", "Equal-width predicted-probability bins on [0, 1]; the interval is Wilson's on n_eff = n / h, widened for the overlap of h-day windows.");
+        json.WriteString("pooled_reliability", "The reliability diagram's curve: per bin, every strike's forecasts pooled; n-weighted means of the strikes' mean predicted and observed frequency, Wilson's interval on the summed n_eff; empty bins left out.");
         json.WriteString("brier_identity", "brier = reliability - resolution + uncertainty + within_bin_variance - within_bin_covariance (Murphy 1973, with the two within-bin terms).");
         json.WriteStartArray("forecasters");
-        for (var i = 0; i < report.Calibrations.Length; i++)
+        foreach (var odds in calibration.Forecasters)
         {
-            var c = report.Calibrations[i];
+            var c = odds.Calibration;
             json.WriteStartObject();
             json.WriteString("forecaster", c.Forecaster);
             json.WriteNumber("horizon_days", c.HorizonDays);
             json.WriteNumber("dates_scored", c.Count);
             json.WriteNumber("dates_missing", c.MissingCount);
-            json.WriteNumber("invalid_values", i < calibration.InvalidValueCounts.Length ? calibration.InvalidValueCounts[i] : 0);
+            json.WriteNumber("invalid_values", odds.InvalidValueCount);
             MissingDates(json, calibration.Aligned, c.MissingDateIndices);
             json.WriteStartArray("strikes");
             foreach (var s in c.Strikes.IsDefault ? [] : c.Strikes)
@@ -67,6 +67,7 @@ internal static class CalibrationJson
             }
 
             json.WriteEndArray();
+            PooledReliability(json, odds);
             json.WriteEndObject();
         }
 
@@ -77,9 +78,9 @@ internal static class CalibrationJson
         json.WriteString("z", "z = ln(S(t+h)/S(t)) / (sigma_F sqrt(h/A)); standard normal if the forecaster is calibrated.");
         json.WriteString("tests", "Shares use every date; the Kupiec and Christoffersen tests use non-overlapping dates only (every h-th date, a failure being |z| > bound); with fewer than dates_needed of them the status is not-enough-data and the tests are null.");
         json.WriteStartArray("forecasters");
-        for (var i = 0; i < report.Coverages.Length; i++)
+        foreach (var odds in calibration.Forecasters)
         {
-            var c = report.Coverages[i];
+            var c = odds.Coverage;
             json.WriteStartObject();
             json.WriteString("forecaster", c.Forecaster);
             json.WriteNumber("horizon_days", c.HorizonDays);
@@ -106,8 +107,7 @@ internal static class CalibrationJson
             }
 
             json.WriteStartArray("regimes");
-            var regimes = i < calibration.Regimes.Length ? calibration.Regimes[i] : [];
-            foreach (var g in regimes)
+            foreach (var g in odds.Regimes.IsDefault ? [] : odds.Regimes)
             {
                 json.WriteStartObject();
                 json.WriteString("regime", g.Label);
@@ -122,12 +122,32 @@ internal static class CalibrationJson
             }
 
             json.WriteEndArray();
-            json.WriteString("verdict", i < calibration.Verdicts.Length ? calibration.Verdicts[i] : CoverageVerdict.Describe(c));
+            json.WriteString("verdict", odds.Verdict);
             json.WriteEndObject();
         }
 
         json.WriteEndArray();
         json.WriteEndObject();
+    }
+
+    /// <summary>The reliability curve pooled over strikes, the one the report's reliability diagram draws (see <see cref="ReliabilityPooling"/>).</summary>
+    private static void PooledReliability(Utf8JsonWriter json, ForecasterOdds odds)
+    {
+        json.WriteStartArray("pooled_reliability");
+        foreach (var b in odds.PooledReliability.IsDefault ? [] : odds.PooledReliability)
+        {
+            json.WriteStartObject();
+            json.WriteNumber("bin", b.Index);
+            json.WriteNumber("n", b.Count);
+            Numbers.Write(json, "n_eff", b.EffectiveCount);
+            Numbers.Write(json, "mean_predicted", b.MeanPredicted);
+            Numbers.Write(json, "observed_frequency", b.ObservedFrequency);
+            Numbers.Write(json, "interval_lower", b.IntervalLower);
+            Numbers.Write(json, "interval_upper", b.IntervalUpper);
+            json.WriteEndObject();
+        }
+
+        json.WriteEndArray();
     }
 
     private static void MissingDates(Utf8JsonWriter json, AlignedOutcomes aligned, System.Collections.Immutable.ImmutableArray<int> indices)

@@ -1,18 +1,10 @@
-using System.Globalization;
 using System.Text.Json;
 
 namespace VolCast.IO.Results;
 
-/// <summary>Value formatting shared by the results writers: invariant culture, round-trip doubles, empty (CSV) or null (JSON) where undefined.</summary>
+/// <summary>JSON value writing shared by the results writers: round-trip doubles, null where undefined (CSV cells are written by Csv.CsvText).</summary>
 internal static class Numbers
 {
-    public static string Csv(double? value) =>
-        value is double v && double.IsFinite(v) ? v.ToString("R", CultureInfo.InvariantCulture) : string.Empty;
-
-    public static string Csv(int? value) => value?.ToString(CultureInfo.InvariantCulture) ?? string.Empty;
-
-    public static string Csv(bool? value) => value is bool b ? (b ? "true" : "false") : string.Empty;
-
     public static void Write(Utf8JsonWriter json, string name, double? value)
     {
         if (value is double v && double.IsFinite(v))
@@ -72,8 +64,4 @@ internal static class Numbers
             json.WriteNullValue();
         }
     }
-
-    /// <summary>Quotes a CSV field when it holds a comma, quote or line break.</summary>
-    public static string Field(string text) =>
-        text.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + text.Replace("\"", "\"\"", StringComparison.Ordinal) + "\"" : text;
 }

@@ -92,15 +92,14 @@ internal static class SummaryText
         var c = CultureInfo.InvariantCulture;
         w.Write("\nDo the odds hold? Expected-move ranges: share of dates with |z| <= 1 (68.3% if calibrated) and |z| <= 2 (95.4%), Kupiec p on non-overlapping dates; details in coverage.csv and calibration.csv\n");
         w.Write(string.Create(c, $"  {"forecaster",-26} {"n",6} {"missing",7} {"|z|<=1",7} {"p",7} {"|z|<=2",7} {"p",7} {"max|z|",7}\n"));
-        var coverages = calibration.Report.Coverages;
-        for (var i = 0; i < coverages.Length; i++)
+        foreach (var odds in calibration.Forecasters)
         {
-            var cov = coverages[i];
+            var cov = odds.Coverage;
             var one = cov.Levels[0];
             var two = cov.Levels[1];
             w.Write(string.Create(c,
                 $"  {cov.Forecaster,-26} {cov.Count,6} {cov.MissingCount,7} {F(one.ShareWithin, "0.0%"),7} {F(one.Kupiec?.PValue, "F3"),7} {F(two.ShareWithin, "0.0%"),7} {F(two.Kupiec?.PValue, "F3"),7} {F(cov.MaxAbsZ, "F2"),7}\n"));
-            w.Write("    " + (i < calibration.Verdicts.Length ? calibration.Verdicts[i] : CoverageVerdict.Describe(cov)) + "\n");
+            w.Write("    " + odds.Verdict + "\n");
         }
 
         w.Write("  Calibrated odds in the past do not make calibrated odds in the future.\n");

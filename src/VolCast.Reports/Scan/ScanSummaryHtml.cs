@@ -1,6 +1,9 @@
 using System.Globalization;
 using System.Text;
+using VolCast.Core.Scoring;
 using VolCast.IO.Results;
+using VolCast.IO.Tables;
+using VolCast.IO.Csv;
 using VolCast.Reports.Html;
 using VolCast.Reports.Model;
 
@@ -90,10 +93,10 @@ public static class ScanSummaryHtml
 
     private static void FdrSection(StringBuilder html, IReadOnlyList<ScanAssetRow> rows)
     {
-        var table = ScanFdr.Table(rows);
+        var table = VersusImpliedTable.Rows(rows);
         html.Append("<section id=\"beats-implied\">\n<h2>Where each forecaster beats implied</h2>\n");
         html.Append("<p class=\"note\">").Append(HtmlReport.E(I(
-            $"Diebold-Mariano test on QLIKE against implied, one per name (two-sided, Newey-West variance). Testing many names at once makes some wins appear by chance, so the p-values of each forecaster are corrected across names with the Benjamini-Hochberg procedure, which keeps the expected share of false wins among the wins (the false discovery rate) at {ScanFdr.DefaultLevel:0%}. A win is a negative statistic (the forecaster's loss is lower) with an adjusted p-value of at most {ScanFdr.DefaultLevel:0.00}.")))
+            $"Diebold-Mariano test on QLIKE against implied, one per name (two-sided, Newey-West variance). Testing many names at once makes some wins appear by chance, so the p-values of each forecaster are corrected across names with the Benjamini-Hochberg procedure, which keeps the expected share of false wins among the wins (the false discovery rate) at {VersusImpliedFdr.DefaultLevel:0%}. A win is a negative statistic (the forecaster's loss is lower) with an adjusted p-value of at most {VersusImpliedFdr.DefaultLevel:0.00}.")))
             .Append("</p>\n");
         html.Append("<table>\n<thead><tr><th>Forecaster</th><th>Names tested</th><th>Beats implied, uncorrected p ≤ 0.05</th><th>Beats implied, BH-adjusted (FDR 5%)</th><th>Share of names, BH-adjusted</th><th>Implied better, BH-adjusted</th></tr></thead>\n<tbody>\n");
         foreach (var r in table)

@@ -6,7 +6,7 @@ using VolCast.Core.Backtest;
 using VolCast.Core.Demo;
 using VolCast.IO;
 using VolCast.IO.Config;
-using VolCast.IO.Writers;
+using VolCast.IO.Csv;
 
 namespace VolCast.Cli.Tests.Commands;
 

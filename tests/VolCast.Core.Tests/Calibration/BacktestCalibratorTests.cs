@@ -23,10 +23,9 @@ public sealed class BacktestCalibratorTests
         var calibration = BacktestCalibrator.Evaluate(result, prices);
 
         var names = new[] { "implied" }.Concat(result.Forecasts.Select(f => f.Spec)).ToArray();
-        Assert.Equal(names, calibration.Report.Calibrations.Select(c => c.Forecaster).ToArray());
-        Assert.Equal(names, calibration.Report.Coverages.Select(c => c.Forecaster).ToArray());
-        Assert.Equal(names.Length, calibration.Verdicts.Length);
-        Assert.Equal(names.Length, calibration.Regimes.Length);
+        Assert.Equal(names, calibration.Forecasters.Select(f => f.Forecaster).ToArray());
+        Assert.Equal(names, calibration.Forecasters.Select(f => f.Calibration.Forecaster).ToArray());
+        Assert.Equal(names, calibration.Forecasters.Select(f => f.Coverage.Forecaster).ToArray());
 
         // The dates are exactly those whose window closed, with S_t and S_{t+21} from the history.
         var closed = Enumerable.Range(0, result.Dates.Length).Where(i => result.WindowDays[i] is not null).ToArray();
@@ -40,14 +39,14 @@ public sealed class BacktestCalibratorTests
 
         // Same numbers as the aligned-array call on the same columns.
         var direct = ExpectedMoveCoverage.Evaluate(calibration.Aligned.Outcomes, calibration.Aligned.Select("ewma:0.94", result.Forecasts[1].Values));
-        Assert.Equal(direct.ZScale, calibration.Report.Coverages[2].ZScale);
-        Assert.Equal(direct.Levels[0], calibration.Report.Coverages[2].Levels[0]);
+        Assert.Equal(direct.ZScale, calibration.Forecasters[2].Coverage.ZScale);
+        Assert.Equal(direct.Levels[0], calibration.Forecasters[2].Coverage.Levels[0]);
 
         // Lookback forecasters have a warm-up with no value: counted, not dropped.
         var warmUp = closed.Count(i => result.Forecasts[0].Values[i] is null);
-        Assert.Equal(warmUp, calibration.Report.Coverages[1].MissingCount);
-        Assert.All(calibration.InvalidValueCounts, c => Assert.Equal(0, c));
-        Assert.All(calibration.Regimes, r => Assert.Equal(3, r.Length));
+        Assert.Equal(warmUp, calibration.Forecasters[1].Coverage.MissingCount);
+        Assert.All(calibration.Forecasters, f => Assert.Equal(0, f.InvalidValueCount));
+        Assert.All(calibration.Forecasters, f => Assert.Equal(3, f.Regimes.Length));
     }
 
     [Fact]
@@ -61,6 +60,6 @@ public sealed class BacktestCalibratorTests
         var expected = result.WindowDays.Where(w => w is not null).Select(w => w!.Value).ToArray();
         Assert.Equal(expected, calibration.Aligned.Outcomes.WindowDays.ToArray());
         Assert.True(expected.Distinct().Count() > 1, "a 30-day tenor over weekdays should give windows of different lengths");
-        Assert.Equal(result.Forecasts.Select(f => f.Spec).ToArray(), calibration.Report.Coverages.Select(c => c.Forecaster).ToArray());
+        Assert.Equal(result.Forecasts.Select(f => f.Spec).ToArray(), calibration.Forecasters.Select(f => f.Coverage.Forecaster).ToArray());
     }
 }

@@ -26,20 +26,20 @@ public sealed class HarnessCallTests
         // The harness's call:
         var aligned = OutcomeAlignment.FromPrices(prices, dates, windowDays);
         var forecasters = new List<ForecasterVolatility> { aligned.Select("implied", implied), aligned.Select("ewma:0.94", ewma) };
-        var report = CalibrationSuite.Evaluate(aligned.Outcomes, forecasters, new CalibrationOptions { AnnualizationFactor = 252 });
         var regimeValues = aligned.DateIndices.Select(k => realized[k]!.Value).ToArray();
-        var regimes = CoverageRegimes.ByTerciles(report.Coverages[0], regimeValues);
-        var verdict = CoverageVerdict.Describe(report.Coverages[0], regimes);
+        var odds = forecasters.Select(f => BacktestCalibrator.Score(aligned.Outcomes, f, new CalibrationOptions { AnnualizationFactor = 252 }, regimeValues)).ToArray();
+        var regimes = odds[0].Regimes;
+        var verdict = odds[0].Verdict;
 
         Assert.Equal(n - h, aligned.Outcomes.Count);
         Assert.Equal(close[300 + 5], aligned.Outcomes.StartClose[5]);
         Assert.Equal(close[300 + 5 + h], aligned.Outcomes.EndClose[5]);
         // Implied is missing on every 50th date from 7: those on closed windows are counted and marked.
         var missingImplied = Enumerable.Range(0, n - h).Count(i => i % 50 == 7);
-        Assert.Equal(missingImplied, report.Calibrations[0].MissingCount);
-        Assert.Equal(missingImplied, report.Coverages[0].MissingCount);
-        Assert.Equal(0, report.Coverages[1].MissingCount);
-        Assert.Equal(5, report.Calibrations[1].Strikes.Length);
+        Assert.Equal(missingImplied, odds[0].Calibration.MissingCount);
+        Assert.Equal(missingImplied, odds[0].Coverage.MissingCount);
+        Assert.Equal(0, odds[1].Coverage.MissingCount);
+        Assert.Equal(5, odds[1].Calibration.Strikes.Length);
         Assert.Equal(3, regimes.Length);
         Assert.StartsWith("ranges from implied ", verdict, StringComparison.Ordinal);
         Assert.Contains($"{missingImplied} dates had no forecast", verdict, StringComparison.Ordinal);

@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Globalization;
 using VolCast.Core.Options;
 using VolCast.IO.Quotes;
+using VolCast.IO.Csv;
 
 namespace VolCast.IO.Tests.Quotes;
 
@@ -18,7 +19,7 @@ public sealed class QuoteWritersTests : IDisposable
     {
         var path = Path.Combine(_folder, "iv.csv");
         var vol = 0.1 + (1.0 / 3.0);
-        ConstantTenorCsvWriter.Write(path, [new ConstantTenorPoint(new DateOnly(2024, 3, 1), vol, default, default, false)], overwrite: false);
+        ConstantTenorCsv.Write(path, [new ConstantTenorPoint(new DateOnly(2024, 3, 1), vol, default, default, false)], overwrite: false);
         var lines = File.ReadAllLines(path);
         Assert.Equal("date,iv", lines[0]);
         var cells = lines[1].Split(',');
@@ -31,7 +32,7 @@ public sealed class QuoteWritersTests : IDisposable
     {
         var path = Path.Combine(_folder, "iv.csv");
         File.WriteAllText(path, "keep");
-        Assert.Throws<IOException>(() => ConstantTenorCsvWriter.Write(path, [], overwrite: false));
+        Assert.Throws<IOException>(() => ConstantTenorCsv.Write(path, [], overwrite: false));
         Assert.Equal("keep", File.ReadAllText(path));
     }
 
@@ -40,7 +41,7 @@ public sealed class QuoteWritersTests : IDisposable
     {
         var path = Path.Combine(_folder, "diag.csv");
         var d = new ChainDiagnostic(DiagnosticScope.Quote, DiagnosticReason.BelowIntrinsic, new DateOnly(2024, 3, 1), new DateOnly(2024, 4, 19), 95, OptionType.Put, 12, "price 1, forward 100");
-        QuoteDiagnosticsCsvWriter.Write(path, ImmutableArray.Create(d), overwrite: false);
+        QuoteDiagnosticsCsv.Write(path, ImmutableArray.Create(d), overwrite: false);
         Assert.DoesNotContain('\r', File.ReadAllText(path));
         var lines = File.ReadAllLines(path);
         Assert.Equal("scope,reason,severity,date,expiry,strike,type,line,detail", lines[0]);

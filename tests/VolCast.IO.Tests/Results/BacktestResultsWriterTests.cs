@@ -3,6 +3,7 @@ using System.Text.Json;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Data;
+using VolCast.IO.Csv;
 using VolCast.IO.Results;
 
 namespace VolCast.IO.Tests.Results;
@@ -81,6 +82,48 @@ public sealed class BacktestResultsWriterTests
     }
 
     [Fact]
+    public void Write_MetricsCsvAndJson_ForecasterRowsHoldTheSameColumnsInOrderWithTheSameValues()
+    {
+        using var temp = new TempFolder();
+        var result = SmallResult();
+        var folder = Path.Combine(temp.Path, "report");
+        BacktestResultsWriter.Write(folder, result, Run());
+
+        var csv = File.ReadAllLines(Path.Combine(folder, "metrics.csv"));
+        var header = csv[0].Split(',');
+        // Every column the file has always had, in its place; the fit counts were once in the CSV only.
+        Assert.Equal(
+            ["forecaster", "kind", "n", "missing", "bias", "mae_vol", "rmse_vol", "mse_var", "qlike",
+             "mz_a", "mz_b", "mz_a_se", "mz_b_se", "mz_r2", "mz_wald", "mz_wald_p",
+             "dm_n", "dm_qlike_stat", "dm_qlike_p", "dm_mse_stat", "dm_mse_p",
+             "enc_implied_b", "enc_forecast_c", "enc_forecast_c_se", "enc_forecast_c_p",
+             "mcs_p", "in_mcs", "refits", "failed_fits", "nonstationary_fits", "variance_fallbacks"],
+            header);
+        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "metrics.json")));
+        var rows = json.RootElement.GetProperty("forecasters");
+        Assert.Equal(csv.Length - 1, rows.GetArrayLength());
+        for (var i = 0; i < rows.GetArrayLength(); i++)
+        {
+            var cells = csv[i + 1].Split(',');
+            var keys = rows[i].EnumerateObject().ToArray();
+            Assert.Equal(header, keys.Select(k => k.Name).ToArray());
+            for (var c = 0; c < header.Length; c++)
+            {
+                var value = keys[c].Value;
+                var expected = value.ValueKind switch
+                {
+                    JsonValueKind.Null => string.Empty,
+                    JsonValueKind.String => value.GetString(),
+                    JsonValueKind.True => "true",
+                    JsonValueKind.False => "false",
+                    _ => value.GetDouble().ToString("R", CultureInfo.InvariantCulture),
+                };
+                Assert.Equal(expected, cells[c]);
+            }
+        }
+    }
+
+    [Fact]
     public void Write_ExistingFolder_RefusedUnlessForced()
     {
         using var temp = new TempFolder();
@@ -150,7 +193,7 @@ public sealed class BacktestResultsWriterTests
         var one = implied.GetProperty("within1");
         Assert.Equal((double)within / scored, one.GetProperty("share").GetDouble(), 12);
         Assert.Equal(0.6826894921370859, one.GetProperty("expected").GetDouble(), 12); // 2N(1) - 1, common practice, no source
-        Assert.Equal(calibration.Report.Coverages[0].Levels[0].Kupiec!.PValue, one.GetProperty("kupiec").GetProperty("p_value").GetDouble());
+        Assert.Equal(calibration.Forecasters[0].Coverage.Levels[0].Kupiec!.PValue, one.GetProperty("kupiec").GetProperty("p_value").GetDouble());
         Assert.True(one.TryGetProperty("christoffersen_conditional_coverage", out _));
         Assert.True(implied.TryGetProperty("max_abs_z", out _));
         Assert.True(implied.TryGetProperty("share_abs_z_above_3", out _));

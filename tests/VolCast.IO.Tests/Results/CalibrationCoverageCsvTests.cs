@@ -1,6 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Calibration;
 using VolCast.IO.Results;
+using VolCast.IO.Csv;
 
 namespace VolCast.IO.Tests.Results;
 

@@ -1,4 +1,5 @@
 using VolCast.IO.Results;
+using VolCast.IO.Tables;
 using VolCast.Reports.Html;
 using VolCast.Reports.Model;
 using VolCast.Reports.Scan;
@@ -55,7 +56,7 @@ public sealed class ScanSummaryHtmlTests
             Row("n4", 1.3, 0.20, 0.0),
         ];
 
-        var table = ScanFdr.Table(rows);
+        var table = VersusImpliedTable.Rows(rows);
 
         var row = Assert.Single(table);
         Assert.Equal("garch", row.Spec);

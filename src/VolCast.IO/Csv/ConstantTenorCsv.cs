@@ -1,12 +1,12 @@
 using System.Globalization;
 using VolCast.Core.Options;
 
-namespace VolCast.IO.Quotes;
+namespace VolCast.IO.Csv;
 
 /// <summary>Writes a constant-tenor implied-volatility series as CSV <c>date,iv</c>, the form the backtest reads.</summary>
 /// <remarks>Dates are yyyy-MM-dd; iv is a decimal (0.20 = 20%) written with round-trip precision in the invariant
 /// culture. The file is written through <see cref="AtomicFile"/>.</remarks>
-public static class ConstantTenorCsvWriter
+public static class ConstantTenorCsv
 {
     /// <summary>Writes the series.</summary>
     /// <param name="path">The output file.</param>

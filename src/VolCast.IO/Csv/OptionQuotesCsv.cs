@@ -1,10 +1,10 @@
 using System.Globalization;
 using VolCast.Core.Options;
 
-namespace VolCast.IO.Quotes;
+namespace VolCast.IO.Csv;
 
-/// <summary>Writes option quotes in the format <see cref="OptionQuoteCsvReader"/> reads.</summary>
-public static class OptionQuoteCsvWriter
+/// <summary>Writes option quotes in the format <see cref="Quotes.OptionQuoteCsvReader"/> reads.</summary>
+public static class OptionQuotesCsv
 {
     /// <summary>Writes <c>date,underlying,expiry,strike,type,price,rate,dividend_yield</c>, one row per quote.</summary>
     /// <param name="writer">Where to write.</param>

@@ -1,17 +1,15 @@
 using System.Globalization;
 using System.Text;
-using CsvHelper;
-using CsvHelper.Configuration;
 using VolCast.Core.Options;
 
-namespace VolCast.IO.Quotes;
+namespace VolCast.IO.Csv;
 
 /// <summary>Writes every rejected or flagged quote, expiry and date as CSV, one row each.</summary>
 /// <remarks>Columns: <c>scope</c> (quote, expiry, date), <c>reason</c> (kebab-case, e.g. below-intrinsic),
 /// <c>severity</c> (rejected or warning), <c>date</c>, <c>expiry</c>, <c>strike</c>, <c>type</c>, <c>line</c>
 /// (the 1-based line of the quotes file) and <c>detail</c> (a sentence with the numbers). Empty cells mean
 /// "does not apply". Written through <see cref="AtomicFile"/>.</remarks>
-public static class QuoteDiagnosticsCsvWriter
+public static class QuoteDiagnosticsCsv
 {
     private static readonly string[] Header = ["scope", "reason", "severity", "date", "expiry", "strike", "type", "line", "detail"];
 
@@ -26,25 +24,21 @@ public static class QuoteDiagnosticsCsvWriter
         ArgumentNullException.ThrowIfNull(diagnostics);
         AtomicFile.WriteText(path, writer =>
         {
-            using var csv = new CsvWriter(writer, new CsvConfiguration(CultureInfo.InvariantCulture) { NewLine = "\n" }, leaveOpen: true);
-            foreach (var name in Header)
-            {
-                csv.WriteField(name);
-            }
-
-            csv.NextRecord();
+            CsvText.WriteHeader(writer, Header);
             foreach (var d in diagnostics)
             {
-                csv.WriteField(Kebab(d.Scope.ToString()));
-                csv.WriteField(Kebab(d.Reason.ToString()));
-                csv.WriteField(d.IsWarning ? "warning" : "rejected");
-                csv.WriteField(d.Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
-                csv.WriteField(d.Expiry?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture) ?? string.Empty);
-                csv.WriteField(d.Strike?.ToString("R", CultureInfo.InvariantCulture) ?? string.Empty);
-                csv.WriteField(d.Type is { } t ? Kebab(t.ToString()) : string.Empty);
-                csv.WriteField(d.SourceLine?.ToString(CultureInfo.InvariantCulture) ?? string.Empty);
-                csv.WriteField(d.Detail);
-                csv.NextRecord();
+                CsvText.WriteRecord(writer,
+                [
+                    CsvText.Text(Kebab(d.Scope.ToString())),
+                    CsvText.Text(Kebab(d.Reason.ToString())),
+                    d.IsWarning ? "warning" : "rejected",
+                    CsvText.Date(d.Date),
+                    d.Expiry is { } expiry ? CsvText.Date(expiry) : string.Empty,
+                    CsvText.Number(d.Strike),
+                    d.Type is { } t ? CsvText.Text(Kebab(t.ToString())) : string.Empty,
+                    CsvText.Integer(d.SourceLine),
+                    CsvText.Text(d.Detail),
+                ]);
             }
         }, overwrite, protectedInputs);
     }

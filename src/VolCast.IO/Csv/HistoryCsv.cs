@@ -1,7 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Data;
 
-namespace VolCast.IO.Writers;
+namespace VolCast.IO.Csv;
 
 /// <summary>
 /// Writes histories and series as CSV in the formats the readers accept: ISO dates, invariant culture,
@@ -55,9 +55,7 @@ public static class HistoryCsv
                 $"values must have one entry per date ({dates.Length}), was {values.Length}."), nameof(values));
         }
 
-        writer.Write("date,");
-        writer.Write(valueColumn);
-        writer.Write('\n');
+        CsvText.WriteHeader(writer, ["date", valueColumn]);
         for (var i = 0; i < dates.Length; i++)
         {
             writer.Write(string.Create(CultureInfo.InvariantCulture, $"{dates[i]:yyyy-MM-dd},{values[i]:R}\n"));

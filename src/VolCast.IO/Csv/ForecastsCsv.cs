@@ -1,7 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
 
-namespace VolCast.IO.Results;
+namespace VolCast.IO.Csv;
 
 /// <summary>Writes forecasts.csv: <c>date, realized, implied</c>, then one column per forecaster named by its spec; decimal annualized vol, empty where undefined.</summary>
 internal static class ForecastsCsv
@@ -12,7 +12,7 @@ internal static class ForecastsCsv
         foreach (var f in result.Forecasts)
         {
             writer.Write(',');
-            writer.Write(Numbers.Field(f.Spec));
+            writer.Write(CsvText.Text(f.Spec));
         }
 
         writer.Write('\n');
@@ -20,13 +20,13 @@ internal static class ForecastsCsv
         {
             writer.Write(result.Dates[t].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
             writer.Write(',');
-            writer.Write(Numbers.Csv(result.Realized[t]));
+            writer.Write(CsvText.Number(result.Realized[t]));
             writer.Write(',');
-            writer.Write(Numbers.Csv(result.Implied[t]));
+            writer.Write(CsvText.Number(result.Implied[t]));
             foreach (var f in result.Forecasts)
             {
                 writer.Write(',');
-                writer.Write(Numbers.Csv(f.Values[t]));
+                writer.Write(CsvText.Number(f.Values[t]));
             }
 
             writer.Write('\n');

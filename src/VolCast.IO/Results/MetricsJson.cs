@@ -1,32 +1,20 @@
-using System.Globalization;
-using System.Text;
 using System.Text.Json;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Scoring;
+using VolCast.IO.Tables;
 
 namespace VolCast.IO.Results;
 
-/// <summary>Writes metrics.json and run.json: invariant culture, round-trip doubles, null (never NaN) where undefined.</summary>
-internal static class BacktestJson
+/// <summary>
+/// Writes metrics.json: every score and test of a backtest; invariant culture, round-trip doubles, null (never NaN)
+/// where undefined. Each element of <c>forecasters</c> is a row of the forecaster table (<see cref="ForecasterTable"/>),
+/// the same columns as metrics.csv.
+/// </summary>
+internal static class MetricsJson
 {
-    private static readonly JsonWriterOptions Options = new() { Indented = true };
-
-    public static void WriteMetrics(TextWriter writer, BacktestResult result, BacktestCalibration? calibration = null) =>
-        writer.Write(Build(json => Metrics(json, result, calibration)));
-
-    public static void WriteRun(TextWriter writer, BacktestResult result, BacktestRunInfo run) => writer.Write(Build(json => Run(json, result, run)));
-
-    private static string Build(Action<Utf8JsonWriter> write)
-    {
-        using var stream = new MemoryStream();
-        using (var json = new Utf8JsonWriter(stream, Options))
-        {
-            write(json);
-        }
-
-        return Encoding.UTF8.GetString(stream.ToArray()).Replace("\r\n", "\n", StringComparison.Ordinal) + "\n";
-    }
+    public static void Write(TextWriter writer, BacktestResult result, BacktestCalibration? calibration = null) =>
+        writer.Write(JsonText.Build(json => Metrics(json, result, calibration)));
 
     private static void Metrics(Utf8JsonWriter json, BacktestResult r, BacktestCalibration? calibration)
     {
@@ -41,9 +29,9 @@ internal static class BacktestJson
         json.WriteNumber("hac_lag", r.HacLag);
 
         json.WriteStartArray("forecasters");
-        foreach (var m in r.Metrics)
+        foreach (var row in ForecasterTable.Rows(r))
         {
-            Row(json, m, r.Forecasts.FirstOrDefault(f => f.Spec == m.Spec));
+            ForecasterTable.Definition.WriteJson(json, row);
         }
 
         json.WriteEndArray();
@@ -172,45 +160,6 @@ internal static class BacktestJson
         json.WriteEndObject();
     }
 
-    private static void Row(Utf8JsonWriter json, ForecasterMetrics m, ForecastSeries? series)
-    {
-        var l = m.Losses;
-        var mz = m.MincerZarnowitz;
-        var dm = m.VersusImplied;
-        var enc = m.Encompassing;
-        json.WriteStartObject();
-        json.WriteString("forecaster", m.Spec);
-        json.WriteString("kind", MetricsCsv.Kind(m.Kind));
-        json.WriteNumber("n", l?.Count ?? 0);
-        json.WriteNumber("missing", m.MissingForecasts);
-        Numbers.Write(json, "bias", l?.Bias);
-        Numbers.Write(json, "mae_vol", l?.MaeVolatility);
-        Numbers.Write(json, "rmse_vol", l?.RmseVolatility);
-        Numbers.Write(json, "mse_var", l?.MseVariance);
-        Numbers.Write(json, "qlike", l?.Qlike);
-        Numbers.Write(json, "mz_a", mz?.Intercept);
-        Numbers.Write(json, "mz_b", mz?.Slope);
-        Numbers.Write(json, "mz_a_se", mz?.InterceptStandardError);
-        Numbers.Write(json, "mz_b_se", mz?.SlopeStandardError);
-        Numbers.Write(json, "mz_r2", mz?.RSquared);
-        Numbers.Write(json, "mz_wald", mz?.Wald);
-        Numbers.Write(json, "mz_wald_p", mz?.WaldPValue);
-        Numbers.Write(json, "dm_n", dm?.Count);
-        Numbers.Write(json, "dm_qlike_stat", dm?.Qlike?.Statistic);
-        Numbers.Write(json, "dm_qlike_p", dm?.Qlike?.PValue);
-        Numbers.Write(json, "dm_mse_stat", dm?.MseVariance?.Statistic);
-        Numbers.Write(json, "dm_mse_p", dm?.MseVariance?.PValue);
-        Numbers.Write(json, "enc_implied_b", enc?.ImpliedSlope);
-        Numbers.Write(json, "enc_forecast_c", enc?.ForecastSlope);
-        Numbers.Write(json, "enc_forecast_c_se", enc?.ForecastStandardError);
-        Numbers.Write(json, "enc_forecast_c_p", enc?.ForecastPValue);
-        Numbers.Write(json, "mcs_p", m.McsPValue);
-        Numbers.Write(json, "in_mcs", m.InMcs);
-        Numbers.Write(json, "refits", series?.Counts.Refits);
-        Numbers.Write(json, "failed_fits", series?.Counts.FailedFits);
-        json.WriteEndObject();
-    }
-
     private static void Pair(Utf8JsonWriter json, PairComparison p)
     {
         json.WriteStartObject();
@@ -287,99 +236,4 @@ internal static class BacktestJson
 
         json.WriteEndObject();
     }
-
-    private static void Run(Utf8JsonWriter json, BacktestResult r, BacktestRunInfo run)
-    {
-        var s = r.Settings;
-        json.WriteStartObject();
-        json.WriteString("tool", "volcast");
-        json.WriteString("version", run.ToolVersion);
-        json.WriteString("started_utc", run.StartedUtc.ToUniversalTime().ToString("O", CultureInfo.InvariantCulture));
-        json.WriteString("finished_utc", run.FinishedUtc.ToUniversalTime().ToString("O", CultureInfo.InvariantCulture));
-        json.WriteStartArray("inputs");
-        foreach (var input in run.Inputs)
-        {
-            json.WriteStartObject();
-            json.WriteString("role", input.Role);
-            json.WriteString("path", input.Path);
-            json.WriteString("sha256", input.Sha256);
-            json.WriteEndObject();
-        }
-
-        json.WriteEndArray();
-        if (run.ImpliedUnit is null)
-        {
-            json.WriteNull("implied_unit");
-        }
-        else
-        {
-            json.WriteString("implied_unit", run.ImpliedUnit);
-        }
-
-        json.WriteStartObject("settings");
-        if (s.Horizon.TradingDays is int h)
-        {
-            json.WriteNumber("horizon", h);
-            json.WriteNull("tenor");
-        }
-        else
-        {
-            json.WriteNull("horizon");
-            json.WriteString("tenor", s.Horizon.ToString());
-        }
-
-        json.WriteNumber("nominal_horizon_days", s.Horizon.NominalDays);
-        WriteDate(json, "start", s.Start);
-        WriteDate(json, "end", s.End);
-        json.WriteString("first_forecast_date", r.Dates[0].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
-        json.WriteString("last_forecast_date", r.Dates[^1].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
-        Strings(json, "forecasters", s.Forecasters);
-        json.WriteBoolean("sweep", s.Sweep);
-        Strings(json, "sweepEstimators", s.SweepEstimators.Select(Core.Estimators.EstimatorNames.Name));
-        json.WriteStartArray("sweepLookbacks");
-        foreach (var w in s.SweepLookbacks)
-        {
-            json.WriteNumberValue(w);
-        }
-
-        json.WriteEndArray();
-        json.WriteStartArray("ewmaLambdas");
-        foreach (var l in s.EwmaLambdas)
-        {
-            json.WriteNumberValue(l);
-        }
-
-        json.WriteEndArray();
-        json.WriteNumber("selectionWindowDays", s.SelectionWindowDays);
-        json.WriteStartObject("mcs");
-        json.WriteNumber("replications", s.McsReplications);
-        json.WriteNumber("alpha", s.McsAlpha);
-        Numbers.Write(json, "blockLength", s.McsBlockLength);
-        json.WriteNumber("seed", s.McsSeed);
-        json.WriteEndObject();
-        json.WriteNumber("ruleThreshold", s.RuleThreshold);
-        Numbers.Write(json, "ruleForecaster", s.RuleForecaster);
-        Numbers.Write(json, "ruleHistorical", s.RuleHistorical);
-        Numbers.Write(json, "baseline", s.Baseline);
-        Numbers.Write(json, "candidate", s.Candidate);
-        json.WriteNumber("annualizationFactor", s.AnnualizationFactor);
-        json.WriteString("target", Config.BacktestConfigFile.TargetNames[(int)s.Target]);
-        json.WriteEndObject();
-        Strings(json, "input_warnings", run.InputWarnings);
-        json.WriteEndObject();
-    }
-
-    private static void Strings(Utf8JsonWriter json, string name, IEnumerable<string> values)
-    {
-        json.WriteStartArray(name);
-        foreach (var v in values)
-        {
-            json.WriteStringValue(v);
-        }
-
-        json.WriteEndArray();
-    }
-
-    private static void WriteDate(Utf8JsonWriter json, string name, DateOnly? date) =>
-        Numbers.Write(json, name, date?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
 }

@@ -1,6 +1,7 @@
 using System.Globalization;
+using VolCast.IO.Results;
 
-namespace VolCast.IO.Results;
+namespace VolCast.IO.Csv;
 
 /// <summary>Writes a scan's summary.csv: one row per asset, in name order, invariant culture, empty cells where undefined.</summary>
 public static class ScanSummaryCsv
@@ -26,18 +27,18 @@ public static class ScanSummaryCsv
         {
             string[] cells =
             [
-                Numbers.Field(r.Name),
+                CsvText.Text(r.Name),
                 r.Succeeded ? "done" : "failed",
                 r.HasImplied ? "yes" : "no (forecasters ranked among themselves)",
-                Numbers.Csv(r.Dates),
-                Numbers.Field(r.BestQlike ?? string.Empty),
-                Numbers.Csv(r.BestQlikeValue),
-                Numbers.Csv(r.BestDmStatistic),
-                Numbers.Csv(r.BestDmPValue),
-                Numbers.Field(string.Join(';', r.McsMembers)),
-                Numbers.Field(string.Join(';', r.Lookbacks.Select(Lookback))),
-                Numbers.Csv(r.MeanPremium),
-                Numbers.Field(r.Error ?? string.Empty),
+                CsvText.Integer(r.Dates),
+                CsvText.Text(r.BestQlike ?? string.Empty),
+                CsvText.Number(r.BestQlikeValue),
+                CsvText.Number(r.BestDmStatistic),
+                CsvText.Number(r.BestDmPValue),
+                CsvText.Text(string.Join(';', r.McsMembers)),
+                CsvText.Text(string.Join(';', r.Lookbacks.Select(Lookback))),
+                CsvText.Number(r.MeanPremium),
+                CsvText.Text(r.Error ?? string.Empty),
             ];
             writer.Write(string.Join(',', cells));
             writer.Write('\n');

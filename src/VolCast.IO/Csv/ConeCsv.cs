@@ -1,7 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Cone;
 
-namespace VolCast.Reports.Tables;
+namespace VolCast.IO.Csv;
 
 /// <summary>Writes a volatility cone as CSV: one row per horizon, unadjusted and adjusted percentiles, decimals.</summary>
 public static class ConeCsv

@@ -1,7 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Calibration;
 
-namespace VolCast.IO.Results;
+namespace VolCast.IO.Csv;
 
 /// <summary>Writes <c>calibration.csv</c>: one row per forecaster, moneyness and probability bin.</summary>
 /// <remarks>
@@ -32,7 +32,7 @@ public static class CalibrationCsv
         foreach (var c in calibrations)
         {
             ArgumentNullException.ThrowIfNull(c);
-            var name = CalibrationCsvText.Field(c.Forecaster);
+            var name = CsvText.Text(c.Forecaster);
             if (c.Strikes.IsDefaultOrEmpty)
             {
                 writer.Write(string.Create(CultureInfo.InvariantCulture, $"{name},{c.HorizonDays},,{c.Count},{c.MissingCount},,,,,,,,,,,,,,,,,,,\n"));
@@ -48,7 +48,7 @@ public static class CalibrationCsv
                 {
                     writer.Write(strike);
                     writer.Write(string.Create(CultureInfo.InvariantCulture,
-                        $",{b.Index},{b.Lower:R},{b.Upper:R},{b.Count},{b.EffectiveCount:R},{CalibrationCsvText.Number(b.MeanPredicted)},{CalibrationCsvText.Number(b.ObservedFrequency)},{CalibrationCsvText.Number(b.IntervalLower)},{CalibrationCsvText.Number(b.IntervalUpper)}\n"));
+                        $",{b.Index},{b.Lower:R},{b.Upper:R},{b.Count},{b.EffectiveCount:R},{CsvText.Number(b.MeanPredicted)},{CsvText.Number(b.ObservedFrequency)},{CsvText.Number(b.IntervalLower)},{CsvText.Number(b.IntervalUpper)}\n"));
                 }
             }
         }
