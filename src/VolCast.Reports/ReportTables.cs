@@ -1,6 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
 using VolCast.Core.Scoring;
+using VolCast.IO.Tables;
 using VolCast.Reports.Model;
 
 namespace VolCast.Reports;
@@ -75,21 +76,22 @@ internal static class ReportTables
         var rows = new List<MetricRow>();
         foreach (var m in ordered)
         {
-            var l = m.Losses;
-            var dm = m.VersusImplied?.Qlike;
+            // The values come from the forecaster table's columns (the columns of metrics.csv and metrics.json), scaled for display.
+            var row = new ForecasterRow(m, result.Forecasts.FirstOrDefault(f => f.Spec == m.Spec));
+            double? V(string column) => ForecasterTable.Definition[column].Value(row).NumberValue;
             var label = m.InMcs == true ? m.Spec + " ✓" : m.Spec;
             rows.Add(new MetricRow(label,
             [
-                new MetricCell(l?.Count, "0"),
-                new MetricCell(l?.Qlike, "0.0000"),
-                new MetricCell(l?.MseVariance * 1e3, "0.000"),
-                new MetricCell(l?.RmseVolatility * 100, "0.00"),
-                new MetricCell(l?.Bias * 100, "0.00"),
-                new MetricCell(dm?.Statistic, "0.00", Stars(dm?.PValue)),
-                new MetricCell(m.MincerZarnowitz?.Slope, "0.000", Stars(m.MincerZarnowitz?.WaldPValue)),
-                new MetricCell(m.MincerZarnowitz?.RSquared, "0.000"),
-                new MetricCell(m.Encompassing?.ForecastSlope, "0.000", Stars(m.Encompassing?.ForecastPValue)),
-                new MetricCell(m.McsPValue, "0.000"),
+                new MetricCell(m.Losses is null ? null : V("n"), "0"),
+                new MetricCell(V("qlike"), "0.0000"),
+                new MetricCell(V("mse_var") * 1e3, "0.000"),
+                new MetricCell(V("rmse_vol") * 100, "0.00"),
+                new MetricCell(V("bias") * 100, "0.00"),
+                new MetricCell(V("dm_qlike_stat"), "0.00", Stars(V("dm_qlike_p"))),
+                new MetricCell(V("mz_b"), "0.000", Stars(V("mz_wald_p"))),
+                new MetricCell(V("mz_r2"), "0.000"),
+                new MetricCell(V("enc_forecast_c"), "0.000", Stars(V("enc_forecast_c_p"))),
+                new MetricCell(V("mcs_p"), "0.000"),
             ]));
         }
 

@@ -7,7 +7,7 @@ namespace VolCast.IO.Tables;
 /// test. metrics.csv is this table; each element of <c>forecasters</c> in metrics.json is one of its rows, with the
 /// same keys in the same order. The dm_* and enc_* columns are versus implied.
 /// </summary>
-internal static class ForecasterTable
+public static class ForecasterTable
 {
     private const string Vol = "decimal annualized volatility";
     private const string Variance = "annualized variance";
