@@ -3,8 +3,8 @@ using System.Text.Json;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Cone;
-using VolCast.Core.Demo;
 using VolCast.Core.Data;
+using VolCast.Core.Demo;
 using VolCast.IO.Csv;
 using VolCast.IO.Results;
 

@@ -3,10 +3,10 @@ using System.Globalization;
 using VolCast.Core.Cone;
 using VolCast.Core.Data;
 using VolCast.IO;
+using VolCast.IO.Csv;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Html;
 using VolCast.Reports.Model;
-using VolCast.IO.Csv;
 
 namespace VolCast.Cli.Commands;
 

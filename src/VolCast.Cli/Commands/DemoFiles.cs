@@ -1,7 +1,7 @@
 using VolCast.Core.Demo;
 using VolCast.IO;
-using VolCast.IO.Quotes;
 using VolCast.IO.Csv;
+using VolCast.IO.Quotes;
 
 namespace VolCast.Cli.Commands;
 

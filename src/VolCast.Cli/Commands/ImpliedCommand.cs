@@ -1,8 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
 using VolCast.Core.Options;
-using VolCast.IO.Quotes;
 using VolCast.IO.Csv;
+using VolCast.IO.Quotes;
 
 namespace VolCast.Cli.Commands;
 

@@ -1,9 +1,9 @@
 using System.Globalization;
 using System.Text;
 using VolCast.Core.Scoring;
+using VolCast.IO.Csv;
 using VolCast.IO.Results;
 using VolCast.IO.Tables;
-using VolCast.IO.Csv;
 using VolCast.Reports.Html;
 using VolCast.Reports.Model;
 

@@ -1,8 +1,8 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using VolCast.Core.Options;
-using VolCast.IO.Quotes;
 using VolCast.IO.Csv;
+using VolCast.IO.Quotes;
 
 namespace VolCast.IO.Tests.Quotes;
 

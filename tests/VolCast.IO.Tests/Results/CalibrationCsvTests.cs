@@ -1,7 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Calibration;
-using VolCast.IO.Results;
 using VolCast.IO.Csv;
+using VolCast.IO.Results;
 
 namespace VolCast.IO.Tests.Results;
 
