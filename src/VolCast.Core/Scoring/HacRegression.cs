@@ -28,12 +28,12 @@ public static class HacRegression
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(columnCount, 1);
         var n = y.Length;
-        ScoringGuard.SameLength(n * columnCount, design.Length, "y (times the column count)", nameof(design));
-        ScoringGuard.AtLeast(n, columnCount + 1, nameof(y), string.Create(CultureInfo.InvariantCulture, $"(more than the {columnCount} regressors)"));
-        ScoringGuard.Lag(lag, n, nameof(lag));
+        Preconditions.SameLength(design.Length, n * columnCount, "y (times the column count)", nameof(design));
+        Preconditions.CountAtLeast(n, columnCount + 1, string.Create(CultureInfo.InvariantCulture, $"(more than the {columnCount} regressors)"), nameof(y));
+        Preconditions.Between(lag, 0, n - 1, "the number of observations minus one");
         for (var i = 0; i < design.Length; i++)
         {
-            ScoringGuard.Finite(design[i], nameof(design), i);
+            Preconditions.FiniteAt(design[i], i, nameof(design));
         }
 
         var k = columnCount;

@@ -30,7 +30,7 @@ public static class NeweyWest
     /// <exception cref="ArgumentOutOfRangeException">An argument is below 1.</exception>
     public static int LagForHorizon(int sampleSize, int horizonDays)
     {
-        ScoringGuard.Horizon(horizonDays, nameof(horizonDays));
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
         return Math.Min(Math.Max(AutomaticLag(sampleSize), horizonDays - 1), sampleSize - 1);
     }
 
@@ -50,8 +50,8 @@ public static class NeweyWest
     /// <exception cref="ArgumentOutOfRangeException">The lag is out of range or a value is not finite.</exception>
     public static double Autocovariance(ReadOnlySpan<double> series, int j)
     {
-        ScoringGuard.AtLeast(series.Length, 1, nameof(series), "to estimate an autocovariance");
-        ScoringGuard.Lag(j, series.Length, nameof(j));
+        Preconditions.CountAtLeast(series.Length, 1, "to estimate an autocovariance", nameof(series));
+        Preconditions.Between(j, 0, series.Length - 1, "the number of observations minus one");
         return AutocovarianceCore(series, Mean(series, nameof(series)), j);
     }
 
@@ -67,8 +67,8 @@ public static class NeweyWest
     /// <exception cref="ArgumentOutOfRangeException">The lag is out of range or a value is not finite.</exception>
     public static double LongRunVariance(ReadOnlySpan<double> series, int lag, LongRunVarianceWindow window = LongRunVarianceWindow.Bartlett)
     {
-        ScoringGuard.AtLeast(series.Length, 1, nameof(series), "to estimate a long-run variance");
-        ScoringGuard.Lag(lag, series.Length, nameof(lag));
+        Preconditions.CountAtLeast(series.Length, 1, "to estimate a long-run variance", nameof(series));
+        Preconditions.Between(lag, 0, series.Length - 1, "the number of observations minus one");
         var mean = Mean(series, nameof(series));
         var sum = AutocovarianceCore(series, mean, 0);
         for (var j = 1; j <= lag; j++)
@@ -154,7 +154,7 @@ public static class NeweyWest
         var sum = 0.0;
         for (var t = 0; t < series.Length; t++)
         {
-            ScoringGuard.Finite(series[t], paramName, t);
+            Preconditions.FiniteAt(series[t], t, paramName);
             sum += series[t];
         }
 

@@ -27,6 +27,6 @@ public sealed class ReturnsTests
     public void LogReturns_DestinationTooShort_Throws()
     {
         var ex = Assert.Throws<ArgumentException>(() => Returns.LogReturns([1.0, 2.0, 3.0], new double[1]));
-        Assert.Contains("must hold 2 returns", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("must hold at least 2 returns", ex.Message, StringComparison.Ordinal);
     }
 }
