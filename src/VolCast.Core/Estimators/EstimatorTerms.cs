@@ -10,7 +10,7 @@ namespace VolCast.Core.Estimators;
 /// </summary>
 /// <remarks>
 /// <para>
-/// Conventions (references.md §1–4 and §16). A window of N at history index t uses bars t − N + 1 .. t.
+/// Conventions (docs/methods.md#parkinson to #yang-zhang and docs/methods.md#close-to-close-and-annualisation). A window of N at history index t uses bars t − N + 1 .. t.
 /// All values are daily variances (not annualized).
 /// </para>
 /// <list type="bullet">

@@ -5,7 +5,7 @@ namespace VolCast.Core.Scoring;
 
 /// <summary>
 /// The Diebold-Mariano (1995) test of equal predictive accuracy with the Harvey-Leybourne-Newbold (1997)
-/// correction (references.md §8).
+/// correction (docs/methods.md#diebold-mariano).
 /// </summary>
 /// <remarks>
 /// <para>

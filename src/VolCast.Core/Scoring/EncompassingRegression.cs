@@ -4,7 +4,7 @@ namespace VolCast.Core.Scoring;
 
 /// <summary>
 /// The forecast-encompassing regression on variance, RV² = a + b IV² + c F² + e, with Newey-West (Bartlett, no
-/// prewhitening, divisor T) standard errors (references.md §10): implied encompasses the forecast when c = 0.
+/// prewhitening, divisor T) standard errors (docs/methods.md#mincer-zarnowitz-and-encompassing): implied encompasses the forecast when c = 0.
 /// </summary>
 public static class EncompassingRegression
 {

@@ -10,7 +10,7 @@ namespace VolCast.Core.Scoring;
 /// </summary>
 /// <remarks>
 /// V̂ = T (X′X)⁻¹ Ŝ (X′X)⁻¹ with Ŝ = Γ̂_0 + Σ_{j=1..L} w_j (Γ̂_j + Γ̂_j′), Γ̂_j = (1/T) Σ_t g_t g_{t−j}′ and
-/// g_t = x_t ê_t (references.md §9). This is the covariance a sandwich estimator gives with lag L, prewhitening
+/// g_t = x_t ê_t (docs/methods.md#newey-west). This is the covariance a sandwich estimator gives with lag L, prewhitening
 /// off and adjustment off.
 /// </remarks>
 public static class HacRegression

@@ -1,7 +1,7 @@
 namespace VolCast.Core.Scoring;
 
 /// <summary>
-/// Per-observation and mean losses of volatility forecasts against realized volatility (references.md §7,
+/// Per-observation and mean losses of volatility forecasts against realized volatility (docs/methods.md#losses,
 /// Patton 2011). Inputs are aligned spans of annualized volatilities as decimals: realized RV_t and forecast F_t.
 /// </summary>
 /// <remarks>

@@ -4,7 +4,7 @@ namespace VolCast.Core.Scoring;
 
 /// <summary>
 /// The Mincer-Zarnowitz regression on the variance scale, RV² = a + b F² + e, with Newey-West (Bartlett, no
-/// prewhitening, divisor T) standard errors and the Wald χ²(2) test of a = 0, b = 1 (references.md §10).
+/// prewhitening, divisor T) standard errors and the Wald χ²(2) test of a = 0, b = 1 (docs/methods.md#mincer-zarnowitz-and-encompassing).
 /// </summary>
 /// <remarks>
 /// The variance scale is used because a log-scale regression is biased by Jensen's inequality. For overlapping

@@ -5,7 +5,7 @@ using System.Numerics;
 namespace VolCast.Core.Scoring;
 
 /// <summary>
-/// The model confidence set of Hansen, Lunde and Nason (2011) (references.md §14): starting from all models, test
+/// The model confidence set of Hansen, Lunde and Nason (2011) (docs/methods.md#model-confidence-set): starting from all models, test
 /// equal predictive ability with a block-bootstrap statistic, eliminate the worst model while the test rejects,
 /// and report each model's MCS p-value and whether it is in the (1 − α) set.
 /// </summary>

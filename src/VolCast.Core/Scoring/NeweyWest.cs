@@ -2,7 +2,7 @@ namespace VolCast.Core.Scoring;
 
 /// <summary>
 /// Newey-West heteroskedasticity- and autocorrelation-consistent (HAC) variances: the scalar long-run variance
-/// of a series and the lag-length rules (references.md §9).
+/// of a series and the lag-length rules (docs/methods.md#newey-west).
 /// </summary>
 /// <remarks>
 /// Autocovariances are γ̂_j = (1/T) Σ_{t=j+1..T} (x_t − x̄)(x_{t−j} − x̄): the mean is removed and the divisor is
@@ -11,7 +11,7 @@ namespace VolCast.Core.Scoring;
 /// </remarks>
 public static class NeweyWest
 {
-    /// <summary>Gets the automatic lag L = floor(4 (T/100)^(2/9)) (references.md §9).</summary>
+    /// <summary>Gets the automatic lag L = floor(4 (T/100)^(2/9)) (docs/methods.md#newey-west).</summary>
     /// <param name="sampleSize">Number of observations T, at least 1.</param>
     /// <returns>The lag.</returns>
     /// <exception cref="ArgumentOutOfRangeException"><paramref name="sampleSize"/> is below 1.</exception>
