@@ -1,6 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
+using VolCast.Core.Data;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Model;
 
@@ -88,7 +89,7 @@ internal static class ReportOdds
         var names = new List<string>();
         if (result.HasImplied)
         {
-            names.Add("implied");
+            names.Add(ImpliedSeries.Name);
         }
 
         names.AddRange(ReportSeries.Leading(result));
@@ -115,7 +116,7 @@ internal static class ReportOdds
         var names = new List<string>();
         if (result.HasImplied)
         {
-            names.Add("implied");
+            names.Add(ImpliedSeries.Name);
         }
 
         names.AddRange(ReportSeries.Leading(result).Take(3 - names.Count));

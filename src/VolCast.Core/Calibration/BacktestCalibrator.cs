@@ -41,7 +41,7 @@ public static class BacktestCalibrator
         var odds = ImmutableArray.CreateBuilder<ForecasterOdds>(result.Forecasts.Length + 1);
         if (result.HasImplied)
         {
-            odds.Add(Score(aligned.Outcomes, Pick(aligned, "implied", result.Implied, out var bad), options, regimeValues, bad));
+            odds.Add(Score(aligned.Outcomes, Pick(aligned, ImpliedSeries.Name, result.Implied, out var bad), options, regimeValues, bad));
         }
 
         foreach (var series in result.Forecasts)
@@ -107,7 +107,7 @@ public static class BacktestCalibrator
         {
             var k = aligned.DateIndices[i];
             var v = k < values.Length ? values[k] : null;
-            if (v is { } x && !(double.IsFinite(x) && x > 0))
+            if (v is not null && !Preconditions.IsPositive(v))
             {
                 invalid++;
                 v = null;

@@ -1,4 +1,5 @@
 using VolCast.Core.Backtest;
+using VolCast.Core.Data;
 
 namespace VolCast.IO.Tables;
 
@@ -60,7 +61,7 @@ public static class ForecasterTable
     /// <returns><c>implied</c>, <c>adaptive</c> or <c>configured</c>.</returns>
     public static string Kind(ForecastKind kind) => kind switch
     {
-        ForecastKind.Implied => "implied",
+        ForecastKind.Implied => ImpliedSeries.Name,
         ForecastKind.Adaptive => "adaptive",
         _ => "configured",
     };
