@@ -152,6 +152,7 @@ public static class DataSnooping
     {
         var estimates = new double[rules];
         var prefix = BlockSums.RentPrefix(days, rules);
+        var scale = 0.0;
         try
         {
             for (var k = 0; k < rules; k++)
@@ -161,6 +162,7 @@ public static class DataSnooping
                 for (var t = 0; t < row.Length; t++)
                 {
                     sum += row[t];
+                    scale = Math.Max(scale, Math.Abs(row[t]));
                 }
 
                 estimates[k] = sum / days;
@@ -181,7 +183,7 @@ public static class DataSnooping
                 }
             }
 
-            return SnoopingInference.Run(SnoopingMeasure.MeanDifference, days, estimates, deviations, draws, level);
+            return SnoopingInference.Run(SnoopingMeasure.MeanDifference, days, estimates, deviations, draws, level, scale);
         }
         finally
         {
@@ -264,7 +266,7 @@ public static class DataSnooping
                 }
             }
 
-            return SnoopingInference.Run(SnoopingMeasure.SharpeDifference, days, estimates, deviations, draws, level);
+            return SnoopingInference.Run(SnoopingMeasure.SharpeDifference, days, estimates, deviations, draws, level, 1.0);
         }
         finally
         {

@@ -15,7 +15,8 @@ internal static class SnoopingInference
     /// <param name="deviations">θ̂*_k,b − θ̂_k, row-major B × K; rows of rules without variation are set to zero.</param>
     /// <param name="draws">The bootstrap draws (for B, L and the seed).</param>
     /// <param name="level">StepM's familywise error rate.</param>
-    public static DataSnoopingResult Run(SnoopingMeasure measure, int days, double[] estimates, double[] deviations, StationaryBootstrapDraws draws, double level)
+    /// <param name="scale">Size of the values the estimates come from (the largest |d|, or 1 for Sharpe ratios): below 1e-12 of it a bootstrap standard deviation is rounding.</param>
+    public static DataSnoopingResult Run(SnoopingMeasure measure, int days, double[] estimates, double[] deviations, StationaryBootstrapDraws draws, double level, double scale)
     {
         var rules = estimates.Length;
         var replications = draws.Replications;
@@ -41,7 +42,7 @@ internal static class SnoopingInference
 
         // A rule whose difference from the benchmark is a constant has no bootstrap variation (only rounding): it takes
         // no part in the studentized statistics, and its deviations are set to exactly zero.
-        var floor = 1e-10 * largest;
+        var floor = Math.Max(1e-10 * largest, 1e-12 * scale);
         var inverse = new double[rules];
         var tStatistics = new double?[rules];
         var varying = 0;
