@@ -29,13 +29,15 @@ public static class StationaryBootstrap
 
         var random = new Random(seed);
         var logStay = meanBlockLength > 1 ? Math.Log(1.0 - (1.0 / meanBlockLength)) : 0.0;
-        var expected = (int)Math.Min(int.MaxValue / 2, (replications * ((length / meanBlockLength) + 2.0)) + 16);
-        var starts = new List<int>(expected);
-        var lengths = new List<int>(expected);
+        // Sized for the expected number of blocks, B·(T/L + 1), with room to spare; grown only if the draws run long.
+        var capacity = (int)Math.Min(Array.MaxLength, (replications * ((length / meanBlockLength) + 2.0)) + 64);
+        var starts = new int[capacity];
+        var lengths = new int[capacity];
         var offsets = new int[replications + 1];
+        var count = 0;
         for (var b = 0; b < replications; b++)
         {
-            offsets[b] = starts.Count;
+            offsets[b] = count;
             var filled = 0;
             while (filled < length)
             {
@@ -48,13 +50,21 @@ public static class StationaryBootstrap
                 }
 
                 blockLength = Math.Min(blockLength, length - filled);
-                starts.Add(start);
-                lengths.Add(blockLength);
+                if (count == starts.Length)
+                {
+                    var grown = (int)Math.Min(Array.MaxLength, (long)count * 2);
+                    Array.Resize(ref starts, grown);
+                    Array.Resize(ref lengths, grown);
+                }
+
+                starts[count] = start;
+                lengths[count] = blockLength;
+                count++;
                 filled += blockLength;
             }
         }
 
-        offsets[replications] = starts.Count;
-        return new StationaryBootstrapDraws(length, meanBlockLength, seed, [.. starts], [.. lengths], offsets);
+        offsets[replications] = count;
+        return new StationaryBootstrapDraws(length, meanBlockLength, seed, starts, lengths, offsets);
     }
 }

@@ -76,7 +76,10 @@ public sealed class StationaryBootstrapDraws
         }
     }
 
-    /// <summary>Gets the blocks of all replications: starts, lengths and each replication's first block (B + 1 offsets).</summary>
+    /// <summary>
+    /// Gets the blocks of all replications: starts, lengths and each replication's first block (B + 1 offsets; the
+    /// arrays may be longer than the last offset).
+    /// </summary>
     internal (int[] Starts, int[] Lengths, int[] Offsets) Blocks => (_starts, _lengths, _offsets);
 
     private void CheckReplication(int replication)
