@@ -66,10 +66,12 @@ internal static class DeltaHedge
             if (paths)
             {
                 var owed = (premium * carry) - hedgePnl;
-                markValue[t] = (Value(option, spots[t], strike, remaining, markVolatility[t], rate, dividendYield) * toExpiry) - owed;
                 entryVolValue[t] = t == 0
                     ? (premium * toExpiry) - owed
                     : (Value(option, spots[t], strike, remaining, priceVolatility, rate, dividendYield) * toExpiry) - owed;
+                markValue[t] = markVolatility[t] == priceVolatility
+                    ? entryVolValue[t]
+                    : (Value(option, spots[t], strike, remaining, markVolatility[t], rate, dividendYield) * toExpiry) - owed;
                 notional[t] = traded;
             }
 
