@@ -21,6 +21,8 @@ namespace VolCast.Core.Trading;
 /// rules use the same dates, so always-sell trades on every one of them. The walk-forward threshold on date f is the
 /// sweep threshold whose every-signal trades (proposed forecaster, configured sides) that had expired by f earned the
 /// most in total net P&amp;L; before any has expired, and on ties, the sweep threshold nearest the configured one.</para>
+/// <para>Hedging at the forecast (<see cref="HedgeVolatility.Forecast"/>) uses each rule's own forecaster; always-sell
+/// and the walk-forward threshold use the proposed rule's, and a date with a forecast of zero cannot fire.</para>
 /// <para>Units: P&amp;L in vol points of entry vega (a trade sized to one vol point of vega); ladders weight each trade
 /// 1/h with h the horizon's nominal trading days; annualized with <see cref="TradingSettings.AnnualizationDays"/>.
 /// Daily-path tests use a Newey-West lag of h, the test of mean trade P&amp;L a lag of 2 trades.</para>
@@ -50,12 +52,12 @@ public static class RuleBacktest
         ArgumentNullException.ThrowIfNull(settings);
         settings.Validate();
         var n = prices.Count;
-        var iv = Checked(implied, n, nameof(implied));
+        var iv = Checked(implied, n, nameof(implied), TradingGuard.Volatility);
         RuleForecast[] forecasts = [proposed, current, historical];
         var series = new double?[3][];
         for (var k = 0; k < 3; k++)
         {
-            series[k] = Checked(forecasts[k].Values, n, forecasts[k].Spec);
+            series[k] = Checked(forecasts[k].Values, n, forecasts[k].Spec, TradingGuard.Forecast);
         }
 
         if (horizon.TradingDays is < 2 || horizon.NominalDays < 2)
@@ -71,8 +73,9 @@ public static class RuleBacktest
         for (var f = 0; f + lag < n; f++)
         {
             var e = f + lag;
+            var hedgeable = settings.HedgeVolatility == HedgeVolatility.Implied || (series[0][f] > 0 && series[1][f] > 0 && series[2][f] > 0);
             if (iv[f] is not null && iv[e] is not null && series[0][f] is not null && series[1][f] is not null && series[2][f] is not null
-                && windows.WindowDays[e] >= 2)
+                && windows.WindowDays[e] >= 2 && hedgeable)
             {
                 firing.Add(f);
             }
@@ -285,7 +288,7 @@ public static class RuleBacktest
 
     private static string SidesName(RuleSides sides) => sides == RuleSides.Both ? "both" : "sell-only";
 
-    private static double?[] Checked(IReadOnlyList<double?> values, int n, string name)
+    private static double?[] Checked(IReadOnlyList<double?> values, int n, string name, Action<double?, string, int> check)
     {
         if (values.Count != n)
         {
@@ -296,7 +299,7 @@ public static class RuleBacktest
         var result = new double?[n];
         for (var i = 0; i < n; i++)
         {
-            TradingGuard.Volatility(values[i], name, i);
+            check(values[i], name, i);
             result[i] = values[i];
         }
 

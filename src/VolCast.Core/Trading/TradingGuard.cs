@@ -28,6 +28,16 @@ internal static class TradingGuard
         }
     }
 
+    /// <summary>Checks a forecast at a date of an aligned series: finite, zero or above (flat prices forecast zero), at most <see cref="MaximumVolatility"/>.</summary>
+    public static void Forecast(double? value, string paramName, int index)
+    {
+        if (value is double v && (!double.IsFinite(v) || v < 0 || v > MaximumVolatility))
+        {
+            throw new ArgumentOutOfRangeException(paramName, v, string.Create(CultureInfo.InvariantCulture,
+                $"{paramName}[{index}] must be a forecast volatility between 0 and {MaximumVolatility} (decimal: 0.20 = 20%), or absent, was {v}."));
+        }
+    }
+
     /// <summary>Checks a continuous rate or yield: finite and between −1 and 1 (−100% to 100% a year).</summary>
     public static void Rate(double value, string paramName)
     {

@@ -43,7 +43,8 @@ public sealed class DeltaHedgeReferenceTests(ITestOutputHelper output)
             }
 
             var outcome = DeltaHedge.Run(HedgedOption.Call, spots, years, k, sigma, sigma, r, 0, default, default, default, default);
-            // The writer's present cost of writing and hedging: premium received back out, plus the long P&L discounted.
+            // The writer's cost of writing and hedging in present value is the premium minus the writer's P&L
+            // discounted, so its spread is that of the long position's P&L discounted to today.
             costs[p] = outcome.GrossPnl * Math.Exp(-r * expiry);
         }
 

@@ -1,4 +1,5 @@
 using VolCast.Core.Data;
+using VolCast.Core.Options;
 using VolCast.Core.Trading;
 
 namespace VolCast.Core.Tests.Trading;
@@ -102,6 +103,22 @@ public sealed class StraddleTraderTests
         Assert.Equal(shortTrade.GrossPnl - shortTrade.Costs, shortTrade.Pnl, 14);
         // Half-spread of 0.25 vol points at r = 0 costs exactly 0.25 vol points of a vega-sized trade.
         Assert.Equal(0.25, longTrade.OptionCost / longTrade.VegaPerVolPoint, 12);
+    }
+
+    [Theory]
+    [InlineData(100, 100, 30 / 365.0, 0.2, 0.0, 0.0)]
+    [InlineData(87, 100, 0.5, 0.45, 0.05, 0.02)]
+    [InlineData(130, 100, 2.0, 0.1, -0.01, 0.03)]
+    public void Straddle_OneD1Form_EqualsCallPlusPutAndTheirDeltas(double s, double k, double tau, double sigma, double r, double q)
+    {
+        // The fused daily form must equal the call and put of the tested pricing class (Black-Scholes-Merton with a yield).
+        var value = DeltaHedge.Straddle(s, k, tau, sigma, r, q, out var delta);
+        var call = BlackScholesMerton.Price(OptionType.Call, s, k, tau, sigma, r, q);
+        var put = BlackScholesMerton.Price(OptionType.Put, s, k, tau, sigma, r, q);
+        var callDelta = BlackScholesMerton.Delta(OptionType.Call, s, k, tau, sigma, r, q);
+        var putDelta = BlackScholesMerton.Delta(OptionType.Put, s, k, tau, sigma, r, q);
+        Assert.Equal(call + put, value, 1e-12 * s);
+        Assert.Equal(callDelta + putDelta, delta, 1e-13);
     }
 
     [Theory]

@@ -147,6 +147,23 @@ public sealed class TradingInvariantTests
     }
 
     [Fact]
+    public void Run_HedgeAtForecast_HedgesEachTradeAtItsFiringDateForecast()
+    {
+        // The published alternative (hedging at the volatility one expects to be realized): the deltas use the rule's
+        // forecast on the firing date; recomputed through the public trade engine.
+        var (prices, implied, proposed, current, historical) = RuleBacktestTests.Market(4, 200);
+        var result = RuleBacktest.Run(prices, implied, BacktestHorizon.Days(10), proposed, current, historical, new TradingSettings { HedgeVolatility = HedgeVolatility.Forecast });
+        var trades = result[TradingRule.Proposed].Trades;
+        Assert.NotEmpty(trades);
+        foreach (var trade in trades)
+        {
+            Assert.Equal(trade.Forecast, trade.HedgeVolatility);
+            var again = StraddleTrader.Evaluate(prices, trade.EntryIndex, trade.ExpiryIndex, trade.Side, trade.ImpliedVolatility, TradeCosts.Default, hedgeVolatility: trade.Forecast);
+            Assert.Equal(again.Pnl, trade.Pnl, 12);
+        }
+    }
+
+    [Fact]
     public void Run_WalkForwardThreshold_ChoosesFromTheSweepStartingNearestTheConfigured()
     {
         var (prices, implied, proposed, current, historical) = RuleBacktestTests.Market(8, 400);
