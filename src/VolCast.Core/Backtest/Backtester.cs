@@ -262,9 +262,7 @@ public static partial class Backtester
             var f = Lookup(named, ruleForecast);
             var h = series[historical.Spec];
             var ruleDates = scored.Where(t => Positive(impliedAt[t]) && Positive(f[t]) && Positive(h[t])).ToList();
-            var rows = RuleTest.Rows(ruleForecast, ruleDates, impliedAt, f, windows.Realized, settings.RuleThreshold, lag)
-                .AddRange(RuleTest.Rows(historical.Spec, ruleDates, impliedAt, h, windows.Realized, settings.RuleThreshold, lag));
-            rule = new RuleTestResult(settings.RuleThreshold, ruleForecast, historical.Spec, rows);
+            rule = RuleTest.Compute(settings.RuleThreshold, ruleForecast, historical.Spec, ruleDates, dates, impliedAt, f, h, windows.Realized, lag);
         }
 
         var count = last - first + 1;
