@@ -42,7 +42,7 @@ internal static class ReportTables
 
     private static MetricTable HeadToHead(BacktestResult result)
     {
-        var h = result.BaselineVersusCandidate;
+        var h = result.CandidateVersusBaseline;
         var rows = new List<MetricRow>
         {
             LossRow("candidate " + result.Candidate, h.FirstLosses),

@@ -36,7 +36,7 @@ internal static class BacktestJson
         json.WriteString("baseline", r.Baseline);
         json.WriteString("candidate", r.Candidate);
         json.WritePropertyName("comparison");
-        Pair(json, r.BaselineVersusCandidate);
+        Pair(json, r.CandidateVersusBaseline);
         json.WriteEndObject();
         json.WriteNumber("hac_lag", r.HacLag);
 
