@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using VolCast.Core.Backtest;
 using VolCast.Core.Data;
+using VolCast.Core.Estimators;
 using VolCast.Core.Forecasters;
 using VolCast.Core.Tests.Forecasters;
 using Xunit.Abstractions;
@@ -273,6 +274,44 @@ public sealed class BacktesterTests(ITestOutputHelper output)
 
         // The sweep has one best (in-sample) row per family.
         Assert.Equal(result.Adaptive.Length, result.Sweep.Count(r => r.IsBestInSample));
+    }
+
+    [Fact]
+    public void Run_RuleHistoricalNotAmongTheForecasters_ResultHoldsItsSeries()
+    {
+        // The rule's default historical estimate is close-to-close over the horizon; with horizon 10 and a list
+        // without it, the series exists only inside the rule test, which must carry it for any chart or file.
+        var prices = ForecastData.Bars(400, seed: 8);
+        var implied = ForecastData.Implied(prices);
+        var result = Backtester.Run(prices, implied, Small(10) with { Sweep = false, Forecasters = ["ewma:0.94"] });
+
+        var rule = result.RuleTest!;
+        Assert.Equal("close-to-close:10", rule.HistoricalSpec);
+        Assert.DoesNotContain(result.Forecasts, f => f.Spec == rule.HistoricalSpec);
+        Assert.True(rule.Dates.Length > 300);
+
+        // The historical series is the 10-day sample close-to-close estimate (pinned against TTR in the estimator tests).
+        var c2c = RollingVolatility.Compute(prices, Estimator.CloseToClose, 10);
+        var dates = prices.Dates.ToArray();
+        for (var i = 0; i < rule.Dates.Length; i++)
+        {
+            var t = Array.IndexOf(dates, rule.Dates[i]);
+            Assert.Equal(c2c.AnnualizedVolatility[t - c2c.FirstIndex], rule.Historical[i], 12);
+        }
+
+        // Each source's all-dates row counts every date of the series, and its mean gap is the mean of IV − RV there.
+        foreach (var source in new[] { rule.ForecastSpec, rule.HistoricalSpec })
+        {
+            var all = rule.Rows.Single(r => r.Source == source && r.Signal == RuleSignal.AllDates);
+            Assert.Equal(rule.Dates.Length, all.Count);
+            Assert.Equal(rule.Implied.Zip(rule.Realized, (iv, rv) => iv - rv).Average(), all.MeanVolatilityGap!.Value, 12);
+        }
+
+        var sell = rule.Rows.Single(r => r.Source == rule.ForecastSpec && r.Signal == RuleSignal.SellVolatility);
+        Assert.Equal(sell.Count, rule.VolatilityGaps(RuleSignal.SellVolatility).Length);
+        Assert.Equal(
+            Enumerable.Range(0, rule.Dates.Length).Count(i => rule.Implied[i] - rule.Forecast[i] > rule.ThresholdVolatility),
+            sell.Count);
     }
 
     private static long? Bits(double? value) => value is double v ? BitConverter.DoubleToInt64Bits(v) : null;
