@@ -117,7 +117,7 @@ public static partial class Backtester
         var missing = 0;
         foreach (var t in scored)
         {
-            missing += Positive(values[t]) ? 0 : 1;
+            missing += Preconditions.IsPositive(values[t]) ? 0 : 1;
         }
 
         var versusImplied = join.HasImplied && kind != ForecastKind.Implied;
@@ -168,7 +168,7 @@ public static partial class Backtester
         var impliedAt = join.Values;
         var f = Lookup(named, ruleForecast);
         var h = series[plan.Historical.Spec];
-        var ruleDates = scored.Dates.Where(t => Positive(impliedAt[t]) && Positive(f[t]) && Positive(h[t])).ToList();
+        var ruleDates = scored.Dates.Where(t => Preconditions.IsPositive(impliedAt[t]) && Preconditions.IsPositive(f[t]) && Preconditions.IsPositive(h[t])).ToList();
         var rule = RuleTest.Compute(
             settings.RuleThreshold, ruleForecast, plan.Historical.Spec, ruleDates, frame.Dates, impliedAt, f, h, frame.Windows.Realized, scored.Lag);
         return new RuleOutcome(rule, ruleForecast);

@@ -26,7 +26,7 @@ namespace VolCast.Core.Backtest;
 /// </remarks>
 public static partial class Backtester
 {
-    private const string ImpliedSpec = "implied";
+    private const string ImpliedSpec = ImpliedSeries.Name;
 
     /// <summary>Runs the backtest.</summary>
     /// <param name="prices">The daily price history.</param>
