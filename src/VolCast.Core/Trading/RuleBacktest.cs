@@ -1,0 +1,392 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using VolCast.Core.Backtest;
+using VolCast.Core.Data;
+
+namespace VolCast.Core.Trading;
+
+/// <summary>
+/// Backtests the volatility rule as delta-hedged at-the-money straddles (<see cref="StraddleTrader"/>): always-sell,
+/// the proposed rule, the current rule, a plain historical rule and a walk-forward threshold, with costs, daily paths,
+/// a threshold sweep, Newey-West tests and the break-even half-spread.
+/// </summary>
+/// <remarks>
+/// <para>Signals: on a firing date f a forecast rule sells a straddle when implied_f − forecast_f is above the
+/// threshold and, with both sides, buys one when forecast_f − implied_f is above it. The trade is entered at the close
+/// of f, or one trading day later (<see cref="EntryTiming"/>), priced at that entry date's implied volatility.</para>
+/// <para>Expiry: with a horizon of h trading days, the close h trading days after entry; with a tenor of D calendar
+/// days, the last trading date on or before entry + D (the same mapping as the realized target, and only once a later
+/// date shows that window has closed). A trade needs at least two trading days.</para>
+/// <para>Firing dates: every date with implied, all three forecasts, an entry quote and a closed trade window; all
+/// rules use the same dates, so always-sell trades on every one of them. The walk-forward threshold on date f is the
+/// sweep threshold whose every-signal trades (proposed forecaster, configured sides) that had expired by f earned the
+/// most in total net P&amp;L; before any has expired, and on ties, the sweep threshold nearest the configured one.</para>
+/// <para>Hedging at the forecast (<see cref="HedgeVolatility.Forecast"/>) uses each rule's own forecaster; always-sell
+/// and the walk-forward threshold use the proposed rule's, and a date with a forecast of zero cannot fire.</para>
+/// <para>Units: P&amp;L in vol points of entry vega (a trade sized to one vol point of vega); ladders weight each trade
+/// 1/h with h the horizon's nominal trading days; annualized with <see cref="TradingSettings.AnnualizationDays"/>.
+/// Daily-path tests use a Newey-West lag of h, the test of mean trade P&amp;L a lag of 2 trades.</para>
+/// </remarks>
+public static class RuleBacktest
+{
+    /// <summary>Runs the trading backtest.</summary>
+    /// <param name="prices">The price history (closes are traded).</param>
+    /// <param name="implied">Implied volatility (decimal) at each close, null where there was no quote; one per close.</param>
+    /// <param name="horizon">The backtest's horizon or tenor: the option's life.</param>
+    /// <param name="proposed">The rule forecaster's series (the proposed rule).</param>
+    /// <param name="current">The baseline forecaster's series (the current rule).</param>
+    /// <param name="historical">The plain historical estimate's series.</param>
+    /// <param name="settings">The settings.</param>
+    /// <returns>The result.</returns>
+    /// <exception cref="ArgumentException">A series is misaligned or holds an invalid volatility, a setting is out of range,
+    /// the horizon is below two trading days, no date can fire, or the proposed rule never fires.</exception>
+    public static RuleBacktestResult Run(
+        PriceHistory prices, IReadOnlyList<double?> implied, BacktestHorizon horizon, RuleForecast proposed, RuleForecast current, RuleForecast historical, TradingSettings settings)
+    {
+        ArgumentNullException.ThrowIfNull(prices);
+        ArgumentNullException.ThrowIfNull(implied);
+        ArgumentNullException.ThrowIfNull(horizon);
+        ArgumentNullException.ThrowIfNull(proposed);
+        ArgumentNullException.ThrowIfNull(current);
+        ArgumentNullException.ThrowIfNull(historical);
+        ArgumentNullException.ThrowIfNull(settings);
+        settings.Validate();
+        var n = prices.Count;
+        var iv = Checked(implied, n, nameof(implied), TradingGuard.Volatility);
+        RuleForecast[] forecasts = [proposed, current, historical];
+        var series = new double?[3][];
+        for (var k = 0; k < 3; k++)
+        {
+            series[k] = Checked(forecasts[k].Values, n, forecasts[k].Spec, TradingGuard.Forecast);
+        }
+
+        if (horizon.TradingDays is < 2 || horizon.NominalDays < 2)
+        {
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"A delta-hedged trade needs a horizon of at least two trading days (one rebalance before expiry), was {horizon} ({horizon.NominalDays} trading day); use --horizon 2 or more, or a tenor of at least 3 calendar days."), nameof(horizon));
+        }
+
+        var h = horizon.NominalDays;
+        var windows = RealizedWindows.Compute(prices, horizon, RealizedTarget.SquaredReturns, settings.AnnualizationDays);
+        var lag = settings.EntryTiming == EntryTiming.NextClose ? 1 : 0;
+        var firing = new List<int>();
+        for (var f = 0; f + lag < n; f++)
+        {
+            var e = f + lag;
+            var hedgeable = settings.HedgeVolatility == HedgeVolatility.Implied || (series[0][f] > 0 && series[1][f] > 0 && series[2][f] > 0);
+            if (iv[f] is not null && iv[e] is not null && series[0][f] is not null && series[1][f] is not null && series[2][f] is not null
+                && windows.WindowDays[e] >= 2 && hedgeable)
+            {
+                firing.Add(f);
+            }
+        }
+
+        if (firing.Count == 0)
+        {
+            throw new ArgumentException(
+                "No date can fire a trade: none has implied volatility, all three forecasts and a full trade window after it (with an implied quote on the entry date). Give a longer history or an implied series that overlaps the forecasts.",
+                nameof(implied));
+        }
+
+        var m = firing.Count;
+        var entry = new int[m];
+        var expiry = new int[m];
+        for (var i = 0; i < m; i++)
+        {
+            entry[i] = firing[i] + lag;
+            expiry[i] = entry[i] + windows.WindowDays[entry[i]];
+        }
+
+        var start = entry[0];
+        var end = expiry.Max();
+        var length = end - start + 1;
+        var dates = prices.Dates.Slice(start, length).ToArray();
+        var weight = 1.0 / h;
+
+        // One book per hedge volatility series: the entry implied (shared), or each forecaster's.
+        var books = new TradeBook[3];
+        if (settings.HedgeVolatility == HedgeVolatility.Implied)
+        {
+            var hedge = new double[m];
+            for (var i = 0; i < m; i++)
+            {
+                hedge[i] = iv[entry[i]]!.Value;
+            }
+
+            books[0] = books[1] = books[2] = TradeBook.Build(prices.Dates, prices.Close, entry, expiry, hedge, iv, settings);
+        }
+        else
+        {
+            for (var k = 0; k < 3; k++)
+            {
+                var hedge = new double[m];
+                for (var i = 0; i < m; i++)
+                {
+                    hedge[i] = series[k][firing[i]]!.Value;
+                }
+
+                books[k] = TradeBook.Build(prices.Dates, prices.Close, entry, expiry, hedge, iv, settings);
+            }
+        }
+
+        var context = new Context(prices, iv, firing, books, start, length, dates, weight, h, settings);
+        var sell = new sbyte[m];
+        Array.Fill(sell, (sbyte)-1);
+        var always = context.Rule(TradingRule.AlwaysSell, null, 0, null, null, RuleSides.SellOnly, sell, null);
+
+        var proposedSides = Signals(iv, series[0], firing, settings.Threshold, settings.Sides);
+        if (Array.TrueForAll(proposedSides, s => s == 0))
+        {
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"The proposed rule never fired: implied minus the {proposed.Spec} forecast was never above the threshold {settings.Threshold} on the {m} firing dates from {prices.Dates[firing[0]]:yyyy-MM-dd} to {prices.Dates[firing[^1]]:yyyy-MM-dd}; lower the rule threshold or check the implied series' unit (decimal: 0.20 = 20%)."),
+                nameof(settings));
+        }
+
+        var proposedRule = context.Rule(TradingRule.Proposed, proposed.Spec, 0, series[0], settings.Threshold, settings.Sides, proposedSides, null);
+        var currentRule = context.Rule(TradingRule.Current, current.Spec, 1, series[1], settings.Threshold, settings.Sides, Signals(iv, series[1], firing, settings.Threshold, settings.Sides), null);
+        var historicalRule = context.Rule(TradingRule.Historical, historical.Spec, 2, series[2], settings.Threshold, settings.Sides, Signals(iv, series[2], firing, settings.Threshold, settings.Sides), null);
+
+        // The sweep: every forecaster × side shown × threshold.
+        var thresholds = settings.SweepThresholds.Sort();
+        RuleSides[] sidesShown = settings.Sides == RuleSides.Both ? [RuleSides.SellOnly, RuleSides.Both] : [RuleSides.SellOnly];
+        var sweep = ImmutableArray.CreateBuilder<ThresholdSweepRow>();
+        var differences = new List<double[]>();
+        var alwaysNet = always.Ladder.Net;
+        sbyte[][]? proposedSweepSides = null;
+        TradingRule[] roles = [TradingRule.Proposed, TradingRule.Current, TradingRule.Historical];
+        for (var k = 0; k < 3; k++)
+        {
+            foreach (var sides in sidesShown)
+            {
+                var perThreshold = new sbyte[thresholds.Length][];
+                for (var j = 0; j < thresholds.Length; j++)
+                {
+                    perThreshold[j] = Signals(iv, series[k], firing, thresholds[j], sides);
+                    var ladder = books[k].Ladder(perThreshold[j], weight, start, length, false);
+                    var net = PnlStatisticsCalculator.Path(ladder.Net, dates, settings.AnnualizationDays);
+                    var gross = PnlStatisticsCalculator.Path(ladder.Gross, dates, settings.AnnualizationDays);
+                    var label = string.Create(CultureInfo.InvariantCulture, $"{forecasts[k].Spec}|{SidesName(sides)}|{thresholds[j]}");
+                    sweep.Add(new ThresholdSweepRow(label, roles[k], forecasts[k].Spec, sides, thresholds[j], ladder.Trades, net.PnlPerYear, gross.PnlPerYear, net.Sharpe, gross.Sharpe));
+                    var d = new double[length];
+                    for (var t = 0; t < length; t++)
+                    {
+                        d[t] = ladder.Net[t] - alwaysNet[t];
+                    }
+
+                    differences.Add(d);
+                }
+
+                if (k == 0 && sides == settings.Sides)
+                {
+                    proposedSweepSides = perThreshold;
+                }
+            }
+        }
+
+        var walkForward = WalkForward(context, books[0], thresholds, proposedSweepSides!, settings.Threshold, proposed.Spec, series[0], settings.Sides);
+        ImmutableArray<RulePnl> rules = [always.Result, proposedRule.Result, currentRule.Result, historicalRule.Result, walkForward];
+
+        var versus = ImmutableArray.CreateBuilder<RuleComparison>();
+        for (var r = 1; r < rules.Length; r++)
+        {
+            versus.Add(Compare(rules[r], rules[0], h, settings.AnnualizationDays));
+        }
+
+        var years = length / settings.AnnualizationDays;
+        var edge = (proposedRule.Result.PathNet.Total - always.Result.PathNet.Total) / years;
+        var slope = (proposedRule.Ladder.WeightedCarry - always.Ladder.WeightedCarry) / years;
+        var c0 = settings.Costs.OptionHalfSpreadVolPoints;
+        double? edgeSpread = slope != 0 && c0 + (edge / slope) >= 0 ? c0 + (edge / slope) : null;
+        var ownSlope = proposedRule.Ladder.WeightedCarry / years;
+        var ownPerYear = proposedRule.Result.PathNet.Total / years;
+        double? ownSpread = ownSlope > 0 && c0 + (ownPerYear / ownSlope) >= 0 ? c0 + (ownPerYear / ownSlope) : null;
+        var breakEven = new BreakEvenSpread(edge, -slope, edgeSpread, ownSpread);
+
+        return new RuleBacktestResult(
+            settings, h, m, [.. dates], rules, Compare(rules[1], rules[2], h, settings.AnnualizationDays), versus.ToImmutable(), sweep.ToImmutable(), breakEven, [.. differences]);
+    }
+
+    /// <summary>The side of each firing position: −1 sell when implied − forecast &gt; threshold, +1 buy on the mirror with both sides, else 0.</summary>
+    internal static sbyte[] Signals(double?[] implied, double?[] forecast, List<int> firing, double threshold, RuleSides sides)
+    {
+        var result = new sbyte[firing.Count];
+        for (var i = 0; i < firing.Count; i++)
+        {
+            var f = firing[i];
+            var gap = implied[f]!.Value - forecast[f]!.Value;
+            result[i] = gap > threshold ? (sbyte)-1 : (sides == RuleSides.Both && -gap > threshold ? (sbyte)1 : (sbyte)0);
+        }
+
+        return result;
+    }
+
+    private static RuleComparison Compare(RulePnl first, RulePnl second, int h, double annualizationDays)
+    {
+        var a = first.DailyPnl;
+        var b = second.DailyPnl;
+        var d = new double[a.Length];
+        for (var t = 0; t < d.Length; t++)
+        {
+            d[t] = a[t] - b[t];
+        }
+
+        var test = PnlStatisticsCalculator.MeanTest(d, h);
+        return new RuleComparison(first.Rule, second.Rule, test.Mean * annualizationDays, test);
+    }
+
+    private static RulePnl WalkForward(Context context, TradeBook book, ImmutableArray<double> thresholds, sbyte[][] sweepSides, double configured, string spec, double?[] forecast, RuleSides sides)
+    {
+        var firing = context.Firing;
+        var m = firing.Count;
+        var k = thresholds.Length;
+        var nearest = 0;
+        for (var j = 1; j < k; j++)
+        {
+            nearest = Math.Abs(thresholds[j] - configured) < Math.Abs(thresholds[nearest] - configured) ? j : nearest;
+        }
+
+        // Trades in expiry order, so the closed P&L of each threshold can be accumulated as the firing date advances.
+        var order = new int[m];
+        for (var i = 0; i < m; i++)
+        {
+            order[i] = i;
+        }
+
+        Array.Sort((int[])book.Expiry.Clone(), order);
+        var closed = new double[k];
+        var next = 0;
+        var chosen = new sbyte[m];
+        var chosenThreshold = new double?[context.Length];
+        for (var i = 0; i < m; i++)
+        {
+            var f = firing[i];
+            while (next < m && book.Expiry[order[next]] <= f)
+            {
+                var p = order[next++];
+                for (var j = 0; j < k; j++)
+                {
+                    if (sweepSides[j][p] != 0)
+                    {
+                        closed[j] += book.NetVolPoints(p, sweepSides[j][p]);
+                    }
+                }
+            }
+
+            var best = nearest;
+            for (var j = 0; j < k; j++)
+            {
+                best = closed[j] > closed[best] ? j : best;
+            }
+
+            chosen[i] = sweepSides[best][i];
+            var day = book.Entry[i] - context.Start;
+            chosenThreshold[day] = thresholds[best];
+        }
+
+        return context.Rule(TradingRule.WalkForwardThreshold, spec, 0, forecast, null, sides, chosen, [.. chosenThreshold]).Result;
+    }
+
+    private static string SidesName(RuleSides sides) => sides == RuleSides.Both ? "both" : "sell-only";
+
+    private static double?[] Checked(IReadOnlyList<double?> values, int n, string name, Action<double?, string, int> check)
+    {
+        if (values.Count != n)
+        {
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"The {name} series must hold one value (or null) per close, {n}, was {values.Count}."), nameof(values));
+        }
+
+        var result = new double?[n];
+        for (var i = 0; i < n; i++)
+        {
+            check(values[i], name, i);
+            result[i] = values[i];
+        }
+
+        return result;
+    }
+
+    /// <summary>What every rule shares: the prices, the firing dates, the books and the path window.</summary>
+    private sealed record Context(
+        PriceHistory Prices, double?[] Implied, List<int> Firing, TradeBook[] Books, int Start, int Length, DateOnly[] Dates, double Weight, int H, TradingSettings Settings)
+    {
+        public (RulePnl Result, Ladder Ladder) Rule(
+            TradingRule rule, string? spec, int bookIndex, double?[]? forecast, double? threshold, RuleSides sides, sbyte[] signal, ImmutableArray<double?>? chosen)
+        {
+            var book = Books[bookIndex];
+            var ladder = book.Ladder(signal, Weight, Start, Length, true);
+            var annual = Settings.AnnualizationDays;
+            var years = Length / annual;
+
+            // One at a time, from each of the h start offsets; the trade table is the first start's.
+            double low = double.PositiveInfinity, high = double.NegativeInfinity;
+            List<int> first = [];
+            for (var o = 0; o < H; o++)
+            {
+                var taken = book.OneAtATime(signal, Start + o);
+                if (o == 0)
+                {
+                    first = taken;
+                }
+
+                double total = 0;
+                foreach (var i in taken)
+                {
+                    total += book.NetVolPoints(i, signal[i]);
+                }
+
+                low = Math.Min(low, total / years);
+                high = Math.Max(high, total / years);
+            }
+
+            var dates = Prices.Dates;
+            var close = Prices.Close;
+            var trades = ImmutableArray.CreateBuilder<StraddleTrade>(first.Count);
+            var net = new double[first.Count];
+            var gross = new double[first.Count];
+            var netPercent = new double[first.Count];
+            var grossPercent = new double[first.Count];
+            var entryDates = new DateOnly[first.Count];
+            double stress = 0, varianceGap = 0, varianceGapPoints = 0;
+            for (var j = 0; j < first.Count; j++)
+            {
+                var i = first[j];
+                var trade = StraddleTrader.ToTrade(book.Trades[i], signal[i], dates, close, forecast?[Firing[i]]);
+                trades.Add(trade);
+                net[j] = trade.PnlVolPoints;
+                gross[j] = trade.GrossPnlVolPoints;
+                netPercent[j] = trade.PnlPercentOfSpot;
+                grossPercent[j] = trade.GrossPnlPercentOfSpot;
+                entryDates[j] = trade.EntryDate;
+                stress += trade.StressPnlVolPoints;
+                varianceGap += trade.VarianceGap;
+                varianceGapPoints += trade.VarianceGapVolPoints;
+            }
+
+            var meanStress = first.Count > 0 ? stress / first.Count : 0;
+            var result = new RulePnl(
+                rule,
+                spec,
+                threshold,
+                sides,
+                trades.MoveToImmutable(),
+                PnlStatisticsCalculator.Trades(net, netPercent, entryDates, -meanStress),
+                PnlStatisticsCalculator.Trades(gross, grossPercent, entryDates, -meanStress),
+                ladder.Trades,
+                (double)ladder.DaysInMarket / Length,
+                PnlStatisticsCalculator.Path(ladder.Net, Dates, annual),
+                PnlStatisticsCalculator.Path(ladder.Gross, Dates, annual),
+                [.. ladder.Net],
+                [.. ladder.Gross],
+                [.. ladder.EntryVolNet],
+                [.. ladder.EntryVolGross],
+                low,
+                high,
+                first.Count > 0 ? meanStress : null,
+                varianceGap,
+                varianceGapPoints,
+                chosen ?? []);
+            return (result, ladder);
+        }
+    }
+}
