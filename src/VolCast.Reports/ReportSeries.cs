@@ -127,23 +127,7 @@ internal static class ReportSeries
     public static (double[] All, double[] Sell) RuleGaps(BacktestResult result)
     {
         var rule = result.RuleTest ?? throw new ArgumentException("the result has no rule test (no implied series).", nameof(result));
-        var forecast = Find(result, rule.ForecastSpec);
-        var historical = Find(result, rule.HistoricalSpec);
-        var all = new List<double>();
-        var sell = new List<double>();
-        for (var i = 0; i < result.Dates.Length; i++)
-        {
-            if (result.Implied[i] is double iv && result.Realized[i] is double rv && forecast.Values[i] is double f && historical.Values[i] is not null)
-            {
-                all.Add(iv - rv);
-                if (iv - f > rule.ThresholdVolatility)
-                {
-                    sell.Add(iv - rv);
-                }
-            }
-        }
-
-        return ([.. all], [.. sell]);
+        return ([.. rule.VolatilityGaps(RuleSignal.AllDates)], [.. rule.VolatilityGaps(RuleSignal.SellVolatility)]);
     }
 
     /// <summary>The last forecast of a series and the date it was made, or null when it never forecast.</summary>

@@ -43,7 +43,7 @@ internal static class ReportTables
 
     private static MetricTable HeadToHead(BacktestResult result)
     {
-        var h = result.BaselineVersusCandidate;
+        var h = result.CandidateVersusBaseline;
         var rows = new List<MetricRow>
         {
             LossRow("candidate " + result.Candidate, h.FirstLosses),

@@ -96,7 +96,7 @@ internal static class ReportVerdict
 
     private static string HeadToHead(BacktestResult result)
     {
-        var h = result.BaselineVersusCandidate;
+        var h = result.CandidateVersusBaseline;
         if (h.Qlike is not { Statistic: double t, PValue: double p } || h.FirstLosses is null || h.SecondLosses is null)
         {
             return $"Candidate {result.Candidate} against baseline {result.Baseline}: not enough common dates to compare.";

@@ -88,7 +88,7 @@ public static class ReportWriter
             ReportVerdict.Build(result),
             ReportTables.Build(result),
             Charts(result, cone),
-            Quality(result, run, prices, priceRowsRead),
+            Quality(result, run, priceRowsRead),
             new RunInfo(run.ToolVersion, run.StartedUtc, run.FinishedUtc - run.StartedUtc, Settings(result, run), [.. run.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
         {
             Odds = calibration is null ? null : ReportOdds.Build(result, calibration),
@@ -156,7 +156,7 @@ public static class ReportWriter
         return overlays;
     }
 
-    private static DataQuality Quality(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int rowsRead)
+    private static DataQuality Quality(BacktestResult result, BacktestRunInfo run, int rowsRead)
     {
         var q = result.DataQuality;
         var warnings = new List<string>(run.InputWarnings);
@@ -173,8 +173,8 @@ public static class ReportWriter
             warnings.Add(string.Create(c, $"{q.ForecastDatesWithoutImplied} forecast dates have no implied quote; {q.ImpliedDatesWithoutPrices} implied quotes fall on dates without prices and are not used."));
         }
 
-        double? coverage = result.HasImplied && q.ForecastDates > 0 ? q.ForecastDatesWithImplied / (double)q.ForecastDates : null;
-        return new DataQuality(rowsRead, Math.Max(0, rowsRead - prices.Count), q.DatesWithTarget - q.ZeroRealizedDates, coverage, warnings);
+        double? coverage = result.HasImplied && q.ScoredDates > 0 ? q.ScoredDatesWithImplied / (double)q.ScoredDates : null;
+        return new DataQuality(rowsRead, q.ScoredDates, coverage, warnings);
     }
 
     private static List<Setting> Settings(BacktestResult result, BacktestRunInfo run)

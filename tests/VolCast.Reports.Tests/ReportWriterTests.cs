@@ -62,7 +62,7 @@ public sealed class ReportWriterTests
             model.Charts.Select(c => c.FileName));
         Assert.All(model.Charts, c => Assert.True(Png.HasSignature(c.Png.Span), c.FileName));
         Assert.Equal(Scenario.Index.Count, model.DataQuality.RowsRead);
-        Assert.Equal(WithImplied.DataQuality.ForecastDatesWithImplied / (double)WithImplied.DataQuality.ForecastDates, model.DataQuality.ImpliedCoverage);
+        Assert.Equal(WithImplied.DataQuality.ScoredDatesWithImplied / (double)WithImplied.DataQuality.ScoredDates, model.DataQuality.ImpliedCoverage);
     }
 
     [Fact]

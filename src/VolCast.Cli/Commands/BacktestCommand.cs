@@ -78,7 +78,7 @@ internal static class BacktestCommand
             progress.Finish();
         }
 
-        var head = result.BaselineVersusCandidate;
+        var head = result.CandidateVersusBaseline;
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{result.Dates.Length} forecast dates ({result.DataQuality.DatesWithTarget} with a realized target), {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}."));
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,

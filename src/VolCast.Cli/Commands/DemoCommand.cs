@@ -116,7 +116,7 @@ internal static class DemoCommand
         }
 
         var ranked = result.Metrics.Where(m => m.Kind != ForecastKind.Implied && m.Losses is not null).OrderBy(m => m.Losses!.Qlike).FirstOrDefault();
-        var head = result.BaselineVersusCandidate;
+        var head = result.CandidateVersusBaseline;
         var c = CultureInfo.InvariantCulture;
         console.Out.WriteLine(string.Create(c,
             $"{result.Dates.Length} forecast dates, {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}; first on QLIKE: {ranked?.Spec ?? "none"}; candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {head.Qlike?.Statistic:0.00} (p {head.Qlike?.PValue:0.000})."));

@@ -47,7 +47,7 @@ public sealed record BacktestResult
     public required string Candidate { get; init; }
 
     /// <summary>Gets the head-to-head test that leads the results: First = candidate, Second = baseline, so a negative statistic means the candidate's loss is lower.</summary>
-    public required PairComparison BaselineVersusCandidate { get; init; }
+    public required PairComparison CandidateVersusBaseline { get; init; }
 
     /// <summary>Gets the Diebold-Mariano comparison of every pair (implied and every forecaster), each on that pair's common dates.</summary>
     public required ImmutableArray<PairComparison> Pairs { get; init; }

@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using System.Collections.Immutable;
 using System.Globalization;
 using VolCast.Core.Data;
@@ -7,10 +8,122 @@ using VolCast.Core.Scoring;
 
 namespace VolCast.Core.Backtest;
 
-/// <content>The steps of <see cref="Run"/>.</content>
+/// <content>The steps of <see cref="Run"/> up to the forecasts: frame the dates, join implied, plan and run the forecasters, the adaptive choice.</content>
 public static partial class Backtester
 {
     private static string Text(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+
+    /// <summary>The dates of the run: the whole history (forecasters warm up on it), the forecast dates first..last and each date's realized window.</summary>
+    private sealed record Frame(DateOnly[] Dates, int First, int Last, RealizedWindows Windows)
+    {
+        public int Count => Last - First + 1;
+    }
+
+    /// <summary>Implied joined by date over the whole history, with what matched between start and end.</summary>
+    private sealed record ImpliedJoin(double?[] Values, bool HasImplied, int Rows, int RowsInRange, int MatchedInRange);
+
+    /// <summary>Every forecaster the run needs: the configured ones, the sweep's families, the rule's historical estimate; each spec once in <see cref="All"/>.</summary>
+    private sealed record ForecasterPlan(
+        List<IVolatilityForecaster> Configured,
+        List<(string Family, IVolatilityForecaster[] Candidates)> Families,
+        IVolatilityForecaster Historical,
+        IVolatilityForecaster[] All);
+
+    /// <summary>Each forecaster's forecasts at every row up to the end date, and the counts its session kept, by spec.</summary>
+    private sealed record SessionOutput(Dictionary<string, double?[]> Series, Dictionary<string, ForecasterCounts> Counts);
+
+    /// <summary>The scored dates (realized window closed, target above zero) and the window lengths among dates with a target.</summary>
+    private sealed record ScoredDateSet(List<int> Dates, int WithTarget, int ZeroRealized, int MinimumWindow, int MaximumWindow)
+    {
+        /// <summary>Gets the HAC and Diebold-Mariano lag: the longest window − 1.</summary>
+        public int Lag => MaximumWindow - 1;
+    }
+
+    private static Frame FrameDates(PriceHistory prices, BacktestSettings settings)
+    {
+        var n = prices.Count;
+        var dates = prices.Dates.ToArray();
+        if (n < 2)
+        {
+            throw new BacktestDataException(Text($"The price history has {n} row(s); a backtest needs at least two."));
+        }
+
+        var (first, last) = DateRange(dates, settings);
+        var windows = RealizedWindows.Compute(prices, settings.Horizon, settings.Target, settings.AnnualizationFactor);
+        CheckHorizon(dates, first, last, windows, settings.Horizon);
+        return new Frame(dates, first, last, windows);
+    }
+
+    private static ImpliedJoin JoinImplied(Frame frame, ImpliedSeries? implied)
+    {
+        var (dates, first, last) = (frame.Dates, frame.First, frame.Last);
+        var n = dates.Length;
+        var impliedAt = new double?[n];
+        if (implied is null)
+        {
+            return new ImpliedJoin(impliedAt, false, 0, 0, 0);
+        }
+
+        var impliedRowsInRange = 0;
+        var matchedInRange = 0;
+        var id = implied.Dates;
+        var iv = implied.Volatility;
+        var p = 0;
+        for (var k = 0; k < implied.Count; k++)
+        {
+            while (p < n && dates[p] < id[k])
+            {
+                p++;
+            }
+
+            var inRange = id[k] >= dates[first] && id[k] <= dates[last];
+            impliedRowsInRange += inRange ? 1 : 0;
+            if (p < n && dates[p] == id[k])
+            {
+                impliedAt[p] = iv[k];
+                matchedInRange += inRange ? 1 : 0;
+            }
+        }
+
+        if (matchedInRange == 0)
+        {
+            throw new BacktestDataException(Text(
+                $"No date is shared by the prices ({dates[first]:yyyy-MM-dd} to {dates[last]:yyyy-MM-dd}, {last - first + 1} forecast dates) and the implied series ({(implied.Count == 0 ? "empty" : Text($"{id[0]:yyyy-MM-dd} to {id[implied.Count - 1]:yyyy-MM-dd}, {implied.Count} rows"))}); check that both files cover the same period, or leave out --implied."));
+        }
+
+        return new ImpliedJoin(impliedAt, true, implied.Count, impliedRowsInRange, matchedInRange);
+    }
+
+    /// <summary>Configured, then extra, then the sweep, then the rule's historical estimate; each spec runs once.</summary>
+    private static ForecasterPlan PlanForecasters(
+        Frame frame, BacktestSettings settings, bool hasRange, IReadOnlyList<IVolatilityForecaster>? additional, bool hasImplied)
+    {
+        var configured = ConfiguredForecasters(settings, hasRange, hasImplied, additional);
+        var all = new Dictionary<string, IVolatilityForecaster>(StringComparer.Ordinal);
+        foreach (var f in configured)
+        {
+            all.TryAdd(f.Spec, f);
+        }
+
+        var families = SweepFamilies(settings, hasRange);
+        foreach (var (_, candidates) in families)
+        {
+            foreach (var c in candidates)
+            {
+                all.TryAdd(c.Spec, c);
+            }
+        }
+
+        if (settings.Sweep && families.Count > 0 && settings.SelectionWindowDays > frame.Last + 1)
+        {
+            throw new BacktestDataException(Text(
+                $"The selection window of {settings.SelectionWindowDays} trading days is longer than the sample: the history has {frame.Last + 1} rows up to the end date {frame.Dates[frame.Last]:yyyy-MM-dd}; set a shorter selectionWindowDays in the configuration or use a longer history."));
+        }
+
+        var historical = ForecasterSpec.Parse(settings.RuleHistorical ?? Text($"close-to-close:{Math.Max(2, settings.Horizon.NominalDays)}"));
+        all.TryAdd(historical.Spec, historical);
+        return new ForecasterPlan(configured, families, historical, [.. all.Values]);
+    }
 
     private static (int First, int Last) DateRange(DateOnly[] dates, BacktestSettings settings)
     {
@@ -120,7 +233,7 @@ public static partial class Backtester
         return families;
     }
 
-    private static (Dictionary<string, double?[]> Series, Dictionary<string, ForecasterCounts> Counts) RunSessions(
+    private static SessionOutput RunSessions(
         PriceHistory prices,
         ImpliedSeries? implied,
         BacktestSettings settings,
@@ -129,31 +242,26 @@ public static partial class Backtester
         IProgress<BacktestProgress>? progress,
         CancellationToken cancellationToken)
     {
+        // One input for every session, so that per-history work (the estimators' bar terms) is done once.
         var input = new ForecastInput(prices, implied, settings.Horizon.NominalDays, settings.AnnualizationFactor);
-        EstimatorTerms? terms = forecasters.Any(f => f is HistoricalWindowForecaster) ? EstimatorTerms.From(prices) : null;
 
         // Start every session first, on this thread, so that a forecaster that cannot run says so before any work.
         var sessions = new IForecastSession[forecasters.Length];
         for (var i = 0; i < forecasters.Length; i++)
         {
-            sessions[i] = forecasters[i] is HistoricalWindowForecaster hw ? hw.Start(input, terms!) : forecasters[i].Start(input);
+            sessions[i] = forecasters[i].Start(input);
         }
 
-        // The slow ones (model fits) first, so that the parallel loop ends evenly.
-        var order = Enumerable.Range(0, forecasters.Length)
-            .OrderBy(i => forecasters[i] is HistoricalWindowForecaster or EwmaForecaster ? 1 : 0)
-            .ThenBy(i => i)
-            .ToArray();
+        // Taken one at a time in plan order (configured forecasters, the model fits among them, come first), so that
+        // the parallel loop ends evenly.
         var values = new double?[forecasters.Length][];
         var done = 0;
         progress?.Report(new BacktestProgress("forecasting", 0, forecasters.Length));
-        Parallel.For(
-            0,
-            order.Length,
+        Parallel.ForEach(
+            Partitioner.Create(Enumerable.Range(0, forecasters.Length), EnumerablePartitionerOptions.NoBuffering),
             new ParallelOptions { CancellationToken = cancellationToken, MaxDegreeOfParallelism = Environment.ProcessorCount },
-            k =>
+            i =>
             {
-                var i = order[k];
                 var session = sessions[i];
                 var v = new double?[last + 1];
                 for (var t = 0; t <= last; t++)
@@ -166,19 +274,54 @@ public static partial class Backtester
                 progress?.Report(new BacktestProgress("forecasting", now, forecasters.Length));
             });
 
-        var series = new Dictionary<string, double?[]>(StringComparer.Ordinal);
-        var counts = new Dictionary<string, ForecasterCounts>(StringComparer.Ordinal);
+        var output = new SessionOutput(new(StringComparer.Ordinal), new(StringComparer.Ordinal));
         for (var i = 0; i < forecasters.Length; i++)
         {
-            series[forecasters[i].Spec] = values[i];
-            counts[forecasters[i].Spec] = sessions[i].Counts;
+            output.Series[forecasters[i].Spec] = values[i];
+            output.Counts[forecasters[i].Spec] = sessions[i].Counts;
         }
 
-        return (series, counts);
+        return output;
+    }
+
+    private static List<(AdaptiveSelection Selection, double?[] Values)> ChooseAdaptive(
+        Frame frame,
+        List<(string Family, IVolatilityForecaster[] Candidates)> families,
+        Dictionary<string, double?[]> series,
+        BacktestSettings settings,
+        CancellationToken cancellationToken)
+    {
+        var (first, last) = (frame.First, frame.Last);
+        var adaptive = new List<(AdaptiveSelection Selection, double?[] Values)>();
+        foreach (var (family, candidates) in families)
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            var candidateSeries = candidates.Select(c => series[c.Spec]).ToArray();
+            var choice = new int[last + 1];
+            var values = AdaptiveLookback.Choose(candidateSeries, frame.Windows, last, settings.SelectionWindowDays, choice);
+            var specs = candidates.Select(c => c.Spec).ToImmutableArray();
+            var choices = ImmutableArray.CreateBuilder<string?>(last - first + 1);
+            var changes = 0;
+            var withChoice = 0;
+            for (var t = first; t <= last; t++)
+            {
+                choices.Add(choice[t] < 0 ? null : specs[choice[t]]);
+                withChoice += choice[t] < 0 ? 0 : 1;
+                if (t > first && choice[t] >= 0 && choice[t - 1] >= 0 && choice[t] != choice[t - 1])
+                {
+                    changes++;
+                }
+            }
+
+            var spec = "adaptive:" + family;
+            adaptive.Add((new AdaptiveSelection(spec, family, specs, choices.MoveToImmutable(), changes, withChoice), values));
+        }
+
+        return adaptive;
     }
 
     private static McsSummary ConfidenceSet(
-        List<(string Spec, ForecastKind Kind, double?[] Values, ForecasterCounts Counts)> named,
+        List<ScoredSeries> named,
         List<int> scored,
         double?[] realized,
         BacktestSettings settings,
@@ -249,7 +392,7 @@ public static partial class Backtester
         return canonical;
     }
 
-    private static double?[] Lookup(List<(string Spec, ForecastKind Kind, double?[] Values, ForecasterCounts Counts)> named, string spec) =>
+    private static double?[] Lookup(List<ScoredSeries> named, string spec) =>
         named.First(x => x.Spec == spec).Values;
 
     private static ImmutableArray<double?> Slice(double?[] values, int first, int count) => [.. values.AsSpan(first, count)];
@@ -279,7 +422,7 @@ public static partial class Backtester
         for (var c = 0; c < candidates.Count; c++)
         {
             var s = summaries[c];
-            rows.Add(new SweepRow(family, candidates[c].Spec, common.Count, s?.Qlike, s?.MseVariance, s?.RmseVolatility, c == best, InSample: true));
+            rows.Add(new SweepRow(family, candidates[c].Spec, common.Count, s?.Qlike, s?.MseVariance, s?.RmseVolatility, c == best));
         }
 
         return rows;

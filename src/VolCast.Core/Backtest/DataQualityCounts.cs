@@ -2,7 +2,7 @@ namespace VolCast.Core.Backtest;
 
 /// <summary>Counts of what the backtest could and could not use, reported so that nothing is dropped silently.</summary>
 /// <param name="PriceRows">Rows in the price history (all of it is used to warm the forecasters up).</param>
-/// <param name="ForecastDates">Dates between start and end (inclusive) on which forecasts were made.</param>
+/// <param name="ForecastDates">Every date between start and end (inclusive): forecasts were made on all of them, scored or not (see <paramref name="ScoredDates"/>).</param>
 /// <param name="DatesWithTarget">Forecast dates whose realized window closed inside the history.</param>
 /// <param name="DatesWithoutTarget">Forecast dates at the end of the history whose window had not closed: forecasts written, not scored.</param>
 /// <param name="ZeroRealizedDates">Dates whose realized target was zero (no price moves): not scored, QLIKE being undefined there.</param>
@@ -12,6 +12,8 @@ namespace VolCast.Core.Backtest;
 /// <param name="ImpliedDatesWithoutPrices">Implied quotes between start and end on dates with no price row (not used).</param>
 /// <param name="MinimumHorizonDays">The shortest window h_t among dates with a target (equal to h for a trading-day horizon).</param>
 /// <param name="MaximumHorizonDays">The longest window h_t among dates with a target; HAC lags use this − 1.</param>
+/// <param name="ScoredDates">Forecast dates that are scored: a target above zero (dates with a target less the zero-realized ones).</param>
+/// <param name="ScoredDatesWithImplied">Scored dates with an implied quote on the same date.</param>
 public sealed record DataQualityCounts(
     int PriceRows,
     int ForecastDates,
@@ -23,4 +25,6 @@ public sealed record DataQualityCounts(
     int ForecastDatesWithoutImplied,
     int ImpliedDatesWithoutPrices,
     int MinimumHorizonDays,
-    int MaximumHorizonDays);
+    int MaximumHorizonDays,
+    int ScoredDates,
+    int ScoredDatesWithImplied);

@@ -3,10 +3,46 @@ using VolCast.Core.Scoring;
 
 namespace VolCast.Core.Backtest;
 
-/// <summary>Computes the rows of <see cref="RuleTestResult"/>.</summary>
+/// <summary>Computes <see cref="RuleTestResult"/>.</summary>
 internal static class RuleTest
 {
-    public static ImmutableArray<RuleTestRow> Rows(
+    /// <summary>The rule test on <paramref name="ruleDates"/> (indices into the full-history arrays), rows and per-date series.</summary>
+    public static RuleTestResult Compute(
+        double threshold,
+        string forecastSpec,
+        string historicalSpec,
+        IReadOnlyList<int> ruleDates,
+        DateOnly[] dates,
+        double?[] implied,
+        double?[] forecast,
+        double?[] historical,
+        double?[] realized,
+        int lag)
+    {
+        var rows = Rows(forecastSpec, ruleDates, implied, forecast, realized, threshold, lag)
+            .AddRange(Rows(historicalSpec, ruleDates, implied, historical, realized, threshold, lag));
+        return new RuleTestResult(
+            threshold,
+            forecastSpec,
+            historicalSpec,
+            rows,
+            [.. ruleDates.Select(t => dates[t])],
+            At(implied, ruleDates),
+            At(realized, ruleDates),
+            At(forecast, ruleDates),
+            At(historical, ruleDates));
+    }
+
+    /// <summary>Which side the rule takes on a date: sell when implied exceeds the forecast by more than the threshold, buy for the mirror, else none.</summary>
+    public static RuleSignal? SignalOf(double implied, double forecast, double threshold)
+    {
+        var gap = implied - forecast;
+        return gap > threshold ? RuleSignal.SellVolatility : -gap > threshold ? RuleSignal.BuyVolatility : null;
+    }
+
+    private static ImmutableArray<double> At(double?[] values, IReadOnlyList<int> ruleDates) => [.. ruleDates.Select(t => values[t]!.Value)];
+
+    private static ImmutableArray<RuleTestRow> Rows(
         string source, IReadOnlyList<int> dates, double?[] implied, double?[] forecast, double?[] realized, double threshold, int lag)
     {
         var all = new List<int>();
@@ -14,13 +50,13 @@ internal static class RuleTest
         var buy = new List<int>();
         foreach (var t in dates)
         {
-            var gap = implied[t]!.Value - forecast[t]!.Value;
             all.Add(t);
-            if (gap > threshold)
+            var signal = SignalOf(implied[t]!.Value, forecast[t]!.Value, threshold);
+            if (signal == RuleSignal.SellVolatility)
             {
                 sell.Add(t);
             }
-            else if (-gap > threshold)
+            else if (signal == RuleSignal.BuyVolatility)
             {
                 buy.Add(t);
             }

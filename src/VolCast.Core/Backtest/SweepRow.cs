@@ -11,5 +11,4 @@ namespace VolCast.Core.Backtest;
 /// <param name="MseVariance">Mean squared error on variance over those dates; null when there are none.</param>
 /// <param name="RmseVolatility">Root mean squared error on volatility; null when there are none.</param>
 /// <param name="IsBestInSample">True for the family's lowest mean QLIKE (in-sample, shown for reference only).</param>
-/// <param name="InSample">Always true: the sweep is an in-sample table and is labelled so wherever it is shown.</param>
-public sealed record SweepRow(string Family, string Spec, int Count, double? Qlike, double? MseVariance, double? RmseVolatility, bool IsBestInSample, bool InSample);
+public sealed record SweepRow(string Family, string Spec, int Count, double? Qlike, double? MseVariance, double? RmseVolatility, bool IsBestInSample);

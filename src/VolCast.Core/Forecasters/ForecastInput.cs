@@ -1,11 +1,18 @@
 using System.Globalization;
 using VolCast.Core.Data;
+using VolCast.Core.Estimators;
 
 namespace VolCast.Core.Forecasters;
 
 /// <summary>What a forecasting session runs over: one price history, optionally an implied series, a horizon and an annualization factor.</summary>
+/// <remarks>
+/// Work that depends on the history alone (the estimators' per-bar terms) is done once per input, on first use, and
+/// shared by every session started from it: a sweep of many windows reads one set of terms.
+/// </remarks>
 public sealed record ForecastInput
 {
+    private readonly Lazy<EstimatorTerms> _terms;
+
     /// <summary>Creates the input of a session.</summary>
     /// <param name="prices">The daily price history.</param>
     /// <param name="implied">The implied-volatility series, or null.</param>
@@ -23,6 +30,7 @@ public sealed record ForecastInput
         Implied = implied;
         HorizonDays = horizonDays;
         AnnualizationFactor = annualizationFactor;
+        _terms = new Lazy<EstimatorTerms>(() => EstimatorTerms.From(prices));
     }
 
     /// <summary>Gets the daily price history.</summary>
@@ -36,4 +44,7 @@ public sealed record ForecastInput
 
     /// <summary>Gets the trading days per year used to annualize.</summary>
     public double AnnualizationFactor { get; }
+
+    /// <summary>Gets the estimators' per-bar terms of <see cref="Prices"/>, built on first use and shared by every session of this input.</summary>
+    internal EstimatorTerms Terms => _terms.Value;
 }

@@ -8,7 +8,7 @@ namespace VolCast.Core.Forecasters;
 /// bars t − N + 1 .. t, whatever the horizon (the usual "historical volatility" a desk quotes).
 /// </summary>
 /// <remarks>
-/// The whole rolling series is read once per session from <see cref="EstimatorTerms"/>, whose window sums at t are
+/// The whole rolling series is read once per session from the input's shared <see cref="EstimatorTerms"/>, whose window sums at t are
 /// differences of prefix sums up to t, so the value at t uses data up to t only by construction. Conventions are
 /// those of <see cref="EstimatorTerms"/> (close-to-close: sample variance, mean removed, divisor N − 1).
 /// </remarks>
@@ -31,20 +31,13 @@ internal sealed class HistoricalWindowForecaster : IVolatilityForecaster
     public IForecastSession Start(ForecastInput input)
     {
         ArgumentNullException.ThrowIfNull(input);
-        return Start(input, EstimatorTerms.From(input.Prices));
-    }
-
-    /// <summary>Starts a session reading from terms already built for the same history (a sweep builds them once).</summary>
-    public IForecastSession Start(ForecastInput input, EstimatorTerms terms)
-    {
-        ArgumentNullException.ThrowIfNull(input);
-        ArgumentNullException.ThrowIfNull(terms);
         if (EstimatorNames.NeedsRange(Estimator) && !input.Prices.HasRange)
         {
             throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
                 $"The '{Spec}' forecaster needs open, high and low prices; the price history has closes only (use close-to-close:{Window})."), nameof(input));
         }
 
+        var terms = input.Terms;
         var first = EstimatorTerms.FirstIndex(Estimator, Window);
         var values = new double[terms.ValueCount(Estimator, Window)];
         if (values.Length > 0)

@@ -24,7 +24,7 @@ internal static class MetricsJson
         json.WriteString("baseline", r.Baseline);
         json.WriteString("candidate", r.Candidate);
         json.WritePropertyName("comparison");
-        Pair(json, r.BaselineVersusCandidate);
+        Pair(json, r.CandidateVersusBaseline);
         json.WriteEndObject();
         json.WriteNumber("hac_lag", r.HacLag);
 

@@ -30,7 +30,7 @@ internal static class SummaryText
         }
 
         w.Write("\nBaseline vs candidate (d = loss(candidate) - loss(baseline); negative favours the candidate)\n");
-        var h = r.BaselineVersusCandidate;
+        var h = r.CandidateVersusBaseline;
         w.Write(string.Create(c, $"  candidate {r.Candidate} vs baseline {r.Baseline} on {h.Count} common dates\n"));
         w.Write("  QLIKE: " + Dm(h.FirstLosses?.Qlike, h.SecondLosses?.Qlike, h.Qlike) + "\n");
         w.Write("  MSE on variance: " + Dm(h.FirstLosses?.MseVariance, h.SecondLosses?.MseVariance, h.MseVariance) + "\n");

@@ -193,8 +193,7 @@ public static class HtmlReport
     {
         html.Append("<section id=\"data-quality\">\n<h2>Data quality</h2>\n<table class=\"text\">\n<tbody>\n");
         Row(html, "Price rows read", quality.RowsRead.ToString(CultureInfo.InvariantCulture));
-        Row(html, "Rows dropped", quality.RowsDropped.ToString(CultureInfo.InvariantCulture));
-        Row(html, "Dates scored", quality.ForecastDates.ToString(CultureInfo.InvariantCulture));
+        Row(html, "Dates scored", quality.ScoredDates.ToString(CultureInfo.InvariantCulture));
         Row(html, "Implied coverage of scored dates", quality.ImpliedCoverage is double c ? c.ToString("0.0%", CultureInfo.InvariantCulture) : "no implied file");
         Row(html, "Warnings", quality.Warnings.Count.ToString(CultureInfo.InvariantCulture));
         html.Append("</tbody>\n</table>\n");

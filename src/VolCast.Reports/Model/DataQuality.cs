@@ -1,9 +1,8 @@
 namespace VolCast.Reports.Model;
 
-/// <summary>What the inputs looked like: rows read and dropped, implied coverage, warnings.</summary>
+/// <summary>What the inputs looked like: rows read, dates scored, implied coverage, warnings.</summary>
 /// <param name="RowsRead">Data rows read from the price file.</param>
-/// <param name="RowsDropped">Rows left out (and why is in <paramref name="Warnings"/>).</param>
-/// <param name="ForecastDates">Dates with a forecast and a realized target, i.e. scored.</param>
+/// <param name="ScoredDates">Dates with a forecast and a realized target above zero, i.e. scored.</param>
 /// <param name="ImpliedCoverage">Share of scored dates with an implied volatility (0 to 1), or null without an implied file.</param>
 /// <param name="Warnings">Every warning raised while reading and aligning, in order.</param>
-public sealed record DataQuality(int RowsRead, int RowsDropped, int ForecastDates, double? ImpliedCoverage, IReadOnlyList<string> Warnings);
+public sealed record DataQuality(int RowsRead, int ScoredDates, double? ImpliedCoverage, IReadOnlyList<string> Warnings);

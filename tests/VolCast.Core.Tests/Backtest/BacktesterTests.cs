@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using VolCast.Core.Backtest;
 using VolCast.Core.Data;
+using VolCast.Core.Estimators;
 using VolCast.Core.Forecasters;
 using VolCast.Core.Tests.Forecasters;
 using Xunit.Abstractions;
@@ -193,12 +194,19 @@ public sealed class BacktesterTests(ITestOutputHelper output)
         Assert.Equal(400 / 7 + (400 % 7 > 3 ? 1 : 0), quality.ForecastDatesWithoutImplied);
         Assert.Equal(quality.ForecastDates, quality.ForecastDatesWithImplied + quality.ForecastDatesWithoutImplied);
         Assert.True(quality.ImpliedDatesWithoutPrices > 0);
+
+        // Scored dates are the dates with a target above zero; implied coverage is counted on them, not on all dates.
+        var scored = Enumerable.Range(0, result.Dates.Length).Where(i => result.Realized[i] > 0).ToList();
+        Assert.Equal(scored.Count, quality.ScoredDates);
+        Assert.Equal(quality.DatesWithTarget - quality.ZeroRealizedDates, quality.ScoredDates);
+        Assert.Equal(scored.Count(i => result.Implied[i] is not null), quality.ScoredDatesWithImplied);
+        Assert.True(quality.ScoredDatesWithImplied < quality.ForecastDatesWithImplied, "the unscored last dates are quoted too");
         Assert.Equal("implied", result.Metrics[0].Spec);
         var vsImplied = result.Metrics.Single(m => m.Spec == "ewma:0.94").VersusImplied!;
         Assert.True(vsImplied.Count < result.Metrics.Single(m => m.Spec == "ewma:0.94").Losses!.Count);
         Assert.Equal("implied", result.Baseline);
         Assert.Equal("close-to-close:21", result.Candidate);
-        Assert.Equal("close-to-close:21", result.BaselineVersusCandidate.First);
+        Assert.Equal("close-to-close:21", result.CandidateVersusBaseline.First);
         Assert.NotNull(result.RuleTest);
         Assert.Equal(6, result.RuleTest!.Rows.Length);
     }
@@ -264,9 +272,46 @@ public sealed class BacktesterTests(ITestOutputHelper output)
             Assert.True(adaptive.DatesWithChoice > 300);
         }
 
-        // The sweep is labelled in-sample and has one best row per family.
-        Assert.All(result.Sweep, r => Assert.True(r.InSample));
+        // The sweep has one best (in-sample) row per family.
         Assert.Equal(result.Adaptive.Length, result.Sweep.Count(r => r.IsBestInSample));
+    }
+
+    [Fact]
+    public void Run_RuleHistoricalNotAmongTheForecasters_ResultHoldsItsSeries()
+    {
+        // The rule's default historical estimate is close-to-close over the horizon; with horizon 10 and a list
+        // without it, the series exists only inside the rule test, which must carry it for any chart or file.
+        var prices = ForecastData.Bars(400, seed: 8);
+        var implied = ForecastData.Implied(prices);
+        var result = Backtester.Run(prices, implied, Small(10) with { Sweep = false, Forecasters = ["ewma:0.94"] });
+
+        var rule = result.RuleTest!;
+        Assert.Equal("close-to-close:10", rule.HistoricalSpec);
+        Assert.DoesNotContain(result.Forecasts, f => f.Spec == rule.HistoricalSpec);
+        Assert.True(rule.Dates.Length > 300);
+
+        // The historical series is the 10-day sample close-to-close estimate (pinned against TTR in the estimator tests).
+        var c2c = RollingVolatility.Compute(prices, Estimator.CloseToClose, 10);
+        var dates = prices.Dates.ToArray();
+        for (var i = 0; i < rule.Dates.Length; i++)
+        {
+            var t = Array.IndexOf(dates, rule.Dates[i]);
+            Assert.Equal(c2c.AnnualizedVolatility[t - c2c.FirstIndex], rule.Historical[i], 12);
+        }
+
+        // Each source's all-dates row counts every date of the series, and its mean gap is the mean of IV − RV there.
+        foreach (var source in new[] { rule.ForecastSpec, rule.HistoricalSpec })
+        {
+            var all = rule.Rows.Single(r => r.Source == source && r.Signal == RuleSignal.AllDates);
+            Assert.Equal(rule.Dates.Length, all.Count);
+            Assert.Equal(rule.Implied.Zip(rule.Realized, (iv, rv) => iv - rv).Average(), all.MeanVolatilityGap!.Value, 12);
+        }
+
+        var sell = rule.Rows.Single(r => r.Source == rule.ForecastSpec && r.Signal == RuleSignal.SellVolatility);
+        Assert.Equal(sell.Count, rule.VolatilityGaps(RuleSignal.SellVolatility).Length);
+        Assert.Equal(
+            Enumerable.Range(0, rule.Dates.Length).Count(i => rule.Implied[i] - rule.Forecast[i] > rule.ThresholdVolatility),
+            sell.Count);
     }
 
     private static long? Bits(double? value) => value is double v ? BitConverter.DoubleToInt64Bits(v) : null;

@@ -163,7 +163,7 @@ public sealed class SampleReport
                 "Diebold-Mariano on the QLIKE differential against implied, Newey-West with 20 lags; negative means lower loss than implied."),
         ],
         charts,
-        new DataQuality(5040, 3, 5019, 0.987, ["implied.csv: unit inferred as percent (values above 1.5); pass --iv-unit to declare it.", "prices.csv, line 812: duplicate date 2008-03-14 dropped."]),
+        new DataQuality(5040, 5019, 0.987, ["implied.csv: unit inferred as percent (values above 1.5); pass --iv-unit to declare it.", "prices.csv, line 812: duplicate date 2008-03-14 dropped."]),
         new RunInfo(
             "0.1.0",
             new DateTimeOffset(2025, 1, 2, 3, 4, 5, TimeSpan.Zero),
