@@ -95,7 +95,8 @@ public static partial class Backtester
             if (matchedInRange == 0)
             {
                 throw new BacktestDataException(Text(
-                    $"No date is shared by the prices ({dates[first]:yyyy-MM-dd} to {dates[last]:yyyy-MM-dd}, {last - first + 1} forecast dates) and the implied series ({(implied.Count == 0 ? "empty" : Text($"{id[0]:yyyy-MM-dd} to {id[implied.Count - 1]:yyyy-MM-dd}, {implied.Count} rows"))}); check that both files cover the same period, or leave out --implied."));
+                    $"No date is shared by the prices ({dates[first]:yyyy-MM-dd} to {dates[last]:yyyy-MM-dd}, {last - first + 1} forecast dates) and the implied series ({(implied.Count == 0 ? "empty" : Text($"{id[0]:yyyy-MM-dd} to {id[implied.Count - 1]:yyyy-MM-dd}, {implied.Count} rows"))}); check that both files cover the same period, or leave out --implied."),
+                    BacktestInput.Implied);
             }
         }
 

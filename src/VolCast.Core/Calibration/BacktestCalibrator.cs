@@ -26,11 +26,14 @@ public static class BacktestCalibrator
     /// <param name="result">The backtest.</param>
     /// <param name="prices">The price history the backtest ran on.</param>
     /// <param name="options">Strikes, drift, bins and the minimum sample; the defaults when null. Its annualization factor is replaced by the backtest's.</param>
+    /// <param name="cancellationToken">Stops before the checks and between forecasters' coverage regimes.</param>
     /// <returns>Results per forecaster, implied first.</returns>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
     /// <exception cref="ArgumentException">A forecast date is not in the price history, or an option is invalid.</exception>
-    public static BacktestCalibration Evaluate(BacktestResult result, PriceHistory prices, CalibrationOptions? options = null)
+    /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
+    public static BacktestCalibration Evaluate(BacktestResult result, PriceHistory prices, CalibrationOptions? options = null, CancellationToken cancellationToken = default)
     {
+        cancellationToken.ThrowIfCancellationRequested();
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(prices);
         options = (options ?? new CalibrationOptions()) with { AnnualizationFactor = result.Settings.AnnualizationFactor };
@@ -51,6 +54,7 @@ public static class BacktestCalibrator
             invalid.Add(bad);
         }
 
+        cancellationToken.ThrowIfCancellationRequested();
         var report = CalibrationSuite.Evaluate(aligned.Outcomes, forecasters, options);
 
         double[]? regimeValues = new double[aligned.DateIndices.Length];
@@ -71,6 +75,7 @@ public static class BacktestCalibrator
         var verdicts = ImmutableArray.CreateBuilder<string>(forecasters.Count);
         foreach (var coverage in report.Coverages)
         {
+            cancellationToken.ThrowIfCancellationRequested();
             var rows = regimeValues is null ? ImmutableArray<RegimeCoverage>.Empty : CoverageRegimes.ByTerciles(coverage, regimeValues, options.IntervalZ);
             regimes.Add(rows);
             verdicts.Add(CoverageVerdict.Describe(coverage, rows));

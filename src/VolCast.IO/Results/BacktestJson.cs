@@ -12,10 +12,11 @@ internal static class BacktestJson
 {
     private static readonly JsonWriterOptions Options = new() { Indented = true };
 
-    public static void WriteMetrics(TextWriter writer, BacktestResult result, BacktestCalibration? calibration = null) =>
+    public static void WriteMetrics(TextWriter writer, BacktestResult result, BacktestCalibration calibration) =>
         writer.Write(Build(json => Metrics(json, result, calibration)));
 
-    public static void WriteRun(TextWriter writer, BacktestResult result, BacktestRunInfo run) => writer.Write(Build(json => Run(json, result, run)));
+    public static void WriteRun(TextWriter writer, BacktestResult result, BacktestRunInfo run, IReadOnlyList<string> files) =>
+        writer.Write(Build(json => Run(json, result, run, files)));
 
     private static string Build(Action<Utf8JsonWriter> write)
     {
@@ -28,7 +29,7 @@ internal static class BacktestJson
         return Encoding.UTF8.GetString(stream.ToArray()).Replace("\r\n", "\n", StringComparison.Ordinal) + "\n";
     }
 
-    private static void Metrics(Utf8JsonWriter json, BacktestResult r, BacktestCalibration? calibration)
+    private static void Metrics(Utf8JsonWriter json, BacktestResult r, BacktestCalibration calibration)
     {
         json.WriteStartObject();
         json.WriteString("sign_convention", "Diebold-Mariano d_t = L(first) - L(second); a negative statistic means the first named has the lower loss. dm_* in a forecaster row: first = the forecaster, second = implied.");
@@ -137,15 +138,7 @@ internal static class BacktestJson
             json.WriteNull("rule_test");
         }
 
-        if (calibration is null)
-        {
-            json.WriteNull("calibration");
-            json.WriteNull("coverage");
-        }
-        else
-        {
-            CalibrationJson.Write(json, calibration);
-        }
+        CalibrationJson.Write(json, calibration);
 
         var q = r.DataQuality;
         json.WriteStartObject("data_quality");
@@ -288,7 +281,7 @@ internal static class BacktestJson
         json.WriteEndObject();
     }
 
-    private static void Run(Utf8JsonWriter json, BacktestResult r, BacktestRunInfo run)
+    private static void Run(Utf8JsonWriter json, BacktestResult r, BacktestRunInfo run, IReadOnlyList<string> files)
     {
         var s = r.Settings;
         json.WriteStartObject();
@@ -366,6 +359,7 @@ internal static class BacktestJson
         json.WriteString("target", Config.BacktestConfigFile.TargetNames[(int)s.Target]);
         json.WriteEndObject();
         Strings(json, "input_warnings", run.InputWarnings);
+        Strings(json, "files", files);
         json.WriteEndObject();
     }
 
