@@ -42,6 +42,7 @@ internal static class BacktestPipeline
         ArgumentNullException.ThrowIfNull(warn);
         stage?.Invoke(BacktestStage.CheckOutput);
         using var output = ResultsFolder.Open(job.OutputFolder, job.Force, job.Inputs);
+        cancellationToken.ThrowIfCancellationRequested();
 
         stage?.Invoke(BacktestStage.Load);
         var started = DateTimeOffset.UtcNow;

@@ -86,7 +86,7 @@ internal sealed partial class ResultsFolder : IDisposable
             throw new UsageException(ex.Message);
         }
 
-        RemoveStaleTemporaries(target);
+        RemoveStaleTemporaries(Path.GetDirectoryName(target)!, Path.GetFileName(target));
         if (!exists)
         {
             return new ResultsFolder(folder, target, replace: false, previous, null);
@@ -250,19 +250,23 @@ internal sealed partial class ResultsFolder : IDisposable
     private static string TemporaryName(string name, string kind) =>
         string.Create(CultureInfo.InvariantCulture, $".{name}.{Environment.ProcessId}.{Guid.NewGuid():N}.{kind}");
 
-    private static void RemoveStaleTemporaries(string target)
+    /// <summary>
+    /// Removes the temporary folders (<c>.NAME.PID.ID.tmp</c> or <c>.old</c>) that runs of processes no longer running left in
+    /// <paramref name="parent"/>: for one target name, or for every name when <paramref name="name"/> is null.
+    /// </summary>
+    /// <param name="parent">The folder that holds the results folders.</param>
+    /// <param name="name">The results folder's name, or null for all.</param>
+    public static void RemoveStaleTemporaries(string parent, string? name = null)
     {
-        var parent = Path.GetDirectoryName(target);
-        if (parent is null || !Directory.Exists(parent))
+        if (!Directory.Exists(parent))
         {
             return;
         }
 
-        var prefix = "." + Path.GetFileName(target) + ".";
-        foreach (var path in Directory.EnumerateDirectories(parent, prefix + "*"))
+        foreach (var path in Directory.EnumerateDirectories(parent, "." + (name is null ? string.Empty : name + ".") + "*"))
         {
             var match = TemporaryPattern().Match(Path.GetFileName(path));
-            if (!match.Success || match.Groups["name"].Value != Path.GetFileName(target)
+            if (!match.Success || (name is not null && match.Groups["name"].Value != name)
                 || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid) || Running(pid))
             {
                 continue;

@@ -38,6 +38,8 @@ internal static class ScanRunner
             throw new UsageException($"{request.PricesFolder}: no .csv price file found; the scan runs one backtest per NAME.csv in this folder.");
         }
 
+        // The scan owns OUT/assets: what killed runs left there is removed before any name is looked at.
+        ResultsFolder.RemoveStaleTemporaries(Path.Combine(request.OutputFolder, AssetsFolder));
         var fingerprint = ScanFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion());
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
         var rows = new ScanAssetRow?[assets.Count];
