@@ -1,6 +1,6 @@
-using System.Text.Json;
 using System.Globalization;
 using System.Text;
+using System.Text.Json;
 using VolCast.Cli.Scan;
 using VolCast.Cli.Tests.Support;
 using VolCast.Core.Backtest;
