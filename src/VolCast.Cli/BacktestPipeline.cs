@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Reflection;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
+using VolCast.Core.Data;
 using VolCast.IO;
 using VolCast.IO.Results;
 using VolCast.Reports;
@@ -131,7 +132,7 @@ internal static class BacktestPipeline
         inputs.Add(new InputFileInfo("prices", job.Prices, prices.Sha256));
         if (implied is not null)
         {
-            inputs.Add(new InputFileInfo("implied", job.Implied!, implied.Sha256));
+            inputs.Add(new InputFileInfo(ImpliedSeries.Name, job.Implied!, implied.Sha256));
         }
 
         if (job.Config is not null)

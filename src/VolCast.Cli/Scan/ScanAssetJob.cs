@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using VolCast.Core.Backtest;
+using VolCast.Core.Data;
 using VolCast.IO;
 using VolCast.IO.Results;
 
@@ -44,7 +45,7 @@ internal sealed record ScanAssetJob(
             hashes["prices"] = prices.Sha256;
             if (implied is not null)
             {
-                hashes["implied"] = implied.Sha256;
+                hashes[ImpliedSeries.Name] = implied.Sha256;
             }
 
             if (Config is not null)
