@@ -10,7 +10,7 @@ namespace VolCast.Cli;
 /// <param name="Settings">The resolved settings.</param>
 /// <param name="Config">The configuration file the settings came from, if any (its SHA-256 goes into run.json).</param>
 /// <param name="OutputFolder">The folder to write; it must not exist unless <paramref name="Force"/> is set.</param>
-/// <param name="Force">Whether an existing output folder may be used, replacing only the tool's own files.</param>
+/// <param name="Force">Whether an existing output folder may be used, replacing only the tool's own files (those in its run.json manifest).</param>
 internal sealed record BacktestJob(
     string Prices,
     string? Implied,
@@ -18,4 +18,18 @@ internal sealed record BacktestJob(
     BacktestSettings Settings,
     string? Config,
     string OutputFolder,
-    bool Force);
+    bool Force)
+{
+    /// <summary>Gets the price file's bytes when the caller has already read them (the scan hashes them first), or null to read the file.</summary>
+    public InputBytes? PricesRead { get; init; }
+
+    /// <summary>Gets the implied file's bytes when already read, or null.</summary>
+    public InputBytes? ImpliedRead { get; init; }
+
+    /// <summary>Gets the configuration file's SHA-256 when already known, or null to hash the file.</summary>
+    public string? ConfigSha256 { get; init; }
+
+    /// <summary>Gets every input file of the job.</summary>
+    public IEnumerable<string> Inputs =>
+        new[] { Prices, Implied, Config }.OfType<string>();
+}

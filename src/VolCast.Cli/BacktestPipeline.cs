@@ -10,98 +10,142 @@ using VolCast.Reports;
 namespace VolCast.Cli;
 
 /// <summary>
-/// Loads one job's inputs, runs the backtest and writes its results folder (results files, report.html and its charts). Holds no shared state, so jobs for
-/// different assets can run side by side (and, one day, on different machines).
+/// One backtest run, top to bottom: check the output folder → load → forecast and score (Core) → calibrate → stage a
+/// temporary folder → write the data files (IO) → write the report (Reports) → run.json with the manifest → commit.
+/// Holds no shared state, so jobs for different assets can run side by side.
 /// </summary>
 internal static class BacktestPipeline
 {
-    /// <summary>Runs one job.</summary>
+    /// <summary>Runs one job and commits its results folder.</summary>
     /// <param name="job">What to run.</param>
     /// <param name="warn">Receives each input warning as it is found.</param>
-    /// <param name="progress">Receives progress, or null.</param>
-    /// <param name="cancellationToken">Stops the run between forecasters.</param>
-    /// <returns>The result and the run information written beside it.</returns>
+    /// <param name="progress">Receives the forecasters' progress, or null.</param>
+    /// <param name="stage">Told as each stage starts, or null.</param>
+    /// <param name="writeMore">
+    /// Writes further files of the same run into the staging folder it is given and returns their names, so they are
+    /// committed (and listed in run.json) with the rest; or null. The scan writes its record this way.
+    /// </param>
+    /// <param name="cancellationToken">Stops the run at any stage before the commit; nothing is then written.</param>
+    /// <returns>The run that was written.</returns>
     /// <exception cref="InputDataException">An input file cannot be used.</exception>
-    /// <exception cref="UsageException">The settings ask for something the data cannot give.</exception>
-    public static (BacktestResult Result, BacktestRunInfo Run) Run(
-        BacktestJob job, Action<string> warn, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken = default)
+    /// <exception cref="UsageException">The settings ask for something the data cannot give, or the output folder cannot be used.</exception>
+    /// <exception cref="IOException">Another run holds or created the output folder, or a file there is not the tool's.</exception>
+    /// <exception cref="OperationCanceledException">The token was cancelled; the output folder is as it was.</exception>
+    public static BacktestRun Run(
+        BacktestJob job,
+        Action<string> warn,
+        IProgress<BacktestProgress>? progress,
+        Action<BacktestStage>? stage = null,
+        Func<string, BacktestRun, IReadOnlyList<string>>? writeMore = null,
+        CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(job);
         ArgumentNullException.ThrowIfNull(warn);
+        stage?.Invoke(BacktestStage.CheckOutput);
+        using var output = ResultsFolder.Open(job.OutputFolder, job.Force, job.Inputs);
+        cancellationToken.ThrowIfCancellationRequested();
+
+        stage?.Invoke(BacktestStage.Load);
         var started = DateTimeOffset.UtcNow;
-        var priceLoad = PriceFileReader.Read(job.Prices);
-        var inputWarnings = new List<string>();
-        foreach (var warning in priceLoad.Warnings)
-        {
-            warn(warning.ToString());
-            inputWarnings.Add(warning.ToString());
-        }
+        var (prices, implied, warnings) = Load(job, warn);
+        cancellationToken.ThrowIfCancellationRequested();
 
-        ImpliedLoad? impliedLoad = null;
-        if (job.Implied is not null)
-        {
-            impliedLoad = ImpliedFileReader.Read(job.Implied, job.ImpliedUnit);
-            foreach (var warning in impliedLoad.Warnings)
-            {
-                warn(warning.ToString());
-                inputWarnings.Add(warning.ToString());
-            }
-        }
-
-        BacktestResult result;
-        try
-        {
-            result = Backtester.Run(priceLoad.History, impliedLoad?.Series, job.Settings, progress: progress, cancellationToken: cancellationToken);
-        }
-        catch (BacktestDataException ex)
-        {
-            throw new InputDataException(job.Implied is not null && ex.Message.StartsWith("No date is shared", StringComparison.Ordinal) ? job.Implied : job.Prices, null, null, ex.Message);
-        }
-        catch (ArgumentException ex)
-        {
-            throw new UsageException(ex.Message);
-        }
+        stage?.Invoke(BacktestStage.Forecast);
+        var result = Forecast(job, prices, implied, progress, cancellationToken);
 
         // Do the odds hold? N(d2) probabilities at the default strikes and the expected-move ranges, on the same dates and prices.
-        var calibration = BacktestCalibrator.Evaluate(result, priceLoad.History);
+        stage?.Invoke(BacktestStage.Calibrate);
+        var calibration = BacktestCalibrator.Evaluate(result, prices.History, cancellationToken: cancellationToken);
+        var run = new BacktestRun(result, calibration, Info(job, prices, implied, warnings, started), prices.History, prices.RowsRead);
 
-        var inputs = ImmutableArray.CreateBuilder<InputFileInfo>();
-        inputs.Add(new InputFileInfo("prices", job.Prices, priceLoad.Sha256));
-        if (impliedLoad is not null)
+        stage?.Invoke(BacktestStage.WriteData);
+        var staging = output.Stage();
+        var files = new List<string>(BacktestResultsWriter.WriteData(staging, run, cancellationToken));
+
+        stage?.Invoke(BacktestStage.WriteReport);
+        files.AddRange(ReportWriter.Write(staging, run, cancellationToken));
+        if (writeMore is not null)
         {
-            inputs.Add(new InputFileInfo(ImpliedSeries.Name, job.Implied!, impliedLoad.Sha256));
+            cancellationToken.ThrowIfCancellationRequested();
+            files.AddRange(writeMore(staging, run));
         }
 
-        if (job.Config is not null)
-        {
-            inputs.Add(new InputFileInfo("config", job.Config, Sha256(job.Config)));
-        }
+        var manifest = BacktestResultsWriter.WriteRunRecord(staging, run, files);
 
-        var run = new BacktestRunInfo(
-            ToolVersion(),
-            inputs.ToImmutable(),
-            started,
-            DateTimeOffset.UtcNow,
-            impliedLoad is null ? null : (impliedLoad.UnitUsed == ImpliedUnit.Percent ? "percent" : "decimal") + (impliedLoad.UnitInferred ? " (inferred)" : string.Empty),
-            [.. inputWarnings]);
-        // The report is built inside the results writer's temporary folder, so it moves into place with the rest or not at all.
-        BacktestResultsWriter.Write(
-            job.OutputFolder,
-            result,
-            run,
-            job.Force,
-            temp => ReportWriter.Write(temp, result, run, priceLoad.History, priceLoad.RowsRead, calibration),
-            calibration);
-        return (result, run);
+        stage?.Invoke(BacktestStage.Commit);
+        cancellationToken.ThrowIfCancellationRequested();
+        output.Commit(manifest);
+        return run;
     }
 
     /// <summary>Gets the tool's version as recorded in run.json.</summary>
     public static string ToolVersion() =>
         typeof(BacktestPipeline).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
 
-    private static string Sha256(string path)
+    private static (PriceLoad Prices, ImpliedLoad? Implied, ImmutableArray<string> Warnings) Load(BacktestJob job, Action<string> warn)
     {
-        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
-        return Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(stream));
+        var warnings = ImmutableArray.CreateBuilder<string>();
+        void Warn(InputWarning warning)
+        {
+            warn(warning.ToString());
+            warnings.Add(warning.ToString());
+        }
+
+        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices));
+        foreach (var warning in prices.Warnings)
+        {
+            Warn(warning);
+        }
+
+        ImpliedLoad? implied = null;
+        if (job.Implied is not null)
+        {
+            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit);
+            foreach (var warning in implied.Warnings)
+            {
+                Warn(warning);
+            }
+        }
+
+        return (prices, implied, warnings.ToImmutable());
+    }
+
+    private static BacktestResult Forecast(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken)
+    {
+        try
+        {
+            return Backtester.Run(prices.History, implied?.Series, job.Settings, progress: progress, cancellationToken: cancellationToken);
+        }
+        catch (BacktestDataException ex)
+        {
+            throw new InputDataException(ex.Input == BacktestInput.Implied && job.Implied is not null ? job.Implied : job.Prices, null, null, ex.Message);
+        }
+        catch (ArgumentException ex)
+        {
+            throw new UsageException(ex.Message);
+        }
+    }
+
+    private static BacktestRunInfo Info(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, ImmutableArray<string> warnings, DateTimeOffset started)
+    {
+        var inputs = ImmutableArray.CreateBuilder<InputFileInfo>();
+        inputs.Add(new InputFileInfo("prices", job.Prices, prices.Sha256));
+        if (implied is not null)
+        {
+            inputs.Add(new InputFileInfo(ImpliedSeries.Name, job.Implied!, implied.Sha256));
+        }
+
+        if (job.Config is not null)
+        {
+            inputs.Add(new InputFileInfo("config", job.Config, job.ConfigSha256 ?? InputBytes.Read(job.Config).Sha256));
+        }
+
+        return new BacktestRunInfo(
+            ToolVersion(),
+            inputs.ToImmutable(),
+            started,
+            DateTimeOffset.UtcNow,
+            implied is null ? null : (implied.UnitUsed == ImpliedUnit.Percent ? "percent" : "decimal") + (implied.UnitInferred ? " (inferred)" : string.Empty),
+            warnings);
     }
 }

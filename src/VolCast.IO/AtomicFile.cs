@@ -14,7 +14,7 @@ public static class AtomicFile
     /// <param name="path">The file to create or replace.</param>
     /// <param name="write">Writes the content.</param>
     /// <param name="overwrite">Whether an existing file may be replaced.</param>
-    /// <param name="protectedInputs">Input files that must never be written over; a target equal to one of them is refused.</param>
+    /// <param name="protectedInputs">Input files that must never be written over; a target that resolves to one of them (<see cref="FileIdentity"/>) is refused.</param>
     /// <exception cref="IOException">The target exists and <paramref name="overwrite"/> is false, or the target is one of the inputs.</exception>
     public static void WriteText(string path, Action<TextWriter> write, bool overwrite = false, IEnumerable<string>? protectedInputs = null)
     {
@@ -41,7 +41,8 @@ public static class AtomicFile
         {
             foreach (var input in protectedInputs)
             {
-                if (string.Equals(Path.GetFullPath(input), full, StringComparison.Ordinal))
+                // By identity, not by spelling: a symbolic link to an input is the input.
+                if (FileIdentity.Same(input, full))
                 {
                     throw new IOException($"{path}: the output would overwrite an input file; choose another --out.");
                 }

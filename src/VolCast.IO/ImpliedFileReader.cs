@@ -44,10 +44,17 @@ public static class ImpliedFileReader
     /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
     /// <returns>The series as decimals, the warnings, the unit used, whether it was inferred, and the SHA-256 of the file's bytes.</returns>
     /// <exception cref="InputDataException">The file is missing or unreadable, or its content is invalid.</exception>
-    public static ImpliedLoad Read(string path, ImpliedUnit unit = ImpliedUnit.Infer)
+    public static ImpliedLoad Read(string path, ImpliedUnit unit = ImpliedUnit.Infer) => Read(InputBytes.Read(path), unit);
+
+    /// <summary>Loads an implied-volatility file already read (<see cref="InputBytes.Read"/>), without reading or hashing it again.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <returns>The series as decimals, the warnings, the unit used, whether it was inferred, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit = ImpliedUnit.Infer)
     {
-        var bytes = InputText.ReadBytes(path);
-        return ReadBytes(bytes, path, unit);
+        ArgumentNullException.ThrowIfNull(input);
+        return Parse(input.Text(), input.Path, unit, input.Sha256);
     }
 
     /// <summary>Loads implied-volatility data from a reader (for tests and in-memory data).</summary>

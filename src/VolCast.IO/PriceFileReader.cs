@@ -52,10 +52,16 @@ public static class PriceFileReader
     /// <param name="path">The file, as the user gave it; used as given in messages.</param>
     /// <returns>The history, warnings, row count, whether adj_close was applied, and the SHA-256 of the file's bytes.</returns>
     /// <exception cref="InputDataException">The file is missing or unreadable, or its content is invalid.</exception>
-    public static PriceLoad Read(string path)
+    public static PriceLoad Read(string path) => Read(InputBytes.Read(path));
+
+    /// <summary>Loads a price file already read (<see cref="InputBytes.Read"/>), without reading or hashing it again.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <returns>The history, warnings, row count, whether adj_close was applied, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(InputBytes input)
     {
-        var bytes = InputText.ReadBytes(path);
-        return ReadBytes(bytes, path);
+        ArgumentNullException.ThrowIfNull(input);
+        return Parse(input.Text(), input.Path, input.Sha256);
     }
 
     /// <summary>Loads price data from a reader (for tests and in-memory data).</summary>

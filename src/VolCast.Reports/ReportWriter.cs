@@ -34,38 +34,33 @@ public static class ReportWriter
     /// <summary>The cone's data file: the percentiles the cone chart draws, in the columns of <see cref="ConeCsv"/>.</summary>
     public const string ConeFileName = "cone.csv";
 
-    /// <summary>Builds the report of one backtest.</summary>
-    /// <param name="result">The backtest result.</param>
-    /// <param name="run">Tool version, inputs with their SHA-256, times and input warnings.</param>
-    /// <param name="prices">The price history the backtest ran on (the cone is drawn from its closes).</param>
-    /// <param name="priceRowsRead">Data rows read from the price file, for the data-quality section.</param>
-    /// <param name="calibration">The probability-calibration and coverage checks of the same run (<see cref="BacktestCalibrator.Evaluate"/>), or null to leave the "Do the odds hold?" section saying they were not run.</param>
+    /// <summary>Builds the report of one backtest, drawing every chart.</summary>
+    /// <param name="run">The run: result, odds checks, run information and the price history it ran on.</param>
+    /// <param name="cancellationToken">Stops between charts.</param>
     /// <returns>The report model.</returns>
-    public static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null)
+    /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
+    public static ReportModel Build(BacktestRun run, CancellationToken cancellationToken = default)
     {
-        ArgumentNullException.ThrowIfNull(result);
-        ArgumentNullException.ThrowIfNull(prices);
-        return Build(result, run, prices, priceRowsRead, calibration, Cone(result, prices));
+        ArgumentNullException.ThrowIfNull(run);
+        return Build(run, Cone(run.Result, run.Prices), cancellationToken);
     }
 
     /// <summary>Builds the report and writes report.html, its PNGs and, when the cone is drawn, cone.csv (its numbers) into <paramref name="folder"/>.</summary>
-    /// <param name="folder">The output folder; created when missing.</param>
-    /// <param name="result">The backtest result.</param>
-    /// <param name="run">Tool version, inputs, times and warnings.</param>
-    /// <param name="prices">The price history the backtest ran on.</param>
-    /// <param name="priceRowsRead">Data rows read from the price file.</param>
-    /// <param name="calibration">The odds checks of the same run, or null.</param>
+    /// <param name="folder">The folder to write to (the caller's staging folder); created when missing.</param>
+    /// <param name="run">The run.</param>
+    /// <param name="cancellationToken">Stops between charts, before the page is rendered and between files.</param>
     /// <returns>The file names written (without the folder).</returns>
     /// <exception cref="IOException">A report file already exists in the folder.</exception>
-    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null)
+    /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
+    public static IReadOnlyList<string> Write(string folder, BacktestRun run, CancellationToken cancellationToken = default)
     {
-        ArgumentNullException.ThrowIfNull(result);
-        ArgumentNullException.ThrowIfNull(prices);
-        var cone = Cone(result, prices);
-        var model = Build(result, run, prices, priceRowsRead, calibration, cone);
-        var written = ReportFiles.Write(model, folder, overwrite: false).Select(Path.GetFileName).OfType<string>().ToList();
+        ArgumentNullException.ThrowIfNull(run);
+        var cone = Cone(run.Result, run.Prices);
+        var model = Build(run, cone, cancellationToken);
+        var written = ReportFiles.Write(model, folder, overwrite: false, cancellationToken).Select(Path.GetFileName).OfType<string>().ToList();
         if (cone.Horizons.Count > 0)
         {
+            cancellationToken.ThrowIfCancellationRequested();
             AtomicFile.WriteText(Path.Combine(folder, ConeFileName), w => ConeCsv.Write(w, cone));
             written.Insert(0, ConeFileName);
         }
@@ -77,50 +72,61 @@ public static class ReportWriter
     internal static VolatilityConeResult Cone(BacktestResult result, PriceHistory prices) =>
         VolatilityCone.Compute(Returns.LogReturns(prices.Close), VolatilityCone.DefaultHorizons, result.Settings.AnnualizationFactor);
 
-    private static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration, VolatilityConeResult cone)
+    private static ReportModel Build(BacktestRun run, VolatilityConeResult cone, CancellationToken cancellationToken)
     {
-        ArgumentNullException.ThrowIfNull(run);
-        var pricesFile = run.Inputs.FirstOrDefault(i => i.Role == "prices")?.Path ?? "prices";
+        var result = run.Result;
+        var info = run.Info;
+        var pricesFile = info.Inputs.FirstOrDefault(i => i.Role == "prices")?.Path ?? "prices";
         var title = string.Create(CultureInfo.InvariantCulture,
             $"Volatility forecast backtest: {Path.GetFileNameWithoutExtension(pricesFile)}, {HorizonText(result.Settings.Horizon)}");
+        var charts = Charts(result, cone, cancellationToken);
+        cancellationToken.ThrowIfCancellationRequested();
+        var odds = ReportOdds.Build(result, run.Calibration);
         return new ReportModel(
             title,
             ReportVerdict.Build(result),
             ReportTables.Build(result),
-            Charts(result, cone),
-            Quality(result, run, priceRowsRead),
-            new RunInfo(run.ToolVersion, run.StartedUtc, run.FinishedUtc - run.StartedUtc, Settings(result, run), [.. run.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
+            charts,
+            Quality(result, info, run.PriceRowsRead),
+            new RunInfo(info.ToolVersion, info.StartedUtc, info.FinishedUtc - info.StartedUtc, Settings(result, info), [.. info.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
         {
-            Odds = calibration is null ? null : ReportOdds.Build(result, calibration),
+            Odds = odds,
         };
     }
 
-    internal static IReadOnlyList<ChartImage> Charts(BacktestResult result, VolatilityConeResult cone)
+    internal static IReadOnlyList<ChartImage> Charts(BacktestResult result, VolatilityConeResult cone, CancellationToken cancellationToken = default)
     {
         var charts = new List<ChartImage>();
+        void Next() => cancellationToken.ThrowIfCancellationRequested();
+        Next();
         var leading = ReportSeries.Leading(result);
         var realized = ReportSeries.Realized(result);
         var implied = result.HasImplied ? ReportSeries.Implied(result) : null;
         charts.Add(ReportCharts.ForecastVsRealized(realized, implied, [.. leading.Select(s => ReportSeries.Forecast(result, s))]));
         if (result.HasImplied)
         {
+            Next();
             charts.Add(ReportCharts.Premium(ReportSeries.Premium(result)));
+            Next();
             charts.Add(ReportCharts.CumulativeLossDifferential([.. leading.Select(s => ReportSeries.QlikeDifferential(result, s))]));
         }
 
         var curves = ReportSeries.LookbackCurves(result);
         if (curves.Count > 0)
         {
+            Next();
             charts.Add(ReportCharts.LossVsLookback(curves));
         }
 
         var leader = ReportSeries.Ranked(result).FirstOrDefault(m => m.MincerZarnowitz is not null);
         if (leader is not null)
         {
+            Next();
             var (forecast, realizedVariance) = ReportSeries.Variances(result, leader.Spec);
             charts.Add(ReportCharts.MincerZarnowitz(leader.Spec, forecast, realizedVariance, leader.MincerZarnowitz!.Intercept, leader.MincerZarnowitz.Slope));
         }
 
+        Next();
         if (cone.Horizons.Count > 0)
         {
             charts.Add(ReportCharts.Cone(cone, ConeOverlays(result, leading)));
@@ -128,6 +134,7 @@ public static class ReportWriter
 
         if (result.RuleTest is RuleTestResult rule)
         {
+            Next();
             var (all, sell) = ReportSeries.RuleGaps(result);
             charts.Add(ReportCharts.RuleTest(all, sell, string.Create(CultureInfo.InvariantCulture,
                 $"sell: implied > {rule.ForecastSpec} + {rule.ThresholdVolatility * 100:0.0} pts")));

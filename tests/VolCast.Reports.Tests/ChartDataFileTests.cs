@@ -49,7 +49,8 @@ public sealed class ChartDataFileTests : IDisposable
     public void ReliabilityDiagram_EveryPooledPoint_IsInMetricsJson()
     {
         var calibration = BacktestCalibrator.Evaluate(Result, Scenario.Index);
-        BacktestResultsWriter.Write(_folder, Result, Run, calibration: calibration);
+        Directory.CreateDirectory(_folder);
+        BacktestResultsWriter.WriteData(_folder, new BacktestRun(Result, calibration, Run, Scenario.Index, Scenario.Index.Count));
         using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(_folder, "metrics.json")));
         var forecasters = json.RootElement.GetProperty("calibration").GetProperty("forecasters").EnumerateArray()
             .ToDictionary(f => f.GetProperty("forecaster").GetString()!, f => f.GetProperty("pooled_reliability"));
@@ -75,7 +76,8 @@ public sealed class ChartDataFileTests : IDisposable
     [Fact]
     public void ConeChart_ItsPercentiles_AreInConeCsv()
     {
-        var written = ReportWriter.Write(_folder, Result, Run, Scenario.Index, Scenario.Index.Count);
+        var calibration = BacktestCalibrator.Evaluate(Result, Scenario.Index);
+        var written = ReportWriter.Write(_folder, new BacktestRun(Result, calibration, Run, Scenario.Index, Scenario.Index.Count));
 
         Assert.Contains(ReportWriter.ConeFileName, written);
         Assert.Contains("cone.png", written);

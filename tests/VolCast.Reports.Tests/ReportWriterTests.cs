@@ -37,12 +37,15 @@ public sealed class ReportWriterTests
         "decimal",
         ["implied.csv: a warning & <b>bold</b>"]);
 
+    private static BacktestRun Of(BacktestResult result, BacktestRunInfo info) =>
+        new(result, BacktestCalibrator.Evaluate(result, Scenario.Index), info, Scenario.Index, Scenario.Index.Count);
+
     [Fact]
     public void Build_Verdict_NamesTheLowestQlikeForecasterFirst()
     {
         var lowest = WithImplied.Metrics.Where(m => m.Kind != ForecastKind.Implied && m.Losses is not null).MinBy(m => m.Losses!.Qlike)!;
 
-        var model = ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count);
+        var model = ReportWriter.Build(Of(WithImplied, Run));
 
         Assert.StartsWith($"{lowest.Spec} ranks first on QLIKE", model.Verdict.Headline, StringComparison.Ordinal);
         Assert.Contains("Diebold-Mariano", model.Verdict.Headline, StringComparison.Ordinal);
@@ -55,7 +58,7 @@ public sealed class ReportWriterTests
     [Fact]
     public void Build_WithImplied_DrawsAllSevenCharts()
     {
-        var model = ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count);
+        var model = ReportWriter.Build(Of(WithImplied, Run));
 
         Assert.Equal(
             ["forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png", "mincer-zarnowitz.png", "cone.png", "rule-test.png"],
@@ -71,7 +74,7 @@ public sealed class ReportWriterTests
         var result = Backtester.Run(Scenario.Index, null, Settings with { Baseline = null });
         var run = Run with { Inputs = [Run.Inputs[0]], ImpliedUnit = null };
 
-        var model = ReportWriter.Build(result, run, Scenario.Index, Scenario.Index.Count);
+        var model = ReportWriter.Build(Of(result, run));
 
         Assert.Equal(["forecast-vs-realized.png", "loss-vs-lookback.png", "mincer-zarnowitz.png", "cone.png"], model.Charts.Select(c => c.FileName));
         Assert.Contains("no implied series", model.Verdict.Headline, StringComparison.Ordinal);
@@ -150,7 +153,7 @@ public sealed class ReportWriterTests
     [Fact]
     public void Render_UserStrings_AreEscaped()
     {
-        var html = HtmlReport.Render(ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count));
+        var html = HtmlReport.Render(ReportWriter.Build(Of(WithImplied, Run)));
 
         Assert.Contains("&lt;script&gt;alert(1)&lt;/script&gt;.csv", html, StringComparison.Ordinal);
         Assert.Contains("a warning &amp; &lt;b&gt;bold&lt;/b&gt;", html, StringComparison.Ordinal);
@@ -172,7 +175,7 @@ public sealed class ReportWriterTests
     {
         var calibration = BacktestCalibrator.Evaluate(WithImplied, Scenario.Index);
 
-        var model = ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count, calibration);
+        var model = ReportWriter.Build(new BacktestRun(WithImplied, calibration, Run, Scenario.Index, Scenario.Index.Count));
 
         var odds = model.Odds!;
         Assert.Equal("reliability.png", odds.Reliability!.FileName);
@@ -232,9 +235,9 @@ public sealed class ReportWriterTests
     }
 
     [Fact]
-    public void Build_WithoutCalibration_OddsSectionSaysNotRun()
+    public void Render_ModelWithoutOdds_OddsSectionSaysNotRun()
     {
-        var html = HtmlReport.Render(ReportWriter.Build(WithImplied, Run, Scenario.Index, Scenario.Index.Count));
+        var html = HtmlReport.Render(ReportWriter.Build(Of(WithImplied, Run)) with { Odds = null });
 
         Assert.Contains("<section id=\"odds\">", html, StringComparison.Ordinal);
         Assert.Contains("were not run", html, StringComparison.Ordinal);

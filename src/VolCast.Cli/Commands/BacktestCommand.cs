@@ -21,8 +21,8 @@ internal static class BacktestCommand
         var tenor = new Option<string?>("--tenor") { Description = "Forecast horizon as a calendar tenor such as 30d, mapped through the price file's own trading calendar. Overrides the configuration." };
         var start = new Option<string?>("--start") { Description = "First forecast date, yyyy-MM-dd (earlier rows still warm the forecasters up)." };
         var end = new Option<string?>("--end") { Description = "Last forecast date, yyyy-MM-dd." };
-        var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>)." };
-        var force = new Option<bool>("--force") { Description = "Use an existing output folder, replacing only volcast's own results files in it." };
+        var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>). Written in a hidden temporary folder and moved into place when complete." };
+        var force = new Option<bool>("--force") { Description = "Use an existing output folder: replace the earlier run's files (those listed in its run.json) as one set, keeping any other file; a file of an output name that volcast did not write is never replaced." };
         var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt. Ctrl-C stops the run without writing any results (exit code 130).")
         {
             prices, implied, ivUnit, config, horizon, tenor, start, end, output, force,
@@ -45,11 +45,6 @@ internal static class BacktestCommand
     {
         var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor, a.Start, a.End);
         var outFolder = a.Out ?? Path.Combine("reports", "backtest-" + Path.GetFileNameWithoutExtension(a.Prices));
-        if (Directory.Exists(outFolder) && !a.Force)
-        {
-            throw new UsageException($"{outFolder}: the output folder already exists; choose another --out or pass --force to replace its results files.");
-        }
-
         var unit = BacktestOptions.Unit(a.IvUnit);
         var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
@@ -57,15 +52,15 @@ internal static class BacktestCommand
         using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
         ConsoleCancelEventHandler onCtrlC = (_, e) =>
         {
-            // Keep the process alive: the run stops at its next check and the results folder, built in a temporary
-            // sibling, is never moved into place, so nothing half-written is left behind.
-            e.Cancel = true;
+            // The first Ctrl-C keeps the process alive: the run stops at its next check, and the results, staged in a
+            // temporary sibling folder, are never moved into place. A second one ends the process at once.
+            e.Cancel = !interrupted.IsCancellationRequested;
             interrupted.Cancel();
         };
         Console.CancelKeyPress += onCtrlC;
         try
         {
-            (result, _) = BacktestPipeline.Run(job, console.Warn, progress, interrupted.Token);
+            result = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token).Result;
         }
         catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
         {

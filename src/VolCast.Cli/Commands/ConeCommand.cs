@@ -49,6 +49,26 @@ internal static class ConeCommand
             }
 
             var pricesPath = parse.GetValue(prices)!.ToString();
+            var impliedFile = parse.GetValue(implied);
+            var inputs = new List<string> { pricesPath };
+            if (impliedFile is not null)
+            {
+                inputs.Add(impliedFile.ToString());
+            }
+
+            var folder = parse.GetValue(output)!.ToString();
+            var overwrite = parse.GetValue(force);
+            var pngPath = Path.Combine(folder, "cone.png");
+            var csvPath = Path.Combine(folder, "cone.csv");
+            OutputGuard.RefuseInputs([pngPath, csvPath], inputs);
+            foreach (var target in new[] { pngPath, csvPath })
+            {
+                if (!overwrite && File.Exists(target))
+                {
+                    throw new IOException($"{target}: the output file already exists; choose another --out or pass --force to replace it.");
+                }
+            }
+
             var load = PriceFileReader.Read(pricesPath);
             foreach (var warning in load.Warnings)
             {
@@ -70,12 +90,9 @@ internal static class ConeCommand
             }
 
             var overlays = new List<ConeOverlay>();
-            var impliedFile = parse.GetValue(implied);
-            var inputs = new List<string> { pricesPath };
             if (impliedFile is not null)
             {
                 var impliedLoad = ImpliedFileReader.Read(impliedFile.ToString());
-                inputs.Add(impliedFile.ToString());
                 foreach (var warning in impliedLoad.Warnings)
                 {
                     console.Warn(warning.ToString());
@@ -89,23 +106,6 @@ internal static class ConeCommand
                 else
                 {
                     console.Warn($"{impliedFile}: no implied volatility on or before the last price date; the cone is drawn without it.");
-                }
-            }
-
-            var folder = parse.GetValue(output)!.ToString();
-            var overwrite = parse.GetValue(force);
-            var pngPath = Path.Combine(folder, "cone.png");
-            var csvPath = Path.Combine(folder, "cone.csv");
-            foreach (var target in new[] { pngPath, csvPath })
-            {
-                if (!overwrite && File.Exists(target))
-                {
-                    throw new IOException($"{target}: the output file already exists; choose another --out or pass --force to replace it.");
-                }
-
-                if (inputs.Any(i => string.Equals(Path.GetFullPath(i), Path.GetFullPath(target), StringComparison.Ordinal)))
-                {
-                    throw new IOException($"{target}: the output would overwrite an input file; choose another --out.");
                 }
             }
 

@@ -108,7 +108,7 @@ internal static class DemoCommand
         BacktestResult result;
         try
         {
-            (result, _) = BacktestPipeline.Run(job, console.Warn, progress);
+            result = BacktestPipeline.Run(job, console.Warn, progress).Result;
         }
         finally
         {

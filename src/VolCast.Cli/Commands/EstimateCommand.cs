@@ -66,6 +66,12 @@ internal static class EstimateCommand
             }
 
             var pricesPath = parse.GetValue(prices)!.ToString();
+            var outFile = parse.GetValue(output);
+            if (outFile is not null)
+            {
+                OutputGuard.RefuseInputs([outFile.ToString()], [pricesPath]);
+            }
+
             var load = PriceFileReader.Read(pricesPath);
             foreach (var warning in load.Warnings)
             {
@@ -88,7 +94,6 @@ internal static class EstimateCommand
 
             var series = RollingVolatility.Compute(history, kind, n, a, parse.GetValue(zeroMean));
             var dates = history.Dates.Slice(series.FirstIndex, series.Count);
-            var outFile = parse.GetValue(output);
             if (outFile is null)
             {
                 HistoryCsv.WriteSeries(console.Out, "vol", dates, series.AnnualizedVolatility);

@@ -56,10 +56,7 @@ internal static class FitCommand
         }
 
         var output = outPath ?? $"fit-{modelName}.json";
-        if (string.Equals(Path.GetFullPath(output), Path.GetFullPath(pricesPath), StringComparison.Ordinal))
-        {
-            throw new UsageException($"{output}: the output would overwrite the price file; choose another --out.");
-        }
+        OutputGuard.RefuseInputs([output], [pricesPath]);
 
         if (!force && File.Exists(output))
         {

@@ -65,13 +65,9 @@ internal static class ImpliedCommand
         CheckDecimalRate(dividendYield, "--dividend-yield");
         var output = outPath ?? $"implied-{DayCount.FormatTenor(tenorDays)}.csv";
         var diagnosticsPath = DiagnosticsPath(output);
+        OutputGuard.RefuseInputs([output, diagnosticsPath], [quotesPath]);
         foreach (var target in new[] { output, diagnosticsPath })
         {
-            if (string.Equals(Path.GetFullPath(target), Path.GetFullPath(quotesPath), StringComparison.Ordinal))
-            {
-                throw new UsageException($"{target}: the output would overwrite the quotes file; choose another --out.");
-            }
-
             if (!force && File.Exists(target))
             {
                 throw new UsageException($"{target}: the file already exists; choose another --out or pass --force to replace it.");

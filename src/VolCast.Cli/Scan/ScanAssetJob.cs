@@ -1,5 +1,4 @@
 using System.Collections.Immutable;
-using System.Security.Cryptography;
 using VolCast.Core.Backtest;
 using VolCast.Core.Data;
 using VolCast.IO;
@@ -28,6 +27,9 @@ internal sealed record ScanAssetJob(
     string Fingerprint,
     bool Force)
 {
+    /// <summary>Gets the configuration file's SHA-256, hashed once for the whole scan, or null to hash it here.</summary>
+    public string? ConfigSha256 { get; init; }
+
     /// <summary>Runs the asset, or keeps its results when they are complete and its inputs and configuration are unchanged.</summary>
     /// <returns>The summary row and whether the earlier results were kept. A failure is a row with its message, never an exception, except cancellation.</returns>
     /// <exception cref="OperationCanceledException">The token was cancelled; the folder is left as it was or complete.</exception>
@@ -36,16 +38,19 @@ internal sealed record ScanAssetJob(
         var hasImplied = Asset.Implied is not null;
         try
         {
+            // Each input is read once: the hash that decides whether earlier results still hold is of the very bytes the backtest then parses.
+            var prices = InputBytes.Read(Asset.Prices);
+            var implied = Asset.Implied is null ? null : InputBytes.Read(Asset.Implied);
             var hashes = ImmutableSortedDictionary.CreateBuilder<string, string>(StringComparer.Ordinal);
-            hashes["prices"] = Sha256(Asset.Prices);
-            if (Asset.Implied is not null)
+            hashes["prices"] = prices.Sha256;
+            if (implied is not null)
             {
-                hashes[ImpliedSeries.Name] = Sha256(Asset.Implied);
+                hashes[ImpliedSeries.Name] = implied.Sha256;
             }
 
             if (Config is not null)
             {
-                hashes["config"] = Sha256(Config);
+                hashes["config"] = ConfigSha256 ?? InputBytes.Read(Config).Sha256;
             }
 
             var inputs = hashes.ToImmutable();
@@ -55,13 +60,21 @@ internal sealed record ScanAssetJob(
             }
 
             cancellationToken.ThrowIfCancellationRequested();
-            var job = new BacktestJob(Asset.Prices, Asset.Implied, ImpliedUnit, Settings, Config, Folder, Force: Directory.Exists(Folder));
-            var (result, _) = BacktestPipeline.Run(job, static _ => { }, null, cancellationToken);
-            var row = ScanRows.FromResult(Asset.Name, result);
-
-            // Written last: its presence says the folder is complete for these inputs and this configuration.
-            ScanAssetJson.Write(Folder, new ScanAssetRecord(inputs, Fingerprint, row));
-            return (row, false);
+            var job = new BacktestJob(Asset.Prices, Asset.Implied, ImpliedUnit, Settings, Config, Folder, Force: Directory.Exists(Folder))
+            {
+                PricesRead = prices,
+                ImpliedRead = implied,
+                ConfigSha256 = Config is null ? null : inputs["config"],
+            };
+            ScanAssetRow? row = null;
+            BacktestPipeline.Run(job, static _ => { }, null, writeMore: (staging, run) =>
+            {
+                // Committed with the results: its presence says the folder is complete for these inputs and this configuration.
+                row = ScanRows.FromResult(Asset.Name, run.Result);
+                ScanAssetJson.Write(staging, new ScanAssetRecord(inputs, Fingerprint, row));
+                return [ScanAssetJson.FileName];
+            }, cancellationToken: cancellationToken);
+            return (row!, false);
         }
         catch (OperationCanceledException)
         {
@@ -120,11 +133,5 @@ internal sealed record ScanAssetJob(
         }
 
         return true;
-    }
-
-    private static string Sha256(string path)
-    {
-        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
-        return Convert.ToHexStringLower(SHA256.HashData(stream));
     }
 }

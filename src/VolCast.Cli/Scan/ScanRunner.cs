@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using VolCast.IO;
 using VolCast.IO.Results;
 
 namespace VolCast.Cli.Scan;
@@ -37,7 +38,10 @@ internal static class ScanRunner
             throw new UsageException($"{request.PricesFolder}: no .csv price file found; the scan runs one backtest per NAME.csv in this folder.");
         }
 
+        // The scan owns OUT/assets: what killed runs left there is removed before any name is looked at.
+        ResultsFolder.RemoveStaleTemporaries(Path.Combine(request.OutputFolder, AssetsFolder));
         var fingerprint = ScanFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion());
+        var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
         var rows = new ScanAssetRow?[assets.Count];
         var gate = new Lock();
         int done = 0, reused = 0, failed = 0, computed = 0;
@@ -55,7 +59,10 @@ internal static class ScanRunner
                     var asset = assets[i];
                     var job = new ScanAssetJob(
                         asset, request.ImpliedUnit, request.Settings, request.Config,
-                        Path.Combine(request.OutputFolder, AssetsFolder, asset.Name), fingerprint, request.Force);
+                        Path.Combine(request.OutputFolder, AssetsFolder, asset.Name), fingerprint, request.Force)
+                    {
+                        ConfigSha256 = configSha256,
+                    };
                     var started = clock.Elapsed;
                     var (row, wasReused) = job.Run(cancellationToken);
                     ScanProgress report;

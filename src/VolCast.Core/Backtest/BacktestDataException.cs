@@ -6,11 +6,23 @@ namespace VolCast.Core.Backtest;
 /// </summary>
 public sealed class BacktestDataException : Exception
 {
+    /// <summary>Gets the input at fault, so a caller can name its file: the prices unless the exception says otherwise.</summary>
+    public BacktestInput Input { get; } = BacktestInput.Prices;
+
     /// <summary>Creates the exception with its message.</summary>
     /// <param name="message">What was wrong, with the numbers, and what would fix it.</param>
     public BacktestDataException(string message)
         : base(message)
     {
+    }
+
+    /// <summary>Creates the exception with its message and the input at fault.</summary>
+    /// <param name="message">What was wrong, with the numbers, and what would fix it.</param>
+    /// <param name="input">The input whose data cannot support the backtest.</param>
+    public BacktestDataException(string message, BacktestInput input)
+        : base(message)
+    {
+        Input = input;
     }
 
     /// <summary>Creates the exception with an empty message.</summary>

@@ -88,7 +88,8 @@ public static partial class Backtester
         if (matchedInRange == 0)
         {
             throw new BacktestDataException(Text(
-                $"No date is shared by the prices ({dates[first]:yyyy-MM-dd} to {dates[last]:yyyy-MM-dd}, {last - first + 1} forecast dates) and the implied series ({(implied.Count == 0 ? "empty" : Text($"{id[0]:yyyy-MM-dd} to {id[implied.Count - 1]:yyyy-MM-dd}, {implied.Count} rows"))}); check that both files cover the same period, or leave out --implied."));
+                $"No date is shared by the prices ({dates[first]:yyyy-MM-dd} to {dates[last]:yyyy-MM-dd}, {last - first + 1} forecast dates) and the implied series ({(implied.Count == 0 ? "empty" : Text($"{id[0]:yyyy-MM-dd} to {id[implied.Count - 1]:yyyy-MM-dd}, {implied.Count} rows"))}); check that both files cover the same period, or leave out --implied."),
+                BacktestInput.Implied);
         }
 
         return new ImpliedJoin(impliedAt, true, implied.Count, impliedRowsInRange, matchedInRange);
@@ -266,6 +267,12 @@ public static partial class Backtester
                 var v = new double?[last + 1];
                 for (var t = 0; t <= last; t++)
                 {
+                    // A model forecaster refits as it walks; checking every 64 dates keeps Ctrl-C prompt at no measurable cost.
+                    if ((t & 63) == 0)
+                    {
+                        cancellationToken.ThrowIfCancellationRequested();
+                    }
+
                     v[t] = session.Forecast(t);
                 }
 

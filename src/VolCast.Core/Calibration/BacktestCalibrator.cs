@@ -26,11 +26,14 @@ public static class BacktestCalibrator
     /// <param name="result">The backtest.</param>
     /// <param name="prices">The price history the backtest ran on.</param>
     /// <param name="options">Strikes, drift, bins and the minimum sample; the defaults when null. Its annualization factor is replaced by the backtest's.</param>
+    /// <param name="cancellationToken">Stops before the checks and between forecasters.</param>
     /// <returns>One record per forecaster, implied first.</returns>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
     /// <exception cref="ArgumentException">A forecast date is not in the price history, or an option is invalid.</exception>
-    public static BacktestCalibration Evaluate(BacktestResult result, PriceHistory prices, CalibrationOptions? options = null)
+    /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
+    public static BacktestCalibration Evaluate(BacktestResult result, PriceHistory prices, CalibrationOptions? options = null, CancellationToken cancellationToken = default)
     {
+        cancellationToken.ThrowIfCancellationRequested();
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(prices);
         options = (options ?? new CalibrationOptions()) with { AnnualizationFactor = result.Settings.AnnualizationFactor };
@@ -41,6 +44,7 @@ public static class BacktestCalibrator
         var odds = ImmutableArray.CreateBuilder<ForecasterOdds>(result.Forecasts.Length + 1);
         if (result.HasImplied)
         {
+            cancellationToken.ThrowIfCancellationRequested();
             odds.Add(Score(aligned.Outcomes, Pick(aligned, ImpliedSeries.Name, result.Implied, out var bad), options, regimeValues, bad));
         }
 

@@ -1,23 +1,22 @@
-using VolCast.Core.Backtest;
-using VolCast.Core.Calibration;
+using System.Collections.Immutable;
+using System.Text.Json;
 using VolCast.IO.Csv;
 
 namespace VolCast.IO.Results;
 
 /// <summary>
-/// Writes a backtest's results into a new output folder: forecasts.csv, metrics.csv, metrics.json, run.json and
-/// summary.txt, and with the odds checks also calibration.csv and coverage.csv (their numbers repeated in metrics.json).
+/// Writes a backtest's data files into a folder it is given: forecasts.csv, metrics.csv, metrics.json, summary.txt,
+/// calibration.csv and coverage.csv (<see cref="WriteData"/>), and last run.json with the manifest of every file of the
+/// run (<see cref="WriteRunRecord"/>).
 /// </summary>
 /// <remarks>
-/// The files are built in a temporary sibling folder (each through <see cref="AtomicFile"/>) and the folder is moved
-/// into place, so a failure leaves no half-written report. An existing folder is refused unless <c>force</c> is set;
-/// with it, only the files this writer produces are replaced and anything else in the folder is left alone.
+/// The folder is a staging folder owned by the caller, which moves it into place once every file of the run is in it;
+/// this writer neither creates, replaces nor removes an output folder.
 /// </remarks>
 public static class BacktestResultsWriter
 {
-    /// <summary>Gets the names of the files this writer produces.</summary>
-    public static IReadOnlyList<string> FileNames { get; } =
-        ["forecasts.csv", "metrics.csv", "metrics.json", "run.json", "summary.txt", CalibrationFileName, CoverageFileName];
+    /// <summary>The run record's file name; it holds the manifest of the run's files.</summary>
+    public const string RunFileName = "run.json";
 
     /// <summary>The probability-calibration table's file name (see <see cref="CalibrationCsv"/>).</summary>
     public const string CalibrationFileName = "calibration.csv";
@@ -25,99 +24,91 @@ public static class BacktestResultsWriter
     /// <summary>The range-coverage table's file name (see <see cref="CoverageCsv"/>).</summary>
     public const string CoverageFileName = "coverage.csv";
 
-    /// <summary>Writes the results folder.</summary>
-    /// <param name="folder">The output folder; must not exist unless <paramref name="force"/>.</param>
-    /// <param name="result">The backtest result.</param>
-    /// <param name="run">Version, inputs with their SHA-256, and times, for run.json.</param>
-    /// <param name="force">Replace this writer's files in an existing folder.</param>
-    /// <param name="writeMore">
-    /// Writes further files of the same run (the HTML report and its charts) into the temporary folder it is given and
-    /// returns their names, so they are moved into place with the rest, and with <paramref name="force"/> replaced like them; or null.
-    /// </param>
-    /// <param name="calibration">
-    /// The probability-calibration and range-coverage checks of the same run (<see cref="BacktestCalibrator.Evaluate"/>),
-    /// written to calibration.csv and coverage.csv, to metrics.json (sections <c>calibration</c> and <c>coverage</c>) and
-    /// summarized in summary.txt; or null to leave them out (metrics.json then holds null for both sections).
-    /// </param>
-    /// <returns>The full paths of the files written.</returns>
-    /// <exception cref="IOException">The folder exists and <paramref name="force"/> is false, or an input file would be overwritten.</exception>
-    public static IReadOnlyList<string> Write(
-        string folder,
-        BacktestResult result,
-        BacktestRunInfo run,
-        bool force = false,
-        Func<string, IReadOnlyList<string>>? writeMore = null,
-        BacktestCalibration? calibration = null)
+    /// <summary>Gets the names of the data files this writer produces, run.json included.</summary>
+    public static IReadOnlyList<string> FileNames { get; } =
+        ["forecasts.csv", "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName];
+
+    /// <summary>Writes every data file except run.json into <paramref name="folder"/>, checking for cancellation between files.</summary>
+    /// <param name="folder">An existing folder (the caller's staging folder); no file of these names may exist in it.</param>
+    /// <param name="run">The run.</param>
+    /// <param name="cancellationToken">Stops between files.</param>
+    /// <returns>The file names written (without the folder).</returns>
+    /// <exception cref="IOException">A file of the same name exists in the folder.</exception>
+    /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
+    public static IReadOnlyList<string> WriteData(string folder, BacktestRun run, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(folder);
-        ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(run);
-        var target = Path.GetFullPath(folder).TrimEnd(Path.DirectorySeparatorChar);
-        var exists = Directory.Exists(target);
-        if (exists && !force)
+        var result = run.Result;
+        var calibration = run.Calibration;
+        var steps = new (string Name, Action<string> Write)[]
         {
-            throw new IOException($"{folder}: the output folder already exists; choose another --out or pass --force to replace its results files.");
+            ("forecasts.csv", path => AtomicFile.WriteText(path, w => ForecastsCsv.Write(w, result))),
+            ("metrics.csv", path => AtomicFile.WriteText(path, w => MetricsCsv.Write(w, result))),
+            ("metrics.json", path => AtomicFile.WriteText(path, w => MetricsJson.Write(w, result, calibration))),
+            ("summary.txt", path => AtomicFile.WriteText(path, w => SummaryText.Write(w, result, run.Info, calibration))),
+            (CalibrationFileName, path => CalibrationCsv.WriteFile(path, [.. calibration.Forecasters.Select(f => f.Calibration)])),
+            (CoverageFileName, path => CoverageCsv.WriteFile(path, calibration.Forecasters)),
+        };
+        var written = new List<string>(steps.Length);
+        foreach (var (name, write) in steps)
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            write(Path.Combine(folder, name));
+            written.Add(name);
         }
 
-        if (File.Exists(target))
-        {
-            throw new IOException($"{folder}: a file of that name exists; --out must name a folder.");
-        }
+        return written;
+    }
 
-        foreach (var input in run.Inputs)
-        {
-            var full = Path.GetFullPath(input.Path);
-            if (FileNames.Any(name => string.Equals(full, Path.Combine(target, name), StringComparison.Ordinal)))
-            {
-                throw new IOException($"{folder}: writing the results would overwrite the input file {input.Path}; choose another --out.");
-            }
-        }
+    /// <summary>Writes run.json into <paramref name="folder"/>: settings, inputs and their hashes, and the manifest of the run's files.</summary>
+    /// <param name="folder">The folder the rest of the run was written to.</param>
+    /// <param name="run">The run.</param>
+    /// <param name="files">The names of the other files of the run in that folder; run.json is added to the manifest.</param>
+    /// <returns>The manifest as written: every file name of the run, run.json included, in ordinal order.</returns>
+    /// <exception cref="IOException">run.json exists in the folder.</exception>
+    public static ImmutableArray<string> WriteRunRecord(string folder, BacktestRun run, IEnumerable<string> files)
+    {
+        ArgumentNullException.ThrowIfNull(folder);
+        ArgumentNullException.ThrowIfNull(run);
+        ArgumentNullException.ThrowIfNull(files);
+        var manifest = files.Append(RunFileName).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToImmutableArray();
+        AtomicFile.WriteText(Path.Combine(folder, RunFileName), w => RunJson.Write(w, run.Result, run.Info, manifest));
+        return manifest;
+    }
 
-        var parent = Path.GetDirectoryName(target)!;
-        Directory.CreateDirectory(parent);
-        var temp = Path.Combine(parent, $".{Path.GetFileName(target)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
-        Directory.CreateDirectory(temp);
-        var names = new List<string>(FileNames);
-        if (calibration is null)
+    /// <summary>Reads the manifest of the run recorded in a folder's run.json.</summary>
+    /// <param name="folder">A results folder.</param>
+    /// <returns>
+    /// The file names the run wrote; empty when run.json is missing or unreadable; null when run.json is readable but
+    /// has no manifest (it was written by an earlier version of the tool).
+    /// </returns>
+    public static ImmutableArray<string>? ReadManifest(string folder)
+    {
+        ArgumentNullException.ThrowIfNull(folder);
+        var path = Path.Combine(folder, RunFileName);
+        if (!File.Exists(path))
         {
-            names.Remove(CalibrationFileName);
-            names.Remove(CoverageFileName);
+            return [];
         }
 
         try
         {
-            AtomicFile.WriteText(Path.Combine(temp, "forecasts.csv"), w => ForecastsCsv.Write(w, result));
-            AtomicFile.WriteText(Path.Combine(temp, "metrics.csv"), w => MetricsCsv.Write(w, result));
-            AtomicFile.WriteText(Path.Combine(temp, "metrics.json"), w => MetricsJson.Write(w, result, calibration));
-            AtomicFile.WriteText(Path.Combine(temp, "run.json"), w => RunJson.Write(w, result, run));
-            AtomicFile.WriteText(Path.Combine(temp, "summary.txt"), w => SummaryText.Write(w, result, run, calibration));
-            if (calibration is not null)
+            using var doc = JsonDocument.Parse(File.ReadAllBytes(path));
+            if (!doc.RootElement.TryGetProperty("files", out var files))
             {
-                CalibrationCsv.WriteFile(Path.Combine(temp, CalibrationFileName), [.. calibration.Forecasters.Select(f => f.Calibration)]);
-                CoverageCsv.WriteFile(Path.Combine(temp, CoverageFileName), calibration.Forecasters);
+                return doc.RootElement.TryGetProperty("tool", out var tool) && tool.ValueKind == JsonValueKind.String && tool.GetString() == "volcast" ? null : [];
             }
 
-            names.AddRange(writeMore?.Invoke(temp) ?? []);
-            if (!Directory.Exists(target))
-            {
-                Directory.Move(temp, target);
-            }
-            else
-            {
-                foreach (var name in names)
-                {
-                    File.Move(Path.Combine(temp, name), Path.Combine(target, name), overwrite: true);
-                }
-            }
+            return [.. files.EnumerateArray().Select(e => e.GetString()).OfType<string>().Where(IsPlainName)];
         }
-        finally
+        catch (Exception ex) when (ex is JsonException or InvalidOperationException or IOException or UnauthorizedAccessException)
         {
-            if (Directory.Exists(temp))
-            {
-                Directory.Delete(temp, recursive: true);
-            }
+            return [];
         }
-
-        return [.. names.Select(name => Path.Combine(target, name))];
     }
+
+    // A manifest names files inside its own folder; anything else (a path, "..") is not the tool's and is ignored.
+    private static bool IsPlainName(string name) =>
+        name.Length > 0 && name != "." && name != ".." && name.IndexOfAny(['/', '\\']) < 0;
 }

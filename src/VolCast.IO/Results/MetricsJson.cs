@@ -13,10 +13,10 @@ namespace VolCast.IO.Results;
 /// </summary>
 internal static class MetricsJson
 {
-    public static void Write(TextWriter writer, BacktestResult result, BacktestCalibration? calibration = null) =>
+    public static void Write(TextWriter writer, BacktestResult result, BacktestCalibration calibration) =>
         writer.Write(JsonText.Build(json => Metrics(json, result, calibration)));
 
-    private static void Metrics(Utf8JsonWriter json, BacktestResult r, BacktestCalibration? calibration)
+    private static void Metrics(Utf8JsonWriter json, BacktestResult r, BacktestCalibration calibration)
     {
         json.WriteStartObject();
         json.WriteString("sign_convention", "Diebold-Mariano d_t = L(first) - L(second); a negative statistic means the first named has the lower loss. dm_* in a forecaster row: first = the forecaster, second = implied.");
@@ -125,15 +125,7 @@ internal static class MetricsJson
             json.WriteNull("rule_test");
         }
 
-        if (calibration is null)
-        {
-            json.WriteNull("calibration");
-            json.WriteNull("coverage");
-        }
-        else
-        {
-            CalibrationJson.Write(json, calibration);
-        }
+        CalibrationJson.Write(json, calibration);
 
         var q = r.DataQuality;
         json.WriteStartObject("data_quality");

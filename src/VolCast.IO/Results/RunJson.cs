@@ -4,12 +4,13 @@ using VolCast.Core.Backtest;
 
 namespace VolCast.IO.Results;
 
-/// <summary>Writes run.json: the tool version, the inputs with their SHA-256, the times and every setting of the run.</summary>
+/// <summary>Writes run.json: the tool version, the inputs with their SHA-256, the times, every setting of the run and the manifest of its files.</summary>
 internal static class RunJson
 {
-    public static void Write(TextWriter writer, BacktestResult result, BacktestRunInfo run) => writer.Write(JsonText.Build(json => Run(json, result, run)));
+    public static void Write(TextWriter writer, BacktestResult result, BacktestRunInfo run, IReadOnlyList<string> files) =>
+        writer.Write(JsonText.Build(json => Run(json, result, run, files)));
 
-    private static void Run(Utf8JsonWriter json, BacktestResult r, BacktestRunInfo run)
+    private static void Run(Utf8JsonWriter json, BacktestResult r, BacktestRunInfo run, IReadOnlyList<string> files)
     {
         var s = r.Settings;
         json.WriteStartObject();
@@ -87,6 +88,7 @@ internal static class RunJson
         json.WriteString("target", Config.BacktestConfigFile.TargetNames[(int)s.Target]);
         json.WriteEndObject();
         Strings(json, "input_warnings", run.InputWarnings);
+        Strings(json, "files", files);
         json.WriteEndObject();
     }
 

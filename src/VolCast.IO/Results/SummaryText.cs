@@ -8,7 +8,7 @@ namespace VolCast.IO.Results;
 /// <summary>Writes summary.txt, a plain-text digest of the results (until the HTML report exists), leading with baseline vs candidate.</summary>
 internal static class SummaryText
 {
-    public static void Write(TextWriter w, BacktestResult r, BacktestRunInfo run, BacktestCalibration? calibration = null)
+    public static void Write(TextWriter w, BacktestResult r, BacktestRunInfo run, BacktestCalibration calibration)
     {
         var c = CultureInfo.InvariantCulture;
         var q = r.DataQuality;
@@ -48,10 +48,7 @@ internal static class SummaryText
             ? "  Model confidence set not computed: " + mcs.Note + "\n"
             : string.Create(c, $"  * in the {(1 - mcs.Result.Options.Alpha) * 100:F0}% model confidence set (QLIKE, {mcs.CommonDates} common dates, B = {mcs.Result.Options.BootstrapReplications}, block {mcs.Result.Options.BlockLength}).\n"));
 
-        if (calibration is not null)
-        {
-            Odds(w, calibration);
-        }
+        Odds(w, calibration);
 
         if (r.Adaptive.Length > 0)
         {

@@ -13,12 +13,15 @@ public static class ReportFiles
     /// <param name="model">The report.</param>
     /// <param name="folder">The output folder; created when missing.</param>
     /// <param name="overwrite">Replace files that already exist; without it an existing file stops the write.</param>
+    /// <param name="cancellationToken">Stops before the page is rendered and between files.</param>
     /// <returns>The paths written, report.html last.</returns>
     /// <exception cref="IOException">A file exists and <paramref name="overwrite"/> is false.</exception>
-    public static IReadOnlyList<string> Write(ReportModel model, string folder, bool overwrite)
+    /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
+    public static IReadOnlyList<string> Write(ReportModel model, string folder, bool overwrite, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(folder);
+        cancellationToken.ThrowIfCancellationRequested();
         var html = HtmlReport.Render(model);
         var written = new List<string>();
         var charts = model.Odds?.Reliability is { } reliability ? [.. model.Charts, reliability] : model.Charts;
@@ -37,11 +40,13 @@ public static class ReportFiles
 
         foreach (var chart in charts)
         {
+            cancellationToken.ThrowIfCancellationRequested();
             var path = Path.Combine(folder, chart.FileName);
             AtomicFile.WriteBytes(path, chart.Png, overwrite);
             written.Add(path);
         }
 
+        cancellationToken.ThrowIfCancellationRequested();
         AtomicFile.WriteText(reportPath, w => w.Write(html), overwrite);
         written.Add(reportPath);
         return written;

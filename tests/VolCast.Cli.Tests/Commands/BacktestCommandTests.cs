@@ -105,13 +105,13 @@ public sealed class BacktestCommandTests : IDisposable
     public void Backtest_ExistingFolder_RefusedWithoutForceAndOnlyOwnFilesReplacedWithIt()
     {
         var output = Path.Combine(_folder, "existing");
-        Directory.CreateDirectory(output);
+        string[] args = ["backtest", "--prices", _prices, "--out", output, "--config", WriteConfig("fast.json", "{ \"sweep\": false, \"forecasters\": [\"ewma:0.94\", \"close-to-close:21\"] }")];
+        Assert.Equal(0, CliRunner.Run(args).ExitCode);
         File.WriteAllText(Path.Combine(output, "notes.txt"), "mine");
         File.WriteAllText(Path.Combine(output, "metrics.csv"), "old");
         File.WriteAllText(Path.Combine(output, "report.html"), "old");
         File.WriteAllText(Path.Combine(output, "calibration.csv"), "old");
         File.WriteAllText(Path.Combine(output, "coverage.csv"), "old");
-        string[] args = ["backtest", "--prices", _prices, "--out", output, "--config", WriteConfig("fast.json", "{ \"sweep\": false, \"forecasters\": [\"ewma:0.94\", \"close-to-close:21\"] }")];
 
         var refused = CliRunner.Run(args);
         Assert.Equal(2, refused.ExitCode);

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using System.Text.Json;
 using VolCast.Cli.Scan;
 using VolCast.Cli.Tests.Support;
 using VolCast.Core.Backtest;
@@ -61,7 +62,9 @@ public sealed class ScanCommandTests : IDisposable
                 Assert.True(File.ReadAllBytes(Path.Combine(alone, file)).AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(inScan, file))), $"{name}/{file} differs from backtest alone");
             }
 
+            // run.json agrees but for the times and the manifest, which in the scan also lists the scan's own record.
             Assert.Equal(WithoutTimes(Path.Combine(alone, "run.json")), WithoutTimes(Path.Combine(inScan, "run.json")));
+            Assert.Equal(Manifest(alone).Append("scan.json").Order(StringComparer.Ordinal), Manifest(inScan));
         }
 
         var summary = File.ReadAllLines(Path.Combine(output, "summary.csv"));
@@ -163,8 +166,18 @@ public sealed class ScanCommandTests : IDisposable
         Assert.Contains("prices folder does not exist", scan.Stderr, StringComparison.Ordinal);
     }
 
-    private static string WithoutTimes(string runJson) =>
-        string.Join('\n', File.ReadAllLines(runJson).Where(l => !l.Contains("_utc\"", StringComparison.Ordinal)));
+    private static string WithoutTimes(string runJson)
+    {
+        var text = File.ReadAllText(runJson);
+        var withoutFiles = text[..text.IndexOf("\"files\"", StringComparison.Ordinal)];
+        return string.Join('\n', withoutFiles.Split('\n').Where(l => !l.Contains("_utc\"", StringComparison.Ordinal)));
+    }
+
+    private static string[] Manifest(string folder)
+    {
+        using var run = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "run.json")));
+        return [.. run.RootElement.GetProperty("files").EnumerateArray().Select(e => e.GetString()!)];
+    }
 
     private void WriteAsset(string name, int seed, bool withImplied)
     {

@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using System.Globalization;
 using System.Text.Json;
 using VolCast.Core.Backtest;
@@ -10,8 +11,6 @@ namespace VolCast.IO.Tests.Results;
 
 public sealed class BacktestResultsWriterTests
 {
-    private static BacktestResult SmallResult() => SmallRun().Result;
-
     private static (BacktestResult Result, PriceHistory Prices) SmallRun()
     {
         // Invented random-walk closes (not reference data), enough for every statistic.
@@ -47,13 +46,22 @@ public sealed class BacktestResultsWriterTests
 
     private static BacktestRunInfo Run() => new("0.1.0-test", [new InputFileInfo("prices", "p.csv", "ab12")], DateTimeOffset.UnixEpoch, DateTimeOffset.UnixEpoch, "decimal", []);
 
+    // Writes a whole results folder as the command line does: the data files, then run.json with the manifest.
+    private static ImmutableArray<string> Write(string folder, BacktestResult result, PriceHistory prices)
+    {
+        Directory.CreateDirectory(folder);
+        var run = new BacktestRun(result, BacktestCalibrator.Evaluate(result, prices), Run(), prices, prices.Count);
+        var names = BacktestResultsWriter.WriteData(folder, run);
+        return BacktestResultsWriter.WriteRunRecord(folder, run, names);
+    }
+
     [Fact]
     public void Write_NewFolder_ForecastsRoundTripAndUndefinedIsEmptyOrNull()
     {
         using var temp = new TempFolder();
-        var result = SmallResult();
+        var (result, prices) = SmallRun();
         var folder = Path.Combine(temp.Path, "report");
-        BacktestResultsWriter.Write(folder, result, Run());
+        Write(folder, result, prices);
 
         var lines = File.ReadAllLines(Path.Combine(folder, "forecasts.csv"));
         Assert.Equal(result.Dates.Length + 1, lines.Length);
@@ -85,9 +93,9 @@ public sealed class BacktestResultsWriterTests
     public void Write_MetricsCsvAndJson_ForecasterRowsHoldTheSameColumnsInOrderWithTheSameValues()
     {
         using var temp = new TempFolder();
-        var result = SmallResult();
+        var (result, prices) = SmallRun();
         var folder = Path.Combine(temp.Path, "report");
-        BacktestResultsWriter.Write(folder, result, Run());
+        Write(folder, result, prices);
 
         var csv = File.ReadAllLines(Path.Combine(folder, "metrics.csv"));
         var header = csv[0].Split(',');
@@ -124,19 +132,44 @@ public sealed class BacktestResultsWriterTests
     }
 
     [Fact]
-    public void Write_ExistingFolder_RefusedUnlessForced()
+    public void WriteRunRecord_ManifestListsEveryFileOfTheRun_AndReadsBack()
     {
         using var temp = new TempFolder();
-        var result = SmallResult();
+        var (result, prices) = SmallRun();
+        var folder = Path.Combine(temp.Path, "report");
+
+        var manifest = Write(folder, result, prices);
+
+        // The manifest is exactly what the folder holds, run.json included, in ordinal order.
+        Assert.Equal(Directory.GetFiles(folder).Select(Path.GetFileName).Order(StringComparer.Ordinal), manifest);
+        Assert.Equal(BacktestResultsWriter.FileNames.Order(StringComparer.Ordinal), manifest);
+        Assert.Equal(manifest, BacktestResultsWriter.ReadManifest(folder));
+    }
+
+    [Fact]
+    public void WriteData_FileAlreadyInFolder_RefusedAndLeftAlone()
+    {
+        using var temp = new TempFolder();
+        var (result, prices) = SmallRun();
         var folder = Path.Combine(temp.Path, "report");
         Directory.CreateDirectory(folder);
-        File.WriteAllText(Path.Combine(folder, "keep.txt"), "x");
-        Assert.Throws<IOException>(() => BacktestResultsWriter.Write(folder, result, Run()));
-        Assert.False(File.Exists(Path.Combine(folder, "metrics.json")));
-        BacktestResultsWriter.Write(folder, result, Run(), force: true);
-        Assert.True(File.Exists(Path.Combine(folder, "metrics.json")));
-        Assert.Equal("x", File.ReadAllText(Path.Combine(folder, "keep.txt")));
-        Assert.Single(Directory.GetDirectories(temp.Path));
+        File.WriteAllText(Path.Combine(folder, "forecasts.csv"), "mine");
+        var run = new BacktestRun(result, BacktestCalibrator.Evaluate(result, prices), Run(), prices, prices.Count);
+
+        Assert.Throws<IOException>(() => BacktestResultsWriter.WriteData(folder, run));
+
+        Assert.Equal("mine", File.ReadAllText(Path.Combine(folder, "forecasts.csv")));
+    }
+
+    [Fact]
+    public void ReadManifest_MissingRunJsonIsEmpty_EarlierVersionWithoutListIsNull()
+    {
+        using var temp = new TempFolder();
+        Assert.Empty(BacktestResultsWriter.ReadManifest(temp.Path)!.Value);
+        File.WriteAllText(Path.Combine(temp.Path, "run.json"), "{ \"tool\": \"volcast\", \"version\": \"0.1.0\" }");
+        Assert.Null(BacktestResultsWriter.ReadManifest(temp.Path));
+        File.WriteAllText(Path.Combine(temp.Path, "run.json"), "{ \"tool\": \"volcast\", \"files\": [\"a.csv\", \"../escape.csv\", \"run.json\"] }");
+        Assert.Equal(["a.csv", "run.json"], BacktestResultsWriter.ReadManifest(temp.Path)!.Value.ToArray());
     }
 
     [Fact]
@@ -147,10 +180,10 @@ public sealed class BacktestResultsWriterTests
         var calibration = BacktestCalibrator.Evaluate(result, prices);
         var folder = Path.Combine(temp.Path, "report");
 
-        var written = BacktestResultsWriter.Write(folder, result, Run(), calibration: calibration);
+        var written = Write(folder, result, prices);
 
-        Assert.Contains(Path.Combine(Path.GetFullPath(folder), "calibration.csv"), written);
-        Assert.Contains(Path.Combine(Path.GetFullPath(folder), "coverage.csv"), written);
+        Assert.Contains("calibration.csv", written);
+        Assert.Contains("coverage.csv", written);
         var calibrationCsv = File.ReadAllLines(Path.Combine(folder, "calibration.csv"));
         var coverageCsv = File.ReadAllLines(Path.Combine(folder, "coverage.csv"));
         Assert.Equal(CalibrationCsv.Header, calibrationCsv[0]);
@@ -215,38 +248,5 @@ public sealed class BacktestResultsWriterTests
         var summary = File.ReadAllText(Path.Combine(folder, "summary.txt"));
         Assert.Contains("Do the odds hold?", summary, StringComparison.Ordinal);
         Assert.Contains("ranges from implied", summary, StringComparison.Ordinal);
-    }
-
-    [Fact]
-    public void Write_ForcedWithCalibration_ReplacesBothTables()
-    {
-        using var temp = new TempFolder();
-        var (result, prices) = SmallRun();
-        var folder = Path.Combine(temp.Path, "report");
-        Directory.CreateDirectory(folder);
-        File.WriteAllText(Path.Combine(folder, "calibration.csv"), "old");
-        File.WriteAllText(Path.Combine(folder, "coverage.csv"), "old");
-
-        BacktestResultsWriter.Write(folder, result, Run(), force: true, calibration: BacktestCalibrator.Evaluate(result, prices));
-
-        Assert.Contains("calibration.csv", BacktestResultsWriter.FileNames);
-        Assert.Contains("coverage.csv", BacktestResultsWriter.FileNames);
-        Assert.StartsWith("forecaster,", File.ReadAllText(Path.Combine(folder, "calibration.csv")), StringComparison.Ordinal);
-        Assert.StartsWith("forecaster,", File.ReadAllText(Path.Combine(folder, "coverage.csv")), StringComparison.Ordinal);
-    }
-
-    [Fact]
-    public void Write_WithoutCalibration_NoTablesAndNullSections()
-    {
-        using var temp = new TempFolder();
-        var folder = Path.Combine(temp.Path, "report");
-
-        BacktestResultsWriter.Write(folder, SmallResult(), Run());
-
-        Assert.False(File.Exists(Path.Combine(folder, "calibration.csv")));
-        Assert.False(File.Exists(Path.Combine(folder, "coverage.csv")));
-        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "metrics.json")));
-        Assert.Equal(JsonValueKind.Null, json.RootElement.GetProperty("calibration").ValueKind);
-        Assert.Equal(JsonValueKind.Null, json.RootElement.GetProperty("coverage").ValueKind);
     }
 }

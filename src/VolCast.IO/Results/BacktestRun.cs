@@ -1,0 +1,21 @@
+using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
+using VolCast.Core.Data;
+
+namespace VolCast.IO.Results;
+
+/// <summary>
+/// One finished backtest run, everything its writers need: the data files (<see cref="BacktestResultsWriter"/>) and
+/// the report are written from this one record.
+/// </summary>
+/// <param name="Result">The backtest result.</param>
+/// <param name="Calibration">The probability-calibration and range-coverage checks of the same run (<see cref="BacktestCalibrator.Evaluate"/>).</param>
+/// <param name="Info">Tool version, inputs with their SHA-256, times, implied unit and input warnings (run.json).</param>
+/// <param name="Prices">The price history the backtest ran on (the cone is drawn from its closes).</param>
+/// <param name="PriceRowsRead">Data rows read from the price file, for the data-quality section.</param>
+public sealed record BacktestRun(
+    BacktestResult Result,
+    BacktestCalibration Calibration,
+    BacktestRunInfo Info,
+    PriceHistory Prices,
+    int PriceRowsRead);
