@@ -28,6 +28,7 @@ internal static class BacktestPipeline
         ArgumentNullException.ThrowIfNull(job);
         ArgumentNullException.ThrowIfNull(warn);
         var started = DateTimeOffset.UtcNow;
+        progress?.Report(new BacktestProgress("reading inputs", 0, 1));
         var priceLoad = PriceFileReader.Read(job.Prices);
         var inputWarnings = new List<string>();
         foreach (var warning in priceLoad.Warnings)
@@ -47,6 +48,7 @@ internal static class BacktestPipeline
             }
         }
 
+        progress?.Report(new BacktestProgress("reading inputs", 1, 1));
         BacktestResult result;
         try
         {
@@ -62,7 +64,9 @@ internal static class BacktestPipeline
         }
 
         // Do the odds hold? N(d2) probabilities at the default strikes and the expected-move ranges, on the same dates and prices.
+        progress?.Report(new BacktestProgress("checking the odds", 0, 1));
         var calibration = BacktestCalibrator.Evaluate(result, priceLoad.History);
+        progress?.Report(new BacktestProgress("checking the odds", 1, 1));
 
         var inputs = ImmutableArray.CreateBuilder<InputFileInfo>();
         inputs.Add(new InputFileInfo("prices", job.Prices, priceLoad.Sha256));
@@ -83,13 +87,14 @@ internal static class BacktestPipeline
             DateTimeOffset.UtcNow,
             impliedLoad is null ? null : (impliedLoad.UnitUsed == ImpliedUnit.Percent ? "percent" : "decimal") + (impliedLoad.UnitInferred ? " (inferred)" : string.Empty),
             [.. inputWarnings]);
+        progress?.Report(new BacktestProgress("writing results", 0, 1));
         // The report is built inside the results writer's temporary folder, so it moves into place with the rest or not at all.
         BacktestResultsWriter.Write(
             job.OutputFolder,
             result,
             run,
             job.Force,
-            temp => ReportWriter.Write(temp, result, run, priceLoad.History, priceLoad.RowsRead, calibration),
+            temp => ReportWriter.Write(temp, result, run, priceLoad.History, priceLoad.RowsRead, calibration, progress),
             calibration);
         return (result, run);
     }

@@ -36,7 +36,10 @@ public static class ReportWriter
     /// <param name="priceRowsRead">Data rows read from the price file, for the data-quality section.</param>
     /// <param name="calibration">The probability-calibration and coverage checks of the same run (<see cref="BacktestCalibrator.Evaluate"/>), or null to leave the "Do the odds hold?" section saying they were not run.</param>
     /// <returns>The report model.</returns>
-    public static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null)
+    public static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null) =>
+        Build(result, run, prices, priceRowsRead, calibration, null);
+
+    private static ReportModel Build(BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration, IProgress<BacktestProgress>? progress)
     {
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(run);
@@ -48,7 +51,7 @@ public static class ReportWriter
             title,
             ReportVerdict.Build(result),
             ReportTables.Build(result),
-            Charts(result, prices),
+            Charts(result, prices, progress),
             Quality(result, run, prices, priceRowsRead),
             new RunInfo(run.ToolVersion, run.StartedUtc, run.FinishedUtc - run.StartedUtc, Settings(result, run), [.. run.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
         {
@@ -63,31 +66,45 @@ public static class ReportWriter
     /// <param name="prices">The price history the backtest ran on.</param>
     /// <param name="priceRowsRead">Data rows read from the price file.</param>
     /// <param name="calibration">The odds checks of the same run, or null.</param>
+    /// <param name="progress">Receives one report per chart drawn ("drawing charts") and one when the files are written, or null.</param>
     /// <returns>The file names written (without the folder).</returns>
     /// <exception cref="IOException">A report file already exists in the folder.</exception>
-    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null)
+    public static IReadOnlyList<string> Write(string folder, BacktestResult result, BacktestRunInfo run, PriceHistory prices, int priceRowsRead, BacktestCalibration? calibration = null, IProgress<BacktestProgress>? progress = null)
     {
-        var model = Build(result, run, prices, priceRowsRead, calibration);
-        return [.. ReportFiles.Write(model, folder, overwrite: false).Select(Path.GetFileName).OfType<string>()];
+        var model = Build(result, run, prices, priceRowsRead, calibration, progress);
+        progress?.Report(new BacktestProgress("writing the report", 0, 1));
+        IReadOnlyList<string> written = [.. ReportFiles.Write(model, folder, overwrite: false).Select(Path.GetFileName).OfType<string>()];
+        progress?.Report(new BacktestProgress("writing the report", 1, 1));
+        return written;
     }
 
-    internal static IReadOnlyList<ChartImage> Charts(BacktestResult result, PriceHistory prices)
+    internal static IReadOnlyList<ChartImage> Charts(BacktestResult result, PriceHistory prices, IProgress<BacktestProgress>? progress = null)
     {
         var charts = new List<ChartImage>();
+
+        // Drawing is linear in the dates (long series are thinned to what the pixels can show), but on long histories it
+        // takes seconds, so each chart is reported as it is done.
+        var planned = 4 + (result.HasImplied ? 2 : 0) + (result.RuleTest is null ? 0 : 1);
+        progress?.Report(new BacktestProgress("drawing charts", 0, planned));
+        void Drawn() => progress?.Report(new BacktestProgress("drawing charts", Math.Min(charts.Count, planned), planned));
         var leading = ReportSeries.Leading(result);
         var realized = ReportSeries.Realized(result);
         var implied = result.HasImplied ? ReportSeries.Implied(result) : null;
         charts.Add(ReportCharts.ForecastVsRealized(realized, implied, [.. leading.Select(s => ReportSeries.Forecast(result, s))]));
+        Drawn();
         if (result.HasImplied)
         {
             charts.Add(ReportCharts.Premium(ReportSeries.Premium(result)));
+            Drawn();
             charts.Add(ReportCharts.CumulativeLossDifferential([.. leading.Select(s => ReportSeries.QlikeDifferential(result, s))]));
+            Drawn();
         }
 
         var curves = ReportSeries.LookbackCurves(result);
         if (curves.Count > 0)
         {
             charts.Add(ReportCharts.LossVsLookback(curves));
+            Drawn();
         }
 
         var leader = ReportSeries.Ranked(result).FirstOrDefault(m => m.MincerZarnowitz is not null);
@@ -95,6 +112,7 @@ public static class ReportWriter
         {
             var (forecast, realizedVariance) = ReportSeries.Variances(result, leader.Spec);
             charts.Add(ReportCharts.MincerZarnowitz(leader.Spec, forecast, realizedVariance, leader.MincerZarnowitz!.Intercept, leader.MincerZarnowitz.Slope));
+            Drawn();
         }
 
         var returns = Returns.LogReturns(prices.Close);
@@ -102,6 +120,7 @@ public static class ReportWriter
         if (cone.Horizons.Count > 0)
         {
             charts.Add(ReportCharts.Cone(cone, ConeOverlays(result, leading)));
+            Drawn();
         }
 
         if (result.RuleTest is RuleTestResult rule)
@@ -111,6 +130,7 @@ public static class ReportWriter
                 $"sell: implied > {rule.ForecastSpec} + {rule.ThresholdVolatility * 100:0.0} pts")));
         }
 
+        progress?.Report(new BacktestProgress("drawing charts", planned, planned));
         return charts;
     }
 
