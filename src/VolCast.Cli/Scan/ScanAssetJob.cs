@@ -123,6 +123,8 @@ internal sealed record ScanAssetJob(
 
     private static string Sha256(string path)
     {
+        // A pipe or device among the price files would block or never end: refused before it is opened.
+        InputFiles.RequireRegular(path, "a CSV file");
         using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
         return Convert.ToHexStringLower(SHA256.HashData(stream));
     }
