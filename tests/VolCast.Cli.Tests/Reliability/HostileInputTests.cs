@@ -19,7 +19,7 @@ public sealed class HostileInputTests : IDisposable
     [InlineData("...csv", "'..'")]
     [InlineData(".hidden.csv", "'.hidden'")]
     [InlineData("a b.csv", "' '")]
-    [InlineData("=cmd.csv", "'='")]
+    [InlineData("=cmd.csv", "'=cmd'")]
     public void Scan_UnsafeAssetName_FailsThatNameOnlyAndWritesNothingOutsideItsFolder(string fileName, string named)
     {
         var prices = Directory.CreateDirectory(Path.Combine(_work, "prices")).FullName;
@@ -203,25 +203,34 @@ public sealed class HostileInputTests : IDisposable
     [Fact]
     public void Backtest_OutputUnderReadOnlyFolder_Exit2BeforeComputing()
     {
-        if (OperatingSystem.IsWindows() || Environment.UserName == "root")
+        if (OperatingSystem.IsWindows())
         {
-            // root writes anywhere, so a read-only folder cannot be made for it.
             return;
         }
 
         var prices = ReliabilityFiles.Prices(_work, "prices.csv", 300, seed: 7);
-        var locked = Directory.CreateDirectory(Path.Combine(_work, "locked")).FullName;
-        File.SetUnixFileMode(locked, UnixFileMode.UserRead | UnixFileMode.UserExecute);
+
+        // A folder this user cannot write: one made read-only, or, for root (who writes anywhere), /proc.
+        var locked = Environment.UserName == "root" && Directory.Exists("/proc") ? "/proc" : Directory.CreateDirectory(Path.Combine(_work, "locked")).FullName;
+        if (locked != "/proc")
+        {
+            File.SetUnixFileMode(locked, UnixFileMode.UserRead | UnixFileMode.UserExecute);
+        }
+
         try
         {
-            var result = CliRunner.Run("backtest", "--prices", prices, "--out", Path.Combine(locked, "out"));
+            var result = CliRunner.Run("backtest", "--prices", prices, "--out", Path.Combine(locked, "volcast-out"));
 
             Assert.Equal(2, result.ExitCode);
             Assert.Contains("cannot be written", result.Stderr, StringComparison.Ordinal);
+            Assert.DoesNotContain("forecasting", result.Stdout, StringComparison.Ordinal);
         }
         finally
         {
-            File.SetUnixFileMode(locked, UnixFileMode.UserRead | UnixFileMode.UserWrite | UnixFileMode.UserExecute);
+            if (locked != "/proc")
+            {
+                File.SetUnixFileMode(locked, UnixFileMode.UserRead | UnixFileMode.UserWrite | UnixFileMode.UserExecute);
+            }
         }
     }
 
