@@ -43,7 +43,7 @@ public static class SettingLimits
     /// <summary>The ranges of the configuration's numeric settings in one line, for --help.</summary>
     /// <returns>The text.</returns>
     public static string HelpText() =>
-        "Ranges: " + string.Join("; ", All.Where(r => !r.Name.StartsWith('-')).Select(r => r.Name + " " + r) ) + ".";
+        "Ranges: " + string.Join("; ", All.Where(r => !r.Name.StartsWith('-')).Select(r => r.Name + " " + r)) + ".";
 
     /// <summary>Checks every numeric setting of a configuration against its range.</summary>
     /// <param name="settings">The settings read from the file.</param>
