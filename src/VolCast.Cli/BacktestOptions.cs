@@ -24,9 +24,15 @@ internal static class BacktestOptions
             throw new UsageException("give either --horizon (trading days) or --tenor (calendar days such as 30d), not both.");
         }
 
-        if (horizon is int h && h < 1)
+        if (horizon is int h)
         {
-            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--horizon must be at least 1 trading day (was {h})."));
+            SettingLimits.Horizon.Check(h, "--horizon");
+        }
+
+        BacktestHorizon? tenorHorizon = null;
+        if (tenor is string tenorText)
+        {
+            tenorHorizon = ParseTenor(tenorText);
         }
 
         var settings = config is null ? new BacktestSettings() : BacktestConfigFile.Read(config);
@@ -35,9 +41,9 @@ internal static class BacktestOptions
             settings = settings with { Horizon = BacktestHorizon.Days(days) };
         }
 
-        if (tenor is string tenorText)
+        if (tenorHorizon is not null)
         {
-            settings = settings with { Horizon = BacktestConfigFile.ParseTenor(tenorText) ?? throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d (was '{tenorText}').") };
+            settings = settings with { Horizon = tenorHorizon };
         }
 
         settings = settings with
@@ -57,6 +63,24 @@ internal static class BacktestOptions
         return settings;
     }
 
+    /// <summary>Parses --tenor and checks its range, before anything is read.</summary>
+    private static BacktestHorizon ParseTenor(string text)
+    {
+        var t = text.Trim().ToLowerInvariant();
+        if (t.EndsWith('d') && t.Length > 1 && t[..^1].All(char.IsAsciiDigit))
+        {
+            // Any run of digits is a tenor; one too long for a number is simply out of range.
+            var days = double.Parse(t[..^1], NumberStyles.None, CultureInfo.InvariantCulture);
+            SettingLimits.TenorDays.Check(days, "--tenor");
+            return BacktestHorizon.Tenor((int)days);
+        }
+
+        throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d (was {Shown(text)}).");
+    }
+
+    /// <summary>A value from the command line inside a message: quoted and cut to 40 characters.</summary>
+    internal static string Shown(string text) => "'" + (text.Length > 40 ? text[..40] + "…" : text) + "'";
+
     /// <summary>Maps --iv-unit to the reader's unit (inferred when not given).</summary>
     public static ImpliedUnit Unit(string? ivUnit) =>
         ivUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };
@@ -64,5 +88,5 @@ internal static class BacktestOptions
     private static DateOnly Date(string text, string option) =>
         DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)
             ? d
-            : throw new UsageException($"{option} must be a date written yyyy-MM-dd (was '{text}').");
+            : throw new UsageException($"{option} must be a date written yyyy-MM-dd (was {Shown(text)}).");
 }

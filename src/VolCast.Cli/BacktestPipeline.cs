@@ -47,7 +47,9 @@ internal static class BacktestPipeline
 
         stage?.Invoke(BacktestStage.Load);
         var started = DateTimeOffset.UtcNow;
+        progress?.Report(new BacktestProgress("reading inputs", 0, 1));
         var (prices, implied, warnings) = Load(job, warn);
+        progress?.Report(new BacktestProgress("reading inputs", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
 
         stage?.Invoke(BacktestStage.Forecast);
@@ -55,15 +57,19 @@ internal static class BacktestPipeline
 
         // Do the odds hold? N(d2) probabilities at the default strikes and the expected-move ranges, on the same dates and prices.
         stage?.Invoke(BacktestStage.Calibrate);
+        progress?.Report(new BacktestProgress("checking the odds", 0, 1));
         var calibration = BacktestCalibrator.Evaluate(result, prices.History, cancellationToken: cancellationToken);
+        progress?.Report(new BacktestProgress("checking the odds", 1, 1));
         var run = new BacktestRun(result, calibration, Info(job, prices, implied, warnings, started), prices.History, prices.RowsRead);
 
         stage?.Invoke(BacktestStage.WriteData);
         var staging = output.Stage();
+        progress?.Report(new BacktestProgress("writing results", 0, 1));
         var files = new List<string>(BacktestResultsWriter.WriteData(staging, run, cancellationToken));
+        progress?.Report(new BacktestProgress("writing results", 1, 1));
 
         stage?.Invoke(BacktestStage.WriteReport);
-        files.AddRange(ReportWriter.Write(staging, run, cancellationToken));
+        files.AddRange(ReportWriter.Write(staging, run, progress, cancellationToken));
         if (writeMore is not null)
         {
             cancellationToken.ThrowIfCancellationRequested();

@@ -35,6 +35,11 @@ internal sealed class CliConsole(TextWriter output, TextWriter error, Cancellati
             Error.WriteLine($"error: {ex.Message}");
             return ExitCodes.BadInput;
         }
+        catch (VolCast.IO.Config.SettingRangeException ex)
+        {
+            Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.BadUsage;
+        }
         catch (UsageException ex)
         {
             Error.WriteLine($"error: {ex.Message}");

@@ -32,7 +32,7 @@ internal static class Program
         {
             foreach (var error in parse.Errors)
             {
-                stderr.WriteLine($"error: {error.Message}");
+                stderr.WriteLine($"error: {PlainParseError(error.Message)}");
             }
 
             stderr.WriteLine("Run 'volcast --help' or 'volcast COMMAND --help' for usage.");
@@ -40,5 +40,26 @@ internal static class Program
         }
 
         return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
+    }
+
+    /// <summary>
+    /// Rewrites the parser's "Cannot parse argument 'X' for option '--o' as expected type 'System.Int32'" in plain words
+    /// (users never see .NET type names), and cuts an echoed value to 40 characters.
+    /// </summary>
+    internal static string PlainParseError(string message)
+    {
+        var match = System.Text.RegularExpressions.Regex.Match(
+            message, "^Cannot parse argument '(?<value>.*)' for (?:option|command) '(?<option>[^']*)' as expected type '(?<type>[^']*)'", System.Text.RegularExpressions.RegexOptions.Singleline);
+        if (!match.Success)
+        {
+            return message.Length > 300 ? message[..300] + "…" : message;
+        }
+
+        var type = match.Groups["type"].Value;
+        var expected = type.Contains("Int32", StringComparison.Ordinal) || type.Contains("Int64", StringComparison.Ordinal) ? "a whole number, such as 21"
+            : type.Contains("Double", StringComparison.Ordinal) ? "a number written with '.' as the decimal point, such as 0.25"
+            : type.Contains("Boolean", StringComparison.Ordinal) ? "true or false"
+            : "a value of the documented form";
+        return $"{match.Groups["option"].Value}: {BacktestOptions.Shown(match.Groups["value"].Value)} is not {expected}; see --help for its range.";
     }
 }

@@ -18,6 +18,8 @@ namespace VolCast.IO;
 /// lie in (0, 5.0], i.e. above 0% and at most 500%.</para>
 /// <para>A date may appear once; rows out of date order are sorted with a warning. The input is opened
 /// read-only and never modified.</para>
+/// <para>Warnings: a value far outside its neighbours (an isolated spike that reverts the next day, or a change of
+/// scale such as percent turning into decimal in mid-file), named by line; the rule is in <c>JumpChecks</c>.</para>
 /// </remarks>
 public static class ImpliedFileReader
 {
@@ -176,6 +178,7 @@ public static class ImpliedFileReader
         var dateArray = dates.ToArray();
         var order = SeriesChecks.SortIfNeeded(dateArray, lineArray, file, warnings);
         var series = new ImpliedSeries(SeriesChecks.Permute(dateArray, order), SeriesChecks.Permute(decimals, order));
+        JumpChecks.Warn(series.Dates, series.Volatility, SeriesChecks.Permute(lineArray, order), file, "implied volatility", flagLargeChanges: false, warnings);
         return new ImpliedLoad(series, warnings.AsReadOnly(), unit, inferred, sha256);
     }
 

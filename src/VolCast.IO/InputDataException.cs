@@ -45,7 +45,8 @@ public sealed class InputDataException : Exception
 
         if (column is not null)
         {
-            sb.Append(CultureInfo.InvariantCulture, $", column '{column}'");
+            // A column is named by its header text, which can be anything: shown cut to 40 characters.
+            sb.Append(", column ").Append(Reading.ValueText.Quote(column));
         }
 
         return sb.Append(": ").Append(problem).ToString();

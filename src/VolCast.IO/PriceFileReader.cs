@@ -22,7 +22,8 @@ namespace VolCast.IO;
 /// by f = adj_close / close, so the close becomes adj_close (to rounding) and splits and dividends do not show up
 /// as jumps. The bar checks are made on the prices as written; multiplying by one positive factor keeps them.</para>
 /// <para>Warnings: ignored columns; rows sorted; each gap of more than 10 calendar days; each run of 5 or
-/// more identical closes. The input is opened read-only and never modified.</para>
+/// more identical closes; each close far outside its neighbours (an isolated spike that reverts the next day, a change of
+/// scale, or any log return above 1 in size; the rule is in <c>JumpChecks</c>). The input is opened read-only and never modified.</para>
 /// </remarks>
 public static class PriceFileReader
 {
@@ -144,6 +145,7 @@ public static class PriceFileReader
         var closeArray = SeriesChecks.Permute(close.ToArray(), order);
         SeriesChecks.WarnGaps(dateArray, lineArray, file, warnings);
         SeriesChecks.WarnStale(dateArray, closeArray, lineArray, file, warnings);
+        JumpChecks.Warn(dateArray, closeArray, lineArray, file, "close", flagLargeChanges: true, warnings);
 
         var history = layout.HasRange
             ? PriceHistory.FromBars(

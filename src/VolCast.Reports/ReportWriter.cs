@@ -42,21 +42,23 @@ public static class ReportWriter
     public static ReportModel Build(BacktestRun run, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(run);
-        return Build(run, Cone(run.Result, run.Prices), cancellationToken);
+        return Build(run, Cone(run.Result, run.Prices), null, cancellationToken);
     }
 
     /// <summary>Builds the report and writes report.html, its PNGs and, when the cone is drawn, cone.csv (its numbers) into <paramref name="folder"/>.</summary>
     /// <param name="folder">The folder to write to (the caller's staging folder); created when missing.</param>
     /// <param name="run">The run.</param>
+    /// <param name="progress">Receives one report per chart drawn ("drawing charts") and one when the page is written, or null.</param>
     /// <param name="cancellationToken">Stops between charts, before the page is rendered and between files.</param>
     /// <returns>The file names written (without the folder).</returns>
     /// <exception cref="IOException">A report file already exists in the folder.</exception>
     /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
-    public static IReadOnlyList<string> Write(string folder, BacktestRun run, CancellationToken cancellationToken = default)
+    public static IReadOnlyList<string> Write(string folder, BacktestRun run, IProgress<BacktestProgress>? progress = null, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(run);
         var cone = Cone(run.Result, run.Prices);
-        var model = Build(run, cone, cancellationToken);
+        var model = Build(run, cone, progress, cancellationToken);
+        progress?.Report(new BacktestProgress("writing the report", 0, 1));
         var written = ReportFiles.Write(model, folder, overwrite: false, cancellationToken).Select(Path.GetFileName).OfType<string>().ToList();
         if (cone.Horizons.Count > 0)
         {
@@ -65,6 +67,7 @@ public static class ReportWriter
             written.Insert(0, ConeFileName);
         }
 
+        progress?.Report(new BacktestProgress("writing the report", 1, 1));
         return written;
     }
 
@@ -72,14 +75,14 @@ public static class ReportWriter
     internal static VolatilityConeResult Cone(BacktestResult result, PriceHistory prices) =>
         VolatilityCone.Compute(Returns.LogReturns(prices.Close), VolatilityCone.DefaultHorizons, result.Settings.AnnualizationFactor);
 
-    private static ReportModel Build(BacktestRun run, VolatilityConeResult cone, CancellationToken cancellationToken)
+    private static ReportModel Build(BacktestRun run, VolatilityConeResult cone, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken)
     {
         var result = run.Result;
         var info = run.Info;
         var pricesFile = info.Inputs.FirstOrDefault(i => i.Role == "prices")?.Path ?? "prices";
         var title = string.Create(CultureInfo.InvariantCulture,
             $"Volatility forecast backtest: {Path.GetFileNameWithoutExtension(pricesFile)}, {HorizonText(result.Settings.Horizon)}");
-        var charts = Charts(result, cone, cancellationToken);
+        var charts = Charts(result, cone, progress, cancellationToken);
         cancellationToken.ThrowIfCancellationRequested();
         var odds = ReportOdds.Build(result, run.Calibration);
         return new ReportModel(
@@ -94,21 +97,30 @@ public static class ReportWriter
         };
     }
 
-    internal static IReadOnlyList<ChartImage> Charts(BacktestResult result, VolatilityConeResult cone, CancellationToken cancellationToken = default)
+    internal static IReadOnlyList<ChartImage> Charts(
+        BacktestResult result, VolatilityConeResult cone, IProgress<BacktestProgress>? progress = null, CancellationToken cancellationToken = default)
     {
         var charts = new List<ChartImage>();
+
+        // Drawing is linear in the dates (long series are thinned to what the pixels can show), but on long histories it
+        // takes seconds, so each chart is reported as it is done, and Ctrl-C is honoured between charts.
+        var planned = 4 + (result.HasImplied ? 2 : 0) + (result.RuleTest is null ? 0 : 1);
+        progress?.Report(new BacktestProgress("drawing charts", 0, planned));
         void Next() => cancellationToken.ThrowIfCancellationRequested();
+        void Drawn() => progress?.Report(new BacktestProgress("drawing charts", Math.Min(charts.Count, planned), planned));
         Next();
         var leading = ReportSeries.Leading(result);
         var realized = ReportSeries.Realized(result);
         var implied = result.HasImplied ? ReportSeries.Implied(result) : null;
         charts.Add(ReportCharts.ForecastVsRealized(realized, implied, [.. leading.Select(s => ReportSeries.Forecast(result, s))]));
+        Drawn();
         if (result.HasImplied)
         {
             Next();
             charts.Add(ReportCharts.Premium(ReportSeries.Premium(result)));
             Next();
             charts.Add(ReportCharts.CumulativeLossDifferential([.. leading.Select(s => ReportSeries.QlikeDifferential(result, s))]));
+            Drawn();
         }
 
         var curves = ReportSeries.LookbackCurves(result);
@@ -116,6 +128,7 @@ public static class ReportWriter
         {
             Next();
             charts.Add(ReportCharts.LossVsLookback(curves));
+            Drawn();
         }
 
         var leader = ReportSeries.Ranked(result).FirstOrDefault(m => m.MincerZarnowitz is not null);
@@ -124,12 +137,14 @@ public static class ReportWriter
             Next();
             var (forecast, realizedVariance) = ReportSeries.Variances(result, leader.Spec);
             charts.Add(ReportCharts.MincerZarnowitz(leader.Spec, forecast, realizedVariance, leader.MincerZarnowitz!.Intercept, leader.MincerZarnowitz.Slope));
+            Drawn();
         }
 
         Next();
         if (cone.Horizons.Count > 0)
         {
             charts.Add(ReportCharts.Cone(cone, ConeOverlays(result, leading)));
+            Drawn();
         }
 
         if (result.RuleTest is RuleTestResult rule)
@@ -140,6 +155,7 @@ public static class ReportWriter
                 $"sell: implied > {rule.ForecastSpec} + {rule.ThresholdVolatility * 100:0.0} pts")));
         }
 
+        progress?.Report(new BacktestProgress("drawing charts", planned, planned));
         return charts;
     }
 

@@ -5,7 +5,11 @@ public sealed class BadInputCatalogueTests
 {
     private static string Folder { get; } = Path.Combine(AppContext.BaseDirectory, "Fixtures", "BadInput");
 
-    public static TheoryData<string, string, string, int?, string?, string> Rows()
+    public static TheoryData<string, string, string, int?, string?, string> Rows() => Rows(exitCode: "3");
+
+    public static TheoryData<string, string, string, int?, string?, string> RangeRows() => Rows(exitCode: "2");
+
+    private static TheoryData<string, string, string, int?, string?, string> Rows(string exitCode)
     {
         var data = new TheoryData<string, string, string, int?, string?, string>();
         foreach (var line in File.ReadAllLines(Path.Combine(Folder, "catalogue.tsv")))
@@ -16,6 +20,11 @@ public sealed class BadInputCatalogueTests
             }
 
             var f = line.Split('\t');
+            if (f[5] != exitCode)
+            {
+                continue;
+            }
+
             data.Add(f[0], f[1], f[2], f[3].Length == 0 ? null : int.Parse(f[3], System.Globalization.CultureInfo.InvariantCulture), f[4].Length == 0 ? null : f[4], f[6]);
         }
 
@@ -25,7 +34,7 @@ public sealed class BadInputCatalogueTests
     [Fact]
     public void Catalogue_CoversEveryFileInTheFolder()
     {
-        var listed = Rows().Select(r => (string)r[0]).ToHashSet(StringComparer.Ordinal);
+        var listed = Rows().Concat(RangeRows()).Select(r => (string)r[0]).ToHashSet(StringComparer.Ordinal);
         var present = Directory.GetFiles(Folder, "*.csv").Concat(Directory.GetFiles(Folder, "*.json")).Select(Path.GetFileName).ToHashSet(StringComparer.Ordinal);
         Assert.Equal(present.Order(), listed.Order());
         Assert.True(listed.Count >= 40, $"expected at least 40 bad inputs, found {listed.Count}");
@@ -72,5 +81,23 @@ public sealed class BadInputCatalogueTests
         Assert.Contains(fragment, error.Message, StringComparison.Ordinal);
         Assert.StartsWith(path + (line is int l ? $", line {l}" : string.Empty), error.Message, StringComparison.Ordinal);
         Assert.Equal(before, File.ReadAllBytes(path)); // the input is never changed
+    }
+
+    [Theory]
+    [MemberData(nameof(RangeRows))]
+    public void ReadConfig_SettingOutOfRange_RefusedNamingFileSettingAndRange(string file, string reader, string unit, int? line, string? column, string fragment)
+    {
+        // The ranges are the project's own (SettingLimits); the values are the ones that used to overflow or run out of memory.
+        Assert.Equal("config", reader);
+        Assert.Empty(unit);
+        Assert.Null(line);
+        Assert.Null(column);
+        var path = Path.Combine(Folder, file);
+
+        var error = Assert.Throws<VolCast.IO.Config.SettingRangeException>(() => VolCast.IO.Config.BacktestConfigFile.Read(path));
+
+        Assert.StartsWith(path + ": ", error.Message, StringComparison.Ordinal);
+        Assert.Contains(fragment, error.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain("overflow", error.Message, StringComparison.OrdinalIgnoreCase);
     }
 }

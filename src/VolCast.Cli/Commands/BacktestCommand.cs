@@ -16,9 +16,9 @@ internal static class BacktestCommand
         var implied = new Option<string?>("--implied") { Description = "Implied-volatility CSV (date, iv). Optional: without it forecasters are ranked among themselves." };
         var ivUnit = new Option<string?>("--iv-unit") { Description = "Unit of the iv column: percent (20 = 20%) or decimal (0.20); inferred with a warning when left out." };
         ivUnit.AcceptOnlyFromAmong("percent", "decimal");
-        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate. Every setting is optional." };
-        var horizon = new Option<int?>("--horizon") { Description = "Forecast horizon in trading days (default 21). Overrides the configuration." };
-        var tenor = new Option<string?>("--tenor") { Description = "Forecast horizon as a calendar tenor such as 30d, mapped through the price file's own trading calendar. Overrides the configuration." };
+        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate. Every setting is optional. " + SettingLimits.HelpText() };
+        var horizon = new Option<int?>("--horizon") { Description = $"Forecast horizon in trading days, {SettingLimits.Horizon} (default 21). Overrides the configuration." };
+        var tenor = new Option<string?>("--tenor") { Description = $"Forecast horizon as a calendar tenor such as 30d ({SettingLimits.TenorDays}), mapped through the price file's own trading calendar. Overrides the configuration." };
         var start = new Option<string?>("--start") { Description = "First forecast date, yyyy-MM-dd (earlier rows still warm the forecasters up)." };
         var end = new Option<string?>("--end") { Description = "Last forecast date, yyyy-MM-dd." };
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>). Written in a hidden temporary folder and moved into place when complete." };
@@ -45,6 +45,7 @@ internal static class BacktestCommand
     {
         var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor, a.Start, a.End);
         var outFolder = a.Out ?? Path.Combine("reports", "backtest-" + Path.GetFileNameWithoutExtension(a.Prices));
+        OutputChecks.Folder(outFolder);
         var unit = BacktestOptions.Unit(a.IvUnit);
         var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));

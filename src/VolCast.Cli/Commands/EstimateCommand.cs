@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using VolCast.Core.Estimators;
 using VolCast.IO;
+using VolCast.IO.Config;
 using VolCast.IO.Csv;
 
 namespace VolCast.Cli.Commands;
@@ -24,12 +25,12 @@ internal static class EstimateCommand
         };
         var window = new Option<int>("--window")
         {
-            Description = "Window length in trading days (at least 2). Close-to-close and Yang-Zhang use one more close, for the first return.",
+            Description = $"Window length in trading days, {SettingLimits.Window}. Close-to-close and Yang-Zhang use one more close, for the first return.",
             Required = true,
         };
         var annualization = new Option<double>("--annualization")
         {
-            Description = "Trading days per year used to annualize (vol = sqrt(A * daily variance)).",
+            Description = $"Trading days per year used to annualize (vol = sqrt(A * daily variance)), {SettingLimits.AnnualizationFactor}.",
             DefaultValueFactory = _ => 252,
         };
         var zeroMean = new Option<bool>("--zero-mean")
@@ -54,21 +55,15 @@ internal static class EstimateCommand
             }
 
             var n = parse.GetValue(window);
-            if (n < 2)
-            {
-                throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--window must be at least 2 trading days (was {n})."));
-            }
-
+            SettingLimits.Window.Check(n, "--window");
             var a = parse.GetValue(annualization);
-            if (!double.IsFinite(a) || a <= 0)
-            {
-                throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--annualization must be a positive number of trading days per year (was {a})."));
-            }
+            SettingLimits.AnnualizationFactor.Check(a, "--annualization");
 
             var pricesPath = parse.GetValue(prices)!.ToString();
             var outFile = parse.GetValue(output);
             if (outFile is not null)
             {
+                OutputChecks.OutputFile(outFile.ToString());
                 OutputGuard.RefuseInputs([outFile.ToString()], [pricesPath]);
             }
 

@@ -3,6 +3,7 @@ using System.Globalization;
 using VolCast.Core.Data;
 using VolCast.Core.Garch;
 using VolCast.IO;
+using VolCast.IO.Config;
 using VolCast.IO.Results;
 
 namespace VolCast.Cli.Commands;
@@ -27,7 +28,7 @@ internal static class FitCommand
         var zeroMean = new Option<bool>("--zero-mean") { Description = "Fix the mean daily return at zero instead of estimating it." };
         var annualization = new Option<double>("--annualization")
         {
-            Description = "Trading days per year for the long-run annualized volatility (default 252).",
+            Description = $"Trading days per year for the long-run annualized volatility, {SettingLimits.AnnualizationFactor} (default 252).",
             DefaultValueFactory = _ => 252.0,
         };
         var output = new Option<string?>("--out") { Description = "Output JSON file (default fit-<model>.json in the current folder)." };
@@ -50,12 +51,10 @@ internal static class FitCommand
     private static int Run(CliConsole console, string pricesPath, GarchVariant variant, bool includeMean, double annualization, string? outPath, bool force)
     {
         var modelName = variant == GarchVariant.GjrGarch ? "gjr-garch" : "garch";
-        if (!(annualization > 0) || !double.IsFinite(annualization))
-        {
-            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--annualization must be a number of trading days above zero, such as 252 (was {annualization})."));
-        }
+        SettingLimits.AnnualizationFactor.Check(annualization, "--annualization");
 
         var output = outPath ?? $"fit-{modelName}.json";
+        OutputChecks.OutputFile(output);
         OutputGuard.RefuseInputs([output], [pricesPath]);
 
         if (!force && File.Exists(output))

@@ -17,11 +17,11 @@ internal static class ScanCommand
         var impliedDir = new Option<string?>("--implied-dir") { Description = "Folder of implied-volatility files matched by name (NAME.csv with date, iv). A name without one is ranked among forecasters only and marked in the summary." };
         var ivUnit = new Option<string?>("--iv-unit") { Description = "Unit of every implied file's iv column: percent (20 = 20%) or decimal (0.20); inferred per file with a warning when left out." };
         ivUnit.AcceptOnlyFromAmong("percent", "decimal");
-        var config = new Option<string?>("--config") { Description = "JSON configuration used for every name (same keys as backtest --config). Every setting is optional." };
-        var horizon = new Option<int?>("--horizon") { Description = "Forecast horizon in trading days (default 21). Overrides the configuration." };
-        var tenor = new Option<string?>("--tenor") { Description = "Forecast horizon as a calendar tenor such as 30d, mapped through each price file's own trading calendar. Overrides the configuration." };
+        var config = new Option<string?>("--config") { Description = "JSON configuration used for every name (same keys as backtest --config). Every setting is optional. " + SettingLimits.HelpText() };
+        var horizon = new Option<int?>("--horizon") { Description = $"Forecast horizon in trading days, {SettingLimits.Horizon} (default 21). Overrides the configuration." };
+        var tenor = new Option<string?>("--tenor") { Description = $"Forecast horizon as a calendar tenor such as 30d ({SettingLimits.TenorDays}), mapped through each price file's own trading calendar. Overrides the configuration." };
         var output = new Option<string?>("--out") { Description = "Scan folder (default reports/scan): assets/NAME/ per name, summary.csv and summary.html. An existing scan folder is resumed." };
-        var jobs = new Option<int?>("--jobs") { Description = "How many names run at the same time (default: the number of processor cores)." };
+        var jobs = new Option<int?>("--jobs") { Description = $"How many names run at the same time, {SettingLimits.Jobs} (default: the number of processor cores)." };
         var force = new Option<bool>("--force") { Description = "Recompute every name, even those whose results are complete and whose inputs and configuration are unchanged." };
         var command = new Command("scan", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted scan resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
@@ -43,14 +43,17 @@ internal static class ScanCommand
     /// <summary>Turns the command-line values into a scan request, checking them.</summary>
     private static ScanRequest Request(Arguments a)
     {
-        if (a.Jobs is int j && j < 1)
+        if (a.Jobs is int j)
         {
-            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--jobs must be at least 1 (was {j})."));
+            SettingLimits.Jobs.Check(j, "--jobs");
         }
 
+        var outFolder = a.Out ?? Path.Combine("reports", "scan");
+        OutputChecks.Folder(outFolder);
+        OutputChecks.Separate(outFolder, a.PricesDir, a.ImpliedDir);
         var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor);
         var unit = BacktestOptions.Unit(a.IvUnit);
-        return new ScanRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, a.Out ?? Path.Combine("reports", "scan"), a.Jobs ?? Environment.ProcessorCount, a.Force);
+        return new ScanRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, outFolder, a.Jobs ?? Environment.ProcessorCount, a.Force);
     }
 
     private static int Run(CliConsole console, Arguments a)

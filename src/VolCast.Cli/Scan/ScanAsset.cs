@@ -1,22 +1,86 @@
 namespace VolCast.Cli.Scan;
 
 /// <summary>One asset found in the prices folder.</summary>
-/// <param name="Name">The price file's name without <c>.csv</c>.</param>
+/// <param name="Name">The price file's name without its <c>.csv</c> extension.</param>
 /// <param name="Prices">The price file.</param>
 /// <param name="Implied">The implied file of the same name, or null when there is none.</param>
-internal sealed record ScanAsset(string Name, string Prices, string? Implied)
+/// <param name="Problem">Why the name cannot be used (it would escape or collide inside the output folder), or null when it can.</param>
+internal sealed record ScanAsset(string Name, string Prices, string? Implied, string? Problem = null)
 {
-    /// <summary>Lists the assets: every <c>*.csv</c> in the prices folder, in ordinal name order, with implied matched by name.</summary>
+    /// <summary>The longest asset name accepted.</summary>
+    public const int MaxNameLength = 100;
+
+    /// <summary>The characters an asset name may hold, in words, for messages and the help text.</summary>
+    public const string SafeSet = "letters A-Z and a-z, digits 0-9, '.', '-' and '_', starting with a letter or digit, at most 100 characters";
+
+    /// <summary>
+    /// Lists the assets: every file in the prices folder whose extension is <c>.csv</c> in any mix of capitals, in
+    /// ordinal name order, with implied matched by name (again in any capitals of <c>.csv</c>). A name outside
+    /// <see cref="SafeSet"/> is listed with its problem and never run, so no name can reach outside its own results folder.
+    /// </summary>
     public static IReadOnlyList<ScanAsset> Find(string pricesFolder, string? impliedFolder)
     {
-        var assets = new List<ScanAsset>();
-        foreach (var path in Directory.EnumerateFiles(pricesFolder, "*.csv").Order(StringComparer.Ordinal))
+        var implied = new Dictionary<string, string>(StringComparer.Ordinal);
+        if (impliedFolder is not null)
         {
+            foreach (var path in Directory.EnumerateFiles(impliedFolder).Order(StringComparer.Ordinal))
+            {
+                if (IsCsv(path))
+                {
+                    implied.TryAdd(Path.GetFileNameWithoutExtension(path), path);
+                }
+            }
+        }
+
+        var assets = new List<ScanAsset>();
+        var seen = new Dictionary<string, string>(StringComparer.OrdinalIgnoreCase);
+        foreach (var path in Directory.EnumerateFiles(pricesFolder).Order(StringComparer.Ordinal))
+        {
+            if (!IsCsv(path))
+            {
+                continue;
+            }
+
             var name = Path.GetFileNameWithoutExtension(path);
-            var implied = impliedFolder is null ? null : Path.Combine(impliedFolder, name + ".csv");
-            assets.Add(new ScanAsset(name, path, implied is not null && File.Exists(implied) ? implied : null));
+            var problem = NameProblem(name);
+            if (problem is null && !seen.TryAdd(name, path))
+            {
+                problem = $"the name is the same as that of {Path.GetFileName(seen[name])} apart from capitals, so their results folders could be one; rename one of the files.";
+            }
+
+            assets.Add(new ScanAsset(name, path, implied.GetValueOrDefault(name), problem));
         }
 
         return assets;
+    }
+
+    /// <summary>Why a name cannot be an asset's folder name, or null when it can.</summary>
+    public static string? NameProblem(string name)
+    {
+        if (name.Length == 0 || name.Length > MaxNameLength || !char.IsAsciiLetterOrDigit(name[0]))
+        {
+            return "the asset name " + Quote(name) + " is not accepted: an asset name (the file name before .csv) must use " + SafeSet
+                + "; rename the file, for example to ABC.csv or BRK-B.csv.";
+        }
+
+        foreach (var c in name)
+        {
+            if (!(char.IsAsciiLetterOrDigit(c) || c is '.' or '-' or '_'))
+            {
+                return "the asset name " + Quote(name) + " holds the character " + Quote(c.ToString()) + ", which is not accepted: an asset name (the file name before .csv) must use "
+                    + SafeSet + "; rename the file, for example to ABC.csv or BRK-B.csv.";
+            }
+        }
+
+        return null;
+    }
+
+    private static bool IsCsv(string path) => string.Equals(Path.GetExtension(path), ".csv", StringComparison.OrdinalIgnoreCase);
+
+    private static string Quote(string text)
+    {
+        var shown = text.Length > 40 ? text[..40] + "…" : text;
+        var chars = shown.Select(c => char.IsControl(c) ? $"\\u{(int)c:X4}" : c.ToString());
+        return "'" + string.Concat(chars) + "'";
     }
 }

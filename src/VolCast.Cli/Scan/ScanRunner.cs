@@ -57,14 +57,15 @@ internal static class ScanRunner
                 (i, state) =>
                 {
                     var asset = assets[i];
-                    var job = new ScanAssetJob(
-                        asset, request.ImpliedUnit, request.Settings, request.Config,
-                        Path.Combine(request.OutputFolder, AssetsFolder, asset.Name), fingerprint, request.Force)
-                    {
-                        ConfigSha256 = configSha256,
-                    };
                     var started = clock.Elapsed;
-                    var (row, wasReused) = job.Run(cancellationToken);
+                    var (row, wasReused) = asset.Problem is string problem
+                        ? (ScanRows.Failed(asset.Name, asset.Implied is not null, problem), false)
+                        : new ScanAssetJob(
+                            asset, request.ImpliedUnit, request.Settings, request.Config,
+                            Path.Combine(request.OutputFolder, AssetsFolder, asset.Name), fingerprint, request.Force)
+                        {
+                            ConfigSha256 = configSha256,
+                        }.Run(cancellationToken);
                     ScanProgress report;
                     lock (gate)
                     {

@@ -35,11 +35,14 @@ public static class BacktestConfigFile
     /// <returns>The settings, defaults filled in for everything the file leaves out.</returns>
     /// <exception cref="InputDataException">The file is not valid JSON, a property is unknown or has the wrong type
     /// (with its line and property), or a value is out of range (with the property and the valid values).</exception>
-    /// <exception cref="FileNotFoundException">The file does not exist.</exception>
+    /// <exception cref="SettingRangeException">A numeric setting is outside its range in <see cref="SettingLimits"/>.</exception>
+    /// <remarks>Only a regular file of at most <see cref="InputFiles.MaxConfigBytes"/> bytes (1 MiB) of UTF-8 text is read;
+    /// a folder, a pipe or a device is refused before it is opened.</remarks>
     public static BacktestSettings Read(string path)
     {
         ArgumentNullException.ThrowIfNull(path);
-        return Parse(File.ReadAllText(path), path);
+        var bytes = InputFiles.ReadCapped(path, "a JSON configuration file", InputFiles.MaxConfigBytes);
+        return Parse(Reading.InputText.Decode(bytes, path), path);
     }
 
     /// <summary>Parses configuration text.</summary>
@@ -47,6 +50,7 @@ public static class BacktestConfigFile
     /// <param name="file">The file name to put in error messages.</param>
     /// <returns>The settings.</returns>
     /// <exception cref="InputDataException">As for <see cref="Read"/>.</exception>
+    /// <exception cref="SettingRangeException">A numeric setting is outside its range in <see cref="SettingLimits"/>.</exception>
     public static BacktestSettings Parse(string json, string file)
     {
         ArgumentNullException.ThrowIfNull(json);
@@ -94,7 +98,7 @@ public static class BacktestConfigFile
 
         if (doc.Tenor is string tenor)
         {
-            s = s with { Horizon = ParseTenor(tenor) ?? throw Bad(file, "tenor", $"must be a number of calendar days followed by d, such as \"30d\" (was \"{tenor}\")") };
+            s = s with { Horizon = ParseTenor(tenor) ?? throw Bad(file, "tenor", $"must be a number of calendar days followed by d, such as \"30d\" (was \"{Cut(tenor)}\")") };
         }
 
         s = s with
@@ -127,7 +131,7 @@ public static class BacktestConfigFile
             {
                 list.Add(EstimatorNames.TryParse(name, out var e)
                     ? e
-                    : throw Bad(file, "sweepEstimators", $"unknown estimator \"{name}\"; valid: {string.Join(", ", EstimatorNames.All)}"));
+                    : throw Bad(file, "sweepEstimators", $"unknown estimator \"{Cut(name)}\"; valid: {string.Join(", ", EstimatorNames.All)}"));
             }
 
             s = s with { SweepEstimators = list.ToImmutable() };
@@ -154,7 +158,7 @@ public static class BacktestConfigFile
         if (doc.Target is string target)
         {
             var index = TargetNames.ToList().FindIndex(n => string.Equals(n, target.Trim(), StringComparison.OrdinalIgnoreCase));
-            s = s with { Target = index >= 0 ? (RealizedTarget)index : throw Bad(file, "target", $"unknown realized target \"{target}\"; valid: {string.Join(", ", TargetNames)}") };
+            s = s with { Target = index >= 0 ? (RealizedTarget)index : throw Bad(file, "target", $"unknown realized target \"{Cut(target)}\"; valid: {string.Join(", ", TargetNames)}") };
         }
 
         foreach (var (property, spec) in new[] { ("ruleHistorical", s.RuleHistorical), ("ruleForecaster", s.RuleForecaster), ("baseline", s.Baseline), ("candidate", s.Candidate) })
@@ -172,6 +176,7 @@ public static class BacktestConfigFile
             }
         }
 
+        SettingLimits.Check(s, file);
         try
         {
             s.Validate();
@@ -199,7 +204,10 @@ public static class BacktestConfigFile
     private static DateOnly ParseDate(string text, string file, string property) =>
         DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)
             ? d
-            : throw Bad(file, property, $"must be a date written yyyy-MM-dd (was \"{text}\")");
+            : throw Bad(file, property, $"must be a date written yyyy-MM-dd (was \"{Cut(text)}\")");
+
+    /// <summary>Cuts text echoed from the file to 40 characters, so a huge value cannot flood a message.</summary>
+    private static string Cut(string? text) => text is null ? string.Empty : text.Length > 40 ? text[..40] + "…" : text;
 
     private static InputDataException Bad(string file, string property, FormattableString problem) =>
         new(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");
@@ -209,7 +217,7 @@ public static class BacktestConfigFile
     {
         if (message.Contains("could not be mapped to any .NET member", StringComparison.Ordinal))
         {
-            return $"'{property}' is not a known setting (check its spelling).";
+            return $"{Reading.ValueText.Quote(property ?? string.Empty)} is not a known setting (check its spelling).";
         }
 
         const string Converted = "could not be converted to ";
@@ -229,7 +237,7 @@ public static class BacktestConfigFile
             : "an object in braces, such as { \"horizon\": 21 }";
         return property is null
             ? $"the configuration has the wrong shape; expected {expected}."
-            : $"'{property}' has a value of the wrong type; expected {expected}.";
+            : $"{Reading.ValueText.Quote(property)} has a value of the wrong type; expected {expected}.";
     }
 
     private static string FirstSentence(string message)

@@ -63,8 +63,7 @@ public static class OptionQuoteCsvReader
             throw new InputDataException(path, null, null, "the file does not exist; check the path given to --quotes.");
         }
 
-        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
-        using var text = new StreamReader(stream);
+        using var text = new StreamReader(new MemoryStream(InputFiles.ReadCapped(path, "a CSV file of option quotes", InputText.MaxBytes)));
         return Read(text, path, defaultRate, defaultDividendYield);
     }
 
@@ -197,8 +196,9 @@ public static class OptionQuoteCsvReader
         {
             var value = Cell(column);
             return DateOnly.TryParseExact(value, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var date)
+                && date >= CellParser.MinDate && date <= CellParser.MaxDate
                 ? date
-                : throw Error(column, value, "a date in ISO 8601 form yyyy-MM-dd, for example 2024-03-15");
+                : throw Error(column, value, "a date in ISO 8601 form yyyy-MM-dd from 1800-01-01 to 9989-12-31, for example 2024-03-15");
         }
 
         public double Number(string column)

@@ -5,13 +5,26 @@ namespace VolCast.IO.Reading;
 /// <summary>Parses single cells with the invariant culture, turning every failure into an <see cref="InputDataException"/>.</summary>
 internal static class CellParser
 {
-    /// <summary>Parses an ISO 8601 calendar date, yyyy-MM-dd.</summary>
-    /// <exception cref="InputDataException">The cell is not such a date.</exception>
+    /// <summary>The earliest date accepted in an input file: 1800-01-01 (older market records are not daily closes).</summary>
+    public static readonly DateOnly MinDate = new(1800, 1, 1);
+
+    /// <summary>The latest date accepted in an input file: 9989-12-31, so that a tenor of up to ten years past it is still a calendar date.</summary>
+    public static readonly DateOnly MaxDate = new(9989, 12, 31);
+
+    /// <summary>Parses an ISO 8601 calendar date, yyyy-MM-dd, between <see cref="MinDate"/> and <see cref="MaxDate"/>.</summary>
+    /// <exception cref="InputDataException">The cell is not such a date, or its year is implausible.</exception>
     public static DateOnly Date(string cell, string file, int line, string column)
     {
         var text = cell.Trim();
         if (DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var date))
         {
+            if (date < MinDate || date > MaxDate)
+            {
+                throw new InputDataException(file, line, column, ValueText.Quote(cell) + " is " + (date < MinDate ? "before " : "after ")
+                    + ValueText.Date(date < MinDate ? MinDate : MaxDate) + "; expected a date from " + ValueText.Date(MinDate) + " to "
+                    + ValueText.Date(MaxDate) + " (is the year mistyped, such as 0024 for 2024?).");
+            }
+
             return date;
         }
 

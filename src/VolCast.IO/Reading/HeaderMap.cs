@@ -10,6 +10,9 @@ namespace VolCast.IO.Reading;
 /// </summary>
 internal sealed class HeaderMap
 {
+    /// <summary>At most this many header names are listed in a message (each cut to 40 characters by <see cref="ValueText.Quote"/>).</summary>
+    private const int MaxListed = 12;
+
     private readonly Dictionary<string, int> _index;
 
     private HeaderMap(int line, string[] names, Dictionary<string, int> index, IReadOnlyList<string> ignored)
@@ -38,8 +41,14 @@ internal sealed class HeaderMap
             return null;
         }
 
-        var named = Ignored.Where(n => n.Length > 0).Select(ValueText.Quote).ToList();
-        var unnamed = Ignored.Count - named.Count;
+        var allNamed = Ignored.Where(n => n.Length > 0).ToList();
+        var named = allNamed.Take(MaxListed).Select(ValueText.Quote).ToList();
+        if (allNamed.Count > MaxListed)
+        {
+            named.Add(string.Create(CultureInfo.InvariantCulture, $"and {allNamed.Count - MaxListed} more"));
+        }
+
+        var unnamed = Ignored.Count - allNamed.Count;
         if (unnamed > 0)
         {
             named.Add(string.Create(CultureInfo.InvariantCulture, $"{unnamed} unnamed column(s)"));
@@ -121,7 +130,7 @@ internal sealed class HeaderMap
     public string FoundList()
     {
         var sb = new StringBuilder();
-        for (var i = 0; i < Names.Count; i++)
+        for (var i = 0; i < Math.Min(Names.Count, MaxListed); i++)
         {
             if (i > 0)
             {
@@ -129,6 +138,11 @@ internal sealed class HeaderMap
             }
 
             sb.Append(ValueText.Quote(Names[i]));
+        }
+
+        if (Names.Count > MaxListed)
+        {
+            sb.Append(CultureInfo.InvariantCulture, $" and {Names.Count - MaxListed} more column(s)");
         }
 
         return sb.ToString();

@@ -16,42 +16,8 @@ internal static class InputText
     public const long MaxBytes = 256L * 1024 * 1024;
 
     /// <summary>Reads a file's bytes.</summary>
-    /// <exception cref="InputDataException">The file is missing, is a folder, cannot be read, or is too large.</exception>
-    public static byte[] ReadBytes(string path)
-    {
-        ArgumentNullException.ThrowIfNull(path);
-        if (string.IsNullOrWhiteSpace(path))
-        {
-            throw new InputDataException(path, null, null, "file not found: the path is empty; give the path of a CSV file.");
-        }
-
-        if (Directory.Exists(path))
-        {
-            throw new InputDataException(path, null, null, "this is a folder, not a file; give the path of a CSV file.");
-        }
-
-        try
-        {
-            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
-            if (stream.Length > MaxBytes)
-            {
-                throw new InputDataException(path, null, null, string.Create(CultureInfo.InvariantCulture,
-                    $"the file is {stream.Length} bytes; expected at most {MaxBytes} bytes for a daily history."));
-            }
-
-            var bytes = new byte[stream.Length];
-            stream.ReadExactly(bytes);
-            return bytes;
-        }
-        catch (Exception e) when (e is FileNotFoundException or DirectoryNotFoundException)
-        {
-            throw new InputDataException(path, null, null, "file not found; check the path and that the file exists.");
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or NotSupportedException or ArgumentException)
-        {
-            throw new InputDataException(path, null, null, "the file could not be read (" + e.Message + "); check that it exists and is readable.");
-        }
-    }
+    /// <exception cref="InputDataException">The file is missing, is a folder or a pipe or device, cannot be read, or is too large.</exception>
+    public static byte[] ReadBytes(string path) => InputFiles.ReadCapped(path, "a CSV file", MaxBytes);
 
     /// <summary>Reads everything a reader holds.</summary>
     public static string ReadAll(TextReader reader)
@@ -82,6 +48,7 @@ internal static class InputText
                 "the file is UTF-16 encoded; expected UTF-8 text (save or export it as CSV UTF-8).");
         }
 
+        CheckNoNulBytes(span, file);
         var chars = ArrayPool<char>.Shared.Rent(Math.Max(span.Length, 1));
         try
         {
@@ -99,6 +66,47 @@ internal static class InputText
         {
             ArrayPool<char>.Shared.Return(chars);
         }
+    }
+
+    /// <summary>
+    /// Refuses text with NUL bytes, naming UTF-16 without a byte-order mark when the NULs fall on every other byte of
+    /// the start (ASCII text in UTF-16 has a zero high byte beside each character).
+    /// </summary>
+    private static void CheckNoNulBytes(ReadOnlySpan<byte> span, string file)
+    {
+        var first = span.IndexOf((byte)0);
+        if (first < 0)
+        {
+            return;
+        }
+
+        var sample = span[..Math.Min(span.Length, 1024)];
+        int even = 0, odd = 0;
+        for (var i = 0; i < sample.Length; i++)
+        {
+            if (sample[i] == 0)
+            {
+                if (i % 2 == 0)
+                {
+                    even++;
+                }
+                else
+                {
+                    odd++;
+                }
+            }
+        }
+
+        var half = sample.Length / 2;
+        if (odd >= half * 0.8 || even >= half * 0.8)
+        {
+            throw new InputDataException(file, 1, null, "the file looks UTF-16 encoded ("
+                + (odd > even ? "little-endian" : "big-endian")
+                + ") without a byte-order mark: every other byte is zero; expected UTF-8 text (save or export it as CSV UTF-8).");
+        }
+
+        throw new InputDataException(file, LineAt(span, first), null, string.Create(CultureInfo.InvariantCulture,
+            $"a zero byte (NUL) at byte offset {first}; this is not a text file. Expected UTF-8 text (save or export the file as CSV UTF-8)."));
     }
 
     /// <summary>The 1-based line holding a byte offset, counting LF, CRLF and lone CR as line ends.</summary>

@@ -247,7 +247,8 @@ public static class ReportCharts
                 ys[i] = sum;
             }
 
-            var line = plot.Add.ScatterLine(xs, ys);
+            var (drawnX, drawnY) = ChartPoints.Line(xs, ys);
+            var line = plot.Add.ScatterLine(drawnX, drawnY);
             line.Color = ChartStyle.Series(colour++);
             line.LineWidth = 2;
             line.LegendText = series.Name;
@@ -325,7 +326,8 @@ public static class ReportCharts
         var plot = ChartStyle.NewPlot($"Mincer-Zarnowitz: {forecaster}", "Forecast variance F² (annualized, decimal²)", "Realized variance RV² (annualized, decimal²)");
         var xs = forecastVariance.ToArray();
         var ys = realizedVariance.ToArray();
-        var points = plot.Add.ScatterPoints(xs, ys);
+        var (drawnX, drawnY) = ChartPoints.Scatter(xs, ys);
+        var points = plot.Add.ScatterPoints(drawnX, drawnY);
         points.Color = ChartStyle.Series(3).WithAlpha(0.45);
         points.MarkerSize = 4;
         points.LegendText = "forecast dates";
@@ -535,7 +537,8 @@ public static class ReportCharts
             ys[i] = series.Values[i] * scale;
         }
 
-        var line = plot.Add.ScatterLine(xs, ys);
+        var (drawnX, drawnY) = ChartPoints.Line(xs, ys);
+        var line = plot.Add.ScatterLine(drawnX, drawnY);
         line.Color = color;
         line.LineWidth = width;
         line.LegendText = label;

@@ -107,8 +107,8 @@ public sealed class EstimateCommandTests : IDisposable
 
     [Theory]
     [InlineData("--estimator", "garman-klas", "unknown estimator")] // a typo lists the valid names
-    [InlineData("--window", "1", "at least 2")] // a window needs two observations
-    [InlineData("--annualization", "0", "positive")] // annualization must be a positive day count
+    [InlineData("--window", "1", "from 2 to 2,520")] // a window needs two observations
+    [InlineData("--annualization", "0", "from 1 to 10,000,000")] // annualization must be a positive day count
     public void Estimate_BadOptionValue_ExitsTwo(string option, string value, string fragment)
     {
         var prices = WriteCloses("hull.csv", HullCloses, "\n");

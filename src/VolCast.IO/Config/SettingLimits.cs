@@ -1,0 +1,80 @@
+using VolCast.Core.Backtest;
+
+namespace VolCast.IO.Config;
+
+/// <summary>
+/// The one list of accepted ranges for every numeric setting, checked before any data is loaded. The command-line help
+/// and the README's configuration section show the same ranges. The bounds are wide enough for any daily or intraday
+/// use and small enough that no count overflows and no buffer outgrows memory.
+/// </summary>
+public static class SettingLimits
+{
+    /// <summary>Gets the horizon in trading days (<c>horizon</c>, <c>--horizon</c>): up to ten years of trading days.</summary>
+    public static SettingRange Horizon { get; } = new("horizon", 1, 2520, "trading days");
+
+    /// <summary>Gets the tenor in calendar days (<c>tenor</c>, <c>--tenor</c>): up to ten years, so a window never runs past the last calendar date.</summary>
+    public static SettingRange TenorDays { get; } = new("tenor", 1, 3650, "calendar days");
+
+    /// <summary>Gets a rolling window in trading days (<c>sweepLookbacks</c>, <c>estimate --window</c>).</summary>
+    public static SettingRange Window { get; } = new("sweepLookbacks", 2, 2520, "trading days");
+
+    /// <summary>Gets the adaptive selection window in trading days (<c>selectionWindowDays</c>).</summary>
+    public static SettingRange SelectionWindowDays { get; } = new("selectionWindowDays", 1, 25200, "trading days");
+
+    /// <summary>Gets the bootstrap replications of the model confidence set (<c>mcs.replications</c>).</summary>
+    public static SettingRange McsReplications { get; } = new("mcs.replications", 10, 100_000, string.Empty);
+
+    /// <summary>Gets the bootstrap block length (<c>mcs.blockLength</c>).</summary>
+    public static SettingRange McsBlockLength { get; } = new("mcs.blockLength", 1, 2520, "dates");
+
+    /// <summary>Gets the rule-test threshold in volatility points as a decimal (<c>ruleThreshold</c>; 0.02 = 2 points).</summary>
+    public static SettingRange RuleThreshold { get; } = new("ruleThreshold", 0, 5, "(decimal volatility)");
+
+    /// <summary>Gets the bars per year used to annualize (<c>annualizationFactor</c>, <c>--annualization</c>): from yearly bars to one-second bars.</summary>
+    public static SettingRange AnnualizationFactor { get; } = new("annualizationFactor", 1, 10_000_000, "bars a year");
+
+    /// <summary>Gets how many names a scan runs at once (<c>scan --jobs</c>).</summary>
+    public static SettingRange Jobs { get; } = new("--jobs", 1, 256, string.Empty);
+
+    /// <summary>Gets every range, for the help text and the README.</summary>
+    public static IReadOnlyList<SettingRange> All { get; } =
+        [Horizon, TenorDays, Window, SelectionWindowDays, McsReplications, McsBlockLength, RuleThreshold, AnnualizationFactor, Jobs];
+
+    /// <summary>The ranges of the configuration's numeric settings in one line, for --help.</summary>
+    /// <returns>The text.</returns>
+    public static string HelpText() =>
+        "Ranges: " + string.Join("; ", All.Where(r => !r.Name.StartsWith('-')).Select(r => r.Name + " " + r)) + ".";
+
+    /// <summary>Checks every numeric setting of a configuration against its range.</summary>
+    /// <param name="settings">The settings read from the file.</param>
+    /// <param name="file">The configuration file, named in the message.</param>
+    /// <exception cref="SettingRangeException">A setting is out of range.</exception>
+    public static void Check(BacktestSettings settings, string file)
+    {
+        ArgumentNullException.ThrowIfNull(settings);
+        if (settings.Horizon.TradingDays is int h)
+        {
+            Horizon.Check(h, Horizon.Name, file);
+        }
+
+        if (settings.Horizon.TenorCalendarDays is int d)
+        {
+            TenorDays.Check(d, TenorDays.Name, file);
+        }
+
+        foreach (var lookback in settings.SweepLookbacks)
+        {
+            Window.Check(lookback, Window.Name, file);
+        }
+
+        SelectionWindowDays.Check(settings.SelectionWindowDays, SelectionWindowDays.Name, file);
+        McsReplications.Check(settings.McsReplications, McsReplications.Name, file);
+        if (settings.McsBlockLength is int block)
+        {
+            McsBlockLength.Check(block, McsBlockLength.Name, file);
+        }
+
+        RuleThreshold.Check(settings.RuleThreshold, RuleThreshold.Name, file);
+        AnnualizationFactor.Check(settings.AnnualizationFactor, AnnualizationFactor.Name, file);
+    }
+}
