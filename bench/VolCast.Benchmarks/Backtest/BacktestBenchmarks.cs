@@ -41,11 +41,11 @@ public class BacktestBenchmarks
         {
             dates[i] = d;
             d = d.AddDays(d.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
-            var e = Math.Sqrt(h) * Normal(random);
-            open[i] = previous * Math.Exp(0.2 * Math.Sqrt(h) * Normal(random));
+            var e = Math.Sqrt(h) * Gaussian.Next(random);
+            open[i] = previous * Math.Exp(0.2 * Math.Sqrt(h) * Gaussian.Next(random));
             close[i] = previous * Math.Exp(e);
-            high[i] = Math.Max(open[i], close[i]) * Math.Exp(0.5 * Math.Sqrt(h) * Math.Abs(Normal(random)));
-            low[i] = Math.Min(open[i], close[i]) * Math.Exp(-0.5 * Math.Sqrt(h) * Math.Abs(Normal(random)));
+            high[i] = Math.Max(open[i], close[i]) * Math.Exp(0.5 * Math.Sqrt(h) * Math.Abs(Gaussian.Next(random)));
+            low[i] = Math.Min(open[i], close[i]) * Math.Exp(-0.5 * Math.Sqrt(h) * Math.Abs(Gaussian.Next(random)));
             iv[i] = Math.Sqrt(252 * h) * 1.1;
             previous = close[i];
             h = 2e-6 + (0.08 * e * e) + (0.9 * h);
@@ -53,7 +53,4 @@ public class BacktestBenchmarks
 
         return (PriceHistory.FromBars(dates, open, high, low, close), new ImpliedSeries(dates, iv));
     }
-
-    private static double Normal(Random random) =>
-        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }

@@ -1,6 +1,5 @@
 using System.Collections.Immutable;
 using VolCast.Core.Calibration;
-using VolCast.Core.Tests.Support;
 
 namespace VolCast.Core.Tests.Calibration;
 

@@ -2,7 +2,6 @@ using FsCheck;
 using FsCheck.Xunit;
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
-using VolCast.Core.Tests.Support;
 
 namespace VolCast.Core.Tests.Estimators;
 
