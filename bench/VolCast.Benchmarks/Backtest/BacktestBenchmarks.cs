@@ -28,19 +28,16 @@ public class BacktestBenchmarks
     internal static (PriceHistory Prices, ImpliedSeries Implied) DefaultBacktestData(int n)
     {
         var random = new Random(42);
-        var dates = new DateOnly[n];
+        var dates = Weekdays.From(new DateOnly(2000, 1, 3), n);
         var open = new double[n];
         var high = new double[n];
         var low = new double[n];
         var close = new double[n];
         var iv = new double[n];
-        var d = new DateOnly(2000, 1, 3);
         var h = 1e-4;
         var previous = 100.0;
         for (var i = 0; i < n; i++)
         {
-            dates[i] = d;
-            d = d.AddDays(d.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
             var e = Math.Sqrt(h) * Gaussian.Next(random);
             open[i] = previous * Math.Exp(0.2 * Math.Sqrt(h) * Gaussian.Next(random));
             close[i] = previous * Math.Exp(e);
