@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Reflection;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
+using VolCast.Core.Data;
 using VolCast.IO;
 using VolCast.IO.Results;
 using VolCast.Reports;
@@ -68,7 +69,7 @@ internal static class BacktestPipeline
         inputs.Add(new InputFileInfo("prices", job.Prices, priceLoad.Sha256));
         if (impliedLoad is not null)
         {
-            inputs.Add(new InputFileInfo("implied", job.Implied!, impliedLoad.Sha256));
+            inputs.Add(new InputFileInfo(ImpliedSeries.Name, job.Implied!, impliedLoad.Sha256));
         }
 
         if (job.Config is not null)

@@ -1,6 +1,6 @@
 namespace VolCast.Cli;
 
-/// <summary>The exit codes of every command (design.md).</summary>
+/// <summary>The exit codes of every command (docs/files.md#exit-codes).</summary>
 internal static class ExitCodes
 {
     /// <summary>The command did what was asked.</summary>

@@ -1,6 +1,8 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
+using VolCast.Core.Data;
+using VolCast.Core.Numerics;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Model;
 
@@ -19,7 +21,7 @@ namespace VolCast.Reports;
 internal static class ReportOdds
 {
     /// <summary>The interval's normal quantile (95%).</summary>
-    private const double IntervalZ = 1.959963984540054;
+    private const double IntervalZ = StandardNormal.Z95;
 
     public static OddsSection Build(BacktestResult result, BacktestCalibration calibration)
     {
@@ -92,7 +94,7 @@ internal static class ReportOdds
         var names = new List<string>();
         if (result.HasImplied)
         {
-            names.Add("implied");
+            names.Add(ImpliedSeries.Name);
         }
 
         names.AddRange(ReportSeries.Leading(result));
@@ -119,7 +121,7 @@ internal static class ReportOdds
         var names = new List<string>();
         if (result.HasImplied)
         {
-            names.Add("implied");
+            names.Add(ImpliedSeries.Name);
         }
 
         names.AddRange(ReportSeries.Leading(result).Take(3 - names.Count));

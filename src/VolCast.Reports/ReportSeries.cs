@@ -1,5 +1,6 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
+using VolCast.Core.Data;
 using VolCast.Core.Scoring;
 using VolCast.Reports.Model;
 
@@ -41,7 +42,7 @@ internal static class ReportSeries
     }
 
     /// <summary>Implied volatility on the dates it was quoted.</summary>
-    public static TimeSeries Implied(BacktestResult result) => Collect(result, "implied", i => result.Implied[i]);
+    public static TimeSeries Implied(BacktestResult result) => Collect(result, ImpliedSeries.Name, i => result.Implied[i]);
 
     /// <summary>A forecaster's series on the dates it had a forecast.</summary>
     public static TimeSeries Forecast(BacktestResult result, string spec)
@@ -148,7 +149,7 @@ internal static class ReportSeries
     /// <summary>The last forecast of a series and the date it was made, or null when it never forecast.</summary>
     public static (DateOnly Date, double Value)? Latest(BacktestResult result, string spec)
     {
-        var values = spec == "implied" ? result.Implied : Find(result, spec).Values;
+        var values = spec == ImpliedSeries.Name ? result.Implied : Find(result, spec).Values;
         for (var i = values.Length - 1; i >= 0; i--)
         {
             if (values[i] is double v)

@@ -118,7 +118,7 @@ public static class ReportWriter
     {
         var days = result.Settings.Horizon.NominalDays;
         var overlays = new List<ConeOverlay>();
-        if (result.HasImplied && ReportSeries.Latest(result, "implied") is (DateOnly date, double iv))
+        if (result.HasImplied && ReportSeries.Latest(result, ImpliedSeries.Name) is (DateOnly date, double iv))
         {
             overlays.Add(new ConeOverlay(string.Create(CultureInfo.InvariantCulture, $"implied {date:yyyy-MM-dd}"), days, iv));
         }

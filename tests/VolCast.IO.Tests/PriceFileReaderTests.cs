@@ -181,7 +181,7 @@ public sealed class PriceFileReaderTests : IDisposable
     [Fact]
     public void Read_HundredYearHistory_LoadsEveryWeekday()
     {
-        // 1925-01-01 .. 2024-12-31, weekdays only: about 26,000 rows (a 100-year history, issue 8).
+        // 1925-01-01 .. 2024-12-31, weekdays only: about 26,000 rows (a 100-year history).
         var sb = new StringBuilder("date,open,high,low,close,adj_close,volume\n");
         var count = 0;
         foreach (var d in Weekdays.Between(new DateOnly(1925, 1, 1), new DateOnly(2024, 12, 31)))

@@ -8,7 +8,7 @@ using VolCast.IO.Quotes;
 
 namespace VolCast.IO.Tests;
 
-// Mutation fuzzing of the option-quotes and configuration readers (issue 8): whatever is done to a valid file, a
+// Mutation fuzzing of the option-quotes and configuration readers: whatever is done to a valid file, a
 // read either succeeds with usable values or throws InputDataException naming the file; nothing else escapes.
 public sealed class QuoteAndConfigFuzzTests
 {

@@ -5,7 +5,7 @@ using FsCheck.Xunit;
 
 namespace VolCast.IO.Tests;
 
-// Mutation fuzzing of the readers (issue 8): whatever is done to a valid file, a read either succeeds with
+// Mutation fuzzing of the readers: whatever is done to a valid file, a read either succeeds with
 // finite, positive, consistent numbers or throws InputDataException; no other exception type escapes.
 public sealed class ReaderFuzzTests
 {

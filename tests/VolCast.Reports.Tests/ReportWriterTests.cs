@@ -102,7 +102,7 @@ public sealed class ReportWriterTests
         var differential = ReportSeries.QlikeDifferential(WithImplied, "garch");
         var garch = WithImplied.Forecasts.Single(f => f.Spec == "garch").Values;
 
-        // QLIKE(RV, F) = RV²/F² − ln(RV²/F²) − 1 (Patton 2011's normalized form, as design.md ranks on).
+        // QLIKE(RV, F) = RV²/F² − ln(RV²/F²) − 1 (Patton 2011's normalized form, as docs/conventions.md#losses ranks on).
         static double Qlike(double rv, double f) => (rv * rv / (f * f)) - Math.Log(rv * rv / (f * f)) - 1;
         var expected = new List<double>();
         for (var i = 0; i < WithImplied.Dates.Length; i++)

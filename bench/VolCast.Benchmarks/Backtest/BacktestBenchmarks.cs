@@ -5,7 +5,7 @@ using VolCast.Core.Data;
 namespace VolCast.Benchmarks.Backtest;
 
 /// <summary>
-/// The default backtest (issue 4's target: 5,000 days in under 3 s on 2 cores, peak memory under 500 MB): configured
+/// The default backtest (target: 5,000 days in under 3 s on 2 cores, peak memory under 500 MB): configured
 /// forecasters (close-to-close:21, yang-zhang:21, ewma:0.94, GARCH and GJR refit every 5 days, HAR), the sweep of
 /// 5 estimators × 8 lookbacks and the EWMA grid, six adaptive choices, implied, MCS with B = 1,000.
 /// </summary>

@@ -8,7 +8,7 @@ namespace VolCast.Benchmarks.Estimators;
 
 /// <summary>
 /// The five estimators over a daily history: one window, and a sweep of 8 windows × 5 estimators.
-/// Targets (issue 2): one window, all five, &lt; 0.5 ms single-threaded; the sweep &lt; 2 ms. Baselines recompute
+/// Targets: one window, all five, &lt; 0.5 ms single-threaded; the sweep &lt; 2 ms. Baselines recompute
 /// every window from the prices (the tests' naive reference).
 /// </summary>
 [MemoryDiagnoser]

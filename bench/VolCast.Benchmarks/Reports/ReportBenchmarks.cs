@@ -8,7 +8,7 @@ namespace VolCast.Benchmarks.Reports;
 
 /// <summary>
 /// The full report for invented data of demo size: all seven charts rendered to PNG, then the HTML built around them.
-/// Target (issue 5): under 3 s for charts + HTML, HTML under 5 MB.
+/// Target: under 3 s for charts + HTML, HTML under 5 MB.
 /// </summary>
 [MemoryDiagnoser]
 public class ReportBenchmarks

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Security.Cryptography;
 using VolCast.Core.Backtest;
+using VolCast.Core.Data;
 using VolCast.IO;
 using VolCast.IO.Results;
 
@@ -39,7 +40,7 @@ internal sealed record ScanAssetJob(
             hashes["prices"] = Sha256(Asset.Prices);
             if (Asset.Implied is not null)
             {
-                hashes["implied"] = Sha256(Asset.Implied);
+                hashes[ImpliedSeries.Name] = Sha256(Asset.Implied);
             }
 
             if (Config is not null)

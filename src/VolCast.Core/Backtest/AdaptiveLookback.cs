@@ -35,7 +35,7 @@ internal static class AdaptiveLookback
             var ok = true;
             for (var c = 0; c < m && ok; c++)
             {
-                ok = candidates[c][s] is double f && f > 0 && double.IsFinite(f);
+                ok = Preconditions.IsPositive(candidates[c][s]);
             }
 
             if (!ok)

@@ -12,8 +12,6 @@ public static partial class Backtester
 {
     private static string Text(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 
-    private static bool Positive(double? value) => value is double v && v > 0 && double.IsFinite(v);
-
     private static (int First, int Last) DateRange(DateOnly[] dates, BacktestSettings settings)
     {
         var n = dates.Length;
@@ -191,7 +189,7 @@ public static partial class Backtester
         var excluded = ImmutableArray.CreateBuilder<string>();
         foreach (var (spec, _, values, _) in named)
         {
-            var have = scored.Count(t => Positive(values[t]));
+            var have = scored.Count(t => Preconditions.IsPositive(values[t]));
             if (2 * have >= scored.Count && have > 0)
             {
                 members.Add((spec, values));
@@ -202,7 +200,7 @@ public static partial class Backtester
             }
         }
 
-        var common = scored.Where(t => members.TrueForAll(m => Positive(m.Values[t]))).ToList();
+        var common = scored.Where(t => members.TrueForAll(m => Preconditions.IsPositive(m.Values[t]))).ToList();
         var memberSpecs = members.Select(m => m.Spec).ToImmutableArray();
         if (members.Count < 2 || common.Count < 2)
         {
@@ -258,7 +256,7 @@ public static partial class Backtester
 
     private static List<SweepRow> SweepTable(string family, List<(string Spec, double?[] Values)> candidates, List<int> scored, double?[] realized)
     {
-        var common = scored.Where(t => candidates.TrueForAll(c => Positive(c.Values[t]))).ToList();
+        var common = scored.Where(t => candidates.TrueForAll(c => Preconditions.IsPositive(c.Values[t]))).ToList();
         var rows = new List<SweepRow>(candidates.Count);
         var best = -1;
         var summaries = new LossSummary?[candidates.Count];

@@ -26,7 +26,7 @@ namespace VolCast.Core.Backtest;
 /// </remarks>
 public static partial class Backtester
 {
-    private const string ImpliedSpec = "implied";
+    private const string ImpliedSpec = ImpliedSeries.Name;
 
     /// <summary>Runs the backtest.</summary>
     /// <param name="prices">The daily price history.</param>
@@ -212,7 +212,7 @@ public static partial class Backtester
             var missing = 0;
             foreach (var t in scored)
             {
-                missing += Positive(values[t]) ? 0 : 1;
+                missing += Preconditions.IsPositive(values[t]) ? 0 : 1;
             }
 
             var mcsIndex = mcs.Members.IndexOf(spec);
@@ -261,7 +261,7 @@ public static partial class Backtester
         {
             var f = Lookup(named, ruleForecast);
             var h = series[historical.Spec];
-            var ruleDates = scored.Where(t => Positive(impliedAt[t]) && Positive(f[t]) && Positive(h[t])).ToList();
+            var ruleDates = scored.Where(t => Preconditions.IsPositive(impliedAt[t]) && Preconditions.IsPositive(f[t]) && Preconditions.IsPositive(h[t])).ToList();
             var rows = RuleTest.Rows(ruleForecast, ruleDates, impliedAt, f, windows.Realized, settings.RuleThreshold, lag)
                 .AddRange(RuleTest.Rows(historical.Spec, ruleDates, impliedAt, h, windows.Realized, settings.RuleThreshold, lag));
             rule = new RuleTestResult(settings.RuleThreshold, ruleForecast, historical.Spec, rows);

@@ -128,7 +128,7 @@ internal sealed class Scorer(double?[] realized, List<int> scored, int lag, int 
         var dates = new List<int>(scored.Count);
         foreach (var t in scored)
         {
-            if (Positive(first[t]) && Positive(second[t]))
+            if (Preconditions.IsPositive(first[t]) && Preconditions.IsPositive(second[t]))
             {
                 dates.Add(t);
             }
@@ -143,8 +143,6 @@ internal sealed class Scorer(double?[] realized, List<int> scored, int lag, int 
         warnings.Add(Invariant($"{spec}: {what} not computed: {count} scored dates are too few for lag {lag}."));
         return null;
     }
-
-    private static bool Positive(double? value) => value is double v && v > 0 && double.IsFinite(v);
 
     private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

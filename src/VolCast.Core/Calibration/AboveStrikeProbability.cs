@@ -25,12 +25,12 @@ public static class AboveStrikeProbability
     /// <exception cref="ArgumentOutOfRangeException">An input is not finite, or S, K, σ or τ is not above zero.</exception>
     public static double D2(double spot, double strike, double volatility, double timeYears, double rate = 0, double dividendYield = 0)
     {
-        CalibrationGuard.Positive(spot, nameof(spot));
-        CalibrationGuard.Positive(strike, nameof(strike));
-        CalibrationGuard.Positive(volatility, nameof(volatility));
-        CalibrationGuard.Positive(timeYears, nameof(timeYears));
-        Guard.Finite(rate, nameof(rate));
-        Guard.Finite(dividendYield, nameof(dividendYield));
+        Preconditions.Positive(spot);
+        Preconditions.Positive(strike);
+        Preconditions.Positive(volatility);
+        Preconditions.Positive(timeYears);
+        Preconditions.Finite(rate);
+        Preconditions.Finite(dividendYield);
         var sd = volatility * Math.Sqrt(timeYears);
         return (Math.Log(spot / strike) + ((rate - dividendYield) * timeYears)) / sd - (0.5 * sd);
     }

@@ -41,7 +41,7 @@ public static class BacktestCalibrator
         var invalid = ImmutableArray.CreateBuilder<int>(result.Forecasts.Length + 1);
         if (result.HasImplied)
         {
-            forecasters.Add(Pick(aligned, "implied", result.Implied, out var bad));
+            forecasters.Add(Pick(aligned, ImpliedSeries.Name, result.Implied, out var bad));
             invalid.Add(bad);
         }
 
@@ -87,7 +87,7 @@ public static class BacktestCalibrator
         {
             var k = aligned.DateIndices[i];
             var v = k < values.Length ? values[k] : null;
-            if (v is { } x && !(double.IsFinite(x) && x > 0))
+            if (v is not null && !Preconditions.IsPositive(v))
             {
                 invalid++;
                 v = null;

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Globalization;
+using VolCast.Core.Numerics;
 
 namespace VolCast.Core.Calibration;
 
@@ -49,8 +50,8 @@ public sealed record CalibrationOptions
     /// </summary>
     public double LogScoreClip { get; init; } = 1e-12;
 
-    /// <summary>Standard-normal quantile of the reliability-table intervals; 1.959963984540054 (95%) by default.</summary>
-    public double IntervalZ { get; init; } = 1.959963984540054;
+    /// <summary>Standard-normal quantile of the reliability-table intervals; <see cref="StandardNormal.Z95"/> (95%) by default.</summary>
+    public double IntervalZ { get; init; } = StandardNormal.Z95;
 
     /// <summary>Checks every setting and throws with a message naming the first one that is out of range.</summary>
     /// <exception cref="ArgumentOutOfRangeException">A setting is out of range.</exception>
@@ -65,32 +66,16 @@ public sealed record CalibrationOptions
         for (var i = 0; i < Moneyness.Length; i++)
         {
             var m = Moneyness[i];
-            if (!double.IsFinite(m) || m <= 0)
-            {
-                throw new ArgumentOutOfRangeException(nameof(Moneyness), m, string.Create(CultureInfo.InvariantCulture,
-                    $"Moneyness[{i}] must be a finite strike fraction above zero (for example 0.95 for a strike 5% below the close), was {m}."));
-            }
+            Preconditions.PositiveAt(m, i, "strike fraction (for example 0.95 for a strike 5% below the close)", nameof(Moneyness));
         }
 
-        Guard.Finite(RiskFreeRate, nameof(RiskFreeRate));
-        Guard.Finite(DividendYield, nameof(DividendYield));
-        if (!double.IsFinite(AnnualizationFactor) || AnnualizationFactor <= 0)
-        {
-            throw new ArgumentOutOfRangeException(nameof(AnnualizationFactor), AnnualizationFactor, string.Create(CultureInfo.InvariantCulture,
-                $"AnnualizationFactor must be a finite number of trading days per year above zero (252 is usual), was {AnnualizationFactor}."));
-        }
+        Preconditions.Finite(RiskFreeRate);
+        Preconditions.Finite(DividendYield);
+        Preconditions.Positive(AnnualizationFactor, "number of trading days per year (252 is usual)");
 
-        if (BinCount < 1)
-        {
-            throw new ArgumentOutOfRangeException(nameof(BinCount), BinCount, string.Create(CultureInfo.InvariantCulture,
-                $"BinCount must be at least 1 (10 is usual), was {BinCount}."));
-        }
+        Preconditions.AtLeast(BinCount, 1, "bin");
 
-        if (MinimumNonOverlappingSamples < 2)
-        {
-            throw new ArgumentOutOfRangeException(nameof(MinimumNonOverlappingSamples), MinimumNonOverlappingSamples, string.Create(CultureInfo.InvariantCulture,
-                $"MinimumNonOverlappingSamples must be at least 2 (20 is the default), was {MinimumNonOverlappingSamples}."));
-        }
+        Preconditions.AtLeast(MinimumNonOverlappingSamples, 2, "samples");
 
         if (!(LogScoreClip > 0 && LogScoreClip < 0.5))
         {
@@ -98,10 +83,6 @@ public sealed record CalibrationOptions
                 $"LogScoreClip must be in (0, 0.5) (1e-12 is the default), was {LogScoreClip}."));
         }
 
-        if (!double.IsFinite(IntervalZ) || IntervalZ <= 0)
-        {
-            throw new ArgumentOutOfRangeException(nameof(IntervalZ), IntervalZ, string.Create(CultureInfo.InvariantCulture,
-                $"IntervalZ must be a finite normal quantile above zero (1.96 for 95%), was {IntervalZ}."));
-        }
+        Preconditions.Positive(IntervalZ, "normal quantile (1.96 for 95%)");
     }
 }

@@ -34,7 +34,7 @@ public static class CoverageLikelihoodRatio
         ArgumentOutOfRangeException.ThrowIfLessThan(count, 1);
         ArgumentOutOfRangeException.ThrowIfNegative(failures);
         ArgumentOutOfRangeException.ThrowIfGreaterThan(failures, count);
-        CalibrationGuard.Probability(failureProbability, nameof(failureProbability));
+        Preconditions.Fraction(failureProbability);
         double n = count, x = failures;
         var observed = x / n;
         var restricted = XLogY(n - x, 1 - failureProbability) + XLogY(x, failureProbability);

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Globalization;
+using VolCast.Core.Numerics;
 
 namespace VolCast.Core.Calibration;
 
@@ -23,15 +24,11 @@ public static class CoverageRegimes
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
     /// <exception cref="ArgumentException">The regime values are not aligned with the coverage dates.</exception>
     /// <exception cref="ArgumentOutOfRangeException">A regime value used is not finite.</exception>
-    public static ImmutableArray<RegimeCoverage> ByTerciles(CoverageResult coverage, IReadOnlyList<double> regimeValues, double intervalZ = 1.959963984540054)
+    public static ImmutableArray<RegimeCoverage> ByTerciles(CoverageResult coverage, IReadOnlyList<double> regimeValues, double intervalZ = StandardNormal.Z95)
     {
         ArgumentNullException.ThrowIfNull(coverage);
         ArgumentNullException.ThrowIfNull(regimeValues);
-        if (regimeValues.Count != coverage.Z.Length)
-        {
-            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                $"regimeValues must be aligned with the coverage dates ({coverage.Z.Length}), was {regimeValues.Count}."), nameof(regimeValues));
-        }
+        Preconditions.SameLength(regimeValues.Count, coverage.Z.Length, "the coverage dates", nameof(regimeValues));
 
         var keys = new List<double>(coverage.Count);
         var zs = new List<double>(coverage.Count);
@@ -39,7 +36,7 @@ public static class CoverageRegimes
         {
             if (coverage.Z[t] is { } z)
             {
-                Guard.Finite(regimeValues[t], nameof(regimeValues));
+                Preconditions.FiniteAt(regimeValues[t], t, nameof(regimeValues));
                 keys.Add(regimeValues[t]);
                 zs.Add(z);
             }

@@ -28,7 +28,7 @@ public static class CoverageVerdict
     public static string Describe(CoverageResult coverage, IReadOnlyList<RegimeCoverage>? regimes = null, double significance = 0.05)
     {
         ArgumentNullException.ThrowIfNull(coverage);
-        CalibrationGuard.Probability(significance, nameof(significance));
+        Preconditions.Fraction(significance);
         var c = CultureInfo.InvariantCulture;
         var one = coverage.Levels[0];
         var text = new StringBuilder();

@@ -30,7 +30,7 @@ public static class ExpectedMoveCoverage
         ArgumentNullException.ThrowIfNull(forecaster);
         options ??= new CalibrationOptions();
         options.Validate();
-        CalibrationGuard.Aligned(outcomes, forecaster);
+        outcomes.CheckAligned(forecaster);
 
         var h = outcomes.HorizonDays;
         var windows = outcomes.WindowArray;

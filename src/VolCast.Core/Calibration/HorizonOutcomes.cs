@@ -43,8 +43,8 @@ public sealed record HorizonOutcomes
         ArgumentNullException.ThrowIfNull(windowDays);
         ArgumentNullException.ThrowIfNull(startClose);
         ArgumentNullException.ThrowIfNull(endClose);
-        Guard.SameLength(startClose.Length, endClose.Length, nameof(endClose));
-        Guard.SameLength(startClose.Length, windowDays.Length, nameof(windowDays));
+        Preconditions.SameLength(endClose.Length, startClose.Length, nameof(startClose), nameof(endClose));
+        Preconditions.SameLength(windowDays.Length, startClose.Length, nameof(startClose), nameof(windowDays));
         var longest = 1;
         for (var i = 0; i < startClose.Length; i++)
         {
@@ -55,14 +55,25 @@ public sealed record HorizonOutcomes
             }
 
             longest = Math.Max(longest, windowDays[i]);
-            Guard.PositivePrice(startClose[i], nameof(startClose), i);
-            Guard.PositivePrice(endClose[i], nameof(endClose), i);
+            Preconditions.PositiveAt(startClose[i], i, "price", nameof(startClose));
+            Preconditions.PositiveAt(endClose[i], i, "price", nameof(endClose));
         }
 
         HorizonDays = longest;
         _windowDays = windowDays;
         _startClose = startClose;
         _endClose = endClose;
+    }
+
+    /// <summary>Checks that a forecaster's series is aligned with these outcomes, date by date.</summary>
+    /// <exception cref="ArgumentException">The lengths differ.</exception>
+    internal void CheckAligned(ForecasterVolatility forecaster)
+    {
+        if (forecaster.AnnualizedVolatility.Count != Count)
+        {
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"{forecaster.Name}: the forecasts must be aligned with the outcomes and have the same length ({Count} dates), was {forecaster.AnnualizedVolatility.Count}."), nameof(forecaster));
+        }
     }
 
     /// <summary>The horizon h in trading days; the longest h_t when it differs by date.</summary>
@@ -89,11 +100,7 @@ public sealed record HorizonOutcomes
     private static int[] Fill(int horizonDays, double[] startClose)
     {
         ArgumentNullException.ThrowIfNull(startClose);
-        if (horizonDays < 1)
-        {
-            throw new ArgumentOutOfRangeException(nameof(horizonDays), horizonDays, string.Create(CultureInfo.InvariantCulture,
-                $"horizonDays must be at least 1 trading day, was {horizonDays}."));
-        }
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
 
         var days = new int[startClose.Length];
         Array.Fill(days, horizonDays);

@@ -23,7 +23,7 @@ public static class OutcomeAlignment
         ArgumentNullException.ThrowIfNull(prices);
         ArgumentNullException.ThrowIfNull(forecastDates);
         ArgumentNullException.ThrowIfNull(windowDays);
-        Guard.SameLength(forecastDates.Count, windowDays.Count, nameof(windowDays));
+        Preconditions.SameLength(windowDays.Count, forecastDates.Count, nameof(forecastDates), nameof(windowDays));
         var dates = prices.Dates;
         var close = prices.Close;
         var indices = ImmutableArray.CreateBuilder<int>();

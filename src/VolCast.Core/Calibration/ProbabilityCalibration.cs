@@ -37,7 +37,7 @@ public static class ProbabilityCalibration
         ArgumentNullException.ThrowIfNull(forecaster);
         options ??= new CalibrationOptions();
         options.Validate();
-        CalibrationGuard.Aligned(outcomes, forecaster);
+        outcomes.CheckAligned(forecaster);
 
         var h = outcomes.HorizonDays;
         var windows = outcomes.WindowArray;
@@ -101,7 +101,7 @@ public static class ProbabilityCalibration
     /// <exception cref="ArgumentOutOfRangeException">A probability is outside [0, 1], or the bin count is below 1.</exception>
     public static BrierDecomposition Decompose(ReadOnlySpan<double> probabilities, ReadOnlySpan<bool> outcomes, int binCount = 10)
     {
-        Guard.SameLength(probabilities.Length, outcomes.Length, nameof(outcomes));
+        Preconditions.SameLength(outcomes.Length, probabilities.Length, nameof(probabilities), nameof(outcomes));
         if (probabilities.IsEmpty)
         {
             throw new ArgumentException("probabilities must hold at least one forecast, was empty.", nameof(probabilities));

@@ -1,3 +1,5 @@
+using VolCast.Core.Numerics;
+
 namespace VolCast.Core.Calibration;
 
 /// <summary>
@@ -26,15 +28,12 @@ public static class WilsonInterval
     /// <param name="z">Standard-normal quantile, 1.96 for 95%.</param>
     /// <returns>The lower and upper ends, inside [0, 1].</returns>
     /// <exception cref="ArgumentOutOfRangeException">The proportion is outside [0, 1], or n or z is not above zero.</exception>
-    public static (double Lower, double Upper) Compute(double proportion, double effectiveCount, double z = 1.959963984540054)
+    public static (double Lower, double Upper) Compute(double proportion, double effectiveCount, double z = StandardNormal.Z95)
     {
-        if (!(proportion >= 0 && proportion <= 1))
-        {
-            throw new ArgumentOutOfRangeException(nameof(proportion), proportion, "proportion must be in [0, 1].");
-        }
+        Preconditions.Probability(proportion);
 
-        CalibrationGuard.Positive(effectiveCount, nameof(effectiveCount));
-        CalibrationGuard.Positive(z, nameof(z));
+        Preconditions.Positive(effectiveCount);
+        Preconditions.Positive(z);
         var n = effectiveCount;
         var z2 = z * z;
         var denominator = 1 + (z2 / n);

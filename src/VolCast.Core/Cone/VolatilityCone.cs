@@ -28,7 +28,7 @@ public static class VolatilityCone
     public static VolatilityConeResult Compute(ReadOnlySpan<double> logReturns, IReadOnlyList<int> horizons, double annualizationFactor = 252.0)
     {
         ArgumentNullException.ThrowIfNull(horizons);
-        Guard.Finite(annualizationFactor, nameof(annualizationFactor));
+        Preconditions.Finite(annualizationFactor);
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(annualizationFactor);
         for (var i = 0; i < horizons.Count; i++)
         {

@@ -6,6 +6,12 @@ namespace VolCast.Core.Data;
 /// </summary>
 public sealed class ImpliedSeries
 {
+    /// <summary>
+    /// The name of the implied series wherever a series is named: the forecaster spec, the column and row of the
+    /// result files, and the report's legends.
+    /// </summary>
+    public const string Name = "implied";
+
     private readonly DateOnly[] _dates;
     private readonly double[] _volatility;
 
@@ -16,10 +22,10 @@ public sealed class ImpliedSeries
     /// or the dates are not strictly increasing.</exception>
     public ImpliedSeries(ReadOnlySpan<DateOnly> dates, ReadOnlySpan<double> volatility)
     {
-        Guard.SameLength(dates.Length, volatility.Length, nameof(volatility));
+        Preconditions.SameLength(volatility.Length, dates.Length, "the dates", nameof(volatility));
         for (var i = 0; i < dates.Length; i++)
         {
-            Guard.PositivePrice(volatility[i], nameof(volatility), i);
+            Preconditions.PositiveAt(volatility[i], i, "volatility", nameof(volatility));
             if (i > 0 && dates[i] <= dates[i - 1])
             {
                 throw new ArgumentException(FormattableString.Invariant(

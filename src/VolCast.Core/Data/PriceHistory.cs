@@ -41,17 +41,17 @@ public sealed class PriceHistory
         ReadOnlySpan<double> low,
         ReadOnlySpan<double> close)
     {
-        Guard.SameLength(dates.Length, open.Length, nameof(open));
-        Guard.SameLength(dates.Length, high.Length, nameof(high));
-        Guard.SameLength(dates.Length, low.Length, nameof(low));
-        Guard.SameLength(dates.Length, close.Length, nameof(close));
+        Preconditions.SameLength(open.Length, dates.Length, "the dates", nameof(open));
+        Preconditions.SameLength(high.Length, dates.Length, "the dates", nameof(high));
+        Preconditions.SameLength(low.Length, dates.Length, "the dates", nameof(low));
+        Preconditions.SameLength(close.Length, dates.Length, "the dates", nameof(close));
         CheckDates(dates);
         for (var i = 0; i < dates.Length; i++)
         {
-            Guard.PositivePrice(open[i], nameof(open), i);
-            Guard.PositivePrice(high[i], nameof(high), i);
-            Guard.PositivePrice(low[i], nameof(low), i);
-            Guard.PositivePrice(close[i], nameof(close), i);
+            Preconditions.PositiveAt(open[i], i, "price", nameof(open));
+            Preconditions.PositiveAt(high[i], i, "price", nameof(high));
+            Preconditions.PositiveAt(low[i], i, "price", nameof(low));
+            Preconditions.PositiveAt(close[i], i, "price", nameof(close));
             if (low[i] > Math.Min(open[i], close[i]) || high[i] < Math.Max(open[i], close[i]))
             {
                 throw new ArgumentException(FormattableString.Invariant(
@@ -69,11 +69,11 @@ public sealed class PriceHistory
     /// or the dates are not strictly increasing.</exception>
     public static PriceHistory FromCloses(ReadOnlySpan<DateOnly> dates, ReadOnlySpan<double> close)
     {
-        Guard.SameLength(dates.Length, close.Length, nameof(close));
+        Preconditions.SameLength(close.Length, dates.Length, "the dates", nameof(close));
         CheckDates(dates);
         for (var i = 0; i < dates.Length; i++)
         {
-            Guard.PositivePrice(close[i], nameof(close), i);
+            Preconditions.PositiveAt(close[i], i, "price", nameof(close));
         }
 
         return new PriceHistory(dates.ToArray(), null, null, null, close.ToArray());

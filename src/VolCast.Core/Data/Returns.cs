@@ -16,11 +16,7 @@ public static class Returns
     public static void LogReturns(ReadOnlySpan<double> close, Span<double> destination)
     {
         var count = Math.Max(close.Length - 1, 0);
-        if (destination.Length < count)
-        {
-            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                $"destination must hold {count} returns, had room for {destination.Length}."), nameof(destination));
-        }
+        Preconditions.Room(destination.Length, count, "returns", nameof(destination));
 
         for (var i = 0; i < count; i++)
         {

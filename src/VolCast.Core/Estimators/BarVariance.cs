@@ -2,7 +2,7 @@ namespace VolCast.Core.Estimators;
 
 /// <summary>The daily variance term of each range-based estimator for one bar, before averaging over a window.</summary>
 /// <remarks>
-/// With u = ln(H/O), d = ln(L/O), c = ln(C/O) and R = ln(H/L) = u − d (references.md §1–3):
+/// With u = ln(H/O), d = ln(L/O), c = ln(C/O) and R = ln(H/L) = u − d (docs/methods.md#parkinson to #rogers-satchell):
 /// Parkinson R²/(4 ln 2); Garman-Klass 0.5 R² − (2 ln 2 − 1) c²; Rogers-Satchell u(u − c) + d(d − c).
 /// All three are per trading day and not annualized. On a valid bar (L ≤ min(O, C), H ≥ max(O, C)) none is
 /// negative, and a bar with O = H = L = C gives exactly zero.

@@ -1,4 +1,5 @@
 using System.Collections.ObjectModel;
+using System.Globalization;
 
 namespace VolCast.Core.Estimators;
 
@@ -6,6 +7,9 @@ namespace VolCast.Core.Estimators;
 /// <remarks>Names are lower case with hyphens (<c>close-to-close</c>, <c>yang-zhang</c>); parsing ignores case.</remarks>
 public static class EstimatorNames
 {
+    /// <summary>The shortest window any estimator accepts: a sample variance needs two observations.</summary>
+    internal const int MinimumWindow = 2;
+
     private static readonly string[] Names = ["close-to-close", "parkinson", "garman-klass", "rogers-satchell", "yang-zhang"];
 
     /// <summary>Gets every estimator name, in the order of <see cref="Estimator"/>.</summary>
@@ -17,7 +21,7 @@ public static class EstimatorNames
     /// <exception cref="ArgumentOutOfRangeException"><paramref name="e"/> is not a defined <see cref="Estimator"/>.</exception>
     public static string Name(Estimator e)
     {
-        EstimatorGuard.Defined(e, nameof(e));
+        CheckDefined(e, nameof(e));
         return Names[(int)e];
     }
 
@@ -46,7 +50,18 @@ public static class EstimatorNames
     /// <exception cref="ArgumentOutOfRangeException"><paramref name="e"/> is not a defined <see cref="Estimator"/>.</exception>
     public static bool NeedsRange(Estimator e)
     {
-        EstimatorGuard.Defined(e, nameof(e));
+        CheckDefined(e, nameof(e));
         return e != Estimator.CloseToClose;
+    }
+
+    /// <summary>Checks that an estimator value is one of the defined members.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">The value is not defined.</exception>
+    internal static void CheckDefined(Estimator estimator, string paramName)
+    {
+        if (estimator is < Estimator.CloseToClose or > Estimator.YangZhang)
+        {
+            throw new ArgumentOutOfRangeException(paramName, estimator, string.Create(CultureInfo.InvariantCulture,
+                $"{paramName} must be one of {string.Join(", ", Names)} (was {(int)estimator})."));
+        }
     }
 }

@@ -10,7 +10,7 @@ namespace VolCast.Core.Estimators;
 /// </summary>
 /// <remarks>
 /// <para>
-/// Conventions (references.md §1–4 and §16). A window of N at history index t uses bars t − N + 1 .. t.
+/// Conventions (docs/methods.md#parkinson to #yang-zhang and docs/methods.md#close-to-close-and-annualisation). A window of N at history index t uses bars t − N + 1 .. t.
 /// All values are daily variances (not annualized).
 /// </para>
 /// <list type="bullet">
@@ -222,7 +222,7 @@ public sealed class EstimatorTerms
     /// <exception cref="ArgumentException">A range-based estimator on a close-only history, or the destination is too short.</exception>
     public int RollingAnnualizedVolatility(Estimator estimator, int window, Span<double> destination, double annualizationFactor = 252, bool zeroMean = false)
     {
-        EstimatorGuard.AnnualizationFactor(annualizationFactor, nameof(annualizationFactor));
+        Preconditions.Positive(annualizationFactor, "number of periods per year (such as 252)");
         var count = RollingDailyVariance(estimator, window, destination, zeroMean);
         for (var i = 0; i < count; i++)
         {
@@ -242,7 +242,7 @@ public sealed class EstimatorTerms
     /// <exception cref="ArgumentException">A range-based estimator on a close-only history.</exception>
     public VolatilitySeries Volatility(Estimator estimator, int window, double annualizationFactor = 252, bool zeroMean = false)
     {
-        EstimatorGuard.AnnualizationFactor(annualizationFactor, nameof(annualizationFactor));
+        Preconditions.Positive(annualizationFactor, "number of periods per year (such as 252)");
         var values = new double[Validate(estimator, window)];
         RollingAnnualizedVolatility(estimator, window, values, annualizationFactor, zeroMean);
         return VolatilitySeries.Adopt(estimator, window, FirstIndex(estimator, window), values);
@@ -260,10 +260,10 @@ public sealed class EstimatorTerms
 
     private int Validate(Estimator estimator, int window)
     {
-        EstimatorGuard.Defined(estimator, nameof(estimator));
-        EstimatorGuard.Window(window, nameof(window));
-        EstimatorGuard.HasColumns(estimator, HasRange, nameof(estimator));
-        EstimatorGuard.Fits(estimator, window, Count, nameof(window));
+        EstimatorNames.CheckDefined(estimator, nameof(estimator));
+        Preconditions.AtLeast(window, EstimatorNames.MinimumWindow, "trading days");
+        RollingVolatility.CheckColumns(estimator, HasRange, nameof(estimator));
+        RollingVolatility.CheckFits(estimator, window, Count, nameof(window));
         return Count - FirstIndex(estimator, window);
     }
 

@@ -1,3 +1,4 @@
+using System.Globalization;
 using VolCast.Core.Data;
 
 namespace VolCast.Core.Estimators;
@@ -27,11 +28,11 @@ public static class RollingVolatility
     public static VolatilitySeries Compute(PriceHistory prices, Estimator estimator, int window, double annualizationFactor = 252, bool zeroMean = false)
     {
         ArgumentNullException.ThrowIfNull(prices);
-        EstimatorGuard.Defined(estimator, nameof(estimator));
-        EstimatorGuard.Window(window, nameof(window));
-        EstimatorGuard.HasColumns(estimator, prices.HasRange, nameof(prices));
-        EstimatorGuard.Fits(estimator, window, prices.Count, nameof(window));
-        EstimatorGuard.AnnualizationFactor(annualizationFactor, nameof(annualizationFactor));
+        EstimatorNames.CheckDefined(estimator, nameof(estimator));
+        Preconditions.AtLeast(window, EstimatorNames.MinimumWindow, "trading days");
+        CheckColumns(estimator, prices.HasRange, nameof(prices));
+        CheckFits(estimator, window, prices.Count, nameof(window));
+        Preconditions.Positive(annualizationFactor, "number of periods per year (such as 252)");
         return EstimatorTerms.From(prices).Volatility(estimator, window, annualizationFactor, zeroMean);
     }
 
@@ -42,8 +43,8 @@ public static class RollingVolatility
     /// <exception cref="ArgumentOutOfRangeException">The estimator is undefined or the window is below 2.</exception>
     public static int BarsNeeded(Estimator estimator, int window)
     {
-        EstimatorGuard.Defined(estimator, nameof(estimator));
-        EstimatorGuard.Window(window, nameof(window));
+        EstimatorNames.CheckDefined(estimator, nameof(estimator));
+        Preconditions.AtLeast(window, EstimatorNames.MinimumWindow, "trading days");
         return estimator is Estimator.CloseToClose or Estimator.YangZhang ? checked(window + 1) : window;
     }
 
@@ -53,7 +54,30 @@ public static class RollingVolatility
     /// <exception cref="ArgumentOutOfRangeException">The window is below 2.</exception>
     public static double YangZhangK(int window)
     {
-        EstimatorGuard.Window(window, nameof(window));
+        Preconditions.AtLeast(window, EstimatorNames.MinimumWindow, "trading days");
         return 0.34 / (1.34 + ((window + 1.0) / (window - 1.0)));
+    }
+
+    /// <summary>Checks that a history has enough rows for one value of the estimator.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">The window needs more rows than the history has.</exception>
+    internal static void CheckFits(Estimator estimator, int window, int rowsAvailable, string paramName)
+    {
+        var needed = BarsNeeded(estimator, window);
+        if (needed > rowsAvailable)
+        {
+            throw new ArgumentOutOfRangeException(paramName, window, string.Create(CultureInfo.InvariantCulture,
+                $"A {EstimatorNames.Name(estimator)} window of {window} trading days needs {needed} rows of price history, but only {rowsAvailable} rows are available; use a window of at most {rowsAvailable - (needed - window)} or a longer history."));
+        }
+    }
+
+    /// <summary>Checks that a range-based estimator is not asked of a close-only history.</summary>
+    /// <exception cref="ArgumentException">The estimator needs open, high and low and the history has closes only.</exception>
+    internal static void CheckColumns(Estimator estimator, bool hasRange, string paramName)
+    {
+        if (!hasRange && EstimatorNames.NeedsRange(estimator))
+        {
+            throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                $"The {EstimatorNames.Name(estimator)} estimator needs the open, high and low columns, but this price history has closes only (missing columns: open, high, low). Use close-to-close, or supply a file with date, open, high, low, close."), paramName);
+        }
     }
 }

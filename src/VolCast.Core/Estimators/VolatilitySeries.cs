@@ -21,17 +21,13 @@ public sealed class VolatilitySeries
     public VolatilitySeries(Estimator estimator, int window, int firstIndex, ReadOnlySpan<double> annualizedVolatility)
         : this(estimator, window, firstIndex, annualizedVolatility.ToArray())
     {
-        EstimatorGuard.Defined(estimator, nameof(estimator));
-        EstimatorGuard.Window(window, nameof(window));
+        EstimatorNames.CheckDefined(estimator, nameof(estimator));
+        Preconditions.AtLeast(window, EstimatorNames.MinimumWindow, "trading days");
         ArgumentOutOfRangeException.ThrowIfNegative(firstIndex);
         for (var i = 0; i < _values.Length; i++)
         {
             var v = _values[i];
-            if (!double.IsFinite(v) || v < 0)
-            {
-                throw new ArgumentOutOfRangeException(nameof(annualizedVolatility), v, string.Create(CultureInfo.InvariantCulture,
-                    $"annualizedVolatility[{i}] must be a finite volatility of zero or more, was {v}."));
-            }
+            Preconditions.NonNegativeAt(v, i, "volatility", nameof(annualizedVolatility));
         }
     }
 

@@ -28,13 +28,9 @@ internal sealed class EwmaForecaster : IVolatilityForecaster
     /// <exception cref="ArgumentOutOfRangeException">λ is not in (0, 1) or k is below 1.</exception>
     public EwmaForecaster(double lambda = DailyLambda, int seedReturns = DefaultSeedReturns)
     {
-        if (!(lambda > 0 && lambda < 1))
-        {
-            throw new ArgumentOutOfRangeException(nameof(lambda), lambda,
-                string.Create(CultureInfo.InvariantCulture, $"lambda must be strictly between 0 and 1, was {lambda}."));
-        }
+        Preconditions.Fraction(lambda);
 
-        Guard.WindowAtLeast(seedReturns, 1, nameof(seedReturns));
+        Preconditions.AtLeast(seedReturns, 1, "returns");
         _lambda = lambda;
         _seedReturns = seedReturns;
     }

@@ -16,12 +16,8 @@ public sealed record ForecastInput
     public ForecastInput(PriceHistory prices, ImpliedSeries? implied, int horizonDays, double annualizationFactor = 252)
     {
         ArgumentNullException.ThrowIfNull(prices);
-        Guard.WindowAtLeast(horizonDays, 1, nameof(horizonDays));
-        if (!(annualizationFactor > 0) || !double.IsFinite(annualizationFactor))
-        {
-            throw new ArgumentOutOfRangeException(nameof(annualizationFactor), annualizationFactor,
-                string.Create(CultureInfo.InvariantCulture, $"annualizationFactor must be a finite number above zero, was {annualizationFactor}."));
-        }
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
+        Preconditions.Positive(annualizationFactor);
 
         Prices = prices;
         Implied = implied;

@@ -1,4 +1,5 @@
 using System.Globalization;
+using VolCast.Core.Data;
 using VolCast.Core.Estimators;
 using VolCast.Core.Garch;
 
@@ -65,7 +66,7 @@ public static class ForecasterSpec
                     "garman-klass" => new HarForecaster(HarProxy.GarmanKlass),
                     _ => throw Invalid(spec, $"the only option of har is 'garman-klass' (was '{parameter}')"),
                 };
-            case "implied":
+            case ImpliedSeries.Name:
                 return parameter is null ? new ImpliedForecaster() : throw Invalid(spec, "implied takes no parameter");
             case "close-to-close" or "parkinson" or "garman-klass" or "rogers-satchell" or "yang-zhang":
                 if (parameter is not null

@@ -38,11 +38,11 @@ internal sealed class GarchForecaster : IVolatilityForecaster
         int? rollingWindowDays = 2520,
         int minimumReturns = DefaultMinimumReturns)
     {
-        Guard.WindowAtLeast(refitEveryDays, 1, nameof(refitEveryDays));
-        Guard.WindowAtLeast(minimumReturns, GarchFitter.MinimumReturns, nameof(minimumReturns));
+        Preconditions.AtLeast(refitEveryDays, 1, "trading day");
+        Preconditions.AtLeast(minimumReturns, GarchFitter.MinimumReturns, "returns");
         if (rollingWindowDays is int window)
         {
-            Guard.WindowAtLeast(window, minimumReturns, nameof(rollingWindowDays));
+            Preconditions.AtLeast(window, minimumReturns, "returns", nameof(rollingWindowDays));
         }
 
         _options = new GarchFitOptions { Variant = variant, IncludeMean = includeMean, ComputeStandardErrors = false };

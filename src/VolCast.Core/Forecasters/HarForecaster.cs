@@ -40,11 +40,11 @@ internal sealed class HarForecaster : IVolatilityForecaster
     /// <exception cref="ArgumentOutOfRangeException">A count is below its minimum.</exception>
     public HarForecaster(HarProxy proxy = HarProxy.SquaredReturn, int refitEveryDays = 5, int? rollingWindowRows = 2520, int minimumRows = 250)
     {
-        Guard.WindowAtLeast(refitEveryDays, 1, nameof(refitEveryDays));
-        Guard.WindowAtLeast(minimumRows, 30, nameof(minimumRows));
+        Preconditions.AtLeast(refitEveryDays, 1, "trading day");
+        Preconditions.AtLeast(minimumRows, 30, "rows");
         if (rollingWindowRows is int w)
         {
-            Guard.WindowAtLeast(w, minimumRows, nameof(rollingWindowRows));
+            Preconditions.AtLeast(w, minimumRows, "rows", nameof(rollingWindowRows));
         }
 
         _proxy = proxy;

@@ -1,10 +1,12 @@
+using VolCast.Core.Data;
+
 namespace VolCast.Core.Forecasters;
 
 /// <summary>The implied volatility quoted at the close of day t, used as a forecast so it can be scored like any other; no forecast on days without a quote.</summary>
 internal sealed class ImpliedForecaster : IVolatilityForecaster
 {
     /// <inheritdoc/>
-    public string Spec => "implied";
+    public string Spec => ImpliedSeries.Name;
 
     /// <inheritdoc/>
     public IForecastSession Start(ForecastInput input)

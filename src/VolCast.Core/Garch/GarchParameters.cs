@@ -21,7 +21,7 @@ public sealed record GarchParameters
     /// <exception cref="ArgumentOutOfRangeException">A value is not finite or breaks its sign constraint.</exception>
     public GarchParameters(double mu, double omega, double alpha, double beta, double gamma = 0)
     {
-        Guard.Finite(mu, nameof(mu));
+        Preconditions.Finite(mu);
         Check(omega > 0 && double.IsFinite(omega), omega, nameof(omega), "a finite number above zero");
         Check(alpha >= 0 && double.IsFinite(alpha), alpha, nameof(alpha), "a finite number at least zero");
         Check(beta >= 0 && double.IsFinite(beta), beta, nameof(beta), "a finite number at least zero");

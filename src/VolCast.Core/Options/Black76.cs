@@ -19,7 +19,7 @@ public static class Black76
     /// <exception cref="ArgumentOutOfRangeException">An argument is not finite or out of its range.</exception>
     public static double Price(OptionType type, double forward, double strike, double yearsToExpiry, double volatility, double rate)
     {
-        PricingGuard.Common(forward, nameof(forward), strike, yearsToExpiry, volatility, rate);
+        CheckArguments(forward, nameof(forward), strike, yearsToExpiry, volatility, rate);
         var discount = Math.Exp(-rate * yearsToExpiry);
         var stdDev = volatility * Math.Sqrt(yearsToExpiry);
         if (stdDev == 0)
@@ -66,9 +66,21 @@ public static class Black76
 
     private static double D1(double forward, double strike, double yearsToExpiry, double volatility, double rate)
     {
-        PricingGuard.Common(forward, nameof(forward), strike, yearsToExpiry, volatility, rate);
+        CheckArguments(forward, nameof(forward), strike, yearsToExpiry, volatility, rate);
         var stdDev = volatility * Math.Sqrt(yearsToExpiry);
-        PricingGuard.Positive(stdDev, "volatility * sqrt(yearsToExpiry)");
+        Preconditions.Positive(stdDev, paramName: "volatility * sqrt(yearsToExpiry)");
         return (Math.Log(forward / strike) / stdDev) + (0.5 * stdDev);
+    }
+
+    /// <summary>Checks the arguments every pricing formula shares: a positive underlying and strike, a time and a
+    /// volatility of zero or more, a finite rate.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">An argument is out of range.</exception>
+    internal static void CheckArguments(double underlying, string underlyingName, double strike, double yearsToExpiry, double volatility, double rate)
+    {
+        Preconditions.Positive(underlying, "price", underlyingName);
+        Preconditions.Positive(strike, "price");
+        Preconditions.NonNegative(yearsToExpiry);
+        Preconditions.NonNegative(volatility);
+        Preconditions.Finite(rate);
     }
 }

@@ -24,8 +24,8 @@ public static class BlackScholesMerton
     /// <exception cref="ArgumentOutOfRangeException">An argument is not finite or out of its range.</exception>
     public static double Price(OptionType type, double spot, double strike, double yearsToExpiry, double volatility, double rate, double dividendYield)
     {
-        PricingGuard.Common(spot, nameof(spot), strike, yearsToExpiry, volatility, rate);
-        Guard.Finite(dividendYield, nameof(dividendYield));
+        Black76.CheckArguments(spot, nameof(spot), strike, yearsToExpiry, volatility, rate);
+        Preconditions.Finite(dividendYield);
         var spotDiscounted = spot * Math.Exp(-dividendYield * yearsToExpiry);
         var strikeDiscounted = strike * Math.Exp(-rate * yearsToExpiry);
         var stdDev = volatility * Math.Sqrt(yearsToExpiry);
@@ -84,19 +84,19 @@ public static class BlackScholesMerton
     /// <exception cref="ArgumentOutOfRangeException">An argument is not finite or out of its range.</exception>
     public static double Forward(double spot, double yearsToExpiry, double rate, double dividendYield)
     {
-        PricingGuard.Positive(spot, nameof(spot));
-        PricingGuard.NonNegative(yearsToExpiry, nameof(yearsToExpiry));
-        Guard.Finite(rate, nameof(rate));
-        Guard.Finite(dividendYield, nameof(dividendYield));
+        Preconditions.Positive(spot);
+        Preconditions.NonNegative(yearsToExpiry);
+        Preconditions.Finite(rate);
+        Preconditions.Finite(dividendYield);
         return spot * Math.Exp((rate - dividendYield) * yearsToExpiry);
     }
 
     private static double D1(double spot, double strike, double yearsToExpiry, double volatility, double rate, double dividendYield)
     {
-        PricingGuard.Common(spot, nameof(spot), strike, yearsToExpiry, volatility, rate);
-        Guard.Finite(dividendYield, nameof(dividendYield));
+        Black76.CheckArguments(spot, nameof(spot), strike, yearsToExpiry, volatility, rate);
+        Preconditions.Finite(dividendYield);
         var stdDev = volatility * Math.Sqrt(yearsToExpiry);
-        PricingGuard.Positive(stdDev, "volatility * sqrt(yearsToExpiry)");
+        Preconditions.Positive(stdDev, paramName: "volatility * sqrt(yearsToExpiry)");
         return (Math.Log(spot / strike) + ((rate - dividendYield + (0.5 * volatility * volatility)) * yearsToExpiry)) / stdDev;
     }
 }

@@ -11,11 +11,7 @@ public sealed record ConstantTenorOptions
     /// <exception cref="ArgumentOutOfRangeException">The tenor is below one day.</exception>
     public ConstantTenorOptions(int tenorDays, TenorExtrapolation extrapolation = TenorExtrapolation.Refuse)
     {
-        if (tenorDays < 1)
-        {
-            throw new ArgumentOutOfRangeException(nameof(tenorDays), tenorDays,
-                string.Create(CultureInfo.InvariantCulture, $"The tenor must be at least 1 calendar day (was {tenorDays})."));
-        }
+        Preconditions.AtLeast(tenorDays, 1, "calendar day");
 
         TenorDays = tenorDays;
         Extrapolation = extrapolation;

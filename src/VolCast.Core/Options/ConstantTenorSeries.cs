@@ -85,7 +85,7 @@ public static class ConstantTenorSeries
                 continue;
             }
 
-            if (!IsPositive(q.Price) || !IsPositive(q.Underlying) || !IsPositive(q.Strike))
+            if (!Preconditions.IsPositive(q.Price) || !Preconditions.IsPositive(q.Underlying) || !Preconditions.IsPositive(q.Strike))
             {
                 diagnostics.Add(QuoteDiagnostic(q, DiagnosticReason.NonPositiveInput,
                     Invariant($"price {q.Price}, underlying {q.Underlying} and strike {q.Strike} must all be above zero")));
@@ -281,7 +281,6 @@ public static class ConstantTenorSeries
     private static ChainDiagnostic QuoteDiagnostic(OptionQuote q, DiagnosticReason reason, string detail) =>
         new(DiagnosticScope.Quote, reason, q.Date, q.Expiry, q.Strike, q.Type, q.SourceLine == 0 ? null : q.SourceLine, detail);
 
-    private static bool IsPositive(double value) => double.IsFinite(value) && value > 0;
 
     private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -35,7 +35,7 @@ public readonly record struct ImpliedVolatilityResult
     /// <exception cref="ArgumentOutOfRangeException">The volatility is not finite and above zero.</exception>
     public static ImpliedVolatilityResult Solved(double volatility, int iterations)
     {
-        PricingGuard.Positive(volatility, nameof(volatility));
+        Preconditions.Positive(volatility);
         return new ImpliedVolatilityResult(ImpliedVolatilityStatus.Solved, volatility, iterations);
     }
 

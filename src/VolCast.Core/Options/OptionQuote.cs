@@ -21,8 +21,8 @@ public sealed record OptionQuote
     /// <exception cref="ArgumentOutOfRangeException">The rate or yield is not finite, or the line is negative.</exception>
     public OptionQuote(DateOnly date, double underlying, DateOnly expiry, double strike, OptionType type, double price, double rate, double dividendYield, int sourceLine = 0)
     {
-        Guard.Finite(rate, nameof(rate));
-        Guard.Finite(dividendYield, nameof(dividendYield));
+        Preconditions.Finite(rate);
+        Preconditions.Finite(dividendYield);
         ArgumentOutOfRangeException.ThrowIfNegative(sourceLine);
         Date = date;
         Underlying = underlying;

@@ -5,7 +5,7 @@ namespace VolCast.Core.Scoring;
 
 /// <summary>
 /// The Diebold-Mariano (1995) test of equal predictive accuracy with the Harvey-Leybourne-Newbold (1997)
-/// correction (references.md §8).
+/// correction (docs/methods.md#diebold-mariano).
 /// </summary>
 /// <remarks>
 /// <para>
@@ -34,7 +34,7 @@ public static class DieboldMariano
     /// <exception cref="ArgumentOutOfRangeException">A value is not finite, or the horizon is below 1.</exception>
     public static DieboldMarianoResult Test(ReadOnlySpan<double> lossDifferential, int horizonDays, LongRunVarianceWindow window = LongRunVarianceWindow.Bartlett)
     {
-        ScoringGuard.Horizon(horizonDays, nameof(horizonDays));
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
         return TestWithLag(lossDifferential, horizonDays, horizonDays - 1, window);
     }
 
@@ -48,7 +48,7 @@ public static class DieboldMariano
     /// <exception cref="ArgumentOutOfRangeException">A value is not finite, or the horizon is below 1.</exception>
     public static DieboldMarianoResult Test(ReadOnlySpan<double> firstLoss, ReadOnlySpan<double> secondLoss, int horizonDays, LongRunVarianceWindow window = LongRunVarianceWindow.Bartlett)
     {
-        ScoringGuard.SameLength(firstLoss.Length, secondLoss.Length, nameof(firstLoss), nameof(secondLoss));
+        Preconditions.SameLength(secondLoss.Length, firstLoss.Length, nameof(firstLoss), nameof(secondLoss));
         var n = firstLoss.Length;
         var d = ArrayPool<double>.Shared.Rent(Math.Max(n, 1));
         try
@@ -76,10 +76,10 @@ public static class DieboldMariano
     /// <exception cref="ArgumentOutOfRangeException">A value is not finite, or the horizon or lag is out of range.</exception>
     public static DieboldMarianoResult TestWithLag(ReadOnlySpan<double> lossDifferential, int horizonDays, int lag, LongRunVarianceWindow window)
     {
-        ScoringGuard.Horizon(horizonDays, nameof(horizonDays));
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
         var n = lossDifferential.Length;
-        ScoringGuard.AtLeast(n, 2, nameof(lossDifferential), "for a Diebold-Mariano test");
-        ScoringGuard.Lag(lag, n, nameof(lag));
+        Preconditions.CountAtLeast(n, 2, "for a Diebold-Mariano test", nameof(lossDifferential));
+        Preconditions.Between(lag, 0, n - 1, "the number of observations minus one");
         var factor = HlnFactor(n, horizonDays);
         var mean = NeweyWest.Mean(lossDifferential, nameof(lossDifferential));
         var variance = NeweyWest.LongRunVariance(lossDifferential, lag, window);
@@ -111,7 +111,7 @@ public static class DieboldMariano
     public static double HlnFactor(int count, int horizonDays)
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(count, 1);
-        ScoringGuard.Horizon(horizonDays, nameof(horizonDays));
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
         double t = count, h = horizonDays;
         var bracket = (t + 1.0 - (2.0 * h) + (h * (h - 1.0) / t)) / t;
         if (!(bracket > 0))

@@ -4,7 +4,7 @@ namespace VolCast.Core.Scoring;
 
 /// <summary>
 /// The forecast-encompassing regression on variance, RV² = a + b IV² + c F² + e, with Newey-West (Bartlett, no
-/// prewhitening, divisor T) standard errors (references.md §10): implied encompasses the forecast when c = 0.
+/// prewhitening, divisor T) standard errors (docs/methods.md#mincer-zarnowitz-and-encompassing): implied encompasses the forecast when c = 0.
 /// </summary>
 public static class EncompassingRegression
 {
@@ -18,7 +18,7 @@ public static class EncompassingRegression
     /// <exception cref="ArgumentOutOfRangeException">A volatility is out of range, or h − 1 is not below T.</exception>
     public static EncompassingResult Fit(ReadOnlySpan<double> realized, ReadOnlySpan<double> implied, ReadOnlySpan<double> forecast, int horizonDays)
     {
-        ScoringGuard.Horizon(horizonDays, nameof(horizonDays));
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
         return FitWithLag(realized, implied, forecast, horizonDays - 1);
     }
 
@@ -32,19 +32,19 @@ public static class EncompassingRegression
     /// <exception cref="ArgumentOutOfRangeException">A volatility or the lag is out of range.</exception>
     public static EncompassingResult FitWithLag(ReadOnlySpan<double> realized, ReadOnlySpan<double> implied, ReadOnlySpan<double> forecast, int lag)
     {
-        ScoringGuard.SameLength(realized.Length, implied.Length, nameof(realized), nameof(implied));
-        ScoringGuard.SameLength(realized.Length, forecast.Length, nameof(realized), nameof(forecast));
+        Preconditions.SameLength(implied.Length, realized.Length, nameof(realized), nameof(implied));
+        Preconditions.SameLength(forecast.Length, realized.Length, nameof(realized), nameof(forecast));
         var n = realized.Length;
-        ScoringGuard.AtLeast(n, 4, nameof(realized), "for a three-coefficient regression");
+        Preconditions.CountAtLeast(n, 4, "for a three-coefficient regression", nameof(realized));
         var y = ArrayPool<double>.Shared.Rent(n);
         var x = ArrayPool<double>.Shared.Rent(3 * n);
         try
         {
             for (var t = 0; t < n; t++)
             {
-                ScoringGuard.NonNegativeRealized(realized[t], nameof(realized), t);
-                ScoringGuard.PositiveForecast(implied[t], nameof(implied), t);
-                ScoringGuard.PositiveForecast(forecast[t], nameof(forecast), t);
+                Preconditions.NonNegativeAt(realized[t], t, "volatility", nameof(realized));
+                Preconditions.PositiveAt(implied[t], t, "volatility", nameof(implied));
+                Preconditions.PositiveAt(forecast[t], t, "volatility", nameof(forecast));
                 y[t] = realized[t] * realized[t];
                 x[3 * t] = 1.0;
                 x[(3 * t) + 1] = implied[t] * implied[t];

@@ -10,7 +10,7 @@ namespace VolCast.Core.Scoring;
 /// </summary>
 /// <remarks>
 /// V̂ = T (X′X)⁻¹ Ŝ (X′X)⁻¹ with Ŝ = Γ̂_0 + Σ_{j=1..L} w_j (Γ̂_j + Γ̂_j′), Γ̂_j = (1/T) Σ_t g_t g_{t−j}′ and
-/// g_t = x_t ê_t (references.md §9). This is the covariance a sandwich estimator gives with lag L, prewhitening
+/// g_t = x_t ê_t (docs/methods.md#newey-west). This is the covariance a sandwich estimator gives with lag L, prewhitening
 /// off and adjustment off.
 /// </remarks>
 public static class HacRegression
@@ -28,12 +28,12 @@ public static class HacRegression
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(columnCount, 1);
         var n = y.Length;
-        ScoringGuard.SameLength(n * columnCount, design.Length, "y (times the column count)", nameof(design));
-        ScoringGuard.AtLeast(n, columnCount + 1, nameof(y), string.Create(CultureInfo.InvariantCulture, $"(more than the {columnCount} regressors)"));
-        ScoringGuard.Lag(lag, n, nameof(lag));
+        Preconditions.SameLength(design.Length, n * columnCount, "y (times the column count)", nameof(design));
+        Preconditions.CountAtLeast(n, columnCount + 1, string.Create(CultureInfo.InvariantCulture, $"(more than the {columnCount} regressors)"), nameof(y));
+        Preconditions.Between(lag, 0, n - 1, "the number of observations minus one");
         for (var i = 0; i < design.Length; i++)
         {
-            ScoringGuard.Finite(design[i], nameof(design), i);
+            Preconditions.FiniteAt(design[i], i, nameof(design));
         }
 
         var k = columnCount;

@@ -81,8 +81,8 @@ public sealed record HacRegressionResult
     /// <exception cref="InvalidOperationException">The restricted covariance block is singular.</exception>
     public WaldTestResult Wald(ReadOnlySpan<int> indices, ReadOnlySpan<double> values)
     {
-        ScoringGuard.SameLength(indices.Length, values.Length, nameof(indices), nameof(values));
-        ScoringGuard.AtLeast(indices.Length, 1, nameof(indices), "to restrict");
+        Preconditions.SameLength(values.Length, indices.Length, nameof(indices), nameof(values));
+        Preconditions.CountAtLeast(indices.Length, 1, "to restrict", nameof(indices));
         var q = indices.Length;
         var k = Coefficients.Length;
         var block = new double[q * q];

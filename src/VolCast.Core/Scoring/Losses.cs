@@ -1,7 +1,7 @@
 namespace VolCast.Core.Scoring;
 
 /// <summary>
-/// Per-observation and mean losses of volatility forecasts against realized volatility (references.md §7,
+/// Per-observation and mean losses of volatility forecasts against realized volatility (docs/methods.md#losses,
 /// Patton 2011). Inputs are aligned spans of annualized volatilities as decimals: realized RV_t and forecast F_t.
 /// </summary>
 /// <remarks>
@@ -12,6 +12,9 @@ namespace VolCast.Core.Scoring;
 /// </remarks>
 public static class Losses
 {
+    private const string QlikeNeedsPositiveRealized =
+        "for normalized QLIKE (ln(RV^2/F^2) is undefined at zero; use the unnormalized form for differentials)";
+
     /// <summary>Gets the forecast error F − RV in volatility points (decimal).</summary>
     /// <param name="realized">Realized volatility RV (decimal, annualized).</param>
     /// <param name="forecast">Forecast volatility F (decimal, annualized).</param>
@@ -35,8 +38,8 @@ public static class Losses
     /// <exception cref="ArgumentOutOfRangeException">A volatility is not finite or not above zero.</exception>
     public static double Qlike(double realized, double forecast)
     {
-        ScoringGuard.PositiveRealized(realized, nameof(realized), 0);
-        ScoringGuard.PositiveForecast(forecast, nameof(forecast), 0);
+        Preconditions.PositiveAt(realized, 0, "volatility", nameof(realized), QlikeNeedsPositiveRealized);
+        Preconditions.PositiveAt(forecast, 0, "volatility", nameof(forecast));
         return QlikeUnchecked(realized, forecast);
     }
 
@@ -47,8 +50,8 @@ public static class Losses
     /// <exception cref="ArgumentOutOfRangeException">A volatility is not finite, or the forecast is not above zero, or realized is negative.</exception>
     public static double QlikeUnnormalized(double realized, double forecast)
     {
-        ScoringGuard.NonNegativeRealized(realized, nameof(realized), 0);
-        ScoringGuard.PositiveForecast(forecast, nameof(forecast), 0);
+        Preconditions.NonNegativeAt(realized, 0, "volatility", nameof(realized));
+        Preconditions.PositiveAt(forecast, 0, "volatility", nameof(forecast));
         var f2 = forecast * forecast;
         return Math.Log(f2) + (realized * realized / f2);
     }
@@ -63,8 +66,8 @@ public static class Losses
     /// or <paramref name="loss"/> is not a defined value.</exception>
     public static void Compute(LossFunction loss, ReadOnlySpan<double> realized, ReadOnlySpan<double> forecast, Span<double> destination)
     {
-        ScoringGuard.SameLength(realized.Length, forecast.Length, nameof(realized), nameof(forecast));
-        ScoringGuard.SameLength(realized.Length, destination.Length, nameof(realized), nameof(destination));
+        Preconditions.SameLength(forecast.Length, realized.Length, nameof(realized), nameof(forecast));
+        Preconditions.SameLength(destination.Length, realized.Length, nameof(realized), nameof(destination));
         CheckInputs(realized, forecast, loss == LossFunction.Qlike);
         switch (loss)
         {
@@ -132,8 +135,8 @@ public static class Losses
     /// <exception cref="ArgumentOutOfRangeException">A volatility is not finite or not above zero.</exception>
     public static LossSummary Summarize(ReadOnlySpan<double> realized, ReadOnlySpan<double> forecast)
     {
-        ScoringGuard.SameLength(realized.Length, forecast.Length, nameof(realized), nameof(forecast));
-        ScoringGuard.AtLeast(realized.Length, 1, nameof(realized), "to score a forecast");
+        Preconditions.SameLength(forecast.Length, realized.Length, nameof(realized), nameof(forecast));
+        Preconditions.CountAtLeast(realized.Length, 1, "to score a forecast", nameof(realized));
         CheckInputs(realized, forecast, requirePositiveRealized: true);
         double bias = 0, abs = 0, sq = 0, mse = 0, qlike = 0;
         for (var t = 0; t < realized.Length; t++)
@@ -162,14 +165,14 @@ public static class Losses
         {
             if (requirePositiveRealized)
             {
-                ScoringGuard.PositiveRealized(realized[t], nameof(realized), t);
+                Preconditions.PositiveAt(realized[t], t, "volatility", nameof(realized), QlikeNeedsPositiveRealized);
             }
             else
             {
-                ScoringGuard.NonNegativeRealized(realized[t], nameof(realized), t);
+                Preconditions.NonNegativeAt(realized[t], t, "volatility", nameof(realized));
             }
 
-            ScoringGuard.PositiveForecast(forecast[t], nameof(forecast), t);
+            Preconditions.PositiveAt(forecast[t], t, "volatility", nameof(forecast));
         }
     }
 }

@@ -4,7 +4,7 @@ namespace VolCast.Core.Scoring;
 
 /// <summary>
 /// The Mincer-Zarnowitz regression on the variance scale, RV² = a + b F² + e, with Newey-West (Bartlett, no
-/// prewhitening, divisor T) standard errors and the Wald χ²(2) test of a = 0, b = 1 (references.md §10).
+/// prewhitening, divisor T) standard errors and the Wald χ²(2) test of a = 0, b = 1 (docs/methods.md#mincer-zarnowitz-and-encompassing).
 /// </summary>
 /// <remarks>
 /// The variance scale is used because a log-scale regression is biased by Jensen's inequality. For overlapping
@@ -21,7 +21,7 @@ public static class MincerZarnowitz
     /// <exception cref="ArgumentOutOfRangeException">A volatility is out of range, or h − 1 is not below T.</exception>
     public static MincerZarnowitzResult Fit(ReadOnlySpan<double> realized, ReadOnlySpan<double> forecast, int horizonDays)
     {
-        ScoringGuard.Horizon(horizonDays, nameof(horizonDays));
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
         return FitWithLag(realized, forecast, horizonDays - 1);
     }
 
@@ -34,17 +34,17 @@ public static class MincerZarnowitz
     /// <exception cref="ArgumentOutOfRangeException">A volatility or the lag is out of range.</exception>
     public static MincerZarnowitzResult FitWithLag(ReadOnlySpan<double> realized, ReadOnlySpan<double> forecast, int lag)
     {
-        ScoringGuard.SameLength(realized.Length, forecast.Length, nameof(realized), nameof(forecast));
+        Preconditions.SameLength(forecast.Length, realized.Length, nameof(realized), nameof(forecast));
         var n = realized.Length;
-        ScoringGuard.AtLeast(n, 3, nameof(realized), "for a two-coefficient regression");
+        Preconditions.CountAtLeast(n, 3, "for a two-coefficient regression", nameof(realized));
         var y = ArrayPool<double>.Shared.Rent(n);
         var x = ArrayPool<double>.Shared.Rent(2 * n);
         try
         {
             for (var t = 0; t < n; t++)
             {
-                ScoringGuard.NonNegativeRealized(realized[t], nameof(realized), t);
-                ScoringGuard.PositiveForecast(forecast[t], nameof(forecast), t);
+                Preconditions.NonNegativeAt(realized[t], t, "volatility", nameof(realized));
+                Preconditions.PositiveAt(forecast[t], t, "volatility", nameof(forecast));
                 y[t] = realized[t] * realized[t];
                 x[2 * t] = 1.0;
                 x[(2 * t) + 1] = forecast[t] * forecast[t];

@@ -5,7 +5,7 @@ using System.Numerics;
 namespace VolCast.Core.Scoring;
 
 /// <summary>
-/// The model confidence set of Hansen, Lunde and Nason (2011) (references.md §14): starting from all models, test
+/// The model confidence set of Hansen, Lunde and Nason (2011) (docs/methods.md#model-confidence-set): starting from all models, test
 /// equal predictive ability with a block-bootstrap statistic, eliminate the worst model while the test rejects,
 /// and report each model's MCS p-value and whether it is in the (1 − α) set.
 /// </summary>
@@ -39,7 +39,7 @@ public static class ModelConfidenceSet
     {
         ArgumentNullException.ThrowIfNull(lossesByModel);
         ArgumentNullException.ThrowIfNull(options);
-        ScoringGuard.AtLeast(lossesByModel.Count, 1, nameof(lossesByModel), "(models)");
+        Preconditions.CountAtLeast(lossesByModel.Count, 1, "(models)", nameof(lossesByModel));
         var m = lossesByModel.Count;
         for (var i = 0; i < lossesByModel.Count; i++)
         {
@@ -54,7 +54,7 @@ public static class ModelConfidenceSet
             for (var i = 0; i < m; i++)
             {
                 var series = lossesByModel[i];
-                ScoringGuard.SameLength(n, series.Length, "model 0's losses", string.Create(CultureInfo.InvariantCulture, $"{nameof(lossesByModel)}[{i}]"));
+                Preconditions.SameLength(series.Length, n, "model 0's losses", string.Create(CultureInfo.InvariantCulture, $"{nameof(lossesByModel)}[{i}]"));
                 for (var t = 0; t < n; t++)
                 {
                     matrix[(t * m) + i] = series[t];
@@ -89,7 +89,7 @@ public static class ModelConfidenceSet
         }
 
         var n = losses.Length / m;
-        ScoringGuard.AtLeast(n, 2, nameof(losses), "(dates) for a model confidence set");
+        Preconditions.CountAtLeast(n, 2, "(dates) for a model confidence set", nameof(losses));
         if (options.BlockLength > n)
         {
             throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
@@ -103,7 +103,7 @@ public static class ModelConfidenceSet
             var row = losses.Slice(t * m, m);
             for (var i = 0; i < m; i++)
             {
-                ScoringGuard.Finite(row[i], nameof(losses), (t * m) + i);
+                Preconditions.FiniteAt(row[i], (t * m) + i, nameof(losses));
                 means[i] += row[i];
                 scale = Math.Max(scale, Math.Abs(row[i]));
             }

@@ -25,23 +25,11 @@ public sealed record ModelConfidenceSetOptions
         ModelConfidenceSetStatistic statistic = ModelConfidenceSetStatistic.TMax,
         BootstrapScheme bootstrap = BootstrapScheme.MovingBlock)
     {
-        if (blockLength < 1)
-        {
-            throw new ArgumentOutOfRangeException(nameof(blockLength), blockLength, string.Create(CultureInfo.InvariantCulture,
-                $"blockLength must be at least 1 date, was {blockLength}."));
-        }
+        Preconditions.AtLeast(blockLength, 1, "date");
 
-        if (!(alpha > 0 && alpha < 1))
-        {
-            throw new ArgumentOutOfRangeException(nameof(alpha), alpha, string.Create(CultureInfo.InvariantCulture,
-                $"alpha must be between 0 and 1 exclusive, was {alpha}."));
-        }
+        Preconditions.Fraction(alpha);
 
-        if (bootstrapReplications < 10)
-        {
-            throw new ArgumentOutOfRangeException(nameof(bootstrapReplications), bootstrapReplications, string.Create(CultureInfo.InvariantCulture,
-                $"bootstrapReplications must be at least 10, was {bootstrapReplications}."));
-        }
+        Preconditions.AtLeast(bootstrapReplications, 10, "replications");
 
         if (!Enum.IsDefined(statistic))
         {

@@ -2,7 +2,7 @@ namespace VolCast.Core.Scoring;
 
 /// <summary>
 /// Newey-West heteroskedasticity- and autocorrelation-consistent (HAC) variances: the scalar long-run variance
-/// of a series and the lag-length rules (references.md §9).
+/// of a series and the lag-length rules (docs/methods.md#newey-west).
 /// </summary>
 /// <remarks>
 /// Autocovariances are γ̂_j = (1/T) Σ_{t=j+1..T} (x_t − x̄)(x_{t−j} − x̄): the mean is removed and the divisor is
@@ -11,7 +11,7 @@ namespace VolCast.Core.Scoring;
 /// </remarks>
 public static class NeweyWest
 {
-    /// <summary>Gets the automatic lag L = floor(4 (T/100)^(2/9)) (references.md §9).</summary>
+    /// <summary>Gets the automatic lag L = floor(4 (T/100)^(2/9)) (docs/methods.md#newey-west).</summary>
     /// <param name="sampleSize">Number of observations T, at least 1.</param>
     /// <returns>The lag.</returns>
     /// <exception cref="ArgumentOutOfRangeException"><paramref name="sampleSize"/> is below 1.</exception>
@@ -30,7 +30,7 @@ public static class NeweyWest
     /// <exception cref="ArgumentOutOfRangeException">An argument is below 1.</exception>
     public static int LagForHorizon(int sampleSize, int horizonDays)
     {
-        ScoringGuard.Horizon(horizonDays, nameof(horizonDays));
+        Preconditions.AtLeast(horizonDays, 1, "trading day");
         return Math.Min(Math.Max(AutomaticLag(sampleSize), horizonDays - 1), sampleSize - 1);
     }
 
@@ -50,8 +50,8 @@ public static class NeweyWest
     /// <exception cref="ArgumentOutOfRangeException">The lag is out of range or a value is not finite.</exception>
     public static double Autocovariance(ReadOnlySpan<double> series, int j)
     {
-        ScoringGuard.AtLeast(series.Length, 1, nameof(series), "to estimate an autocovariance");
-        ScoringGuard.Lag(j, series.Length, nameof(j));
+        Preconditions.CountAtLeast(series.Length, 1, "to estimate an autocovariance", nameof(series));
+        Preconditions.Between(j, 0, series.Length - 1, "the number of observations minus one");
         return AutocovarianceCore(series, Mean(series, nameof(series)), j);
     }
 
@@ -67,8 +67,8 @@ public static class NeweyWest
     /// <exception cref="ArgumentOutOfRangeException">The lag is out of range or a value is not finite.</exception>
     public static double LongRunVariance(ReadOnlySpan<double> series, int lag, LongRunVarianceWindow window = LongRunVarianceWindow.Bartlett)
     {
-        ScoringGuard.AtLeast(series.Length, 1, nameof(series), "to estimate a long-run variance");
-        ScoringGuard.Lag(lag, series.Length, nameof(lag));
+        Preconditions.CountAtLeast(series.Length, 1, "to estimate a long-run variance", nameof(series));
+        Preconditions.Between(lag, 0, series.Length - 1, "the number of observations minus one");
         var mean = Mean(series, nameof(series));
         var sum = AutocovarianceCore(series, mean, 0);
         for (var j = 1; j <= lag; j++)
@@ -154,7 +154,7 @@ public static class NeweyWest
         var sum = 0.0;
         for (var t = 0; t < series.Length; t++)
         {
-            ScoringGuard.Finite(series[t], paramName, t);
+            Preconditions.FiniteAt(series[t], t, paramName);
             sum += series[t];
         }
 

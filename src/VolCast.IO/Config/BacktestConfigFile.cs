@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Globalization;
 using System.Text.Json;
 using VolCast.Core.Backtest;
+using VolCast.Core.Data;
 using VolCast.Core.Estimators;
 using VolCast.Core.Forecasters;
 
@@ -158,7 +159,7 @@ public static class BacktestConfigFile
 
         foreach (var (property, spec) in new[] { ("ruleHistorical", s.RuleHistorical), ("ruleForecaster", s.RuleForecaster), ("baseline", s.Baseline), ("candidate", s.Candidate) })
         {
-            if (spec is not null && !spec.Trim().Equals("implied", StringComparison.OrdinalIgnoreCase) && !spec.Trim().StartsWith("adaptive:", StringComparison.OrdinalIgnoreCase))
+            if (spec is not null && !spec.Trim().Equals(ImpliedSeries.Name, StringComparison.OrdinalIgnoreCase) && !spec.Trim().StartsWith("adaptive:", StringComparison.OrdinalIgnoreCase))
             {
                 try
                 {

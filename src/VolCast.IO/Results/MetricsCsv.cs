@@ -1,4 +1,5 @@
 using VolCast.Core.Backtest;
+using VolCast.Core.Data;
 
 namespace VolCast.IO.Results;
 
@@ -44,7 +45,7 @@ internal static class MetricsCsv
 
     public static string Kind(ForecastKind kind) => kind switch
     {
-        ForecastKind.Implied => "implied",
+        ForecastKind.Implied => ImpliedSeries.Name,
         ForecastKind.Adaptive => "adaptive",
         _ => "configured",
     };

@@ -1,6 +1,7 @@
 using System.Globalization;
 using ScottPlot;
 using VolCast.Core.Cone;
+using VolCast.Core.Data;
 using VolCast.Reports.Model;
 
 namespace VolCast.Reports.Charts;
@@ -135,7 +136,7 @@ public static class ReportCharts
             }
 
             // Implied keeps the palette's first colour, as in the other charts; forecasters follow.
-            var color = ChartStyle.Series(curve.Name == "implied" ? 0 : k + (curves[0].Name == "implied" ? 0 : 1));
+            var color = ChartStyle.Series(curve.Name == ImpliedSeries.Name ? 0 : k + (curves[0].Name == ImpliedSeries.Name ? 0 : 1));
             var xs = new double[n];
             var ys = new double[n];
             for (var i = 0; i < n; i++)
@@ -198,8 +199,8 @@ public static class ReportCharts
         {
             var sorted = (double[])points.Clone();
             Array.Sort(sorted);
-            var low = Type7(sorted, 0.10);
-            var high = Type7(sorted, 0.90);
+            var low = Quantile.Type7(sorted, 0.10);
+            var high = Quantile.Type7(sorted, 0.90);
             var band = plot.Add.VerticalSpan(low, high);
             band.FillColor = ChartStyle.Series(1).WithAlpha(0.25);
             band.LineColor = Colors.Transparent;
@@ -562,12 +563,5 @@ public static class ReportCharts
         }
 
         return -1;
-    }
-
-    private static double Type7(double[] sorted, double probability)
-    {
-        var g = (sorted.Length - 1) * probability;
-        var j = (int)Math.Floor(g);
-        return j >= sorted.Length - 1 ? sorted[^1] : sorted[j] + ((g - j) * (sorted[j + 1] - sorted[j]));
     }
 }

@@ -1,5 +1,6 @@
 using System.Globalization;
 using ScottPlot;
+using VolCast.Core.Numerics;
 using VolCast.IO.Results;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Model;
@@ -34,7 +35,7 @@ internal static class ScanCharts
             plot.Add.Bars(bars);
         }
 
-        foreach (var x in new[] { -1.96, 1.96 })
+        foreach (var x in new[] { -StandardNormal.Z95, StandardNormal.Z95 })
         {
             var line = plot.Add.VerticalLine(x);
             line.Color = ChartStyle.Reference;

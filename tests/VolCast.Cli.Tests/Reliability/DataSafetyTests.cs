@@ -4,7 +4,7 @@ using VolCast.Cli.Tests.Support;
 
 namespace VolCast.Cli.Tests.Reliability;
 
-// Data safety (issue 8): an interrupted backtest leaves no half-written results and says so; no command changes an
+// Data safety: an interrupted backtest leaves no half-written results and says so; no command changes an
 // input (bytes or timestamp); an existing output is refused without --force.
 public sealed class DataSafetyTests : IDisposable
 {

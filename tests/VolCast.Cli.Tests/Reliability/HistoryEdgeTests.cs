@@ -6,7 +6,7 @@ using Xunit.Abstractions;
 
 namespace VolCast.Cli.Tests.Reliability;
 
-// Histories that are valid but awkward (issue 8): gaps and stale stretches are counted warnings in the results;
+// Histories that are valid but awkward: gaps and stale stretches are counted warnings in the results;
 // a history too short for the settings gets a clear message with the minimum; a 100-year history works.
 public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
 {
@@ -118,7 +118,7 @@ public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
         clock.Stop();
         using var process = Process.GetCurrentProcess();
         process.Refresh();
-        // Measured for the record only (issue 8: within the memory target); performance is never asserted.
+        // Measured for the record only (within the memory target of bench/README.md); performance is never asserted.
         output.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{Rows} rows: {clock.Elapsed.TotalSeconds:F1} s, allocated {(GC.GetTotalAllocatedBytes(precise: true) - allocatedBefore) / 1048576.0:F0} MiB, test-host peak working set {process.PeakWorkingSet64 / 1048576.0:F0} MiB"));
         Assert.True(result.ExitCode == 0, result.Stderr);

@@ -37,7 +37,7 @@ public sealed class BacktesterTests(ITestOutputHelper output)
                 continue;
             }
 
-            // design.md: RV(t,h) = sqrt(A/h · Σ_{i=1..h} r²_{t+i}), zero mean, A = 252.
+            // docs/conventions.md#the-realized-target: RV(t,h) = sqrt(A/h · Σ_{i=1..h} r²_{t+i}), zero mean, A = 252.
             double sum = 0;
             for (var i = 1; i <= h; i++)
             {

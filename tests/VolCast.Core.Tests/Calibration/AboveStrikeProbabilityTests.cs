@@ -7,7 +7,7 @@ public sealed class AboveStrikeProbabilityTests
     [Fact]
     public void D2_HullExample15_6_Matches()
     {
-        // Hull, Options, Futures, and Other Derivatives 11e, Ex. 15.6 (references.md §15) [C]:
+        // Hull, Options, Futures, and Other Derivatives 11e, Ex. 15.6 (docs/methods.md#black-scholes-merton-and-black-76) [C]:
         // S = 42, K = 40, r = 10%, σ = 20%, T = 0.5 → d2 = 0.6278 (printed to 4 decimals).
         var d2 = AboveStrikeProbability.D2(42, 40, 0.20, 0.5, 0.10);
 

@@ -5,7 +5,7 @@ namespace VolCast.Core.Tests.Cone;
 public sealed class HodgesTompkinsTests
 {
     [Theory]
-    // references.md §12, m values [D] for (T, h), to the 6 decimals printed there.
+    // docs/methods.md#volatility-cone, m values [D] for (T, h), to the 6 decimals printed there.
     [InlineData(252, 21, 1.096242)]
     [InlineData(504, 21, 1.044673)]
     [InlineData(100, 20, 1.293063)]
@@ -15,7 +15,7 @@ public sealed class HodgesTompkinsTests
     }
 
     [Theory]
-    // At h = 1 the factor reduces to n / (n − 1) (references.md §12 [D]).
+    // At h = 1 the factor reduces to n / (n − 1) (docs/methods.md#volatility-cone [D]).
     [InlineData(2)]
     [InlineData(252)]
     [InlineData(5000)]
@@ -25,7 +25,7 @@ public sealed class HodgesTompkinsTests
     }
 
     [Theory]
-    // references.md §12 [D]: for i.i.d. unit-variance returns, E[divisor-n variance of the n overlapping h-sums] = h / m.
+    // docs/methods.md#volatility-cone [D]: for i.i.d. unit-variance returns, E[divisor-n variance of the n overlapping h-sums] = h / m.
     // The expectation is worked out here exactly from the covariances Cov(S_i, S_j) = max(0, h − |i − j|),
     // independently of the closed form: E = (1/n)ΣVar(S_i) − Var(mean S) = h − (1/n²)Σ_ij max(0, h − |i − j|).
     [InlineData(252, 21)]

@@ -13,7 +13,7 @@ public sealed class BarVarianceTests
     [Fact]
     public void Constants_MatchPublishedValues()
     {
-        // references.md §1: 1/(4 ln 2) = 0.360674 [C, secondary]; §2: 2 ln 2 − 1 = 0.386294 [C].
+        // docs/methods.md#parkinson: 1/(4 ln 2) = 0.360674 [C, secondary]; docs/methods.md#garman-klass: 2 ln 2 − 1 = 0.386294 [C].
         double parkinsonScale = BarVariance.ParkinsonScale, closeWeight = BarVariance.GarmanKlassCloseWeight;
         Assert.Equal(0.360674, parkinsonScale, 0.0000005);
         Assert.Equal(0.386294, closeWeight, 0.0000005);
@@ -24,7 +24,7 @@ public sealed class BarVarianceTests
     [Property(MaxTest = 200)]
     public bool GarmanKlassAndRogersSatchell_AnyValidBar_NeverNegative(NormalFloat logOpen, NormalFloat logClose, NormalFloat up, NormalFloat down)
     {
-        // Invariants [D] of references.md §2–3: on a valid bar each daily term is ≥ 0 (GK ≥ 0.114 R²).
+        // Invariants [D] of docs/methods.md#garman-klass and #rogers-satchell: on a valid bar each daily term is ≥ 0 (GK ≥ 0.114 R²).
         var (o, h, l, c) = ValidBar(logOpen.Get, logClose.Get, up.Get, down.Get);
         var range = Math.Log(h / l);
         var garmanKlass = BarVariance.GarmanKlass(o, h, l, c);
@@ -36,7 +36,7 @@ public sealed class BarVarianceTests
     [Property(MaxTest = 100)]
     public bool AllTerms_FlatBar_ContributeExactlyZero(NormalFloat logPrice)
     {
-        // A bar with O = H = L = C carries no range and no open-to-close move (references.md §1–3 formulas).
+        // A bar with O = H = L = C carries no range and no open-to-close move (the formulas of docs/methods.md#parkinson to #rogers-satchell).
         var p = Math.Exp(Math.Clamp(logPrice.Get, -30, 30));
         return BarVariance.Parkinson(p, p) == 0 && BarVariance.GarmanKlass(p, p, p, p) == 0 && BarVariance.RogersSatchell(p, p, p, p) == 0;
     }
@@ -88,7 +88,7 @@ public sealed class BarVarianceTests
     private static bool ScaledHistoryGivesTheSameVolatility(int seed, double logFactor)
     {
         // Every estimator uses only price ratios, so a change of currency or a split applied to the whole history
-        // leaves it unchanged (references.md §1–4 formulas); rounding of the scaled prices allows ~1e-9 relative, plus an
+        // leaves it unchanged (the formulas of docs/methods.md#parkinson to #yang-zhang); rounding of the scaled prices allows ~1e-9 relative, plus an
         // absolute 1e-13 (annualized): when two returns in a window of 2 nearly coincide, their sample deviation is
         // a difference of nearly equal numbers, and the ~1e-16 rounding of each log return is all that is left of it
         // (seed 42, factor e^13 gives 7.7e-7 against 7.7e-7 + 2.5e-15).

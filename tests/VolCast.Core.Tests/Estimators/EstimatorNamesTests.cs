@@ -7,7 +7,7 @@ public sealed class EstimatorNamesTests
     [Fact]
     public void All_ListsDesignNamesInEnumOrder()
     {
-        // design.md, "Estimator names".
+        // docs/files.md#names-of-estimators-and-forecasters.
         Assert.Equal(["close-to-close", "parkinson", "garman-klass", "rogers-satchell", "yang-zhang"], EstimatorNames.All);
         for (var i = 0; i < EstimatorNames.All.Count; i++)
         {

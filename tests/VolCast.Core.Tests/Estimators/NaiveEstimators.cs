@@ -5,7 +5,7 @@ namespace VolCast.Core.Tests.Estimators;
 
 /// <summary>
 /// The reference for the rolling implementation: every window recomputed from the prices directly, O(n·N),
-/// with two-pass (mean first) sample variances and the formulas written out as in references.md §1–4 and §16.
+/// with two-pass (mean first) sample variances and the formulas written out as in docs/methods.md#parkinson to #yang-zhang and docs/methods.md#close-to-close-and-annualisation.
 /// Shared with the benchmarks as their baseline.
 /// </summary>
 public static class NaiveEstimators

@@ -11,7 +11,7 @@ namespace VolCast.Core.Tests.Estimators;
 /// <remarks>
 /// Discrete sampling of the range. A path seen only at 390 points misses the excursions between them, so the
 /// sampled high is below the true high by about β σ √Δt on average, β = −ζ(1/2)/√(2π) ≈ 0.5826 (the continuity
-/// correction of Broadie, Glasserman and Kou 1997 [M]; the downward bias itself: references.md §1 [C2]); the same
+/// correction of Broadie, Glasserman and Kou 1997 [M]; the downward bias itself: docs/methods.md#parkinson [C2]); the same
 /// holds for the low. For Parkinson, E[R²] then drops from 4 ln 2 σ² by about 2·E[R]·2βσ√Δt with
 /// E[R] = 2√(2/π) σ, a relative bias of β√Δt·2√(2/π)/ln 2 ≈ 6.8% at Δt = 1/390 day [D]: far more than the
 /// tolerance of the unbiasedness tests. The known-truth tests therefore take the high and low of the continuous
@@ -46,7 +46,7 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
         output.WriteLine(FormattableString.Invariant($"{estimator}: mean / σ² = {mean / TrueDailyVariance:F4}, standard error {standardError / TrueDailyVariance:F4}"));
 
         // Each estimator is unbiased for σ² under zero drift, continuous trading and no opening jump
-        // (references.md §1–4 [C]); the tolerance is 4 standard errors of a mean of ~1,400 windows.
+        // (docs/methods.md#parkinson to #yang-zhang [C]); the tolerance is 4 standard errors of a mean of ~1,400 windows.
         Assert.InRange(mean, TrueDailyVariance - (4 * standardError), TrueDailyVariance + (4 * standardError));
         Assert.True(standardError < 0.012 * TrueDailyVariance, $"standard error {standardError} is too large for a meaningful test");
     }
@@ -54,7 +54,7 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
     [Theory]
     // Without an opening jump every estimator measures σ² of the trading session; with overnight gaps of
     // volatility σ_o, close-to-close and Yang-Zhang measure σ² + σ_o² and the range estimators σ² only
-    // (references.md §2–4: Garman-Klass and Rogers-Satchell ignore opening jumps, Yang-Zhang handles them [C]).
+    // (docs/methods.md#garman-klass to #yang-zhang: Garman-Klass and Rogers-Satchell ignore opening jumps, Yang-Zhang handles them [C]).
     [InlineData(Estimator.CloseToClose, true)]
     [InlineData(Estimator.YangZhang, true)]
     [InlineData(Estimator.Parkinson, false)]
@@ -72,9 +72,9 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
     }
 
     [Theory]
-    // Parkinson: efficiency 2 / (9ζ(3)/(4 ln 2)² − 1) = 4.91 (references.md §1 [D]; Kunitomo 1992 "about 4.91" [C]).
+    // Parkinson: efficiency 2 / (9ζ(3)/(4 ln 2)² − 1) = 4.91 (docs/methods.md#parkinson [D]; Kunitomo 1992 "about 4.91" [C]).
     [InlineData(Estimator.Parkinson, 4.91)]
-    // Garman-Klass: ≈ 7.4 relative to (C − O)² (references.md §2 [C: Meilijson 2011]).
+    // Garman-Klass: ≈ 7.4 relative to (C − O)² (docs/methods.md#garman-klass [C: Meilijson 2011]).
     [InlineData(Estimator.GarmanKlass, 7.4)]
     public void BarVariance_GbmWithKnownVolatility_EfficiencyAgainstCloseToCloseNearPublishedValue(Estimator estimator, double published)
     {
@@ -91,7 +91,7 @@ public sealed partial class RollingVolatilityTests(ITestOutputHelper output)
     [Fact]
     public void BarVariance_GbmWithKnownVolatility_RogersSatchellEfficiencyBetweenParkinsonAndGarmanKlass()
     {
-        // Rogers-Satchell's efficiency is about 6 at zero drift (references.md §3 [M]): below Garman-Klass and
+        // Rogers-Satchell's efficiency is about 6 at zero drift (docs/methods.md#rogers-satchell [M]): below Garman-Klass and
         // above Parkinson; the ordering is what is checked.
         var (parkinson, _) = Efficiency(ContinuousPath.Value, Estimator.Parkinson, batches: 20);
         var (rogersSatchell, standardError) = Efficiency(ContinuousPath.Value, Estimator.RogersSatchell, batches: 20);

@@ -3,10 +3,10 @@ using VolCast.Core.Estimators;
 
 namespace VolCast.Core.Tests.Estimators;
 
-/// <summary>Worked examples with published or hand-derived numbers (references.md §4 and §16).</summary>
+/// <summary>Worked examples with published or hand-derived numbers (docs/methods.md#yang-zhang and docs/methods.md#close-to-close-and-annualisation).</summary>
 public sealed partial class RollingVolatilityTests
 {
-    // Hull, Options, Futures, and Other Derivatives 11e, Ex. 15.4 / Table 15.1 [C] (references.md §16).
+    // Hull, Options, Futures, and Other Derivatives 11e, Ex. 15.4 / Table 15.1 [C] (docs/methods.md#close-to-close-and-annualisation).
     private static readonly double[] HullCloses =
     [
         20.00, 20.10, 19.90, 20.00, 20.50, 20.25, 20.90, 20.90, 20.90, 20.75, 20.75,
@@ -16,7 +16,7 @@ public sealed partial class RollingVolatilityTests
     private static PriceHistory HullHistory() => PriceHistory.FromCloses(Some.TradingDates(HullCloses.Length), HullCloses);
 
     /// <summary>
-    /// The 3-bar convention history of references.md §4 [D]: row 0 carries only the previous close 99.5 (a flat bar),
+    /// The 3-bar convention history of docs/methods.md#yang-zhang [D]: row 0 carries only the previous close 99.5 (a flat bar),
     /// rows 1..3 are the three bars; a window of 3 ending at row 3 covers them.
     /// </summary>
     private static PriceHistory ThreeBarHistory() => PriceHistory.FromBars(
@@ -46,12 +46,12 @@ public sealed partial class RollingVolatilityTests
     {
         var series = RollingVolatility.Compute(HullHistory(), Estimator.CloseToClose, 20, zeroMean: true);
 
-        // references.md §16: zero-mean, divisor n = 20, gives 20.2776% a year [D, printed to 6 significant figures].
+        // docs/methods.md#close-to-close-and-annualisation: zero-mean, divisor n = 20, gives 20.2776% a year [D, printed to 6 significant figures].
         Assert.Equal(0.202776, series.AnnualizedVolatility[0], 0.0000005);
     }
 
     [Theory]
-    // references.md §4 convention table [D, formula evaluation printed to 7 significant figures]: daily variance, annualized vol.
+    // docs/methods.md#yang-zhang convention table [D, formula evaluation printed to 7 significant figures]: daily variance, annualized vol.
     [InlineData(Estimator.Parkinson, 2.264544e-4, 0.238886)]
     [InlineData(Estimator.GarmanKlass, 2.918798e-4, 0.271208)]
     [InlineData(Estimator.RogersSatchell, 3.139018e-4, 0.281253)]
@@ -69,7 +69,7 @@ public sealed partial class RollingVolatilityTests
     }
 
     [Theory]
-    // references.md §4 [D]: close-to-close demeaned n − 1 = 1.808583e-4 (21.3486%), zero mean /n = 1.233639e-4 (17.6317%).
+    // docs/methods.md#yang-zhang [D]: close-to-close demeaned n − 1 = 1.808583e-4 (21.3486%), zero mean /n = 1.233639e-4 (17.6317%).
     [InlineData(false, 1.808583e-4, 0.213486)]
     [InlineData(true, 1.233639e-4, 0.176317)]
     public void RollingDailyVariance_ThreeBarConventionTable_CloseToCloseBothConventions(bool zeroMean, double dailyVariance, double annualized)
@@ -94,7 +94,7 @@ public sealed partial class RollingVolatilityTests
 
         terms.RollingYangZhangParts(3, overnight, openToClose, rogersSatchell);
 
-        // references.md §4 [D]: V_O = 2.66176e-5, V_C = 8.5472e-5 (6 and 5 significant figures), k = 0.1017964, RS = 3.139018e-4.
+        // docs/methods.md#yang-zhang [D]: V_O = 2.66176e-5, V_C = 8.5472e-5 (6 and 5 significant figures), k = 0.1017964, RS = 3.139018e-4.
         Assert.Equal(2.66176e-5, overnight[0], 2.66176e-5 * 5e-6);
         Assert.Equal(8.5472e-5, openToClose[0], 8.5472e-5 * 1e-5);
         Assert.Equal(3.139018e-4, rogersSatchell[0], 3.139018e-4 * 5e-7);
@@ -102,7 +102,7 @@ public sealed partial class RollingVolatilityTests
     }
 
     [Theory]
-    // references.md §4 k table [D, 6 decimals]: k = 0.34 / (1.34 + (n + 1)/(n − 1)).
+    // docs/methods.md#yang-zhang k table [D, 6 decimals]: k = 0.34 / (1.34 + (n + 1)/(n − 1)).
     [InlineData(5, 0.119718)]
     [InlineData(10, 0.132697)]
     [InlineData(21, 0.139344)]
@@ -117,7 +117,7 @@ public sealed partial class RollingVolatilityTests
     [Fact]
     public void YangZhangK_VeryLongWindow_ApproachesLimit()
     {
-        // references.md §4 [D]: k → 0.34 / 2.34 = 0.145299 as n → ∞.
+        // docs/methods.md#yang-zhang [D]: k → 0.34 / 2.34 = 0.145299 as n → ∞.
         Assert.Equal(0.145299, RollingVolatility.YangZhangK(10_000_000), 0.0000005);
     }
 }

@@ -98,7 +98,7 @@ public sealed partial class RollingVolatilityTests
 
         Assert.Equal("window", error.ParamName);
         Assert.Contains("at least 2", error.Message, StringComparison.Ordinal);
-        Assert.Contains("(was 1)", error.Message, StringComparison.Ordinal);
+        Assert.Contains("at least 2 trading days, was 1", error.Message, StringComparison.Ordinal);
     }
 
     [Theory]

@@ -9,7 +9,7 @@ public sealed class EwmaForecasterTests
     [Fact]
     public void NextVariance_HullLambda090Example_Is1_14PercentPerDay()
     {
-        // Source: references.md §5, Hull OFOD 11e Ex. 23.1: λ = 0.90, σₙ₋₁ = 1%, uₙ₋₁ = 2% → σₙ² = 0.00013,
+        // Source: docs/methods.md#ewma, Hull OFOD 11e Ex. 23.1: λ = 0.90, σₙ₋₁ = 1%, uₙ₋₁ = 2% → σₙ² = 0.00013,
         // 1.14%/day [C2; D]. Arithmetic: 0.90·0.0001 + 0.10·0.0004 = 0.00009 + 0.00004 = 0.00013.
         var variance = EwmaForecaster.NextVariance(0.0001, 0.02, 0.90);
         Assert.Equal(0.00013, variance, 15);

@@ -7,7 +7,7 @@ public sealed class ForecasterSpecTests
     [Theory]
     // Canonical forms come back unchanged.
     [InlineData("ewma:0.94", "ewma:0.94")]
-    // The default decay is RiskMetrics' 0.94 for daily data (references.md §5 [C2]).
+    // The default decay is RiskMetrics' 0.94 for daily data (docs/methods.md#ewma [C2]).
     [InlineData("ewma", "ewma:0.94")]
     [InlineData(" EWMA:0.97 ", "ewma:0.97")]
     [InlineData("garch", "garch")]
@@ -17,7 +17,7 @@ public sealed class ForecasterSpecTests
     [InlineData("har", "har")]
     [InlineData("har:garman-klass", "har:garman-klass")]
     [InlineData("implied", "implied")]
-    // Historical windows: estimator names from design.md, window in trading days.
+    // Historical windows: estimator names of docs/files.md#names-of-estimators-and-forecasters, window in trading days.
     [InlineData("yang-zhang:21", "yang-zhang:21")]
     [InlineData(" Close-To-Close:63 ", "close-to-close:63")]
     [InlineData("parkinson:5", "parkinson:5")]

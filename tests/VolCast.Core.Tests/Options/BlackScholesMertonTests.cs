@@ -50,7 +50,7 @@ public sealed class BlackScholesMertonTests
     [Fact]
     public void Price_SecondarySourceRow_MatchesFiveDecimals()
     {
-        // references.md §15, the [C2] row: S=22, K=25, r=0.1, σ=0.2, T=0.75 gives c=1.03446, p=2.22805.
+        // docs/methods.md#black-scholes-merton-and-black-76, the [C2] row: S=22, K=25, r=0.1, σ=0.2, T=0.75 gives c=1.03446, p=2.22805.
         Assert.Equal(1.03446, BlackScholesMerton.Price(OptionType.Call, 22, 25, 0.75, 0.2, 0.1, 0), 5e-6);
         Assert.Equal(2.22805, BlackScholesMerton.Price(OptionType.Put, 22, 25, 0.75, 0.2, 0.1, 0), 5e-6);
     }

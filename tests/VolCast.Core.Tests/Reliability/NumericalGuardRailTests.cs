@@ -11,7 +11,7 @@ using VolCast.Core.Garch;
 
 namespace VolCast.Core.Tests.Reliability;
 
-// Numerical guard rails (issue 8): on random valid histories with flat stretches, a huge jump and all-zero return
+// Numerical guard rails: on random valid histories with flat stretches, a huge jump and all-zero return
 // windows, every estimator value, forecast and score is finite or absent — never NaN or infinity.
 public sealed class NumericalGuardRailTests
 {

@@ -10,7 +10,7 @@ public class DieboldMarianoTests(ITestOutputHelper output)
     [Fact]
     public void Test_ToyHorizonOne_MatchesReferenceSheet()
     {
-        // references.md §8 toy, d = [1..5], h = 1 [D]: DM = 4.743416, DM* = 4.242641 (6 decimals printed).
+        // docs/methods.md#diebold-mariano toy, d = [1..5], h = 1 [D]: DM = 4.743416, DM* = 4.242641 (6 decimals printed).
         var r = DieboldMariano.Test(Toy, 1);
         Approx.Absolute(4.743416, r.UncorrectedStatistic!.Value, 5e-7);
         Approx.Absolute(4.242641, r.Statistic!.Value, 5e-7);
@@ -20,7 +20,7 @@ public class DieboldMarianoTests(ITestOutputHelper output)
     [Fact]
     public void Test_ToyHorizonTwoRectangular_MatchesReferenceSheet()
     {
-        // references.md §8 toy, h = 2, rectangular window [D]: V̂ = 3.6, DM = 3.535534, DM* = 2.449490.
+        // docs/methods.md#diebold-mariano toy, h = 2, rectangular window [D]: V̂ = 3.6, DM = 3.535534, DM* = 2.449490.
         var r = DieboldMariano.Test(Toy, 2, LongRunVarianceWindow.Rectangular);
         Approx.Relative(3.6, r.LongRunVariance, 1e-14);
         Approx.Absolute(3.535534, r.UncorrectedStatistic!.Value, 5e-7);
@@ -31,14 +31,14 @@ public class DieboldMarianoTests(ITestOutputHelper output)
     [Fact]
     public void Test_ToyHorizonTwoBartlett_MatchesReferenceSheet()
     {
-        // references.md §8 toy, Bartlett with L = 1 [D]: DM = 4.008919 (before the HLN factor, which is √0.48 for T = 5, h = 2).
+        // docs/methods.md#diebold-mariano toy, Bartlett with L = 1 [D]: DM = 4.008919 (before the HLN factor, which is √0.48 for T = 5, h = 2).
         var r = DieboldMariano.Test(Toy, 2);
         Approx.Absolute(4.008919, r.UncorrectedStatistic!.Value, 5e-7);
         Approx.Relative(4.008919 * Math.Sqrt(0.48), r.Statistic!.Value, 1e-6);
     }
 
     [Theory]
-    // references.md §8 HLN factor table [D], 6 decimals printed.
+    // docs/methods.md#diebold-mariano HLN factor table [D], 6 decimals printed.
     [InlineData(100, 1, 0.994987)]
     [InlineData(100, 5, 0.954987)]
     [InlineData(100, 22, 0.784984)]
@@ -100,7 +100,7 @@ public class DieboldMarianoTests(ITestOutputHelper output)
     public void Test_RectangularNegative_FallsBackToBartlett()
     {
         // d_t = 0.1 + (−1)^t: γ̂_1 ≈ −γ̂_0, so the rectangular V̂ = γ̂_0 + 2γ̂_1 < 0 and the Bartlett estimate is used
-        // (references.md §8 [C: Harvey-Leybourne-Whitehouse 2017]: fall back to Bartlett weights).
+        // (docs/methods.md#diebold-mariano [C: Harvey, Leybourne and Whitehouse 2017]: fall back to Bartlett weights).
         var d = Enumerable.Range(0, 40).Select(t => 0.1 + (t % 2 == 0 ? 1.0 : -1.0)).ToArray();
         Assert.True(NeweyWest.LongRunVariance(d, 1, LongRunVarianceWindow.Rectangular) < 0);
         var r = DieboldMariano.Test(d, 2, LongRunVarianceWindow.Rectangular);

@@ -5,7 +5,7 @@ namespace VolCast.Core.Tests.Scoring;
 
 public class LossesTests
 {
-    // references.md §7 check [D]: proxy variance 0.0004, forecast variance 0.0002 → form A 0.3068528,
+    // docs/methods.md#losses check [D]: proxy variance 0.0004, forecast variance 0.0002 → form A 0.3068528,
     // form B −6.5171932, MSE 4.0e−8. Our inputs are volatilities, so √0.0004 and √0.0002. Tolerance: the 7 decimals printed.
     private static readonly double RealizedVol = Math.Sqrt(0.0004);
     private static readonly double ForecastVol = Math.Sqrt(0.0002);
@@ -13,42 +13,42 @@ public class LossesTests
     [Fact]
     public void Qlike_ReferenceSheetCheck_MatchesFormA()
     {
-        // Our normalized QLIKE is form A of references.md §7 [D].
+        // Our normalized QLIKE is form A of docs/methods.md#losses [D].
         Approx.Absolute(0.3068528, Losses.Qlike(RealizedVol, ForecastVol), 5e-8);
     }
 
     [Fact]
     public void QlikeUnnormalized_ReferenceSheetCheck_MatchesFormB()
     {
-        // references.md §7 form B, ln h + σ̂²/h [D].
+        // docs/methods.md#losses form B, ln h + σ̂²/h [D].
         Approx.Absolute(-6.5171932, Losses.QlikeUnnormalized(RealizedVol, ForecastVol), 5e-8);
     }
 
     [Fact]
     public void SquaredErrorVariance_ReferenceSheetCheck_Matches()
     {
-        // references.md §7 MSE = 4.0e−8 [D].
+        // docs/methods.md#losses MSE = 4.0e−8 [D].
         Approx.Relative(4.0e-8, Losses.SquaredErrorVariance(RealizedVol, ForecastVol), 1e-12);
     }
 
     [Fact]
     public void Qlike_ForecastEqualsRealized_IsZero()
     {
-        // Form A is 0 at h = σ̂² (references.md §7 [C2]).
+        // Form A is 0 at h = σ̂² (docs/methods.md#losses [C2]).
         Assert.Equal(0.0, Losses.Qlike(0.23, 0.23));
     }
 
     [Property]
     public bool Qlike_AnyPositivePair_IsNotNegative(FsCheck.PositiveInt a, FsCheck.PositiveInt b)
     {
-        // Form A is ≥ 0 (references.md §7 [C2]); x − ln x − 1 ≥ 0 for x > 0.
+        // Form A is ≥ 0 (docs/methods.md#losses [C2]); x − ln x − 1 ≥ 0 for x > 0.
         return Losses.Qlike(a.Get / 1000.0, b.Get / 1000.0) >= 0;
     }
 
     [Property]
     public bool QlikeForms_Differential_IsTheSame(FsCheck.PositiveInt r, FsCheck.PositiveInt f1, FsCheck.PositiveInt f2)
     {
-        // Forms A and B differ by a term free of the forecast, so differentials agree (references.md §7 [D]).
+        // Forms A and B differ by a term free of the forecast, so differentials agree (docs/methods.md#losses [D]).
         double rv = r.Get / 1000.0, a = f1.Get / 1000.0, b = f2.Get / 1000.0;
         var normalized = Losses.Qlike(rv, a) - Losses.Qlike(rv, b);
         var unnormalized = Losses.QlikeUnnormalized(rv, a) - Losses.QlikeUnnormalized(rv, b);
@@ -84,7 +84,7 @@ public class LossesTests
     [InlineData(LossFunction.SquaredErrorVolatility)]
     public void Compute_EachLoss_AgreesWithItsDefinition(LossFunction loss)
     {
-        // Each row: the span form must give the definition's value at every observation (definitions in references.md §7).
+        // Each row: the span form must give the definition's value at every observation (definitions in docs/methods.md#losses).
         double[] rv = [0.18, 0.22, 0.30];
         double[] f = [0.20, 0.20, 0.25];
         var values = Losses.Compute(loss, rv, f);

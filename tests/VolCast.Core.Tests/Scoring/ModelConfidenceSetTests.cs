@@ -39,7 +39,7 @@ public class ModelConfidenceSetTests(ITestOutputHelper output)
     [Fact]
     public void Compute_Result_PValuesAreRunningMaximumAndMembershipFollowsAlpha()
     {
-        // MCS p-value = running maximum of elimination p-values (references.md §14 [M]); in the set iff p ≥ α.
+        // MCS p-value = running maximum of elimination p-values (Hansen, Lunde and Nason 2011; docs/methods.md#model-confidence-set [M]); in the set iff p ≥ α.
         var losses = SimulatedLosses(new Random(5), 800, out _);
         var options = new ModelConfidenceSetOptions(blockLength: 5, seed: 9, bootstrapReplications: 500);
         var r = ModelConfidenceSet.Compute(losses, options);
@@ -155,9 +155,9 @@ public class ModelConfidenceSetTests(ITestOutputHelper output)
     }
 
     [Fact]
-    public void Options_Defaults_AreTheIssueDefaults()
+    public void Options_Defaults_AreTheDocumentedDefaults()
     {
-        // Issue 4: B = 1,000, α = 0.10, seeded; T_max and moving blocks are this layer's documented defaults.
+        // The project's defaults: B = 1,000, α = 0.10, seeded; T_max and moving blocks are this layer's documented defaults.
         var o = new ModelConfidenceSetOptions(21, 7);
         Assert.Equal(1000, o.BootstrapReplications);
         Assert.Equal(0.10, o.Alpha);

@@ -7,7 +7,7 @@ public class NeweyWestTests
     private static readonly double[] Toy = [1, 2, 3, 4, 5];
 
     [Theory]
-    // references.md §9 lag table [D] from the rule L = floor(4(T/100)^(2/9)) [C: Patton's newey_west default].
+    // docs/methods.md#newey-west lag table [D] from the rule L = floor(4(T/100)^(2/9)) [C: Patton's newey_west default].
     [InlineData(100, 4)]
     [InlineData(250, 4)]
     [InlineData(500, 5)]
@@ -19,7 +19,7 @@ public class NeweyWestTests
     }
 
     [Theory]
-    // Each row: max(automatic lag, h − 1) (references.md §9: "for overlapping h-step targets use L ≥ h − 1").
+    // Each row: max(automatic lag, h − 1) (docs/methods.md#newey-west: "for overlapping h-step targets use L ≥ h − 1").
     [InlineData(5000, 21, 20)] // h − 1 dominates: the default 21-day horizon.
     [InlineData(5000, 5, 9)]   // automatic lag floor(4 · 50^(2/9)) = 9 dominates.
     [InlineData(5000, 1, 9)]   // one-day horizon: automatic lag only.
@@ -32,7 +32,7 @@ public class NeweyWestTests
     [Fact]
     public void Autocovariance_ReferenceToy_Matches()
     {
-        // references.md §8 toy, d = [1..5]: γ̂_0 = 2, γ̂_1 = 0.8 [D] (divisor T, mean removed).
+        // docs/methods.md#diebold-mariano toy, d = [1..5]: γ̂_0 = 2, γ̂_1 = 0.8 [D] (divisor T, mean removed).
         Approx.Relative(2.0, NeweyWest.Autocovariance(Toy, 0), 1e-14);
         Approx.Relative(0.8, NeweyWest.Autocovariance(Toy, 1), 1e-14);
     }
@@ -40,7 +40,7 @@ public class NeweyWestTests
     [Fact]
     public void LongRunVariance_ReferenceToy_MatchesBothWindows()
     {
-        // references.md §8 toy [D]: rectangular with L = 1 gives V̂ = 3.6; Bartlett L = 1 gives 2 + 2 · 0.5 · 0.8 = 2.8
+        // docs/methods.md#diebold-mariano toy [D]: rectangular with L = 1 gives V̂ = 3.6; Bartlett L = 1 gives 2 + 2 · 0.5 · 0.8 = 2.8
         // (the value behind DM = 4.008919).
         Approx.Relative(3.6, NeweyWest.LongRunVariance(Toy, 1, LongRunVarianceWindow.Rectangular), 1e-14);
         Approx.Relative(2.8, NeweyWest.LongRunVariance(Toy, 1, LongRunVarianceWindow.Bartlett), 1e-14);
@@ -49,7 +49,7 @@ public class NeweyWestTests
     [Fact]
     public void Weight_Bartlett_IsOneMinusJOverLPlusOne()
     {
-        // references.md §9 [C]: weights 1 − j/(L + 1).
+        // docs/methods.md#newey-west [C]: weights 1 − j/(L + 1).
         Assert.Equal(0.75, NeweyWest.Weight(LongRunVarianceWindow.Bartlett, 1, 3));
         Assert.Equal(0.25, NeweyWest.Weight(LongRunVarianceWindow.Bartlett, 3, 3));
         Assert.Equal(1.0, NeweyWest.Weight(LongRunVarianceWindow.Rectangular, 3, 3));
