@@ -12,7 +12,7 @@ public partial class ConventionTests
     public void CoreSources_DoNoFileOrConsoleIo()
     {
         var offenders = new List<string>();
-        foreach (var file in Directory.EnumerateFiles(Path.Combine(RepositoryRoot(), "src", "VolCast.Core"), "*.cs", SearchOption.AllDirectories))
+        foreach (var file in Directory.EnumerateFiles(Path.Combine(RepositoryRoot.Path, "src", "VolCast.Core"), "*.cs", SearchOption.AllDirectories))
         {
             if (file.Contains($"{Path.DirectorySeparatorChar}obj{Path.DirectorySeparatorChar}", StringComparison.Ordinal))
             {
@@ -42,7 +42,7 @@ public partial class ConventionTests
     [Fact]
     public void PublicTypes_AreOnePerFileNamedAfterTheType()
     {
-        var root = Path.Combine(RepositoryRoot(), "src");
+        var root = Path.Combine(RepositoryRoot.Path, "src");
         var missing = new List<string>();
         foreach (var assembly in new[] { Core })
         {
@@ -58,17 +58,6 @@ public partial class ConventionTests
         }
 
         Assert.Empty(missing);
-    }
-
-    internal static string RepositoryRoot()
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "VolCast.sln")))
-        {
-            dir = dir.Parent;
-        }
-
-        return dir?.FullName ?? throw new InvalidOperationException("VolCast.sln not found above " + AppContext.BaseDirectory);
     }
 
     [GeneratedRegex(@"\bSystem\.IO\b|\bConsole\.|\bFile\.(Read|Write|Open|Create)|\bStreamReader\b|\bStreamWriter\b")]

@@ -31,7 +31,7 @@ public partial class DocumentationTests
     [Fact]
     public void RepositoryFiles_CiteOnlyDocsSectionsThatExist()
     {
-        var root = ConventionTests.RepositoryRoot();
+        var root = RepositoryRoot.Path;
         var missing = new List<string>();
         foreach (var (path, text) in RepositoryTextFiles())
         {
@@ -57,7 +57,7 @@ public partial class DocumentationTests
 
     private static IEnumerable<(string Path, string Text)> RepositoryTextFiles()
     {
-        var root = ConventionTests.RepositoryRoot();
+        var root = RepositoryRoot.Path;
         var skipped = new[] { "bin", "obj", ".git" };
         var pending = new Stack<string>([root]);
         while (pending.Count > 0)

@@ -164,7 +164,7 @@ public sealed class ImpliedFileReaderTests : IDisposable
     [Fact]
     public void Read_MissingFile_SaysFileNotFound()
     {
-        var path = Path.Combine(_temp.Path, "none.csv");
+        var path = _temp.Combine("none.csv");
         var error = Assert.Throws<InputDataException>(() => ImpliedFileReader.Read(path));
         Assert.Equal(path, error.File);
         Assert.Contains("file not found", error.Message, StringComparison.Ordinal);

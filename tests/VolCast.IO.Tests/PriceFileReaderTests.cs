@@ -184,13 +184,8 @@ public sealed class PriceFileReaderTests : IDisposable
         // 1925-01-01 .. 2024-12-31, weekdays only: about 26,000 rows (a 100-year history).
         var sb = new StringBuilder("date,open,high,low,close,adj_close,volume\n");
         var count = 0;
-        for (var d = new DateOnly(1925, 1, 1); d <= new DateOnly(2024, 12, 31); d = d.AddDays(1))
+        foreach (var d in Weekdays.Between(new DateOnly(1925, 1, 1), new DateOnly(2024, 12, 31)))
         {
-            if (d.DayOfWeek is DayOfWeek.Saturday or DayOfWeek.Sunday)
-            {
-                continue;
-            }
-
             var c = 100 + (count % 17);
             sb.Append(System.Globalization.CultureInfo.InvariantCulture, $"{d:yyyy-MM-dd},{c},{c + 1},{c - 1},{c},{c * 0.5},1000\n");
             count++;
@@ -354,7 +349,7 @@ public sealed class PriceFileReaderTests : IDisposable
     [Fact]
     public void Read_MissingFile_SaysFileNotFoundWithThePath()
     {
-        var path = Path.Combine(_temp.Path, "nope.csv");
+        var path = _temp.Combine("nope.csv");
         var error = Assert.Throws<InputDataException>(() => PriceFileReader.Read(path));
 
         Assert.Equal(path, error.File);

@@ -28,24 +28,21 @@ public class BacktestBenchmarks
     internal static (PriceHistory Prices, ImpliedSeries Implied) DefaultBacktestData(int n)
     {
         var random = new Random(42);
-        var dates = new DateOnly[n];
+        var dates = Weekdays.From(new DateOnly(2000, 1, 3), n);
         var open = new double[n];
         var high = new double[n];
         var low = new double[n];
         var close = new double[n];
         var iv = new double[n];
-        var d = new DateOnly(2000, 1, 3);
         var h = 1e-4;
         var previous = 100.0;
         for (var i = 0; i < n; i++)
         {
-            dates[i] = d;
-            d = d.AddDays(d.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
-            var e = Math.Sqrt(h) * Normal(random);
-            open[i] = previous * Math.Exp(0.2 * Math.Sqrt(h) * Normal(random));
+            var e = Math.Sqrt(h) * Gaussian.Next(random);
+            open[i] = previous * Math.Exp(0.2 * Math.Sqrt(h) * Gaussian.Next(random));
             close[i] = previous * Math.Exp(e);
-            high[i] = Math.Max(open[i], close[i]) * Math.Exp(0.5 * Math.Sqrt(h) * Math.Abs(Normal(random)));
-            low[i] = Math.Min(open[i], close[i]) * Math.Exp(-0.5 * Math.Sqrt(h) * Math.Abs(Normal(random)));
+            high[i] = Math.Max(open[i], close[i]) * Math.Exp(0.5 * Math.Sqrt(h) * Math.Abs(Gaussian.Next(random)));
+            low[i] = Math.Min(open[i], close[i]) * Math.Exp(-0.5 * Math.Sqrt(h) * Math.Abs(Gaussian.Next(random)));
             iv[i] = Math.Sqrt(252 * h) * 1.1;
             previous = close[i];
             h = 2e-6 + (0.08 * e * e) + (0.9 * h);
@@ -53,7 +50,4 @@ public class BacktestBenchmarks
 
         return (PriceHistory.FromBars(dates, open, high, low, close), new ImpliedSeries(dates, iv));
     }
-
-    private static double Normal(Random random) =>
-        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }

@@ -36,12 +36,12 @@ public class CalibrationBenchmarks
         closes[0] = 100;
         for (var t = 0; t < closes.Length; t++)
         {
-            logVariance = Math.Log(0.04) + (0.98 * (logVariance - Math.Log(0.04))) + (0.15 * Normal(random));
+            logVariance = Math.Log(0.04) + (0.98 * (logVariance - Math.Log(0.04))) + (0.15 * Gaussian.Next(random));
             sigmas[t] = Math.Sqrt(Math.Exp(logVariance));
             if (t > 0)
             {
                 var sd = sigmas[t - 1] / Math.Sqrt(252);
-                closes[t] = closes[t - 1] * Math.Exp((-0.5 * sd * sd) + (sd * Normal(random)));
+                closes[t] = closes[t - 1] * Math.Exp((-0.5 * sd * sd) + (sd * Gaussian.Next(random)));
             }
         }
 
@@ -55,7 +55,7 @@ public class CalibrationBenchmarks
             for (var t = 0; t < Dates; t++)
             {
                 // A warm-up gap at the start for half of them, as lookback forecasters have.
-                values[t] = i % 2 == 0 && t < 10 * (i + 1) ? null : sigmas[t] * (1 + (0.005 * i)) * Math.Exp(0.1 * Normal(random));
+                values[t] = i % 2 == 0 && t < 10 * (i + 1) ? null : sigmas[t] * (1 + (0.005 * i)) * Math.Exp(0.1 * Gaussian.Next(random));
             }
 
             _forecasters[i] = new ForecasterVolatility("f" + i, values);
@@ -122,11 +122,4 @@ public class CalibrationBenchmarks
 
     [Benchmark]
     public BacktestCalibration OnDefaultBacktest() => BacktestCalibrator.Evaluate(_backtest, _prices);
-
-    private static double Normal(Random random)
-    {
-        var u1 = 1.0 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
-    }
 }

@@ -141,8 +141,7 @@ public class EstimatorBenchmarks
         var high = new double[days];
         var low = new double[days];
         var close = new double[days];
-        var dates = new DateOnly[days];
-        var date = new DateOnly(2000, 1, 3);
+        var dates = Weekdays.From(new DateOnly(2000, 1, 3), days);
         var x = Math.Log(100.0);
         for (var d = 0; d < days; d++)
         {
@@ -155,8 +154,6 @@ public class EstimatorBenchmarks
                 lo = Math.Min(lo, x);
             }
 
-            dates[d] = date;
-            date = date.AddDays(date.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
             open[d] = Math.Exp(o);
             close[d] = Math.Exp(x);
             high[d] = Math.Max(Math.Exp(hi), Math.Max(open[d], close[d]));

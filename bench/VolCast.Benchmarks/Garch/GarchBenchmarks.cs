@@ -74,8 +74,7 @@ public class GarchBenchmarks
         var result = new double[n];
         for (var t = 0; t < n; t++)
         {
-            var u1 = 1 - random.NextDouble();
-            var e = Math.Sqrt(h) * Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * random.NextDouble());
+            var e = Math.Sqrt(h) * Gaussian.Next(random);
             result[t] = p.Mu + e;
             h = p.NextVariance(h, e);
         }

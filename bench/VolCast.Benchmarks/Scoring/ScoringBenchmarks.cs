@@ -39,13 +39,13 @@ public class ScoringBenchmarks
         var logVariance = mu;
         for (var t = 0; t < Dates; t++)
         {
-            logVariance = mu + (0.98 * (logVariance - mu)) + (0.15 * Normal(random));
+            logVariance = mu + (0.98 * (logVariance - mu)) + (0.15 * Gaussian.Next(random));
             var sigma = Math.Sqrt(Math.Exp(logVariance));
-            _realized[t] = sigma * Math.Sqrt(Math.Max(0.05, 1 + (0.4 * Normal(random))));
+            _realized[t] = sigma * Math.Sqrt(Math.Max(0.05, 1 + (0.4 * Gaussian.Next(random))));
             for (var i = 0; i < Models; i++)
             {
                 // Each forecaster: the truth with its own bias and noise.
-                _forecasts[i][t] = sigma * (1 + (0.005 * i)) * Math.Exp(0.1 * Normal(random));
+                _forecasts[i][t] = sigma * (1 + (0.005 * i)) * Math.Exp(0.1 * Gaussian.Next(random));
             }
         }
 
@@ -178,12 +178,5 @@ public class ScoringBenchmarks
         }
 
         return sum;
-    }
-
-    private static double Normal(Random random)
-    {
-        var u1 = 1.0 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
     }
 }

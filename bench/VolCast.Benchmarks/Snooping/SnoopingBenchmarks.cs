@@ -32,7 +32,7 @@ public class SnoopingBenchmarks
         var common = new double[Days];
         for (var t = 0; t < Days; t++)
         {
-            common[t] = Normal(random);
+            common[t] = Gaussian.Next(random);
             _benchmark[t] = 0.02 + common[t];
         }
 
@@ -45,7 +45,7 @@ public class SnoopingBenchmarks
             for (var t = 0; t < Days; t++)
             {
                 // Each rule: the benchmark's P&L on some days and its own on others, a small edge or loss.
-                _paths[k][t] = (0.0001 * (k - 100)) + (0.8 * common[t]) + (0.6 * Normal(random));
+                _paths[k][t] = (0.0001 * (k - 100)) + (0.8 * common[t]) + (0.6 * Gaussian.Next(random));
                 _differences[k][t] = _paths[k][t] - _benchmark[t];
             }
         }
@@ -62,11 +62,4 @@ public class SnoopingBenchmarks
     /// <summary>The same on Sharpe ratios (rule and benchmark paths resampled jointly), draws included.</summary>
     [Benchmark]
     public DataSnoopingResult SharpeTest() => DataSnooping.TestSharpeRatios(_paths, _benchmark, _options);
-
-    private static double Normal(Random random)
-    {
-        var u1 = 1.0 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
-    }
 }

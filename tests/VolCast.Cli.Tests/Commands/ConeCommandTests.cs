@@ -6,9 +6,9 @@ namespace VolCast.Cli.Tests.Commands;
 
 public sealed class ConeCommandTests : IDisposable
 {
-    private readonly string _folder = Directory.CreateTempSubdirectory("volcast-cone-").FullName;
+    private readonly TempFolder _temp = new("cone");
 
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     private (string Path, double[] Closes) WriteCloses(string name, int count, int seed)
     {
@@ -16,16 +16,15 @@ public sealed class ConeCommandTests : IDisposable
         var closes = new double[count];
         var price = 100.0;
         var text = new StringBuilder("date,close\n");
-        var date = new DateOnly(2015, 1, 5);
+        var dates = Weekdays.From(new DateOnly(2015, 1, 5), count);
         for (var i = 0; i < count; i++)
         {
             price *= Math.Exp(0.015 * ((random.NextDouble() * 2) - 1));
             closes[i] = Math.Round(price, 4);
-            text.Append(CultureInfo.InvariantCulture, $"{date:yyyy-MM-dd},{closes[i]:0.####}\n");
-            date = date.AddDays(date.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
+            text.Append(CultureInfo.InvariantCulture, $"{dates[i]:yyyy-MM-dd},{closes[i]:0.####}\n");
         }
 
-        var path = Path.Combine(_folder, name);
+        var path = _temp.Combine(name);
         File.WriteAllText(path, text.ToString());
         return (path, closes);
     }
@@ -34,7 +33,7 @@ public sealed class ConeCommandTests : IDisposable
     public void Cone_LongHistory_WritesPngAndCsvWithTheDirectMedian()
     {
         var (prices, closes) = WriteCloses("prices.csv", 900, 1);
-        var output = Path.Combine(_folder, "out");
+        var output = _temp.Combine("out");
 
         var result = CliRunner.Run("cone", "--prices", prices, "--out", output);
 
@@ -71,7 +70,7 @@ public sealed class ConeCommandTests : IDisposable
     public void Cone_ExistingOutput_RefusedWithoutForceAndReplacedWithIt()
     {
         var (prices, _) = WriteCloses("prices.csv", 400, 2);
-        var output = Path.Combine(_folder, "out");
+        var output = _temp.Combine("out");
 
         var first = CliRunner.Run("cone", "--prices", prices, "--out", output);
         var second = CliRunner.Run("cone", "--prices", prices, "--out", output);
@@ -88,11 +87,11 @@ public sealed class ConeCommandTests : IDisposable
     {
         var (prices, _) = WriteCloses("prices.csv", 200, 3);
 
-        var result = CliRunner.Run("cone", "--prices", prices, "--out", Path.Combine(_folder, "out"));
+        var result = CliRunner.Run("cone", "--prices", prices, "--out", _temp.Combine("out"));
 
         Assert.Equal(0, result.ExitCode);
         Assert.Contains("the 126-day horizon needs at least 377 daily returns", result.Stderr, StringComparison.Ordinal);
-        Assert.Equal(6, File.ReadAllLines(Path.Combine(_folder, "out", "cone.csv")).Length); // header + 5, 10, 21, 42, 63 (63 needs 188 of the 199 returns)
+        Assert.Equal(6, File.ReadAllLines(_temp.Combine("out", "cone.csv")).Length); // header + 5, 10, 21, 42, 63 (63 needs 188 of the 199 returns)
     }
 
     [Fact]
@@ -100,7 +99,7 @@ public sealed class ConeCommandTests : IDisposable
     {
         var (prices, _) = WriteCloses("short.csv", 10, 4);
 
-        var result = CliRunner.Run("cone", "--prices", prices, "--out", Path.Combine(_folder, "out"));
+        var result = CliRunner.Run("cone", "--prices", prices, "--out", _temp.Combine("out"));
 
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("short.csv", result.Stderr, StringComparison.Ordinal);
@@ -111,12 +110,12 @@ public sealed class ConeCommandTests : IDisposable
     public void Cone_WithImplied_Succeeds()
     {
         var (prices, _) = WriteCloses("prices.csv", 400, 5);
-        var impliedPath = Path.Combine(_folder, "implied.csv");
+        var impliedPath = _temp.Combine("implied.csv");
         File.WriteAllText(impliedPath, "date,iv\n2015-01-05,0.2\n2015-01-06,0.25\n");
 
-        var result = CliRunner.Run("cone", "--prices", prices, "--implied", impliedPath, "--out", Path.Combine(_folder, "out"));
+        var result = CliRunner.Run("cone", "--prices", prices, "--implied", impliedPath, "--out", _temp.Combine("out"));
 
         Assert.Equal(0, result.ExitCode);
-        Assert.True(File.Exists(Path.Combine(_folder, "out", "cone.png")));
+        Assert.True(File.Exists(_temp.Combine("out", "cone.png")));
     }
 }

@@ -119,19 +119,12 @@ public sealed class DemoCommandTests(DemoCommandTests.DemoRun demo) : IClassFixt
     [Fact]
     public void Demo_ExistingOutWithoutForce_Exit2AndNothingChanged()
     {
-        var folder = Directory.CreateTempSubdirectory("volcast-demo-existing-").FullName;
-        try
-        {
-            File.WriteAllText(Path.Combine(folder, "report.html"), "mine");
-            var result = CliRunner.Run("demo", "--out", folder);
-            Assert.Equal(2, result.ExitCode);
-            Assert.Contains("--force", result.Stderr, StringComparison.Ordinal);
-            Assert.Equal("mine", File.ReadAllText(Path.Combine(folder, "report.html")));
-        }
-        finally
-        {
-            Directory.Delete(folder, recursive: true);
-        }
+        using var folder = new TempFolder("demo-existing");
+        File.WriteAllText(folder.Combine("report.html"), "mine");
+        var result = CliRunner.Run("demo", "--out", folder.Path);
+        Assert.Equal(2, result.ExitCode);
+        Assert.Contains("--force", result.Stderr, StringComparison.Ordinal);
+        Assert.Equal("mine", File.ReadAllText(folder.Combine("report.html")));
     }
 
     [Fact]
@@ -145,23 +138,16 @@ public sealed class DemoCommandTests(DemoCommandTests.DemoRun demo) : IClassFixt
     [Fact]
     public void Demo_Regenerate_MatchesTheCommittedFilesByteForByte()
     {
-        var committed = Path.Combine(DemoRun.RepositoryRoot(), "data-demo");
-        var folder = Directory.CreateTempSubdirectory("volcast-regen-").FullName;
-        try
+        var committed = RepositoryRoot.Combine("data-demo");
+        using var folder = new TempFolder("regen");
+        var result = CliRunner.Run("demo", "--regenerate", "--data", folder.Path);
+        Assert.True(result.ExitCode == 0, result.Stderr);
+        Assert.Equal(46, DemoFiles.GeneratedFiles.Count);
+        foreach (var file in DemoFiles.GeneratedFiles)
         {
-            var result = CliRunner.Run("demo", "--regenerate", "--data", folder);
-            Assert.True(result.ExitCode == 0, result.Stderr);
-            Assert.Equal(46, DemoFiles.GeneratedFiles.Count);
-            foreach (var file in DemoFiles.GeneratedFiles)
-            {
-                var expected = File.ReadAllBytes(Path.Combine(committed, file));
-                var actual = File.ReadAllBytes(Path.Combine(folder, file));
-                Assert.True(expected.AsSpan().SequenceEqual(actual), $"{file} differs from the committed data-demo/{file}");
-            }
-        }
-        finally
-        {
-            Directory.Delete(folder, recursive: true);
+            var expected = File.ReadAllBytes(Path.Combine(committed, file));
+            var actual = File.ReadAllBytes(folder.Combine(file));
+            Assert.True(expected.AsSpan().SequenceEqual(actual), $"{file} differs from the committed data-demo/{file}");
         }
     }
 
@@ -177,11 +163,11 @@ public sealed class DemoCommandTests(DemoCommandTests.DemoRun demo) : IClassFixt
     /// <summary>Runs <c>volcast demo --out TEMP</c> once for the class.</summary>
     public sealed class DemoRun : IDisposable
     {
-        private readonly string _parent = Directory.CreateTempSubdirectory("volcast-demo-").FullName;
+        private readonly TempFolder _temp = new("demo");
 
         public DemoRun()
         {
-            Folder = Path.Combine(_parent, "out");
+            Folder = _temp.Combine("out");
             var result = CliRunner.Run("demo", "--out", Folder);
             ExitCode = result.ExitCode;
             Stdout = result.Stdout;
@@ -196,20 +182,6 @@ public sealed class DemoCommandTests(DemoCommandTests.DemoRun demo) : IClassFixt
 
         public string Stderr { get; }
 
-        /// <summary>The folder holding VolCast.sln above the test assembly.</summary>
-        public static string RepositoryRoot()
-        {
-            for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
-            {
-                if (File.Exists(Path.Combine(folder.FullName, "VolCast.sln")))
-                {
-                    return folder.FullName;
-                }
-            }
-
-            throw new DirectoryNotFoundException("VolCast.sln was not found above " + AppContext.BaseDirectory);
-        }
-
-        public void Dispose() => Directory.Delete(_parent, recursive: true);
+        public void Dispose() => _temp.Dispose();
     }
 }

@@ -14,9 +14,9 @@ public sealed class EstimateCommandTests : IDisposable
         21.00, 21.10, 20.90, 20.90, 21.25, 21.40, 21.40, 21.25, 21.75, 22.00,
     ];
 
-    private readonly string _folder = Directory.CreateTempSubdirectory("volcast-estimate-").FullName;
+    private readonly TempFolder _temp = new("estimate");
 
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [Fact]
     public void Estimate_HullTwentyOneCloses_WritesHullsAnnualVolatility()
@@ -51,7 +51,7 @@ public sealed class EstimateCommandTests : IDisposable
     public void Estimate_OutFile_IsWrittenAndNotReplacedWithoutForce()
     {
         var prices = WriteCloses("hull.csv", HullCloses, "\n");
-        var output = Path.Combine(_folder, "out", "vol.csv");
+        var output = _temp.Combine("out", "vol.csv");
 
         var first = CliRunner.Run("estimate", "--prices", prices, "--estimator", "close-to-close", "--window", "5", "--out", output);
         var written = File.ReadAllText(output);
@@ -132,7 +132,7 @@ public sealed class EstimateCommandTests : IDisposable
     [Fact]
     public void Estimate_MissingFile_ExitsThreeNamingIt()
     {
-        var missing = Path.Combine(_folder, "nowhere.csv");
+        var missing = _temp.Combine("nowhere.csv");
 
         var result = CliRunner.Run("estimate", "--prices", missing, "--estimator", "close-to-close", "--window", "5");
 
@@ -194,7 +194,7 @@ public sealed class EstimateCommandTests : IDisposable
             date = date.AddDays(1);
         }
 
-        var path = Path.Combine(_folder, name);
+        var path = _temp.Combine(name);
         File.WriteAllText(path, sb.ToString(), new UTF8Encoding(bom));
         return path;
     }

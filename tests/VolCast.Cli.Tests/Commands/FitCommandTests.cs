@@ -9,11 +9,9 @@ namespace VolCast.Cli.Tests.Commands;
 
 public sealed class FitCommandTests : IDisposable
 {
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), $"volcast-fit-{Guid.NewGuid():N}");
+    private readonly TempFolder _temp = new("fit");
 
-    public FitCommandTests() => Directory.CreateDirectory(_folder);
-
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [Theory]
     // Both models, with and without the mean.
@@ -26,7 +24,7 @@ public sealed class FitCommandTests : IDisposable
         // returns exactly (round-trip doubles).
         var closes = SimulatedCloses(800, seed: 7);
         var prices = WritePrices("prices.csv", closes);
-        var output = Path.Combine(_folder, "fit.json");
+        var output = _temp.Combine("fit.json");
         string[] args = zeroMean
             ? ["fit", "--prices", prices, "--model", model, "--zero-mean", "--out", output]
             : ["fit", "--prices", prices, "--model", model, "--out", output];
@@ -61,7 +59,7 @@ public sealed class FitCommandTests : IDisposable
     public void Fit_TooFewPrices_ExitsThreeNamingTheMinimum()
     {
         var prices = WritePrices("short.csv", SimulatedCloses(50, seed: 1));
-        var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", Path.Combine(_folder, "f.json"));
+        var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", _temp.Combine("f.json"));
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("at least 100 daily returns (101 prices)", result.Stderr, StringComparison.Ordinal);
         Assert.Contains("short.csv", result.Stderr, StringComparison.Ordinal);
@@ -71,7 +69,7 @@ public sealed class FitCommandTests : IDisposable
     public void Fit_ConstantPrices_ExitsThreeNotNaN()
     {
         var prices = WritePrices("flat.csv", Enumerable.Repeat(100.0, 300).ToArray());
-        var output = Path.Combine(_folder, "f.json");
+        var output = _temp.Combine("f.json");
         var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", output);
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("constant prices", result.Stderr, StringComparison.Ordinal);
@@ -91,7 +89,7 @@ public sealed class FitCommandTests : IDisposable
     public void Fit_ExistingOutput_ExitsTwoWithoutForce()
     {
         var prices = WritePrices("p.csv", SimulatedCloses(200, seed: 1));
-        var output = Path.Combine(_folder, "f.json");
+        var output = _temp.Combine("f.json");
         File.WriteAllText(output, "keep");
         var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", output);
         Assert.Equal(2, result.ExitCode);
@@ -101,13 +99,12 @@ public sealed class FitCommandTests : IDisposable
 
     private string WritePrices(string name, double[] closes)
     {
-        var path = Path.Combine(_folder, name);
+        var path = _temp.Combine(name);
         var text = new StringBuilder("date,close\n");
-        var date = new DateOnly(2015, 1, 5);
-        foreach (var close in closes)
+        var dates = Weekdays.From(new DateOnly(2015, 1, 5), closes.Length);
+        for (var i = 0; i < closes.Length; i++)
         {
-            text.Append(CultureInfo.InvariantCulture, $"{date:yyyy-MM-dd},{close:R}\n");
-            date = date.AddDays(date.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
+            text.Append(CultureInfo.InvariantCulture, $"{dates[i]:yyyy-MM-dd},{closes[i]:R}\n");
         }
 
         File.WriteAllText(path, text.ToString());
@@ -116,14 +113,14 @@ public sealed class FitCommandTests : IDisposable
 
     private static double[] SimulatedCloses(int n, int seed)
     {
-        // Seeded GARCH(1,1) path (ω = 3e−6, α = 0.08, β = 0.9), Box–Muller shocks; invented data.
+        // Seeded GARCH(1,1) path (ω = 3e−6, α = 0.08, β = 0.9), Gaussian shocks; invented data.
         var random = new Random(seed);
         var closes = new double[n];
         closes[0] = 100;
         var h = 3e-6 / 0.02;
         for (var i = 1; i < n; i++)
         {
-            var e = Math.Sqrt(h) * Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
+            var e = Math.Sqrt(h) * Gaussian.Next(random);
             closes[i] = closes[i - 1] * Math.Exp(0.0002 + e);
             h = 3e-6 + (0.08 * e * e) + (0.9 * h);
         }

@@ -8,11 +8,9 @@ namespace VolCast.Cli.Tests.Commands;
 public sealed class ImpliedCommandTests : IDisposable
 {
     private const string Header = "date,underlying,expiry,strike,type,price,rate,dividend_yield";
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), $"volcast-implied-{Guid.NewGuid():N}");
+    private readonly TempFolder _temp = new("implied");
 
-    public ImpliedCommandTests() => Directory.CreateDirectory(_folder);
-
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [Fact]
     public void Implied_GoodQuotes_WritesDateIvAndDiagnostics()
@@ -20,7 +18,7 @@ public sealed class ImpliedCommandTests : IDisposable
         // Invented demo chain: flat 25% (20 days) and 30% (50 days) smiles priced with Black-Scholes-Merton; the
         // expected 30-day value is the total-variance interpolation written out from its definition [D].
         var quotes = WriteQuotes("quotes.csv", GoodChain());
-        var output = Path.Combine(_folder, "iv.csv");
+        var output = _temp.Combine("iv.csv");
         var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", output);
 
         Assert.Equal(0, result.ExitCode);
@@ -32,7 +30,7 @@ public sealed class ImpliedCommandTests : IDisposable
         Assert.StartsWith("2024-03-01,", lines[1], StringComparison.Ordinal);
         Assert.Equal(expected, double.Parse(lines[1].Split(',')[1], CultureInfo.InvariantCulture), 1e-9);
         Assert.StartsWith("2024-03-04,", lines[2], StringComparison.Ordinal);
-        Assert.True(File.Exists(Path.Combine(_folder, "iv.diagnostics.csv")));
+        Assert.True(File.Exists(_temp.Combine("iv.diagnostics.csv")));
         Assert.Contains("wrote 2 dates", result.Stdout, StringComparison.Ordinal);
     }
 
@@ -44,12 +42,12 @@ public sealed class ImpliedCommandTests : IDisposable
         rows.Add("2024-03-05,100,2024-03-25,105,call,1.0,0.03,0.01");
         rows.Add("2024-03-01,100,2024-03-21,100,put,0,0.03,0.01"); // zero price
         var quotes = WriteQuotes("quotes.csv", rows);
-        var output = Path.Combine(_folder, "iv.csv");
+        var output = _temp.Combine("iv.csv");
         var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", output);
 
         Assert.Equal(0, result.ExitCode);
         Assert.Contains("1 dates have no value", result.Stderr, StringComparison.Ordinal);
-        var diagnostics = File.ReadAllText(Path.Combine(_folder, "iv.diagnostics.csv"));
+        var diagnostics = File.ReadAllText(_temp.Combine("iv.diagnostics.csv"));
         Assert.Contains("date,tenor-after-last-expiry,rejected,2024-03-05", diagnostics, StringComparison.Ordinal);
         Assert.Contains("quote,non-positive-input,rejected,2024-03-01,2024-03-21,100,put,", diagnostics, StringComparison.Ordinal);
         Assert.Equal(3, File.ReadAllLines(output).Length);
@@ -59,7 +57,7 @@ public sealed class ImpliedCommandTests : IDisposable
     public void Implied_MissingColumn_ExitsThreeNamingLineAndColumn()
     {
         var quotes = WriteQuotes("quotes.csv", ["2024-03-01,100,2024-04-19,100,3.1,0.03,0.01"], "date,underlying,expiry,strike,price,rate,dividend_yield");
-        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", Path.Combine(_folder, "iv.csv"));
+        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", _temp.Combine("iv.csv"));
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("line 1", result.Stderr, StringComparison.Ordinal);
         Assert.Contains("'type'", result.Stderr, StringComparison.Ordinal);
@@ -71,7 +69,7 @@ public sealed class ImpliedCommandTests : IDisposable
     {
         var rows = GoodChain().Take(3).Append("01/03/2024,100,2024-04-19,100,call,3.1,0.03,0.01");
         var quotes = WriteQuotes("quotes.csv", rows);
-        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", Path.Combine(_folder, "iv.csv"));
+        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", _temp.Combine("iv.csv"));
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("line 5, column 'date'", result.Stderr, StringComparison.Ordinal);
         Assert.Contains("'01/03/2024'", result.Stderr, StringComparison.Ordinal);
@@ -82,10 +80,10 @@ public sealed class ImpliedCommandTests : IDisposable
     public void Implied_UnknownType_ExitsThreeNamingLine()
     {
         var quotes = WriteQuotes("quotes.csv", ["2024-03-01,100,2024-04-19,100,straddle,3.1,0.03,0.01"]);
-        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", Path.Combine(_folder, "iv.csv"));
+        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", _temp.Combine("iv.csv"));
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("line 2, column 'type'", result.Stderr, StringComparison.Ordinal);
-        Assert.False(File.Exists(Path.Combine(_folder, "iv.csv")));
+        Assert.False(File.Exists(_temp.Combine("iv.csv")));
         AssertNoStackTrace(result);
     }
 
@@ -93,19 +91,19 @@ public sealed class ImpliedCommandTests : IDisposable
     public void Implied_NoDateWithValue_ExitsThreeAndWritesOnlyDiagnostics()
     {
         var quotes = WriteQuotes("quotes.csv", ["2024-03-01,100,2024-04-19,100,call,3.1,0.03,0.01"]);
-        var output = Path.Combine(_folder, "iv.csv");
+        var output = _temp.Combine("iv.csv");
         var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", output);
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("no date has a usable pair", result.Stderr, StringComparison.Ordinal);
         Assert.False(File.Exists(output));
-        Assert.True(File.Exists(Path.Combine(_folder, "iv.diagnostics.csv")));
+        Assert.True(File.Exists(_temp.Combine("iv.diagnostics.csv")));
     }
 
     [Fact]
     public void Implied_ExistingOutput_RefusesWithoutForceAndReplacesWithIt()
     {
         var quotes = WriteQuotes("quotes.csv", GoodChain());
-        var output = Path.Combine(_folder, "iv.csv");
+        var output = _temp.Combine("iv.csv");
         File.WriteAllText(output, "keep");
         var refused = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--out", output);
         Assert.Equal(2, refused.ExitCode);
@@ -133,7 +131,7 @@ public sealed class ImpliedCommandTests : IDisposable
     public void Implied_BadTenor_ExitsTwo(string tenor)
     {
         var quotes = WriteQuotes("quotes.csv", GoodChain());
-        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", tenor, "--out", Path.Combine(_folder, "iv.csv"));
+        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", tenor, "--out", _temp.Combine("iv.csv"));
         Assert.Equal(2, result.ExitCode);
         Assert.Contains("--tenor", result.Stderr, StringComparison.Ordinal);
     }
@@ -142,7 +140,7 @@ public sealed class ImpliedCommandTests : IDisposable
     public void Implied_RateAsPercent_ExitsTwo()
     {
         var quotes = WriteQuotes("quotes.csv", GoodChain());
-        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--rate", "5", "--out", Path.Combine(_folder, "iv.csv"));
+        var result = CliRunner.Run("implied", "--quotes", quotes, "--tenor", "30d", "--rate", "5", "--out", _temp.Combine("iv.csv"));
         Assert.Equal(2, result.ExitCode);
     }
 
@@ -170,17 +168,17 @@ public sealed class ImpliedCommandTests : IDisposable
     public void Implied_BuiltExecutable_WritesDefaultOutputInWorkingFolder()
     {
         var quotes = WriteQuotes("quotes.csv", GoodChain());
-        var result = CliRunner.RunProcess(_folder, "implied", "--quotes", quotes, "--tenor", "30d");
+        var result = CliRunner.RunProcess(_temp.Path, "implied", "--quotes", quotes, "--tenor", "30d");
         Assert.True(result.ExitCode == 0, result.Stderr);
-        Assert.True(File.Exists(Path.Combine(_folder, "implied-30d.csv")));
-        Assert.True(File.Exists(Path.Combine(_folder, "implied-30d.diagnostics.csv")));
+        Assert.True(File.Exists(_temp.Combine("implied-30d.csv")));
+        Assert.True(File.Exists(_temp.Combine("implied-30d.diagnostics.csv")));
     }
 
     [Fact]
     public void Implied_BuiltExecutableBadFile_ExitsThreeWithoutStackTrace()
     {
         var quotes = WriteQuotes("quotes.csv", ["2024-03-01,100,2024-04-19,100,call,abc,0.03,0.01"]);
-        var result = CliRunner.RunProcess(_folder, "implied", "--quotes", quotes, "--tenor", "30d");
+        var result = CliRunner.RunProcess(_temp.Path, "implied", "--quotes", quotes, "--tenor", "30d");
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("line 2, column 'price'", result.Stderr, StringComparison.Ordinal);
         AssertNoStackTrace(result);
@@ -214,7 +212,7 @@ public sealed class ImpliedCommandTests : IDisposable
 
     private string WriteQuotes(string name, IEnumerable<string> rows, string header = Header)
     {
-        var path = Path.Combine(_folder, name);
+        var path = _temp.Combine(name);
         var text = new StringBuilder(header).Append('\n');
         foreach (var row in rows)
         {

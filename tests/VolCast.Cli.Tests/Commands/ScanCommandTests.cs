@@ -15,23 +15,23 @@ public sealed class ScanCommandTests : IDisposable
 {
     private static readonly string[] SameBytes = ["forecasts.csv", "metrics.csv", "metrics.json"];
 
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), $"volcast-scan-{Guid.NewGuid():N}");
+    private readonly TempFolder _temp = new("scan");
     private readonly string _prices;
     private readonly string _implied;
     private readonly string _config;
 
     public ScanCommandTests()
     {
-        _prices = Path.Combine(_folder, "prices");
-        _implied = Path.Combine(_folder, "implied");
+        _prices = _temp.Combine("prices");
+        _implied = _temp.Combine("implied");
         Directory.CreateDirectory(_prices);
         Directory.CreateDirectory(_implied);
         // Fewer bootstrap replications than the default keep the tests quick; the scan passes the same file to every asset.
-        _config = Path.Combine(_folder, "config.json");
+        _config = _temp.Combine("config.json");
         File.WriteAllText(_config, "{\"mcs\": {\"replications\": 200}}\n");
     }
 
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [Fact]
     public void Scan_SmallUniverse_EachAssetMatchesBacktestAloneByteForByte()
@@ -40,14 +40,14 @@ public sealed class ScanCommandTests : IDisposable
         WriteAsset("alpha", 11, withImplied: true);
         WriteAsset("beta", 12, withImplied: true);
         WriteAsset("gamma", 13, withImplied: false);
-        var output = Path.Combine(_folder, "scan");
+        var output = _temp.Combine("scan");
 
         var scan = CliRunner.Run("scan", "--prices-dir", _prices, "--implied-dir", _implied, "--iv-unit", "decimal", "--config", _config, "--out", output, "--jobs", "2");
 
         Assert.True(scan.ExitCode == 0, scan.Stderr);
         foreach (var name in new[] { "alpha", "beta", "gamma" })
         {
-            var alone = Path.Combine(_folder, "alone-" + name);
+            var alone = _temp.Combine("alone-" + name);
             List<string> args = ["backtest", "--prices", Path.Combine(_prices, name + ".csv"), "--iv-unit", "decimal", "--config", _config, "--out", alone];
             if (name != "gamma")
             {
@@ -89,7 +89,7 @@ public sealed class ScanCommandTests : IDisposable
             WriteAsset(name, seed, withImplied: true);
         }
 
-        var output = Path.Combine(_folder, "scan");
+        var output = _temp.Combine("scan");
         var request = new ScanRequest(_prices, _implied, ImpliedUnit.Decimal, BacktestConfigFile.Read(_config), _config, output, Jobs: 1, Force: false);
         using var stop = new CancellationTokenSource();
         var first = ScanRunner.Run(request, new CancelAfterFirst(stop), stop.Token);
@@ -129,7 +129,7 @@ public sealed class ScanCommandTests : IDisposable
         WriteAsset("good1", 31, withImplied: true);
         WriteAsset("good2", 32, withImplied: true);
         File.WriteAllText(Path.Combine(_prices, "broken.csv"), "date,open,high,low,close\n2024-01-02,1,1,1,1\nnot-a-date,1,1,1,1\n");
-        var output = Path.Combine(_folder, "scan");
+        var output = _temp.Combine("scan");
 
         var scan = CliRunner.Run("scan", "--prices-dir", _prices, "--implied-dir", _implied, "--iv-unit", "decimal", "--config", _config, "--out", output);
 
@@ -160,7 +160,7 @@ public sealed class ScanCommandTests : IDisposable
     [Fact]
     public void Scan_MissingPricesFolder_IsBadUsage()
     {
-        var scan = CliRunner.Run("scan", "--prices-dir", Path.Combine(_folder, "nowhere"), "--out", Path.Combine(_folder, "scan"));
+        var scan = CliRunner.Run("scan", "--prices-dir", _temp.Combine("nowhere"), "--out", _temp.Combine("scan"));
 
         Assert.Equal(2, scan.ExitCode);
         Assert.Contains("prices folder does not exist", scan.Stderr, StringComparison.Ordinal);

@@ -10,9 +10,9 @@ public sealed class BadInputCliTests : IDisposable
 {
     private static readonly string Folder = Path.Combine(AppContext.BaseDirectory, "Fixtures", "BadInput");
 
-    private readonly string _work = Directory.CreateTempSubdirectory("volcast-badinput-").FullName;
+    private readonly TempFolder _temp = new("badinput");
 
-    public void Dispose() => Directory.Delete(_work, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     /// <summary>One entry per catalogue row and command: file, reader, iv unit, line, exit code, fragment, command.</summary>
     public static TheoryData<string, string, string, int?, int, string, string> Rows()
@@ -61,7 +61,7 @@ public sealed class BadInputCliTests : IDisposable
         var path = Path.Combine(Folder, file);
         var before = File.ReadAllBytes(path);
         var written = File.GetLastWriteTimeUtc(path);
-        var output = Path.Combine(_work, "out");
+        var output = _temp.Combine("out");
         var args = Arguments(reader, unit, path, command, output);
 
         var result = CliRunner.Run(args);
@@ -94,5 +94,5 @@ public sealed class BadInputCliTests : IDisposable
         };
     }
 
-    private string ValidPrices() => ReliabilityFiles.Prices(_work, "valid.csv", 300, seed: 8);
+    private string ValidPrices() => ReliabilityFiles.Prices(_temp.Path, "valid.csv", 300, seed: 8);
 }

@@ -8,15 +8,15 @@ namespace VolCast.Cli.Tests.Reliability;
 // input (bytes or timestamp); an existing output is refused without --force.
 public sealed class DataSafetyTests : IDisposable
 {
-    private readonly string _work = Directory.CreateTempSubdirectory("volcast-safety-").FullName;
+    private readonly TempFolder _temp = new("safety");
 
-    public void Dispose() => Directory.Delete(_work, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [Fact]
     public void Backtest_InterruptedBeforeItStarts_Exits130SaysSoAndWritesNothing()
     {
-        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 600, seed: 1);
-        var output = Path.Combine(_work, "out");
+        var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", 600, seed: 1);
+        var output = _temp.Combine("out");
         using var interrupt = new CancellationTokenSource();
         interrupt.Cancel();
 
@@ -27,7 +27,7 @@ public sealed class DataSafetyTests : IDisposable
         Assert.Contains("interrupted", stderr, StringComparison.Ordinal);
         Assert.Contains("no results were written", stderr, StringComparison.Ordinal);
         Assert.False(Directory.Exists(output));
-        Assert.Empty(Directory.GetFileSystemEntries(_work, ".out.*"));
+        Assert.Empty(Directory.GetFileSystemEntries(_temp.Path, ".out.*"));
     }
 
     [Theory]
@@ -37,8 +37,8 @@ public sealed class DataSafetyTests : IDisposable
     [InlineData(1500)] // perhaps after the results are written
     public void Backtest_InterruptedAtAnyMoment_LeavesEitherNoFolderOrACompleteOne(int afterMilliseconds)
     {
-        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 2500, seed: 2);
-        var output = Path.Combine(_work, "out");
+        var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", 2500, seed: 2);
+        var output = _temp.Combine("out");
         using var interrupt = new CancellationTokenSource();
         interrupt.CancelAfter(afterMilliseconds);
 
@@ -58,16 +58,16 @@ public sealed class DataSafetyTests : IDisposable
             Assert.False(Directory.Exists(output));
         }
 
-        Assert.Empty(Directory.GetFileSystemEntries(_work, ".out.*"));
+        Assert.Empty(Directory.GetFileSystemEntries(_temp.Path, ".out.*"));
     }
 
     [Fact]
     public void EveryCommand_ValidInputs_LeavesTheInputBytesAndTimestampsUnchanged()
     {
-        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 400, seed: 3);
-        var implied = ReliabilityFiles.Implied(_work, "implied.csv", new DateOnly(1990, 1, 1), 400);
-        var config = ReliabilityFiles.FastConfig(_work);
-        var demo = Path.Combine(_work, "demo");
+        var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", 400, seed: 3);
+        var implied = ReliabilityFiles.Implied(_temp.Path, "implied.csv", new DateOnly(1990, 1, 1), 400);
+        var config = ReliabilityFiles.FastConfig(_temp.Path);
+        var demo = _temp.Combine("demo");
         Assert.Equal(0, CliRunner.Run("demo", "--regenerate", "--data", demo).ExitCode);
         var quotes = Directory.GetFiles(demo, "*option-quotes.csv").Single();
         string[] inputs = [prices, implied, config, quotes];
@@ -75,12 +75,12 @@ public sealed class DataSafetyTests : IDisposable
         // Outputs are written beside the inputs, the place most likely to catch an accidental overwrite.
         string[][] runs =
         [
-            ["estimate", "--prices", prices, "--estimator", "yang-zhang", "--window", "21", "--out", Path.Combine(_work, "vol.csv")],
-            ["fit", "--prices", prices, "--model", "gjr-garch", "--out", Path.Combine(_work, "fit.json")],
-            ["cone", "--prices", prices, "--implied", implied, "--out", Path.Combine(_work, "cone")],
-            ["implied", "--quotes", quotes, "--tenor", "30d", "--out", Path.Combine(_work, "iv.csv")],
-            ["backtest", "--prices", prices, "--implied", implied, "--iv-unit", "decimal", "--config", config, "--out", Path.Combine(_work, "bt")],
-            ["backtest", "--prices", prices, "--config", config, "--out", _work, "--force"], // results beside the inputs
+            ["estimate", "--prices", prices, "--estimator", "yang-zhang", "--window", "21", "--out", _temp.Combine("vol.csv")],
+            ["fit", "--prices", prices, "--model", "gjr-garch", "--out", _temp.Combine("fit.json")],
+            ["cone", "--prices", prices, "--implied", implied, "--out", _temp.Combine("cone")],
+            ["implied", "--quotes", quotes, "--tenor", "30d", "--out", _temp.Combine("iv.csv")],
+            ["backtest", "--prices", prices, "--implied", implied, "--iv-unit", "decimal", "--config", config, "--out", _temp.Combine("bt")],
+            ["backtest", "--prices", prices, "--config", config, "--out", _temp.Path, "--force"], // results beside the inputs
         ];
 
         foreach (var run in runs)
@@ -101,13 +101,13 @@ public sealed class DataSafetyTests : IDisposable
     [InlineData("cone", "cone.csv")] // cone writes into a folder and refuses its own existing files
     public void Command_ExistingOutput_RefusedWithoutForceAndLeftAlone(string command, string ownFile)
     {
-        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 400, seed: 4);
-        var output = Path.Combine(_work, "existing");
+        var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", 400, seed: 4);
+        var output = _temp.Combine("existing");
         Directory.CreateDirectory(output);
         File.WriteAllText(Path.Combine(output, "notes.txt"), "keep me");
         File.WriteAllText(Path.Combine(output, ownFile), "an earlier result");
         string[] args = command == "backtest"
-            ? ["backtest", "--prices", prices, "--config", ReliabilityFiles.FastConfig(_work), "--out", output]
+            ? ["backtest", "--prices", prices, "--config", ReliabilityFiles.FastConfig(_temp.Path), "--out", output]
             : ["cone", "--prices", prices, "--out", output];
 
         var result = CliRunner.Run(args);

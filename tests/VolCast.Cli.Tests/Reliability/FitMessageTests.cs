@@ -6,9 +6,9 @@ namespace VolCast.Cli.Tests.Reliability;
 // never .NET's "(Parameter 'returns')" and never a stack trace.
 public sealed class FitMessageTests : IDisposable
 {
-    private readonly string _work = Directory.CreateTempSubdirectory("volcast-fitmsg-").FullName;
+    private readonly TempFolder _temp = new("fitmsg");
 
-    public void Dispose() => Directory.Delete(_work, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [Theory]
     [InlineData("garch")]
@@ -16,8 +16,8 @@ public sealed class FitMessageTests : IDisposable
     public void Fit_ConstantPrices_Exits3WithAPlainMessageNamingFileAndMinimum(string model)
     {
         // 300 identical closes: every return is zero, so the fitter refuses the data (zero variance).
-        var prices = ReliabilityFiles.Prices(_work, "flat.csv", 300, seed: 11, (_, date, _) => (date, 100.0));
-        var output = Path.Combine(_work, "fit.json");
+        var prices = ReliabilityFiles.Prices(_temp.Path, "flat.csv", 300, seed: 11, (_, date, _) => (date, 100.0));
+        var output = _temp.Combine("fit.json");
 
         var result = CliRunner.Run("fit", "--prices", prices, "--model", model, "--out", output);
 
@@ -34,12 +34,12 @@ public sealed class FitMessageTests : IDisposable
     public void Fit_OneHugeJump_FitsOrWarnsButNeverCrashes()
     {
         // A single 60% overnight jump in an otherwise quiet series: the fit must end with parameters or a warning.
-        var prices = ReliabilityFiles.Prices(_work, "jump.csv", 500, seed: 12, (i, date, close) => (date, i == 250 ? close * 1.6 : close));
+        var prices = ReliabilityFiles.Prices(_temp.Path, "jump.csv", 500, seed: 12, (i, date, close) => (date, i == 250 ? close * 1.6 : close));
 
-        var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", Path.Combine(_work, "fit.json"));
+        var result = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", _temp.Combine("fit.json"));
 
         Assert.True(result.ExitCode == 0, result.Stderr);
         Assert.Contains("persistence", result.Stdout, StringComparison.Ordinal);
-        Assert.DoesNotContain("NaN", File.ReadAllText(Path.Combine(_work, "fit.json")), StringComparison.Ordinal);
+        Assert.DoesNotContain("NaN", File.ReadAllText(_temp.Combine("fit.json")), StringComparison.Ordinal);
     }
 }

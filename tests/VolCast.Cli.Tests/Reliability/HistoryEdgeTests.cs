@@ -10,16 +10,16 @@ namespace VolCast.Cli.Tests.Reliability;
 // a history too short for the settings gets a clear message with the minimum; a 100-year history works.
 public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
 {
-    private readonly string _work = Directory.CreateTempSubdirectory("volcast-history-").FullName;
+    private readonly TempFolder _temp = new("history");
 
-    public void Dispose() => Directory.Delete(_work, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [Fact]
     public void Backtest_GapsAndStaleStretch_AreCountedWarningsInSummaryAndRunJson()
     {
         // Two gaps of 30 calendar days (rows 100 and 250) and a run of 8 identical closes (rows 400-407).
         double? held = null;
-        var prices = ReliabilityFiles.Prices(_work, "gappy.csv", 700, seed: 5, (i, date, close) =>
+        var prices = ReliabilityFiles.Prices(_temp.Path, "gappy.csv", 700, seed: 5, (i, date, close) =>
         {
             var d = i is 100 or 250 ? date.AddDays(30) : date;
             if (i == 400)
@@ -29,9 +29,9 @@ public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
 
             return (d, i is > 400 and < 408 ? held!.Value : close);
         });
-        var folder = Path.Combine(_work, "out");
+        var folder = _temp.Combine("out");
 
-        var result = CliRunner.Run("backtest", "--prices", prices, "--config", ReliabilityFiles.FastConfig(_work), "--out", folder);
+        var result = CliRunner.Run("backtest", "--prices", prices, "--config", ReliabilityFiles.FastConfig(_temp.Path), "--out", folder);
 
         Assert.True(result.ExitCode == 0, result.Stderr);
         Assert.Equal(2, Count(result.Stderr, "a gap of "));
@@ -48,11 +48,11 @@ public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
     [Fact]
     public void Backtest_ImpliedUnitNotDeclared_WarningIsRepeatedInRunJson()
     {
-        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 400, seed: 6);
-        var implied = ReliabilityFiles.Implied(_work, "implied.csv", new DateOnly(1990, 1, 1), 400, percent: true);
-        var folder = Path.Combine(_work, "out");
+        var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", 400, seed: 6);
+        var implied = ReliabilityFiles.Implied(_temp.Path, "implied.csv", new DateOnly(1990, 1, 1), 400, percent: true);
+        var folder = _temp.Combine("out");
 
-        var result = CliRunner.Run("backtest", "--prices", prices, "--implied", implied, "--config", ReliabilityFiles.FastConfig(_work), "--out", folder);
+        var result = CliRunner.Run("backtest", "--prices", prices, "--implied", implied, "--config", ReliabilityFiles.FastConfig(_temp.Path), "--out", folder);
 
         Assert.True(result.ExitCode == 0, result.Stderr);
         Assert.Contains("unit was not declared; read as percent", result.Stderr, StringComparison.Ordinal);
@@ -63,10 +63,10 @@ public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
     [Fact]
     public void Backtest_ImpliedInPercentDeclaredDecimal_Exits3NamingTheUnit()
     {
-        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 400, seed: 6);
-        var implied = ReliabilityFiles.Implied(_work, "implied.csv", new DateOnly(1990, 1, 1), 400, percent: true);
+        var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", 400, seed: 6);
+        var implied = ReliabilityFiles.Implied(_temp.Path, "implied.csv", new DateOnly(1990, 1, 1), 400, percent: true);
 
-        var result = CliRunner.Run("backtest", "--prices", prices, "--implied", implied, "--iv-unit", "decimal", "--out", Path.Combine(_work, "out"));
+        var result = CliRunner.Run("backtest", "--prices", prices, "--implied", implied, "--iv-unit", "decimal", "--out", _temp.Combine("out"));
 
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("implied.csv, line 2", result.Stderr, StringComparison.Ordinal);
@@ -77,15 +77,15 @@ public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
     [Fact]
     public void Backtest_ImpliedDatesBeforeThePrices_Exits3NamingTheImpliedFile()
     {
-        var prices = ReliabilityFiles.Prices(_work, "prices.csv", 400, seed: 7);
-        var implied = ReliabilityFiles.Implied(_work, "old-implied.csv", new DateOnly(1970, 1, 1), 300);
+        var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", 400, seed: 7);
+        var implied = ReliabilityFiles.Implied(_temp.Path, "old-implied.csv", new DateOnly(1970, 1, 1), 300);
 
-        var result = CliRunner.Run("backtest", "--prices", prices, "--implied", implied, "--iv-unit", "decimal", "--out", Path.Combine(_work, "out"));
+        var result = CliRunner.Run("backtest", "--prices", prices, "--implied", implied, "--iv-unit", "decimal", "--out", _temp.Combine("out"));
 
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("old-implied.csv", result.Stderr, StringComparison.Ordinal);
         Assert.DoesNotContain("   at ", result.Stderr, StringComparison.Ordinal);
-        Assert.False(Directory.Exists(Path.Combine(_work, "out")));
+        Assert.False(Directory.Exists(_temp.Combine("out")));
     }
 
     [Theory]
@@ -93,9 +93,9 @@ public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
     [InlineData(40, "selection window of 504 trading days is longer than the sample")] // longer than the horizon, shorter than the default selection window
     public void Backtest_VeryShortHistory_Exits3StatingTheMinimum(int rows, string fragment)
     {
-        var prices = ReliabilityFiles.Prices(_work, "short.csv", rows, seed: 9);
+        var prices = ReliabilityFiles.Prices(_temp.Path, "short.csv", rows, seed: 9);
 
-        var result = CliRunner.Run("backtest", "--prices", prices, "--out", Path.Combine(_work, "out"));
+        var result = CliRunner.Run("backtest", "--prices", prices, "--out", _temp.Combine("out"));
 
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("short.csv", result.Stderr, StringComparison.Ordinal);
@@ -107,8 +107,8 @@ public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
     public void Backtest_OneHundredYearHistory_RunsAndWritesFiniteResults()
     {
         const int Rows = 100 * 252;
-        var prices = ReliabilityFiles.Prices(_work, "century.csv", Rows, seed: 10);
-        var folder = Path.Combine(_work, "out");
+        var prices = ReliabilityFiles.Prices(_temp.Path, "century.csv", Rows, seed: 10);
+        var folder = _temp.Combine("out");
         GC.Collect();
         var allocatedBefore = GC.GetTotalAllocatedBytes(precise: true);
         var clock = Stopwatch.StartNew();

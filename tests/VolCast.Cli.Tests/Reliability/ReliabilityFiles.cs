@@ -21,13 +21,13 @@ internal static class ReliabilityFiles
         for (var i = 0; i < days; i++)
         {
             var open = close;
-            close = open * Math.Exp(0.012 * Normal(random));
+            close = open * Math.Exp(0.012 * Gaussian.Next(random));
             var (d, c) = edit is null ? (date, close) : edit(i, date, close);
             close = c;
             var high = Math.Max(open, close) * (1 + (0.004 * random.NextDouble()));
             var low = Math.Min(open, close) * (1 - (0.004 * random.NextDouble()));
             sb.Append(CultureInfo.InvariantCulture, $"{d:yyyy-MM-dd},{open:R},{high:R},{low:R},{close:R}\n");
-            date = NextWeekday(d);
+            date = Weekdays.After(d);
         }
 
         var path = Path.Combine(folder, name);
@@ -44,7 +44,7 @@ internal static class ReliabilityFiles
         {
             var iv = 0.2 + (0.02 * Math.Sin(i / 30.0));
             sb.Append(CultureInfo.InvariantCulture, $"{date:yyyy-MM-dd},{(percent ? iv * 100 : iv):R}\n");
-            date = NextWeekday(date);
+            date = Weekdays.After(date);
         }
 
         var path = Path.Combine(folder, name);
@@ -59,19 +59,4 @@ internal static class ReliabilityFiles
         File.WriteAllText(path, "{ \"sweep\": false, \"selectionWindowDays\": 60, \"forecasters\": [\"ewma:0.94\", \"close-to-close:21\"]" + extra + " }");
         return path;
     }
-
-    /// <summary>The next Monday-to-Friday date.</summary>
-    public static DateOnly NextWeekday(DateOnly date)
-    {
-        var next = date.AddDays(1);
-        while (next.DayOfWeek is DayOfWeek.Saturday or DayOfWeek.Sunday)
-        {
-            next = next.AddDays(1);
-        }
-
-        return next;
-    }
-
-    private static double Normal(Random random) =>
-        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }

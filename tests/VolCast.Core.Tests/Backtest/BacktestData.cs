@@ -25,7 +25,7 @@ internal static class BacktestData
         var sigma2 = longRun;
         for (var burn = 0; burn < 500; burn++)
         {
-            var e = Math.Sqrt(sigma2) * GarchSimulation.Normal(random);
+            var e = Math.Sqrt(sigma2) * Gaussian.Next(random);
             sigma2 = p.Omega + (p.Alpha * e * e) + (p.Beta * sigma2);
         }
 
@@ -37,7 +37,7 @@ internal static class BacktestData
             if (t > 0)
             {
                 // sigma2 is σ²_t, known at t − 1; draw r_t.
-                var e = Math.Sqrt(sigma2) * GarchSimulation.Normal(random);
+                var e = Math.Sqrt(sigma2) * Gaussian.Next(random);
                 close[t] = close[t - 1] * Math.Exp(e);
                 sigma2 = p.Omega + (p.Alpha * e * e) + (p.Beta * sigma2);
             }

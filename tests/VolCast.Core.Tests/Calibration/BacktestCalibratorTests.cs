@@ -1,5 +1,6 @@
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
+using VolCast.Core.Data;
 using VolCast.Core.Tests.Backtest;
 
 namespace VolCast.Core.Tests.Calibration;
@@ -47,6 +48,34 @@ public sealed class BacktestCalibratorTests
         Assert.Equal(warmUp, calibration.Forecasters[1].Coverage.MissingCount);
         Assert.All(calibration.Forecasters, f => Assert.Equal(0, f.InvalidValueCount));
         Assert.All(calibration.Forecasters, f => Assert.Equal(3, f.Regimes.Length));
+    }
+
+    [Fact]
+    public void Evaluate_ImpliedMissingOnSomeDates_CountsThemInBothChecksAndNamesThemInTheVerdict()
+    {
+        var (prices, full) = BacktestData.GarchWithTrueImplied(1200, 21, seed: 3);
+        // Implied is missing on every 50th quote from the 7th; the forecasters are not.
+        var keep = Enumerable.Range(0, full.Count).Where(i => i % 50 != 7).ToArray();
+        var dates = full.Dates.ToArray();
+        var volatility = full.Volatility.ToArray();
+        var implied = new ImpliedSeries(keep.Select(i => dates[i]).ToArray(), keep.Select(i => volatility[i]).ToArray());
+        var result = Backtester.Run(prices, implied, Settings(BacktestHorizon.Days(21)));
+
+        var calibration = BacktestCalibrator.Evaluate(result, prices);
+
+        // The dates without implied on closed windows are counted in both checks and said in implied's verdict.
+        var closed = Enumerable.Range(0, result.Dates.Length).Where(i => result.WindowDays[i] is not null).ToArray();
+        var missingImplied = closed.Count(i => result.Implied[i] is null);
+        Assert.True(missingImplied > 0, "the gaps should fall on closed windows");
+        Assert.Equal(missingImplied, calibration.Report.Calibrations[0].MissingCount);
+        Assert.Equal(missingImplied, calibration.Report.Coverages[0].MissingCount);
+        Assert.StartsWith("ranges from implied ", calibration.Verdicts[0], StringComparison.Ordinal);
+        Assert.Contains($"{missingImplied} dates had no forecast", calibration.Verdicts[0], StringComparison.Ordinal);
+
+        // A forecaster's missing dates are only its own (its warm-up), not implied's; every forecaster is scored at
+        // the five default strikes.
+        Assert.Equal(closed.Count(i => result.Forecasts[1].Values[i] is null), calibration.Report.Coverages[2].MissingCount);
+        Assert.All(calibration.Report.Calibrations, c => Assert.Equal(5, c.Strikes.Length));
     }
 
     [Fact]

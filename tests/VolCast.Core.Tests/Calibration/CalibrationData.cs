@@ -18,7 +18,7 @@ internal static class CalibrationData
         for (var t = 0; t < days; t++)
         {
             closes[t] = Math.Exp(logPrice);
-            logPrice += (-0.5 * dailySd * dailySd) + (dailySd * Gaussian(random));
+            logPrice += (-0.5 * dailySd * dailySd) + (dailySd * Gaussian.Next(random));
         }
 
         return closes;
@@ -45,13 +45,5 @@ internal static class CalibrationData
         var values = new double?[count];
         Array.Fill(values, volatility);
         return new ForecasterVolatility(name, values);
-    }
-
-    public static double Gaussian(Random random)
-    {
-        // Box-Muller; 1 − U keeps the logarithm's argument in (0, 1].
-        var u1 = 1.0 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
     }
 }

@@ -10,10 +10,8 @@ public sealed class VolatilityConeTests
         var returns = new double[count];
         for (var i = 0; i < count; i++)
         {
-            // Box-Muller; the scale is enough to make a cone with a spread, the law does not matter here.
-            var u1 = 1.0 - random.NextDouble();
-            var u2 = random.NextDouble();
-            returns[i] = dailyVolatility * Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
+            // The scale is enough to make a cone with a spread; the law does not matter here.
+            returns[i] = dailyVolatility * Gaussian.Next(random);
         }
 
         return returns;

@@ -2,7 +2,6 @@ using FsCheck;
 using FsCheck.Xunit;
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
-using VolCast.Core.Tests.Support;
 
 namespace VolCast.Core.Tests.Estimators;
 
@@ -77,15 +76,24 @@ public sealed class BarVarianceTests
     }
 
     [Property(MaxTest = 40)]
-    public bool Compute_AllPricesScaledByPositiveFactor_EveryEstimatorUnchanged(PositiveInt seed, NormalFloat logFactor)
+    public bool Compute_AllPricesScaledByPositiveFactor_EveryEstimatorUnchanged(PositiveInt seed, NormalFloat logFactor) =>
+        ScaledHistoryGivesTheSameVolatility(seed.Get, logFactor.Get);
+
+    [Theory]
+    // Found by the property above: seed 42, factor e^13 (a 2-day window whose two returns nearly coincide).
+    [InlineData(42, 13.0)]
+    public void Compute_AllPricesScaledByPositiveFactor_FoundCases(int seed, double logFactor) =>
+        Assert.True(ScaledHistoryGivesTheSameVolatility(seed, logFactor));
+
+    private static bool ScaledHistoryGivesTheSameVolatility(int seed, double logFactor)
     {
         // Every estimator uses only price ratios, so a change of currency or a split applied to the whole history
         // leaves it unchanged (the formulas of docs/methods.md#parkinson to #yang-zhang); rounding of the scaled prices allows ~1e-9 relative, plus an
         // absolute 1e-13 (annualized): when two returns in a window of 2 nearly coincide, their sample deviation is
         // a difference of nearly equal numbers, and the ~1e-16 rounding of each log return is all that is left of it
         // (seed 42, factor e^13 gives 7.7e-7 against 7.7e-7 + 2.5e-15).
-        var factor = Math.Exp(Math.Clamp(logFactor.Get, -20, 20));
-        var prices = Some.GbmBars(seed.Get, days: 80, overnightVolatility: 0.004);
+        var factor = Math.Exp(Math.Clamp(logFactor, -20, 20));
+        var prices = Some.GbmBars(seed, days: 80, overnightVolatility: 0.004);
         var scaled = Scale(prices, factor);
         foreach (var estimator in All)
         {

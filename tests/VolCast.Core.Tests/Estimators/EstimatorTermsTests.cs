@@ -1,5 +1,4 @@
 using VolCast.Core.Estimators;
-using VolCast.Core.Tests.Support;
 
 namespace VolCast.Core.Tests.Estimators;
 

@@ -1,6 +1,5 @@
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
-using VolCast.Core.Tests.Support;
 
 namespace VolCast.Core.Tests.Estimators;
 

@@ -8,18 +8,7 @@ namespace VolCast.Core.Tests.Forecasters;
 internal static class ForecastData
 {
     /// <summary>Business dates from 2010-01-04.</summary>
-    public static DateOnly[] Dates(int n)
-    {
-        var dates = new DateOnly[n];
-        var d = new DateOnly(2010, 1, 4);
-        for (var i = 0; i < n; i++)
-        {
-            dates[i] = d;
-            d = d.AddDays(d.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
-        }
-
-        return dates;
-    }
+    public static DateOnly[] Dates(int n) => Weekdays.From(new DateOnly(2010, 1, 4), n);
 
     /// <summary>OHLC bars whose closes follow a GJR-GARCH path; opens gap from the previous close, highs and lows bracket open and close.</summary>
     public static PriceHistory Bars(int n, int seed)
@@ -32,9 +21,9 @@ internal static class ForecastData
         var low = new double[n];
         for (var i = 0; i < n; i++)
         {
-            open[i] = i == 0 ? closes[0] : closes[i - 1] * Math.Exp(0.002 * GarchSimulation.Normal(random));
-            high[i] = Math.Max(open[i], closes[i]) * Math.Exp(0.004 * Math.Abs(GarchSimulation.Normal(random)));
-            low[i] = Math.Min(open[i], closes[i]) * Math.Exp(-0.004 * Math.Abs(GarchSimulation.Normal(random)));
+            open[i] = i == 0 ? closes[0] : closes[i - 1] * Math.Exp(0.002 * Gaussian.Next(random));
+            high[i] = Math.Max(open[i], closes[i]) * Math.Exp(0.004 * Math.Abs(Gaussian.Next(random)));
+            low[i] = Math.Min(open[i], closes[i]) * Math.Exp(-0.004 * Math.Abs(Gaussian.Next(random)));
         }
 
         return PriceHistory.FromBars(Dates(n), open, high, low, closes);

@@ -164,7 +164,7 @@ public sealed class GarchForecasterTests
         var h = truth.Omega / (1 - truth.Persistence);
         for (var t = -500; t < days; t++)
         {
-            var e = Math.Sqrt(h) * GarchSimulation.Normal(random);
+            var e = Math.Sqrt(h) * Gaussian.Next(random);
             h = truth.Omega + ((truth.Alpha + (e < 0 ? truth.Gamma : 0)) * e * e) + (truth.Beta * h);
             if (t >= 0)
             {

@@ -27,15 +27,7 @@ internal static class DaxReference
             .Where(line => line.Length > 0)
             .Select(line => double.Parse(line, CultureInfo.InvariantCulture))
             .ToArray();
-        var dates = new DateOnly[closes.Length];
-        var d = new DateOnly(1991, 7, 1);
-        for (var i = 0; i < dates.Length; i++)
-        {
-            dates[i] = d;
-            d = d.AddDays(d.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
-        }
-
-        return PriceHistory.FromCloses(dates, closes);
+        return PriceHistory.FromCloses(Weekdays.From(new DateOnly(1991, 7, 1), closes.Length), closes);
     }
 
     /// <summary>One reference fit row.</summary>

@@ -13,7 +13,7 @@ internal static class GarchSimulation
         var result = new double[n];
         for (var t = -500; t < n; t++)
         {
-            var e = Math.Sqrt(h) * Normal(random);
+            var e = Math.Sqrt(h) * Gaussian.Next(random);
             if (t >= 0)
             {
                 result[t] = p.Mu + e;
@@ -36,13 +36,5 @@ internal static class GarchSimulation
         }
 
         return closes;
-    }
-
-    public static double Normal(Random random)
-    {
-        // Box–Muller; 1 − NextDouble() is in (0, 1] so the log is finite.
-        var u1 = 1 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
     }
 }

@@ -19,25 +19,22 @@ internal sealed record PathologicalHistory(int Seed, int Days, int FlatStart, in
     public PriceHistory Build()
     {
         var random = new Random(Seed);
-        var dates = new DateOnly[Days];
+        var dates = Weekdays.From(new DateOnly(2000, 1, 3), Days);
         var open = new double[Days];
         var high = new double[Days];
         var low = new double[Days];
         var close = new double[Days];
-        var date = new DateOnly(2000, 1, 3);
         var previous = 100.0;
         for (var i = 0; i < Days; i++)
         {
-            dates[i] = date;
-            date = date.AddDays(date.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
             if (i >= FlatStart && i < FlatStart + FlatLength)
             {
                 open[i] = high[i] = low[i] = close[i] = previous;
                 continue;
             }
 
-            var o = i == JumpAt ? previous * Math.Exp(JumpLog) : previous * Math.Exp(0.003 * Normal(random));
-            var c = o * Math.Exp(0.012 * Normal(random));
+            var o = i == JumpAt ? previous * Math.Exp(JumpLog) : previous * Math.Exp(0.003 * Gaussian.Next(random));
+            var c = o * Math.Exp(0.012 * Gaussian.Next(random));
             open[i] = o;
             close[i] = c;
             high[i] = Math.Max(o, c) * Math.Exp(0.004 * random.NextDouble());
@@ -59,7 +56,4 @@ internal sealed record PathologicalHistory(int Seed, int Days, int FlatStart, in
 
         return new ImpliedSeries(prices.Dates, iv);
     }
-
-    private static double Normal(Random random) =>
-        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }

@@ -40,7 +40,7 @@ public class MincerZarnowitzTests
         for (var t = 0; t < n; t++)
         {
             truth[t] = 0.1 + (0.3 * random.NextDouble());
-            realized[t] = truth[t] * Math.Abs(SimulatedSeries.Normal(random));
+            realized[t] = truth[t] * Math.Abs(Gaussian.Next(random));
             scaled[t] = 1.5 * truth[t];
         }
 

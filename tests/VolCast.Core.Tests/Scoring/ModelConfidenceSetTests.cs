@@ -182,11 +182,11 @@ public class ModelConfidenceSetTests(ITestOutputHelper output)
         var logVariance = mu;
         for (var t = 0; t < count; t++)
         {
-            logVariance = mu + (0.97 * (logVariance - mu)) + (0.2 * SimulatedSeries.Normal(random));
+            logVariance = mu + (0.97 * (logVariance - mu)) + (0.2 * Gaussian.Next(random));
             var sigma = Math.Sqrt(Math.Exp(logVariance));
-            realized[t] = sigma * Math.Abs(SimulatedSeries.Normal(random));
+            realized[t] = sigma * Math.Abs(Gaussian.Next(random));
             forecasts[0][t] = sigma;
-            forecasts[1][t] = sigma * Math.Exp(0.15 * SimulatedSeries.Normal(random));
+            forecasts[1][t] = sigma * Math.Exp(0.15 * Gaussian.Next(random));
             forecasts[2][t] = sigma * 1.1;
             forecasts[3][t] = 0.2 * Math.Exp(0.5 * 0.2 * 0.2 / (1 - (0.97 * 0.97)) / 2);
             forecasts[4][t] = sigma * 0.7;

@@ -3,14 +3,6 @@ namespace VolCast.Core.Tests.Scoring;
 /// <summary>Seeded simulated series for known-truth checks (invented data, only for statistical behaviour).</summary>
 internal static class SimulatedSeries
 {
-    /// <summary>Standard normal draw by Box-Muller.</summary>
-    public static double Normal(Random random)
-    {
-        var u1 = 1.0 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
-    }
-
     /// <summary>
     /// A zero-mean MA(h − 1) series d_t = Σ_{j=0..h−1} ε_{t−j}, ε i.i.d. N(0, 1): the dependence of a loss differential
     /// on overlapping h-day targets.
@@ -20,7 +12,7 @@ internal static class SimulatedSeries
         var eps = new double[count + horizonDays - 1];
         for (var i = 0; i < eps.Length; i++)
         {
-            eps[i] = Normal(random);
+            eps[i] = Gaussian.Next(random);
         }
 
         var d = new double[count];

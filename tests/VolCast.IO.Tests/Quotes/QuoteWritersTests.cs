@@ -8,16 +8,14 @@ namespace VolCast.IO.Tests.Quotes;
 
 public sealed class QuoteWritersTests : IDisposable
 {
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), $"volcast-quote-writers-{Guid.NewGuid():N}");
+    private readonly TempFolder _temp = new("quote-writers");
 
-    public QuoteWritersTests() => Directory.CreateDirectory(_folder);
-
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [Fact]
     public void ConstantTenorWrite_Values_RoundTripExactly()
     {
-        var path = Path.Combine(_folder, "iv.csv");
+        var path = _temp.Combine("iv.csv");
         var vol = 0.1 + (1.0 / 3.0);
         ConstantTenorCsv.Write(path, [new ConstantTenorPoint(new DateOnly(2024, 3, 1), vol, default, default, false)], overwrite: false);
         var lines = File.ReadAllLines(path);
@@ -30,7 +28,7 @@ public sealed class QuoteWritersTests : IDisposable
     [Fact]
     public void ConstantTenorWrite_ExistingFileWithoutOverwrite_Throws()
     {
-        var path = Path.Combine(_folder, "iv.csv");
+        var path = _temp.Combine("iv.csv");
         File.WriteAllText(path, "keep");
         Assert.Throws<IOException>(() => ConstantTenorCsv.Write(path, [], overwrite: false));
         Assert.Equal("keep", File.ReadAllText(path));
@@ -39,7 +37,7 @@ public sealed class QuoteWritersTests : IDisposable
     [Fact]
     public void DiagnosticsWrite_DetailWithComma_IsQuotedAndKebabCased()
     {
-        var path = Path.Combine(_folder, "diag.csv");
+        var path = _temp.Combine("diag.csv");
         var d = new ChainDiagnostic(DiagnosticScope.Quote, DiagnosticReason.BelowIntrinsic, new DateOnly(2024, 3, 1), new DateOnly(2024, 4, 19), 95, OptionType.Put, 12, "price 1, forward 100");
         QuoteDiagnosticsCsv.Write(path, ImmutableArray.Create(d), overwrite: false);
         Assert.DoesNotContain('\r', File.ReadAllText(path));

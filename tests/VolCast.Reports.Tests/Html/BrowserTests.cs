@@ -3,22 +3,21 @@ using System.Text.RegularExpressions;
 using SkiaSharp;
 using VolCast.Reports.Html;
 using VolCast.Reports.Tests.Support;
-using Xunit.Abstractions;
 
 namespace VolCast.Reports.Tests.Html;
 
 /// <summary>
 /// Opens a written report in headless Chromium (Debian's package, which .ci/run installs) and checks what a reader
 /// would get: every section, decodable images, nothing loaded from elsewhere, and a page that is not blank.
-/// Without the browser the test fails under CI (CI=true) and otherwise returns early with a note in its output.
+/// Without the browser the test fails under CI (CI=true), saying why, and otherwise reports itself skipped.
 /// </summary>
-public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
+public sealed partial class BrowserTests : IDisposable
 {
     private const string Chromium = "/usr/bin/chromium";
 
-    private readonly string _folder = Directory.CreateTempSubdirectory("volcast-browser-").FullName;
+    private readonly TempFolder _temp = new("browser");
 
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _temp.Dispose();
 
     [GeneratedRegex("<img [^>]*src=\"([^\"]*)\"")]
     private static partial Regex ImagePattern();
@@ -26,31 +25,25 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
     [GeneratedRegex("(src|href)=\"https?:", RegexOptions.IgnoreCase)]
     private static partial Regex RemotePattern();
 
-    [Fact]
+    [SkippableFact]
     public void Report_InHeadlessChromium_ShowsEverySectionAndEveryImage()
     {
-        if (!BrowserAvailable())
-        {
-            return;
-        }
+        RequireBrowser();
 
-        var report = ReportFiles.Write(SampleReport.Model(SampleReport.Create().Charts(), "<script>alert(1)</script>.csv"), Path.Combine(_folder, "out"), overwrite: false)[^1];
+        var report = ReportFiles.Write(SampleReport.Model(SampleReport.Create().Charts(), "<script>alert(1)</script>.csv"), _temp.Combine("out"), overwrite: false)[^1];
         var dom = CheckInChromium(report, "browser-screenshot.png", images: 7);
 
         // The hostile file name arrived as text, not as a script element.
         Assert.Contains("&lt;script&gt;alert(1)&lt;/script&gt;.csv", dom, StringComparison.Ordinal);
     }
 
-    [Fact]
+    [SkippableFact]
     public void CommittedDemoReport_InHeadlessChromium_ShowsEverySectionAndEveryImage()
     {
-        if (!BrowserAvailable())
-        {
-            return;
-        }
+        RequireBrowser();
 
         // The report the README shows: reports/demo/report.html as committed, written by volcast demo.
-        var report = Path.Combine(RepositoryRoot(), "reports", "demo", "report.html");
+        var report = Path.Combine(RepositoryRoot.Path, "reports", "demo", "report.html");
         Assert.True(File.Exists(report), $"{report} is missing; run volcast demo from the repository's root and commit reports/demo.");
         var dom = CheckInChromium(report, "demo-screenshot.png", images: 8);
 
@@ -61,31 +54,18 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
         Assert.Contains("Ranges from implied were too wide", dom, StringComparison.Ordinal);
     }
 
-    private static string RepositoryRoot()
-    {
-        for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
-        {
-            if (File.Exists(Path.Combine(folder.FullName, "VolCast.sln")))
-            {
-                return folder.FullName;
-            }
-        }
-
-        throw new DirectoryNotFoundException("VolCast.sln was not found above " + AppContext.BaseDirectory);
-    }
-
-    private bool BrowserAvailable()
+    /// <summary>Returns when Chromium is there; fails under CI and skips elsewhere when it is missing.</summary>
+    private static void RequireBrowser()
     {
         if (File.Exists(Chromium))
         {
-            return true;
+            return;
         }
 
         Assert.False(
             string.Equals(Environment.GetEnvironmentVariable("CI"), "true", StringComparison.OrdinalIgnoreCase),
             $"{Chromium} is missing; .ci/run installs Debian's chromium package, so under CI the browser check must run.");
-        output.WriteLine($"NOT RUN: {Chromium} is missing; install Debian's chromium to run the browser check.");
-        return false;
+        Skip.If(true, $"{Chromium} is missing; install Debian's chromium (apt-get install chromium) to run the browser check.");
     }
 
     /// <summary>Opens the report in headless Chromium, checks sections, images, remote loads and the screenshot, and returns the DOM.</summary>
@@ -94,7 +74,7 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
         var url = new Uri(report).AbsoluteUri;
 
         var dom = RunChromium("--dump-dom", url);
-        var shot = Path.Combine(_folder, "shot.png");
+        var shot = _temp.Combine("shot.png");
         RunChromium($"--screenshot={shot}", "--window-size=1200,3000", url);
 
         Assert.Contains("ranks first on QLIKE", dom, StringComparison.Ordinal);
@@ -154,7 +134,7 @@ public sealed partial class BrowserTests(ITestOutputHelper output) : IDisposable
                 RedirectStandardOutput = true,
                 RedirectStandardError = true,
                 UseShellExecute = false,
-                WorkingDirectory = _folder,
+                WorkingDirectory = _temp.Path,
             };
             foreach (var flag in new[]
             {

@@ -13,17 +13,7 @@ public sealed class SampleReport
     private SampleReport(int days, int seed)
     {
         var random = new Random(seed);
-        var dates = new List<DateOnly>(days);
-        var date = new DateOnly(2005, 1, 3);
-        while (dates.Count < days)
-        {
-            if (date.DayOfWeek is not DayOfWeek.Saturday and not DayOfWeek.Sunday)
-            {
-                dates.Add(date);
-            }
-
-            date = date.AddDays(1);
-        }
+        var dates = Weekdays.From(new DateOnly(2005, 1, 3), days);
 
         // A log-volatility that wanders: daily vol between roughly 0.5% and 3%.
         var returns = new double[days];
@@ -31,9 +21,9 @@ public sealed class SampleReport
         var logVol = Math.Log(0.01);
         for (var i = 0; i < days; i++)
         {
-            logVol = Math.Log(0.01) + (0.985 * (logVol - Math.Log(0.01))) + (0.08 * Normal(random));
+            logVol = Math.Log(0.01) + (0.985 * (logVol - Math.Log(0.01))) + (0.08 * Gaussian.Next(random));
             dailyVol[i] = Math.Exp(logVol);
-            returns[i] = dailyVol[i] * Normal(random);
+            returns[i] = dailyVol[i] * Gaussian.Next(random);
         }
 
         Returns = returns;
@@ -61,7 +51,7 @@ public sealed class SampleReport
             ewma[t] = Math.Sqrt(252 * variance);
             slow[t] = Math.Sqrt(252 * slowVariance);
             garch[t] = Math.Sqrt(252 * ((0.85 * variance) + (0.15 * 0.0001)));
-            implied[t] = (Math.Sqrt(252) * dailyVol[t] * 1.1) + 0.01 + (0.01 * Normal(random));
+            implied[t] = (Math.Sqrt(252) * dailyVol[t] * 1.1) + 0.01 + (0.01 * Gaussian.Next(random));
         }
 
         var scoredDates = dates.Take(scored).ToArray();
@@ -175,12 +165,5 @@ public sealed class SampleReport
     {
         var ratio = realized * realized / (forecast * forecast);
         return ratio - Math.Log(ratio) - 1;
-    }
-
-    private static double Normal(Random random)
-    {
-        var u1 = 1.0 - random.NextDouble();
-        var u2 = random.NextDouble();
-        return Math.Sqrt(-2.0 * Math.Log(u1)) * Math.Cos(2.0 * Math.PI * u2);
     }
 }

@@ -1,7 +1,7 @@
 using System.Runtime.CompilerServices;
 using VolCast.Core.Data;
 
-namespace VolCast.Core.Tests.Support;
+namespace VolCast.TestSupport;
 
 /// <summary>Seeded builders of test data: the same seed always gives the same history.</summary>
 public static class Some
@@ -108,18 +108,7 @@ public static class Some
     }
 
     /// <summary>Consecutive weekdays starting at <see cref="FirstDate"/>.</summary>
-    public static DateOnly[] TradingDates(int count)
-    {
-        var dates = new DateOnly[count];
-        var date = FirstDate;
-        for (var i = 0; i < count; i++)
-        {
-            dates[i] = date;
-            date = date.AddDays(date.DayOfWeek == DayOfWeek.Friday ? 3 : 1);
-        }
-
-        return dates;
-    }
+    public static DateOnly[] TradingDates(int count) => Weekdays.From(FirstDate, count);
 
     /// <summary>
     /// Standard normal draws by Marsaglia's polar method over SplitMix64 (Steele, Lea and Flood 2014): small, fast
