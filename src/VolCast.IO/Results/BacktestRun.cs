@@ -1,6 +1,7 @@
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Data;
+using VolCast.Core.Trading;
 
 namespace VolCast.IO.Results;
 
@@ -18,4 +19,11 @@ public sealed record BacktestRun(
     BacktestCalibration Calibration,
     BacktestRunInfo Info,
     PriceHistory Prices,
-    int PriceRowsRead);
+    int PriceRowsRead)
+{
+    /// <summary>Gets the rule as delta-hedged option trades, or null when it was not run (see <see cref="RulePnlAbsence"/>).</summary>
+    public RulePnlReport? RulePnl { get; init; }
+
+    /// <summary>Gets why <see cref="RulePnl"/> is null (for example: no implied series was given), or null when it was run.</summary>
+    public string? RulePnlAbsence { get; init; }
+}

@@ -67,15 +67,15 @@ public sealed class BacktestCalibratorTests
         var closed = Enumerable.Range(0, result.Dates.Length).Where(i => result.WindowDays[i] is not null).ToArray();
         var missingImplied = closed.Count(i => result.Implied[i] is null);
         Assert.True(missingImplied > 0, "the gaps should fall on closed windows");
-        Assert.Equal(missingImplied, calibration.Report.Calibrations[0].MissingCount);
-        Assert.Equal(missingImplied, calibration.Report.Coverages[0].MissingCount);
-        Assert.StartsWith("ranges from implied ", calibration.Verdicts[0], StringComparison.Ordinal);
-        Assert.Contains($"{missingImplied} dates had no forecast", calibration.Verdicts[0], StringComparison.Ordinal);
+        Assert.Equal(missingImplied, calibration.Forecasters[0].Calibration.MissingCount);
+        Assert.Equal(missingImplied, calibration.Forecasters[0].Coverage.MissingCount);
+        Assert.StartsWith("ranges from implied ", calibration.Forecasters[0].Verdict, StringComparison.Ordinal);
+        Assert.Contains($"{missingImplied} dates had no forecast", calibration.Forecasters[0].Verdict, StringComparison.Ordinal);
 
         // A forecaster's missing dates are only its own (its warm-up), not implied's; every forecaster is scored at
         // the five default strikes.
-        Assert.Equal(closed.Count(i => result.Forecasts[1].Values[i] is null), calibration.Report.Coverages[2].MissingCount);
-        Assert.All(calibration.Report.Calibrations, c => Assert.Equal(5, c.Strikes.Length));
+        Assert.Equal(closed.Count(i => result.Forecasts[1].Values[i] is null), calibration.Forecasters[2].Coverage.MissingCount);
+        Assert.All(calibration.Forecasters, f => Assert.Equal(5, f.Calibration.Strikes.Length));
     }
 
     [Fact]
