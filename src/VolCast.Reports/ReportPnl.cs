@@ -61,7 +61,7 @@ internal static class ReportPnl
         var gain = switching.DifferencePerYear;
         var more = gain >= 0 ? "more" : "less";
         var test = Test(switching.Test);
-        var best = close.Sweep[report.Means.BestRule].Label;
+        var best = Label(close, report.Means, report.Means.BestRule);
         var survives = report.Means.Spa.Consistent < 0.05 ? "survives" : "does not survive";
         return string.Create(C,
             $"Switching from the current rule to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:0.00} vol points; the best rule's edge over always-sell ({best}) {survives} the data-snooping test (SPA p = {P(report.Means.Spa.Consistent)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
@@ -111,12 +111,11 @@ internal static class ReportPnl
 
     private static string SnoopingWords(RuleBacktestResult close, DataSnoopingResult test, string measure, double annualize)
     {
-        var best = close.Sweep[test.BestRule];
         var winners = test.StepM.Rejected.Length == 0
             ? "StepM names no rule that beats always-sell"
-            : "StepM names " + string.Join(", ", test.StepM.Rejected.Select(i => close.Sweep[i].Label)) + " as beating always-sell";
+            : "StepM names " + Winners(close, test) + " as beating always-sell";
         return string.Create(C,
-            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {best.Label}, is {Signed(test.Estimates[test.BestRule] * annualize)} a year ahead; Reality Check p = {P(test.RealityCheckPValue)}, SPA p = {P(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
+            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {Label(close, test, test.BestRule)}, is {Signed(test.Estimates[test.BestRule] * annualize)} a year ahead; Reality Check p = {P(test.RealityCheckPValue)}, SPA p = {P(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
     }
 
     private static TextTable Rules(RuleBacktestResult close)
@@ -194,7 +193,7 @@ internal static class ReportPnl
 
     private static TextTable Sweep(RuleBacktestResult close, DataSnoopingResult means)
     {
-        var winners = means.StepM.Rejected.ToHashSet();
+        var winners = means.StepM.Rejected.Select(i => SweepIndex(close, means, i)).ToHashSet();
         var rows = new List<IReadOnlyList<string>>();
         for (var k = 0; k < close.Sweep.Length; k++)
         {
@@ -227,13 +226,13 @@ internal static class ReportPnl
             rows.Add(
             [
                 name,
-                close.Sweep[test.BestRule].Label,
+                Label(close, test, test.BestRule),
                 F(test.Estimates[test.BestRule] * scale, "0.00"),
                 P(test.RealityCheckPValue),
                 P(test.Spa.Consistent),
                 P(test.Spa.Lower),
                 P(test.Spa.Upper),
-                test.StepM.Rejected.Length == 0 ? "none" : string.Join(", ", test.StepM.Rejected.Select(i => close.Sweep[i].Label)),
+                test.StepM.Rejected.Length == 0 ? "none" : Winners(close, test),
             ]);
         }
 
@@ -318,9 +317,10 @@ internal static class ReportPnl
         var proposed = close[TradingRule.Proposed];
         var current = close[TradingRule.Current];
         var historical = close[TradingRule.Historical];
-        var expiry = horizon.TradingDays is int h
-            ? string.Create(C, $"the close {h} trading days after entry; held to expiry and settled at that close, payoff |S_T − K|")
-            : string.Create(C, $"the last trading date on or before entry + {horizon.TenorCalendarDays} calendar days; held to expiry and settled at that close, payoff |S_T − K|");
+        // The run's horizon names a tenor when there is one; the trades' own nominal days decide when the two differ.
+        var expiry = horizon.TenorCalendarDays is int tenor && horizon.NominalDays == close.HorizonDays
+            ? string.Create(C, $"the last trading date on or before entry + {tenor} calendar days; held to expiry and settled at that close, payoff |S_T − K|")
+            : string.Create(C, $"the close {close.HorizonDays} trading days after entry; held to expiry and settled at that close, payoff |S_T − K|");
         var m = report.Means;
         return
         [
@@ -340,6 +340,36 @@ internal static class ReportPnl
             new("Data-snooping bootstrap", string.Create(C, $"stationary bootstrap, {m.Replications} replications, mean block length {m.MeanBlockLength:0.#} days, seed {m.Seed}, StepM level {m.StepM.Level:0%}")),
         ];
     }
+
+    /// <summary>
+    /// The sweep row a data-snooping test's rule index stands for. A test over every sweep row uses the sweep's order;
+    /// a test with fewer rules (the Sharpe test must leave out rows that never traded, whose Sharpe ratio is undefined)
+    /// counts only the rows that traded, in the sweep's order. -1 when neither fits.
+    /// </summary>
+    internal static int SweepIndex(RuleBacktestResult close, DataSnoopingResult test, int rule)
+    {
+        if (test.Rules == close.Sweep.Length)
+        {
+            return rule;
+        }
+
+        var traded = 0;
+        for (var k = 0; k < close.Sweep.Length; k++)
+        {
+            if (close.Sweep[k].Trades > 0 && traded++ == rule)
+            {
+                return k;
+            }
+        }
+
+        return -1;
+    }
+
+    private static string Label(RuleBacktestResult close, DataSnoopingResult test, int rule) =>
+        SweepIndex(close, test, rule) is var k and >= 0 ? close.Sweep[k].Label : string.Create(C, $"rule {rule + 1} of {test.Rules}");
+
+    private static string Winners(RuleBacktestResult close, DataSnoopingResult test) =>
+        string.Join(", ", test.StepM.Rejected.Select(i => Label(close, test, i)));
 
     private static string Test(NeweyWestMeanTest test) =>
         test is { TStatistic: double t, PValue: double p } ? string.Create(C, $"t = {t:0.00}, p = {P(p)}") : "no test: too few days or no variation";
