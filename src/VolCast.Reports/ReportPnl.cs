@@ -89,8 +89,8 @@ internal static class ReportPnl
             points.Add(Comparison(versus));
         }
 
-        points.Add(SnoopingWords(close, report.Means, "mean daily net P&L", close.Settings.AnnualizationDays));
-        points.Add(SnoopingWords(close, report.Sharpe, "Sharpe ratio", Math.Sqrt(close.Settings.AnnualizationDays)));
+        points.Add(SnoopingWords(close, report.Means, "mean daily net P&L", close.Settings.AnnualizationDays, "vol points a year"));
+        points.Add(SnoopingWords(close, report.Sharpe, "Sharpe ratio", Math.Sqrt(close.Settings.AnnualizationDays), "in annualized Sharpe ratio"));
         points.Add("Break-even: " + BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints) + string.Create(C,
             $"; the proposed rule's own net P&L is zero at a half-spread of {(close.BreakEven.ProposedHalfSpreadVolPoints is double own ? own.ToString("0.00", C) + " vol points" : "no positive value")}."));
         var next = report.NextDay;
@@ -109,13 +109,13 @@ internal static class ReportPnl
             $"The {first} rule earned {Math.Abs(comparison.DifferencePerYear):0.00} vol points per year {more} than {second} after costs ({Test(comparison.Test)}, daily paths, Newey-West lag {comparison.Test.Lag}): {significant}.");
     }
 
-    private static string SnoopingWords(RuleBacktestResult close, DataSnoopingResult test, string measure, double annualize)
+    private static string SnoopingWords(RuleBacktestResult close, DataSnoopingResult test, string measure, double annualize, string unit)
     {
         var winners = test.StepM.Rejected.Length == 0
             ? "StepM names no rule that beats always-sell"
             : "StepM names " + Winners(close, test) + " as beating always-sell";
         return string.Create(C,
-            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {Label(close, test, test.BestRule)}, is {Signed(test.Estimates[test.BestRule] * annualize)} a year ahead; Reality Check p = {P(test.RealityCheckPValue)}, SPA p = {P(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
+            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {Label(close, test, test.BestRule)}, is {Signed(test.Estimates[test.BestRule] * annualize)} {unit} ahead of always-sell; Reality Check p = {P(test.RealityCheckPValue)}, SPA p = {P(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
     }
 
     private static TextTable Rules(RuleBacktestResult close)

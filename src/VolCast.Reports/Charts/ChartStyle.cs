@@ -35,7 +35,7 @@ internal static class ChartStyle
 
     /// <summary>
     /// The colour of each trading rule, the same in every P&amp;L chart: always-sell (the benchmark) black, proposed
-    /// blue, current orange, plain historical bluish green, walk-forward threshold vermillion.
+    /// blue, current orange, plain historical bluish green, walk-forward threshold reddish purple.
     /// </summary>
     public static Color Rule(TradingRule rule) => rule switch
     {
@@ -43,7 +43,7 @@ internal static class ChartStyle
         TradingRule.Proposed => Palette[3],
         TradingRule.Current => Palette[0],
         TradingRule.Historical => Palette[2],
-        _ => Palette[4],
+        _ => Palette[5],
     };
 
     /// <summary>The colour of the i-th series after realized.</summary>

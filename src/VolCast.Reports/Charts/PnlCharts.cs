@@ -23,7 +23,7 @@ internal static class PnlCharts
     /// <summary>The P&amp;L-by-year chart's file name.</summary>
     public const string YearsFileName = "rule-pnl-by-year.png";
 
-    private const int TopHeight = 400;
+    private const int TopHeight = 370;
 
     private const float LeftPadding = 100;
 
@@ -97,6 +97,7 @@ internal static class PnlCharts
 
         var top = ChartStyle.NewPlot("Cumulative net P&L (marked daily at quoted implied)", string.Empty, "Cumulative P&L (vol points)");
         var bottom = ChartStyle.NewPlot(string.Empty, string.Empty, "Drawdown (vol points)");
+        bottom.Axes.Left.Label.FontSize = 15;
         foreach (var plot in new[] { top, bottom })
         {
             var zero = plot.Add.HorizontalLine(0);
@@ -182,11 +183,13 @@ internal static class PnlCharts
                 step.LegendText = string.Create(CultureInfo.InvariantCulture, $"{RuleNames.Name(rule.Rule)} (n = {values.Length})");
                 if (rule.TradeStatisticsNet is { WorstVolPoints: double worst, WorstEntryDate: DateOnly date })
                 {
+                    // One legend entry per rule keeps the legend inside the image: the worst trade goes into it.
+                    step.LegendText = string.Create(CultureInfo.InvariantCulture, $"{RuleNames.Name(rule.Rule)} (n = {values.Length}; worst {worst:0.00}, {date:yyyy-MM-dd})");
                     var mark = plot.Add.VerticalLine(worst);
                     mark.Color = color;
                     mark.LineWidth = 2;
                     mark.LinePattern = LinePattern.Dashed;
-                    mark.LegendText = string.Create(CultureInfo.InvariantCulture, $"worst {RuleNames.Name(rule.Rule)}: {worst:0.00} ({date:yyyy-MM-dd})");
+                    mark.LegendText = string.Empty;
                 }
             }
         }
