@@ -290,7 +290,7 @@ public sealed class PnlSectionTests : IDisposable
     private static BacktestRun With(RulePnlReport report) =>
         new(Forecasts, BacktestCalibrator.Evaluate(Forecasts, Scenario.Index), Info, Scenario.Index, Scenario.Index.Count)
         {
-            RulePnl = report with { },
+            RulePnl = report,
         };
 
     /// <summary>Runs the trading backtest at the close and one day later, and both data-snooping tests, as a run would.</summary>
