@@ -14,7 +14,7 @@ namespace VolCast.IO.Csv;
 /// every h-th date (see <see cref="CoverageLevelResult"/>). Numbers are invariant culture, shortest round-trip
 /// form; empty fields mean "does not exist"; LF line ends.
 /// </remarks>
-public static class CoverageCsv
+internal static class CoverageCsv
 {
     private static readonly string[] LevelColumns =
         ["share", "expected", "status", "nonoverlapping_dates", "dates_needed", "failures", "kupiec_lr", "kupiec_p", "independence_lr", "independence_p", "conditional_lr", "conditional_p"];
