@@ -89,7 +89,7 @@ internal static class ProbabilityCalibration
             }
         }
 
-        return new ForecasterCalibration(forecaster.Name, h, count, missing.Count, missing.ToImmutable(), results.ToImmutable());
+        return new ForecasterCalibration(forecaster.Spec, h, count, missing.Count, missing.ToImmutable(), results.ToImmutable());
     }
 
     /// <summary>The Brier score and its decomposition for any probabilities and outcomes, over equal-width bins.</summary>

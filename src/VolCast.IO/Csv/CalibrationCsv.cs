@@ -32,7 +32,7 @@ internal static class CalibrationCsv
         foreach (var c in calibrations)
         {
             ArgumentNullException.ThrowIfNull(c);
-            var name = CsvText.Text(c.Forecaster);
+            var name = CsvText.Text(c.Spec);
             if (c.Strikes.IsDefaultOrEmpty)
             {
                 writer.Write(string.Create(CultureInfo.InvariantCulture, $"{name},{c.HorizonDays},,{c.Count},{c.MissingCount},,,,,,,,,,,,,,,,,,,\n"));

@@ -69,11 +69,11 @@ internal static class CoverageCsv
             if (c.Levels.Length != 2)
             {
                 throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                    $"{c.Forecaster}: a coverage result must hold the |z| <= 1 and |z| <= 2 levels, had {c.Levels.Length}."), nameof(rows));
+                    $"{c.Spec}: a coverage result must hold the |z| <= 1 and |z| <= 2 levels, had {c.Levels.Length}."), nameof(rows));
             }
 
             writer.Write(string.Create(CultureInfo.InvariantCulture,
-                $"{CsvText.Text(c.Forecaster)},{c.HorizonDays},{c.Count},{c.MissingCount},{CsvText.Number(c.ZScale)},{CsvText.Number(c.MaxAbsZ)},{CsvText.Number(c.ShareAboveThree)}"));
+                $"{CsvText.Text(c.Spec)},{c.HorizonDays},{c.Count},{c.MissingCount},{CsvText.Number(c.ZScale)},{CsvText.Number(c.MaxAbsZ)},{CsvText.Number(c.ShareAboveThree)}"));
             foreach (var l in c.Levels)
             {
                 var status = l.Status == CoverageTestStatus.Computed ? "computed" : "not-enough-data";
