@@ -40,7 +40,7 @@ public static class ReportWriter
     /// <param name="cancellationToken">Stops between charts.</param>
     /// <returns>The report model.</returns>
     /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
-    public static ReportModel Build(BacktestRun run, CancellationToken cancellationToken = default)
+    internal static ReportModel Build(BacktestRun run, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(run);
         return Build(run, Cone(run.Result, run.Prices), null, cancellationToken);

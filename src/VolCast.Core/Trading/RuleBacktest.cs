@@ -27,7 +27,7 @@ namespace VolCast.Core.Trading;
 /// 1/h with h the horizon's nominal trading days; annualized with <see cref="TradingSettings.AnnualizationDays"/>.
 /// Daily-path tests use a Newey-West lag of h, the test of mean trade P&amp;L a lag of 2 trades.</para>
 /// </remarks>
-public static class RuleBacktest
+internal static class RuleBacktest
 {
     /// <summary>Runs the trading backtest.</summary>
     /// <param name="prices">The price history (closes are traded).</param>

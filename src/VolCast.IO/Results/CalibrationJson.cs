@@ -30,7 +30,7 @@ internal static class CalibrationJson
         {
             var c = odds.Calibration;
             json.WriteStartObject();
-            json.WriteString("forecaster", c.Forecaster);
+            json.WriteString("forecaster", c.Spec);
             json.WriteNumber("horizon_days", c.HorizonDays);
             json.WriteNumber("dates_scored", c.Count);
             json.WriteNumber("dates_missing", c.MissingCount);
@@ -96,7 +96,7 @@ internal static class CalibrationJson
         {
             var c = odds.Coverage;
             json.WriteStartObject();
-            json.WriteString("forecaster", c.Forecaster);
+            json.WriteString("forecaster", c.Spec);
             json.WriteNumber("horizon_days", c.HorizonDays);
             json.WriteNumber("dates_scored", c.Count);
             json.WriteNumber("dates_missing", c.MissingCount);

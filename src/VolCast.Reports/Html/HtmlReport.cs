@@ -15,7 +15,7 @@ namespace VolCast.Reports.Html;
 /// data quality, run details, cautions. Every string from the model is
 /// HTML-escaped; numbers are formatted with the invariant culture, so the same model gives the same bytes.
 /// </remarks>
-public static class HtmlReport
+internal static class HtmlReport
 {
     /// <summary>The Content-Security-Policy the page declares: images only from data URIs, inline styles only, nothing else.</summary>
     public const string ContentSecurityPolicy = "default-src 'none'; img-src data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'";

@@ -4,7 +4,7 @@ using VolCast.Reports.Model;
 namespace VolCast.Reports.Html;
 
 /// <summary>Writes a report into a folder: report.html and every chart (the P&amp;L section's and the reliability diagram included) as its own PNG, each file atomically.</summary>
-public static class ReportFiles
+internal static class ReportFiles
 {
     /// <summary>The report's file name inside the output folder.</summary>
     public const string ReportFileName = "report.html";

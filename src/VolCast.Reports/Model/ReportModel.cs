@@ -7,7 +7,7 @@ namespace VolCast.Reports.Model;
 /// <param name="Charts">The rendered charts, in the order to show them.</param>
 /// <param name="DataQuality">What the inputs looked like.</param>
 /// <param name="Run">Settings, tool version, run time and input hashes.</param>
-public sealed record ReportModel(
+internal sealed record ReportModel(
     string Title,
     Verdict Verdict,
     IReadOnlyList<MetricTable> Tables,

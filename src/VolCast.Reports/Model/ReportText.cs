@@ -1,7 +1,7 @@
 namespace VolCast.Reports.Model;
 
 /// <summary>Fixed wording shared by every report.</summary>
-public static class ReportText
+internal static class ReportText
 {
     /// <summary>The cautions every report ends with.</summary>
     public static IReadOnlyList<string> Cautions { get; } =
