@@ -48,7 +48,7 @@ internal static class BacktestPipeline
         stage?.Invoke(BacktestStage.Load);
         var started = DateTimeOffset.UtcNow;
         progress?.Report(new BacktestProgress("reading inputs", 0, 1));
-        var (prices, implied, warnings) = Load(job, warn);
+        var (prices, implied, warnings, notes, rejected) = Load(job, warn);
         progress?.Report(new BacktestProgress("reading inputs", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
 
@@ -60,7 +60,13 @@ internal static class BacktestPipeline
         progress?.Report(new BacktestProgress("checking the odds", 0, 1));
         var calibration = BacktestCalibrator.Evaluate(result, prices.History, cancellationToken: cancellationToken);
         progress?.Report(new BacktestProgress("checking the odds", 1, 1));
-        var run = new BacktestRun(result, calibration, Info(job, prices, implied, warnings, started), prices.History, prices.RowsRead);
+        var info = Info(job, prices, implied, warnings, started) with
+        {
+            InputNotes = notes,
+            Suspect = job.Checks.Suspect.ToString().ToLowerInvariant(),
+            RowsLeftOut = rejected.Count,
+        };
+        var run = new BacktestRun(result, calibration, info, prices.History, prices.RowsRead) { RejectedRows = rejected };
 
         stage?.Invoke(BacktestStage.WriteData);
         var staging = output.Stage();
@@ -88,7 +94,7 @@ internal static class BacktestPipeline
     public static string ToolVersion() =>
         typeof(BacktestPipeline).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
 
-    private static (PriceLoad Prices, ImpliedLoad? Implied, ImmutableArray<string> Warnings) Load(BacktestJob job, Action<string> warn)
+    private static (PriceLoad Prices, ImpliedLoad? Implied, ImmutableArray<string> Warnings, ImmutableArray<string> Notes, IReadOnlyList<RejectedRow> Rejected) Load(BacktestJob job, Action<string> warn)
     {
         var warnings = ImmutableArray.CreateBuilder<string>();
         void Warn(InputWarning warning)
@@ -97,23 +103,27 @@ internal static class BacktestPipeline
             warnings.Add(warning.ToString());
         }
 
-        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices));
-        foreach (var warning in prices.Warnings)
+        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices), job.Checks);
+        ImpliedLoad? implied = null;
+        if (job.Implied is not null)
+        {
+            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit, job.Checks);
+        }
+
+        // The suspect checks run before any warning is shown, so that --suspect stop refuses with the whole list at once.
+        var checkedInputs = SuspectRows.Apply(prices, implied, job.Implied, job.Checks.Suspect);
+        foreach (var warning in prices.Warnings.Concat(implied?.Warnings ?? []).Concat(checkedInputs.Warnings))
         {
             Warn(warning);
         }
 
-        ImpliedLoad? implied = null;
-        if (job.Implied is not null)
+        var notes = InputNotes.For(job, checkedInputs);
+        foreach (var note in notes)
         {
-            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit);
-            foreach (var warning in implied.Warnings)
-            {
-                Warn(warning);
-            }
+            warn(note);
         }
 
-        return (prices, implied, warnings.ToImmutable());
+        return (checkedInputs.Prices, checkedInputs.Implied, warnings.ToImmutable(), notes, checkedInputs.Rejected);
     }
 
     private static BacktestResult Forecast(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken)

@@ -16,16 +16,19 @@ internal static class BacktestCommand
         var implied = new Option<string?>("--implied") { Description = "Implied-volatility CSV (date, iv). Optional: without it forecasters are ranked among themselves." };
         var ivUnit = new Option<string?>("--iv-unit") { Description = "Unit of the iv column: percent (20 = 20%) or decimal (0.20); inferred with a warning when left out." };
         ivUnit.AcceptOnlyFromAmong("percent", "decimal");
-        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate. Every setting is optional. " + SettingLimits.HelpText() };
+        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate, suspect, skipBadRows. Every setting is optional. " + SettingLimits.HelpText() };
         var horizon = new Option<int?>("--horizon") { Description = $"Forecast horizon in trading days, {SettingLimits.Horizon} (default 21). Overrides the configuration." };
         var tenor = new Option<string?>("--tenor") { Description = $"Forecast horizon as a calendar tenor such as 30d ({SettingLimits.TenorDays}), mapped through the price file's own trading calendar. Overrides the configuration." };
         var start = new Option<string?>("--start") { Description = "First forecast date, yyyy-MM-dd (earlier rows still warm the forecasters up)." };
         var end = new Option<string?>("--end") { Description = "Last forecast date, yyyy-MM-dd." };
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>). Written in a hidden temporary folder and moved into place when complete." };
         var force = new Option<bool>("--force") { Description = "Use an existing output folder: replace the earlier run's files (those listed in its run.json) as one set, keeping any other file; a file of an output name that volcast did not write is never replaced." };
-        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt. Ctrl-C stops the run without writing any results (exit code 130).")
+        var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
+        suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
+        var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
+        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
-            prices, implied, ivUnit, config, horizon, tenor, start, end, output, force,
+            prices, implied, ivUnit, config, horizon, tenor, start, end, output, force, suspect, skipBadRows,
         };
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
             parse.GetValue(prices)!,
@@ -37,7 +40,9 @@ internal static class BacktestCommand
             parse.GetValue(start),
             parse.GetValue(end),
             parse.GetValue(output),
-            parse.GetValue(force)))));
+            parse.GetValue(force),
+            parse.GetValue(suspect),
+            parse.GetValue(skipBadRows)))));
         return command;
     }
 
@@ -47,7 +52,7 @@ internal static class BacktestCommand
         var outFolder = a.Out ?? Path.Combine("reports", "backtest-" + Path.GetFileNameWithoutExtension(a.Prices));
         OutputChecks.Folder(outFolder);
         var unit = BacktestOptions.Unit(a.IvUnit);
-        var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
+        var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force) { Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows) };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestResult result;
         using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
@@ -86,5 +91,5 @@ internal static class BacktestCommand
     private static string Show(double? value) => value is double v && double.IsFinite(v) ? v.ToString("F4", CultureInfo.InvariantCulture) : "n/a";
 
     private sealed record Arguments(
-        string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force);
+        string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force, string? Suspect, bool SkipBadRows);
 }

@@ -38,4 +38,8 @@ internal sealed class BacktestConfigDocument
     public double? AnnualizationFactor { get; set; }
 
     public string? Target { get; set; }
+
+    public string? Suspect { get; set; }
+
+    public bool? SkipBadRows { get; set; }
 }

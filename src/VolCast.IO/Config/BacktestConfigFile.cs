@@ -209,6 +209,41 @@ public static class BacktestConfigFile
     /// <summary>Cuts text echoed from the file to 40 characters, so a huge value cannot flood a message.</summary>
     private static string Cut(string? text) => text is null ? string.Empty : text.Length > 40 ? text[..40] + "…" : text;
 
+    /// <summary>
+    /// Reads the keys of a configuration that say how input rows are checked: <c>suspect</c> (<c>warn</c>, <c>drop</c>
+    /// or <c>stop</c>) and <c>skipBadRows</c> (true or false). Missing keys keep the defaults.
+    /// </summary>
+    /// <param name="json">The JSON text (already accepted by <see cref="Parse"/>).</param>
+    /// <param name="file">The file name to put in error messages.</param>
+    /// <returns>The checks.</returns>
+    /// <exception cref="InputDataException">The text is not a valid configuration, or <c>suspect</c> is not one of the three words.</exception>
+    public static DataChecks ParseDataChecks(string json, string file)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        ArgumentNullException.ThrowIfNull(file);
+        Parse(json, file);
+        var doc = JsonSerializer.Deserialize<BacktestConfigDocument>(json, Options)!;
+        var suspect = doc.Suspect switch
+        {
+            null or "warn" => SuspectAction.Warn,
+            "drop" => SuspectAction.Drop,
+            "stop" => SuspectAction.Stop,
+            _ => throw Bad(file, "suspect", $"must be \"warn\", \"drop\" or \"stop\" (was \"{Cut(doc.Suspect)}\")"),
+        };
+        return new DataChecks(suspect, doc.SkipBadRows ?? false);
+    }
+
+    /// <summary>Reads the row-check keys of a configuration file (see <see cref="ParseDataChecks"/>).</summary>
+    /// <param name="path">The configuration file.</param>
+    /// <returns>The checks.</returns>
+    /// <exception cref="InputDataException">The file cannot be read or is not a valid configuration.</exception>
+    public static DataChecks ReadDataChecks(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        var bytes = InputFiles.ReadCapped(path, "a JSON configuration file", InputFiles.MaxConfigBytes);
+        return ParseDataChecks(Reading.InputText.Decode(bytes, path), path);
+    }
+
     private static InputDataException Bad(string file, string property, FormattableString problem) =>
         new(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");
 

@@ -24,6 +24,9 @@ public static class BacktestResultsWriter
     /// <summary>The range-coverage table's file name (see <see cref="CoverageCsv"/>).</summary>
     public const string CoverageFileName = "coverage.csv";
 
+    /// <summary>The file of rows left out of the run (<see cref="RejectedRowsCsv"/>), written only when there are any.</summary>
+    public const string RejectedRowsFileName = "rejected-rows.csv";
+
     /// <summary>Gets the names of the data files this writer produces, run.json included.</summary>
     public static IReadOnlyList<string> FileNames { get; } =
         ["forecasts.csv", "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName];
@@ -50,12 +53,19 @@ public static class BacktestResultsWriter
             (CalibrationFileName, path => CalibrationCsv.WriteFile(path, [.. calibration.Forecasters.Select(f => f.Calibration)])),
             (CoverageFileName, path => CoverageCsv.WriteFile(path, calibration.Forecasters)),
         };
-        var written = new List<string>(steps.Length);
+        var written = new List<string>(steps.Length + 1);
         foreach (var (name, write) in steps)
         {
             cancellationToken.ThrowIfCancellationRequested();
             write(Path.Combine(folder, name));
             written.Add(name);
+        }
+
+        if (run.RejectedRows.Count > 0)
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            AtomicFile.WriteText(Path.Combine(folder, RejectedRowsFileName), w => RejectedRowsCsv.Write(w, run.RejectedRows));
+            written.Add(RejectedRowsFileName);
         }
 
         return written;
