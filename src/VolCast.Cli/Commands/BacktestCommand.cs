@@ -3,6 +3,7 @@ using System.Globalization;
 using VolCast.Core.Backtest;
 using VolCast.IO;
 using VolCast.IO.Config;
+using VolCast.IO.Results;
 
 namespace VolCast.Cli.Commands;
 
@@ -49,7 +50,7 @@ internal static class BacktestCommand
         var unit = BacktestOptions.Unit(a.IvUnit);
         var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force);
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
-        BacktestResult result;
+        BacktestRun run;
         using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
         ConsoleCancelEventHandler onCtrlC = (_, e) =>
         {
@@ -61,7 +62,7 @@ internal static class BacktestCommand
         Console.CancelKeyPress += onCtrlC;
         try
         {
-            result = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token).Result;
+            run = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token);
         }
         catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
         {
@@ -74,12 +75,16 @@ internal static class BacktestCommand
             progress.Finish();
         }
 
+        var result = run.Result;
         var head = result.CandidateVersusBaseline;
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{result.Dates.Length} forecast dates ({result.DataQuality.DatesWithTarget} with a realized target), {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}."));
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {Show(head.Qlike?.Statistic)} (p {Show(head.Qlike?.PValue)}), DM MSE {Show(head.MseVariance?.Statistic)} (p {Show(head.MseVariance?.PValue)}); negative favours the candidate."));
-        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt)");
+        console.Out.WriteLine(run.RulePnl is null
+            ? $"rule's trades not run: {run.RulePnlAbsence}"
+            : "would the rule have paid? " + RulePnlAnswer.Sentence(run.RulePnl));
+        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt{(run.RulePnl is null ? string.Empty : ", trades.csv, rule-pnl.csv")})");
         return ExitCodes.Success;
     }
 

@@ -38,4 +38,20 @@ internal sealed class BacktestConfigDocument
     public double? AnnualizationFactor { get; set; }
 
     public string? Target { get; set; }
+
+    public CostsConfigDocument? Costs { get; set; }
+
+    public double? Rate { get; set; }
+
+    public double? DividendYield { get; set; }
+
+    public string? Entries { get; set; }
+
+    public string? RuleSides { get; set; }
+
+    public string? HedgeVolatility { get; set; }
+
+    public double[]? RuleThresholds { get; set; }
+
+    public SnoopingConfigDocument? Snooping { get; set; }
 }
