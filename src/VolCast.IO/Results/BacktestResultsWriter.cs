@@ -30,7 +30,7 @@ public static class BacktestResultsWriter
     /// <summary>The name of the rule's daily P&amp;L paths file (written only when the rule's trades were run).</summary>
     public const string RulePnlFileName = "rule-pnl.csv";
 
-    /// <summary>Gets the names of the data files this writer produces, run.json included.</summary>
+    /// <summary>Gets the names of the data files this writer can produce, run.json included (trades.csv and rule-pnl.csv only with the rule's trades).</summary>
     public static IReadOnlyList<string> FileNames { get; } =
         ["forecasts.csv", "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName];
 

@@ -155,6 +155,37 @@ public sealed class RulePnlFilesTests : IDisposable
     }
 
     [Fact]
+    public void Backtest_BaselineIsImplied_CurrentRuleIsThePlainHistoricalRule()
+    {
+        // "implied − implied" never fires, so the current rule falls back to the plain historical estimate (documented).
+        var folder = Run(",\"horizon\": 10, \"baseline\": \"implied\", \"ruleHistorical\": \"close-to-close:21\"");
+
+        using var metrics = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "metrics.json")));
+        var rules = metrics.RootElement.GetProperty("rule_pnl").GetProperty("at_close").GetProperty("rules");
+        Assert.Equal("current", rules[2].GetProperty("rule").GetString());
+        Assert.Equal("close-to-close:21", rules[2].GetProperty("forecaster").GetString());
+        Assert.Equal("close-to-close:21", rules[3].GetProperty("forecaster").GetString());
+    }
+
+    [Fact]
+    public void Backtest_EverySignalEntries_TradeTableHoldsEveryLadderTrade()
+    {
+        var folder = Run(",\"horizon\": 10, \"entries\": \"every-signal\"");
+
+        using var metrics = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "metrics.json")));
+        var section = metrics.RootElement.GetProperty("rule_pnl");
+        Assert.Equal("every-signal", section.GetProperty("conventions").GetProperty("entries").GetString());
+        var always = section.GetProperty("at_close").GetProperty("rules")[0];
+        var rows = Lines(folder, "trades.csv").Count(l => l.StartsWith("close,always-sell,", StringComparison.Ordinal));
+
+        // Every firing date sells one straddle: the table, the trade count and the ladder agree, and trades overlap
+        // (more than one per horizon of 10 trading days).
+        Assert.Equal(always.GetProperty("ladder_trades").GetInt32(), rows);
+        Assert.Equal(rows, always.GetProperty("trades").GetProperty("count").GetInt32());
+        Assert.Equal(section.GetProperty("at_close").GetProperty("firing_dates").GetInt32(), rows);
+    }
+
+    [Fact]
     public void Backtest_WithoutImplied_LeavesTheSectionOutAndSaysWhy()
     {
         var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", Days, seed: 31);
