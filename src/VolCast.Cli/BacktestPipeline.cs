@@ -3,6 +3,7 @@ using System.Reflection;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Data;
+using VolCast.Core.Trading;
 using VolCast.IO;
 using VolCast.IO.Results;
 using VolCast.Reports;
@@ -10,7 +11,8 @@ using VolCast.Reports;
 namespace VolCast.Cli;
 
 /// <summary>
-/// One backtest run, top to bottom: check the output folder → load → forecast and score (Core) → calibrate → stage a
+/// One backtest run, top to bottom: check the output folder → load → forecast and score (Core) → calibrate → trade the
+/// rule (Core) → stage a
 /// temporary folder → write the data files (IO) → write the report (Reports) → run.json with the manifest → commit.
 /// Holds no shared state, so jobs for different assets can run side by side.
 /// </summary>
@@ -49,6 +51,13 @@ internal static class BacktestPipeline
         var started = DateTimeOffset.UtcNow;
         progress?.Report(new BacktestProgress("reading inputs", 0, 1));
         var (prices, implied, warnings, notes, rejected) = Load(job, warn);
+        if (prices.AdjustedCloseApplied && job.Settings.Trading.DividendYield != 0)
+        {
+            // The adjusted closes already hold the dividends: a dividend yield in the pricing would count them twice.
+            throw new UsageException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"{job.Prices}: the adj_close column rescaled the prices, so the dividends are already in the price path; set dividendYield to 0 (was {job.Settings.Trading.DividendYield}) or give unadjusted closes."));
+        }
+
         progress?.Report(new BacktestProgress("reading inputs", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
 
@@ -60,13 +69,26 @@ internal static class BacktestPipeline
         progress?.Report(new BacktestProgress("checking the odds", 0, 1));
         var calibration = BacktestCalibrator.Evaluate(result, prices.History, cancellationToken: cancellationToken);
         progress?.Report(new BacktestProgress("checking the odds", 1, 1));
+        cancellationToken.ThrowIfCancellationRequested();
+
+        // Would the rule have paid? The rule as delta-hedged straddles, and the threshold search tested for data snooping.
+        stage?.Invoke(BacktestStage.RulePnl);
+        progress?.Report(new BacktestProgress("trading the rule", 0, 1));
+        var (rulePnl, absence) = RulePnlEvaluator.Evaluate(result, prices.History, cancellationToken);
+        progress?.Report(new BacktestProgress("trading the rule", 1, 1));
+        cancellationToken.ThrowIfCancellationRequested();
         var info = Info(job, prices, implied, warnings, started) with
         {
             InputNotes = notes,
             Suspect = job.Checks.Suspect.ToString().ToLowerInvariant(),
             RowsLeftOut = rejected.Count,
         };
-        var run = new BacktestRun(result, calibration, info, prices.History, prices.RowsRead) { RejectedRows = rejected };
+        var run = new BacktestRun(result, calibration, info, prices.History, prices.RowsRead)
+        {
+            RejectedRows = rejected,
+            RulePnl = rulePnl,
+            RulePnlAbsence = absence,
+        };
 
         stage?.Invoke(BacktestStage.WriteData);
         var staging = output.Stage();

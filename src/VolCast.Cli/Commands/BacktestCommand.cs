@@ -3,6 +3,7 @@ using System.Globalization;
 using VolCast.Core.Backtest;
 using VolCast.IO;
 using VolCast.IO.Config;
+using VolCast.IO.Results;
 
 namespace VolCast.Cli.Commands;
 
@@ -16,7 +17,7 @@ internal static class BacktestCommand
         var implied = new Option<string?>("--implied") { Description = "Implied-volatility CSV (date, iv). Optional: without it forecasters are ranked among themselves." };
         var ivUnit = new Option<string?>("--iv-unit") { Description = "Unit of the iv column: percent (20 = 20%) or decimal (0.20); inferred with a warning when left out." };
         ivUnit.AcceptOnlyFromAmong("percent", "decimal");
-        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate, suspect, skipBadRows. Every setting is optional. " + SettingLimits.HelpText() };
+        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate; the rule's trades: costs {optionHalfSpreadVolPoints, hedgeCostBps}, rate, dividendYield, entries (one-at-a-time | every-signal), ruleSides (sell-only | both), hedgeVolatility (implied | forecast), ruleThresholds, snooping {replications, blockLength, seed}; suspect, skipBadRows. Every setting is optional. " + SettingLimits.HelpText() };
         var horizon = new Option<int?>("--horizon") { Description = $"Forecast horizon in trading days, {SettingLimits.Horizon} (default 21). Overrides the configuration." };
         var tenor = new Option<string?>("--tenor") { Description = $"Forecast horizon as a calendar tenor such as 30d ({SettingLimits.TenorDays}), mapped through the price file's own trading calendar. Overrides the configuration." };
         var start = new Option<string?>("--start") { Description = "First forecast date, yyyy-MM-dd (earlier rows still warm the forecasters up)." };
@@ -54,7 +55,7 @@ internal static class BacktestCommand
         var unit = BacktestOptions.Unit(a.IvUnit);
         var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force) { Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows) };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
-        BacktestResult result;
+        BacktestRun run;
         using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
         ConsoleCancelEventHandler onCtrlC = (_, e) =>
         {
@@ -66,7 +67,7 @@ internal static class BacktestCommand
         Console.CancelKeyPress += onCtrlC;
         try
         {
-            result = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token).Result;
+            run = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token);
         }
         catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
         {
@@ -79,12 +80,16 @@ internal static class BacktestCommand
             progress.Finish();
         }
 
+        var result = run.Result;
         var head = result.CandidateVersusBaseline;
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{result.Dates.Length} forecast dates ({result.DataQuality.DatesWithTarget} with a realized target), {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}."));
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {Show(head.Qlike?.Statistic)} (p {Show(head.Qlike?.PValue)}), DM MSE {Show(head.MseVariance?.Statistic)} (p {Show(head.MseVariance?.PValue)}); negative favours the candidate."));
-        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt)");
+        console.Out.WriteLine(run.RulePnl is null
+            ? $"rule's trades not run: {run.RulePnlAbsence}"
+            : "would the rule have paid? " + RulePnlAnswer.Sentence(run.RulePnl));
+        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt{(run.RulePnl is null ? string.Empty : ", trades.csv, rule-pnl.csv")})");
         return ExitCodes.Success;
     }
 

@@ -5,6 +5,7 @@ using VolCast.Core.Backtest;
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
 using VolCast.Core.Forecasters;
+using VolCast.Core.Trading;
 
 namespace VolCast.IO.Config;
 
@@ -14,7 +15,10 @@ namespace VolCast.IO.Config;
 /// "start": "2015-01-02", "end": "2024-12-31", "sweep": true, "sweepEstimators": ["yang-zhang"], "sweepLookbacks": [5, 10, 21],
 /// "ewmaLambdas": [0.94, 0.97], "selectionWindowDays": 504, "mcs": { "replications": 1000, "alpha": 0.10,
 /// "blockLength": 21, "seed": 1 }, "ruleThreshold": 0.02, "ruleForecaster": "garch", "ruleHistorical": "close-to-close:21",
-/// "baseline": "implied", "candidate": "garch", "annualizationFactor": 252, "target": "squared-returns" }</c>.
+/// "baseline": "implied", "candidate": "garch", "annualizationFactor": 252, "target": "squared-returns",
+/// "costs": { "optionHalfSpreadVolPoints": 0.25, "hedgeCostBps": 1.0 }, "rate": 0, "dividendYield": 0,
+/// "entries": "one-at-a-time", "ruleSides": "sell-only", "hedgeVolatility": "implied",
+/// "ruleThresholds": [0, 0.005, 0.01, 0.02, 0.03, 0.04, 0.05], "snooping": { "replications": 1000, "blockLength": 21, "seed": 1 } }</c>.
 /// Unknown properties are errors (a misspelt setting must not be silently ignored). Comments and trailing commas are allowed.
 /// </remarks>
 public static class BacktestConfigFile
@@ -161,6 +165,14 @@ public static class BacktestConfigFile
             s = s with { Target = index >= 0 ? (RealizedTarget)index : throw Bad(file, "target", $"unknown realized target \"{Cut(target)}\"; valid: {string.Join(", ", TargetNames)}") };
         }
 
+        s = s with { Trading = ToTrading(doc, s, file) };
+        s = s with
+        {
+            SnoopingReplications = doc.Snooping?.Replications ?? s.SnoopingReplications,
+            SnoopingBlockLength = doc.Snooping?.BlockLength ?? s.SnoopingBlockLength,
+            SnoopingSeed = doc.Snooping?.Seed ?? s.SnoopingSeed,
+        };
+
         foreach (var (property, spec) in new[] { ("ruleHistorical", s.RuleHistorical), ("ruleForecaster", s.RuleForecaster), ("baseline", s.Baseline), ("candidate", s.Candidate) })
         {
             if (spec is not null && !spec.Trim().Equals(ImpliedSeries.Name, StringComparison.OrdinalIgnoreCase) && !spec.Trim().StartsWith("adaptive:", StringComparison.OrdinalIgnoreCase))
@@ -187,6 +199,51 @@ public static class BacktestConfigFile
         }
 
         return s;
+    }
+
+    /// <summary>Gets the accepted values of <c>entries</c>, <c>ruleSides</c> and <c>hedgeVolatility</c>, in the order of their enums.</summary>
+    internal static (string[] Entries, string[] Sides, string[] Hedge) TradingNames { get; } =
+        (["one-at-a-time", "every-signal"], ["sell-only", "both"], ["implied", "forecast"]);
+
+    private static TradingSettings ToTrading(BacktestConfigDocument doc, BacktestSettings s, string file)
+    {
+        var t = s.Trading;
+        var spread = doc.Costs?.OptionHalfSpreadVolPoints ?? t.Costs.OptionHalfSpreadVolPoints;
+        var hedge = doc.Costs?.HedgeCostBps ?? t.Costs.HedgeCostBps;
+        SettingLimits.OptionHalfSpread.Check(spread, SettingLimits.OptionHalfSpread.Name, file);
+        SettingLimits.HedgeCost.Check(hedge, SettingLimits.HedgeCost.Name, file);
+        t = t with
+        {
+            Costs = new TradeCosts(spread, hedge),
+            Rate = doc.Rate ?? t.Rate,
+            DividendYield = doc.DividendYield ?? t.DividendYield,
+            SweepThresholds = doc.RuleThresholds is null ? t.SweepThresholds : [.. doc.RuleThresholds],
+            Entries = doc.Entries is null ? t.Entries : (TradeEntries)Choice(doc.Entries, TradingNames.Entries, file, "entries"),
+            Sides = doc.RuleSides is null ? t.Sides : (RuleSides)Choice(doc.RuleSides, TradingNames.Sides, file, "ruleSides"),
+            HedgeVolatility = doc.HedgeVolatility is null ? t.HedgeVolatility : (HedgeVolatility)Choice(doc.HedgeVolatility, TradingNames.Hedge, file, "hedgeVolatility"),
+        };
+
+        if (doc.RuleThresholds is not null)
+        {
+            foreach (var threshold in doc.RuleThresholds)
+            {
+                SettingLimits.RuleThresholds.Check(threshold, SettingLimits.RuleThresholds.Name, file);
+            }
+
+            var distinct = doc.RuleThresholds.Distinct().Count();
+            if (distinct < 2 || distinct != doc.RuleThresholds.Length)
+            {
+                throw Bad(file, "ruleThresholds", $"must list at least two different thresholds, each once, to compare (and to test for data snooping), such as [0, 0.01, 0.02] (was {doc.RuleThresholds.Length} value(s), {distinct} different)");
+            }
+        }
+
+        return t;
+    }
+
+    private static int Choice(string text, string[] names, string file, string property)
+    {
+        var index = Array.FindIndex(names, n => string.Equals(n, text.Trim(), StringComparison.OrdinalIgnoreCase));
+        return index >= 0 ? index : throw Bad(file, property, $"unknown value \"{Cut(text)}\"; valid: {string.Join(", ", names)}");
     }
 
     /// <summary>Parses a calendar tenor such as <c>30d</c>.</summary>
