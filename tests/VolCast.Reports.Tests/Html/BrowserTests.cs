@@ -62,9 +62,8 @@ public sealed partial class BrowserTests : IDisposable
         // The report the README shows: reports/demo/report.html as committed, written by volcast demo.
         var report = Path.Combine(RepositoryRoot.Path, "reports", "demo", "report.html");
         Assert.True(File.Exists(report), $"{report} is missing; run volcast demo from the repository's root and commit reports/demo.");
-        // reports/demo was written before the "Would the rule have paid?" section existed; once it is regenerated with
-        // that section, check every section id here again.
-        var dom = CheckInChromium(report, "demo-screenshot.png", images: 8, HtmlReport.SectionIds.Where(id => id != "pnl").ToArray());
+        // Eight forecast and odds charts plus the three charts of "Would the rule have paid?".
+        var dom = CheckInChromium(report, "demo-screenshot.png", images: 11, HtmlReport.SectionIds.ToArray());
 
         Assert.Contains("candidate garch against baseline yang-zhang:21", dom, StringComparison.Ordinal);
 
