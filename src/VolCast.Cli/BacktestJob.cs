@@ -26,6 +26,12 @@ internal sealed record BacktestJob(
     /// <summary>Gets the implied file's bytes when already read, or null.</summary>
     public InputBytes? ImpliedRead { get; init; }
 
+    /// <summary>Gets how the price and implied files are written (date format, delimiter, decimal separator).</summary>
+    public CsvFormat Format { get; init; } = CsvFormat.Default;
+
+    /// <summary>Gets the implied series' declared tenor in calendar days, or null when it is the backtest's own.</summary>
+    public int? ImpliedTenorDays { get; init; }
+
     /// <summary>Gets the configuration file's SHA-256 when already known, or null to hash the file.</summary>
     public string? ConfigSha256 { get; init; }
 

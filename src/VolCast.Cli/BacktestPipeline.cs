@@ -97,7 +97,7 @@ internal static class BacktestPipeline
             warnings.Add(warning.ToString());
         }
 
-        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices));
+        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices), job.Format);
         foreach (var warning in prices.Warnings)
         {
             Warn(warning);
@@ -106,10 +106,15 @@ internal static class BacktestPipeline
         ImpliedLoad? implied = null;
         if (job.Implied is not null)
         {
-            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit);
+            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit, job.Format);
             foreach (var warning in implied.Warnings)
             {
                 Warn(warning);
+            }
+
+            if (ImpliedTenor.Check(job.ImpliedTenorDays, job.Settings.Horizon, job.Implied) is { } mismatch)
+            {
+                Warn(mismatch);
             }
         }
 

@@ -48,15 +48,32 @@ public static class ImpliedFileReader
     /// <exception cref="InputDataException">The file is missing or unreadable, or its content is invalid.</exception>
     public static ImpliedLoad Read(string path, ImpliedUnit unit = ImpliedUnit.Infer) => Read(InputBytes.Read(path), unit);
 
+    /// <summary>Loads an implied-volatility file written in a declared form (date format, delimiter, decimal separator).</summary>
+    /// <param name="path">The file, as the user gave it; used as given in messages.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The series as decimals, the warnings, the unit used, whether it was inferred, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The file is missing or unreadable, or its content is invalid.</exception>
+    public static ImpliedLoad Read(string path, ImpliedUnit unit, CsvFormat format) => Read(InputBytes.Read(path), unit, format);
+
     /// <summary>Loads an implied-volatility file already read (<see cref="InputBytes.Read"/>), without reading or hashing it again.</summary>
     /// <param name="input">The file's bytes and their SHA-256.</param>
     /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
     /// <returns>The series as decimals, the warnings, the unit used, whether it was inferred, and the SHA-256 of the file's bytes.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit = ImpliedUnit.Infer)
+    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit = ImpliedUnit.Infer) => Read(input, unit, CsvFormat.Default);
+
+    /// <summary>Loads an implied-volatility file already read, written in a declared form.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The series as decimals, the warnings, the unit used, whether it was inferred, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit, CsvFormat format)
     {
         ArgumentNullException.ThrowIfNull(input);
-        return Parse(input.Text(), input.Path, unit, input.Sha256);
+        ArgumentNullException.ThrowIfNull(format);
+        return Parse(input.Text(), input.Path, unit, input.Sha256, format);
     }
 
     /// <summary>Loads implied-volatility data from a reader (for tests and in-memory data).</summary>
@@ -65,35 +82,46 @@ public static class ImpliedFileReader
     /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
     /// <returns>The load result; <see cref="ImpliedLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit = ImpliedUnit.Infer)
+    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit = ImpliedUnit.Infer) =>
+        Read(reader, displayName, unit, CsvFormat.Default);
+
+    /// <summary>Loads implied-volatility data written in a declared form from a reader (for tests and in-memory data).</summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="displayName">The name used for the file in messages.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <param name="format">The text's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The load result; <see cref="ImpliedLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit, CsvFormat format)
     {
         ArgumentNullException.ThrowIfNull(displayName);
+        ArgumentNullException.ThrowIfNull(format);
         var text = InputText.ReadAll(reader);
-        return Parse(text.StartsWith('\uFEFF') ? text[1..] : text, displayName, unit, InputText.Sha256Hex(text));
+        return Parse(text.StartsWith('\uFEFF') ? text[1..] : text, displayName, unit, InputText.Sha256Hex(text), format);
     }
 
     /// <summary>Loads implied-volatility data from a file's bytes.</summary>
     internal static ImpliedLoad ReadBytes(byte[] bytes, string displayName, ImpliedUnit unit)
     {
         var text = InputText.Decode(bytes, displayName);
-        return Parse(text, displayName, unit, InputText.Sha256Hex(bytes));
+        return Parse(text, displayName, unit, InputText.Sha256Hex(bytes), CsvFormat.Default);
     }
 
-    private static ImpliedLoad Parse(string text, string file, ImpliedUnit unit, string sha256)
+    private static ImpliedLoad Parse(string text, string file, ImpliedUnit unit, string sha256, CsvFormat format)
     {
         if (!Enum.IsDefined(unit))
         {
             throw new ArgumentOutOfRangeException(nameof(unit), unit, "unit must be Infer, Percent or Decimal.");
         }
 
-        using var reader = new CsvRowReader(text, file);
+        using var reader = new CsvRowReader(text, file, format.Delimiter);
         if (!reader.TryRead(out var headerRow))
         {
             throw new InputDataException(file, 1, null,
                 "the file is empty; expected a header row (" + Expected + ") followed by one row per date.");
         }
 
-        var header = HeaderMap.Resolve(headerRow, file, Aliases, Expected);
+        var header = HeaderMap.Resolve(headerRow, file, Aliases, Expected, format);
         reader.UseHeader([.. header.Names]);
         var dateIndex = header.Require("date", file, Expected);
         var ivIndex = header.Require("iv", file, Expected);
@@ -125,14 +153,14 @@ public static class ImpliedFileReader
                 }
             }
 
-            var date = CellParser.Date(row.Cells[dateIndex], file, row.Line, header.Names[dateIndex]);
+            var date = CellParser.Date(row.Cells[dateIndex], file, row.Line, header.Names[dateIndex], format);
             if (!seen.TryAdd(date, row.Line))
             {
                 throw new InputDataException(file, row.Line, header.Names[dateIndex], string.Create(CultureInfo.InvariantCulture,
                     $"the date {ValueText.Date(date)} appears twice, on line {seen[date]} and line {row.Line}; expected one value per date."));
             }
 
-            var value = CellParser.Number(row.Cells[ivIndex], file, row.Line, ivName, "an implied volatility such as 0.21 (decimal) or 21 (percent)");
+            var value = CellParser.Number(row.Cells[ivIndex], file, row.Line, ivName, "an implied volatility such as 0.21 (decimal) or 21 (percent)", format);
             dates.Add(date);
             lines.Add(row.Line);
             values.Add(value);

@@ -39,6 +39,7 @@ internal static class ConeCommand
         {
             prices, implied, impliedHorizon, output, force,
         };
+        var formatOptions = InputFormatOptions.AddTo(command);
 
         command.SetAction(parse => console.Execute(() =>
         {
@@ -48,6 +49,7 @@ internal static class ConeCommand
                 throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--implied-horizon must be at least 1 trading day (was {horizon})."));
             }
 
+            var format = formatOptions.Resolve(parse);
             var pricesPath = parse.GetValue(prices)!.ToString();
             var impliedFile = parse.GetValue(implied);
             var inputs = new List<string> { pricesPath };
@@ -69,7 +71,7 @@ internal static class ConeCommand
                 }
             }
 
-            var load = PriceFileReader.Read(pricesPath);
+            var load = PriceFileReader.Read(pricesPath, format);
             foreach (var warning in load.Warnings)
             {
                 console.Warn(warning.ToString());
@@ -92,7 +94,7 @@ internal static class ConeCommand
             var overlays = new List<ConeOverlay>();
             if (impliedFile is not null)
             {
-                var impliedLoad = ImpliedFileReader.Read(impliedFile.ToString());
+                var impliedLoad = ImpliedFileReader.Read(impliedFile.ToString(), ImpliedUnit.Infer, format);
                 foreach (var warning in impliedLoad.Warnings)
                 {
                     console.Warn(warning.ToString());

@@ -38,4 +38,12 @@ internal sealed class BacktestConfigDocument
     public double? AnnualizationFactor { get; set; }
 
     public string? Target { get; set; }
+
+    public string? DateFormat { get; set; }
+
+    public string? Delimiter { get; set; }
+
+    public string? Decimal { get; set; }
+
+    public string? ImpliedTenor { get; set; }
 }
