@@ -10,7 +10,7 @@ namespace VolCast.IO;
 /// </summary>
 /// <remarks>
 /// <para>Format as for price files: comma-separated UTF-8 (byte-order mark optional), LF or CRLF, a header row,
-/// ISO dates yyyy-MM-dd, '.' decimal point. The value column may be headed <c>iv</c>, <c>implied</c>,
+/// ISO dates yyyy-MM-dd, '.' decimal point, unless another <see cref="CsvFormat"/> is declared. The value column may be headed <c>iv</c>, <c>implied</c>,
 /// <c>implied_vol</c>, <c>implied volatility</c> or <c>vol</c> (case-insensitive); other columns are ignored with a warning.</para>
 /// <para>Unit: declared (<see cref="ImpliedUnit.Percent"/>: 20 means 20%; <see cref="ImpliedUnit.Decimal"/>: 0.20
 /// means 20%) or inferred: when the median value is above 1.5 the file is read as percent, otherwise as decimal,

@@ -14,7 +14,9 @@ namespace VolCast.IO;
 /// <c>volume</c>, in any order; or close-only <c>date, close</c> (optionally <c>adj_close</c>). Header names are
 /// matched case-insensitively ignoring spaces, underscores, hyphens and dots ("Adj Close", "adj_close",
 /// "AdjClose", "Adjusted Close"); other columns are ignored with one warning. Dates are ISO 8601 yyyy-MM-dd,
-/// numbers use '.' as the decimal point (invariant culture). Blank lines are skipped.</para>
+/// numbers use '.' as the decimal point (invariant culture), unless another <see cref="CsvFormat"/> is declared. A daily
+/// timestamp (midnight or a usual close) is read as its date. Blank lines are skipped. A missing-value mark (null, NA,
+/// NaN, -, empty) is a missing volume, and refuses the row in a price or adj_close column.</para>
 /// <para>Each row must parse completely; prices must be finite, at least 1e-8 and below 1e15 (values outside are
 /// taken as corrupt cells, and the bounds keep every log price ratio finite); high ≥ low and open and close must lie within [low, high]; volume, when given, must be
 /// a finite number ≥ 0 or blank. A date may appear once. Rows out of date order are sorted (with a warning).</para>
