@@ -8,7 +8,7 @@ namespace VolCast.IO;
 /// pipe, a device such as <c>/dev/zero</c> or a socket is refused at once instead of hanging the run or reading without
 /// end; and every read stops at a size cap.
 /// </summary>
-public static class InputFiles
+internal static class InputFiles
 {
     /// <summary>Largest configuration file read: 1 MiB (a full configuration is about 1 KB).</summary>
     public const int MaxConfigBytes = 1024 * 1024;

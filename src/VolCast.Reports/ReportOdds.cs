@@ -39,7 +39,7 @@ internal static class ReportOdds
             var one = cov.Levels[0];
             var two = cov.Levels[1];
             needed = Math.Max(needed, one.SamplesNeeded);
-            rows.Add(new MetricRow(cov.Forecaster,
+            rows.Add(new MetricRow(cov.Spec,
             [
                 new MetricCell(one.NonOverlappingCount, "0"),
                 new MetricCell(one.ShareWithin, "0.0%"),
@@ -100,7 +100,7 @@ internal static class ReportOdds
         {
             for (var i = 0; i < calibration.Forecasters.Length; i++)
             {
-                if (calibration.Forecasters[i].Forecaster == name && !indices.Contains(i))
+                if (calibration.Forecasters[i].Spec == name && !indices.Contains(i))
                 {
                     indices.Add(i);
                 }
@@ -123,7 +123,7 @@ internal static class ReportOdds
         var curves = new List<ReliabilityCurve>();
         foreach (var name in names)
         {
-            var forecaster = calibration.Forecasters.FirstOrDefault(f => f.Forecaster == name);
+            var forecaster = calibration.Forecasters.FirstOrDefault(f => f.Spec == name);
             if (forecaster is not null && Pooled(forecaster) is { } curve)
             {
                 curves.Add(curve);
@@ -143,7 +143,7 @@ internal static class ReportOdds
         }
 
         return new ReliabilityCurve(
-            forecaster.Forecaster,
+            forecaster.Spec,
             [.. bins.Select(b => b.MeanPredicted)],
             [.. bins.Select(b => b.ObservedFrequency)],
             [.. bins.Select(b => b.IntervalLower)],

@@ -1,6 +1,7 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
 using VolCast.Core.Scoring;
+using VolCast.Core.Trading;
 using VolCast.Reports.Model;
 
 namespace VolCast.Reports;
@@ -13,6 +14,13 @@ namespace VolCast.Reports;
 internal static class ReportVerdict
 {
     private static readonly CultureInfo C = CultureInfo.InvariantCulture;
+
+    /// <summary>Builds the verdict; with the rule's option P&amp;L, its one answer leads and the forecast headline follows as the first point.</summary>
+    public static Verdict Build(BacktestResult result, RulePnlReport? pnl)
+    {
+        var verdict = Build(result);
+        return pnl is null ? verdict : new Verdict(ReportPnl.Headline(pnl), [verdict.Headline, .. verdict.Points]);
+    }
 
     /// <summary>Builds the verdict.</summary>
     public static Verdict Build(BacktestResult result)
@@ -171,7 +179,7 @@ internal static class ReportVerdict
             $"Rule test (not a trading P&L): \"sell volatility when implied exceeds {rule.ForecastSpec} by more than {rule.ThresholdVolatility * 100:0.0} points\" fired on {sell.Count} of {all.Count} dates; {sellText}, against {allGap * 100:0.0} on all dates.");
     }
 
-    private static string P(double p) => p < 0.0001 ? "< 0.0001" : p.ToString("0.0000", C);
+    internal static string P(double p) => p < 0.0001 ? "< 0.0001" : p.ToString("0.0000", C);
 
     private static string Signed(double value, string format) => (value >= 0 ? "+" : "−") + Math.Abs(value).ToString(format, C);
 }

@@ -15,7 +15,7 @@ namespace VolCast.Reports;
 
 /// <summary>
 /// Turns a backtest into its report: maps a <see cref="BacktestResult"/> and its <see cref="BacktestRunInfo"/> to a
-/// <see cref="ReportModel"/> (verdict, tables, every chart, data quality, settings) and writes report.html with the
+/// <see cref="ReportModel"/> (verdict, the rule's option P&amp;L, tables, every chart, data quality, settings) and writes report.html with the
 /// chart PNGs.
 /// </summary>
 /// <remarks>
@@ -29,6 +29,7 @@ public static class ReportWriter
     [
         ReportFiles.ReportFileName, "forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png",
         "mincer-zarnowitz.png", "cone.png", ConeFileName, "rule-test.png", ReportCharts.ReliabilityFileName,
+        PnlCharts.CumulativeFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName,
     ];
 
     /// <summary>The cone's data file: the percentiles the cone chart draws, in the columns of <see cref="ConeCsv"/>.</summary>
@@ -39,7 +40,7 @@ public static class ReportWriter
     /// <param name="cancellationToken">Stops between charts.</param>
     /// <returns>The report model.</returns>
     /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
-    public static ReportModel Build(BacktestRun run, CancellationToken cancellationToken = default)
+    internal static ReportModel Build(BacktestRun run, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(run);
         return Build(run, Cone(run.Result, run.Prices), null, cancellationToken);
@@ -85,15 +86,17 @@ public static class ReportWriter
         var charts = Charts(result, cone, progress, cancellationToken);
         cancellationToken.ThrowIfCancellationRequested();
         var odds = ReportOdds.Build(result, run.Calibration);
+        var pnl = ReportPnl.Build(run.RulePnl, run.RulePnlAbsence, result.Settings.Horizon, cancellationToken);
         return new ReportModel(
             title,
-            ReportVerdict.Build(result),
+            ReportVerdict.Build(result, run.RulePnl),
             ReportTables.Build(result),
             charts,
             Quality(result, info, run.PriceRowsRead),
             new RunInfo(info.ToolVersion, info.StartedUtc, info.FinishedUtc - info.StartedUtc, Settings(result, info), [.. info.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
         {
             Odds = odds,
+            Pnl = pnl,
         };
     }
 

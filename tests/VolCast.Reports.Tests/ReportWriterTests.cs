@@ -211,7 +211,7 @@ public sealed class ReportWriterTests
         foreach (var curve in curves)
         {
             // Pool by hand: for each bin, counts add up and the means are count-weighted over the five strikes.
-            var strikes = calibration.Forecasters.Single(f => f.Forecaster == curve.Name).Calibration.Strikes;
+            var strikes = calibration.Forecasters.Single(f => f.Spec == curve.Name).Calibration.Strikes;
             var k = 0;
             for (var bin = 0; bin < 10; bin++)
             {

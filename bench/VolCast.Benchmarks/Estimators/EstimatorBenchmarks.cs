@@ -82,7 +82,8 @@ public class EstimatorBenchmarks
     /// <summary>Building the per-bar terms alone (the logarithms and prefix sums), the fixed cost per history.</summary>
     [Benchmark]
     [BenchmarkCategory("Parts")]
-    public EstimatorTerms TermsOnly() => EstimatorTerms.From(_prices);
+    // Returned as object: the terms type is internal to Core, and a benchmark method must be public.
+    public object TermsOnly() => EstimatorTerms.From(_prices);
 
     /// <summary>Reading all five estimators at one window from terms built once.</summary>
     [Benchmark]

@@ -53,7 +53,8 @@ public class SnoopingBenchmarks
 
     /// <summary>Drawing the B resamples alone (shared by both tests).</summary>
     [Benchmark]
-    public StationaryBootstrapDraws Draw() => DataSnooping.Draw(Days, _options);
+    // Returned as object: the draws type is internal to Core, and a benchmark method must be public.
+    public object Draw() => DataSnooping.Draw(Days, _options);
 
     /// <summary>Reality Check, SPA (l, c, u) and StepM on the mean P&amp;L differences, draws included.</summary>
     [Benchmark(Baseline = true)]

@@ -16,109 +16,95 @@ internal static class ConeCommand
     /// <summary>Builds the command.</summary>
     public static Command Create(CliConsole console)
     {
-        var prices = new Option<FileInfo>("--prices")
-        {
-            Description = "Daily price history CSV (date and close at least).",
-            Required = true,
-        };
-        var implied = new Option<FileInfo?>("--implied") { Description = "Implied volatility CSV (date,iv); its latest value is drawn on the cone." };
-        var impliedHorizon = new Option<int>("--implied-horizon")
-        {
-            Description = "Trading days the implied volatility covers, where it is drawn on the cone (21 for a 30-day tenor).",
-            DefaultValueFactory = _ => 21,
-        };
-        var output = new Option<DirectoryInfo>("--out")
-        {
-            Description = "Output folder for cone.png and cone.csv; must not hold them already unless --force.",
-            DefaultValueFactory = _ => new DirectoryInfo("cone"),
-        };
-        var force = new Option<bool>("--force") { Description = "Replace cone.png and cone.csv if they exist." };
+        var options = ConeOptions.Define();
         var command = new Command(
             "cone",
             "Draw the volatility cone: percentiles (min, 10, 25, 50, 75, 90, max) of zero-mean close-to-close realized volatility over every window of 5 to 252 trading days, adjusted for overlapping windows (Hodges-Tompkins).")
         {
-            prices, implied, impliedHorizon, output, force,
+            options.Prices, options.Implied, options.ImpliedHorizon, options.Output, options.Force,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
 
-        command.SetAction(parse => console.Execute(() =>
-        {
-            var horizon = parse.GetValue(impliedHorizon);
-            if (horizon < 1)
-            {
-                throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--implied-horizon must be at least 1 trading day (was {horizon})."));
-            }
-
-            var format = formatOptions.Resolve(parse);
-            var pricesPath = parse.GetValue(prices)!.ToString();
-            var impliedFile = parse.GetValue(implied);
-            var inputs = new List<string> { pricesPath };
-            if (impliedFile is not null)
-            {
-                inputs.Add(impliedFile.ToString());
-            }
-
-            var folder = parse.GetValue(output)!.ToString();
-            var overwrite = parse.GetValue(force);
-            var pngPath = Path.Combine(folder, "cone.png");
-            var csvPath = Path.Combine(folder, "cone.csv");
-            OutputGuard.RefuseInputs([pngPath, csvPath], inputs);
-            foreach (var target in new[] { pngPath, csvPath })
-            {
-                if (!overwrite && File.Exists(target))
-                {
-                    throw new IOException($"{target}: the output file already exists; choose another --out or pass --force to replace it.");
-                }
-            }
-
-            var load = PriceFileReader.Read(pricesPath, format);
-            foreach (var warning in load.Warnings)
-            {
-                console.Warn(warning.ToString());
-            }
-
-            var returns = Returns.LogReturns(load.History.Close);
-            var cone = VolatilityCone.Compute(returns, VolatilityCone.DefaultHorizons);
-            if (cone.Horizons.Count == 0)
-            {
-                throw new InputDataException(pricesPath, null, null, string.Create(CultureInfo.InvariantCulture,
-                    $"the file gives {returns.Length} daily returns; the shortest cone horizon (5 days) needs at least 14. Supply a longer history."));
-            }
-
-            foreach (var skipped in cone.SkippedHorizons)
-            {
-                console.Warn(string.Create(CultureInfo.InvariantCulture,
-                    $"the {skipped}-day horizon needs at least {(3 * skipped) - 1} daily returns (the file gives {returns.Length}); it is left out of the cone."));
-            }
-
-            var overlays = new List<ConeOverlay>();
-            if (impliedFile is not null)
-            {
-                var impliedLoad = ImpliedFileReader.Read(impliedFile.ToString(), ImpliedUnit.Infer, format);
-                foreach (var warning in impliedLoad.Warnings)
-                {
-                    console.Warn(warning.ToString());
-                }
-
-                var latest = LatestOnOrBefore(impliedLoad.Series, load.History.Dates[^1]);
-                if (latest is (DateOnly date, double iv))
-                {
-                    overlays.Add(new ConeOverlay(string.Create(CultureInfo.InvariantCulture, $"implied {date:yyyy-MM-dd}"), horizon, iv));
-                }
-                else
-                {
-                    console.Warn($"{impliedFile}: no implied volatility on or before the last price date; the cone is drawn without it.");
-                }
-            }
-
-            var chart = ReportCharts.Cone(cone, overlays);
-            AtomicFile.WriteText(csvPath, w => ConeCsv.Write(w, cone), overwrite, inputs);
-            AtomicFile.WriteBytes(pngPath, chart.Png, overwrite);
-            console.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"wrote the volatility cone ({cone.Horizons.Count} horizons from {returns.Length} daily returns) to {csvPath} and {pngPath}"));
-            return ExitCodes.Success;
-        }));
+        command.SetAction(parse => console.Execute(() => Run(console, ConeRequest.Read(parse, options), formatOptions.Resolve(parse))));
         return command;
+    }
+
+    private static int Run(CliConsole console, ConeRequest request, CsvFormat format)
+    {
+        RefuseExisting(request);
+        var load = PriceFileReader.Read(request.PricesPath, format);
+        foreach (var warning in load.Warnings)
+        {
+            console.Warn(warning.ToString());
+        }
+
+        var returns = Returns.LogReturns(load.History.Close);
+        var cone = ComputeCone(console, request.PricesPath, returns);
+        var overlays = ImpliedOverlays(console, request, load.History.Dates[^1], format);
+        var chart = ReportCharts.Cone(cone, overlays);
+        AtomicFile.WriteText(request.CsvPath, w => ConeCsv.Write(w, cone), request.Overwrite, request.Inputs);
+        AtomicFile.WriteBytes(request.PngPath, chart.Png, request.Overwrite);
+        console.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
+            $"wrote the volatility cone ({cone.Horizons.Count} horizons from {returns.Length} daily returns) to {request.CsvPath} and {request.PngPath}"));
+        return ExitCodes.Success;
+    }
+
+    private static void RefuseExisting(ConeRequest request)
+    {
+        OutputGuard.RefuseInputs([request.PngPath, request.CsvPath], request.Inputs);
+        foreach (var target in new[] { request.PngPath, request.CsvPath })
+        {
+            if (!request.Overwrite && File.Exists(target))
+            {
+                throw new IOException($"{target}: the output file already exists; choose another --out or pass --force to replace it.");
+            }
+        }
+    }
+
+    private static VolatilityConeResult ComputeCone(CliConsole console, string pricesPath, double[] returns)
+    {
+        var cone = VolatilityCone.Compute(returns, VolatilityCone.DefaultHorizons);
+        if (cone.Horizons.Count == 0)
+        {
+            throw new InputDataException(pricesPath, null, null, string.Create(CultureInfo.InvariantCulture,
+                $"the file gives {returns.Length} daily returns; the shortest cone horizon (5 days) needs at least 14. Supply a longer history."));
+        }
+
+        foreach (var skipped in cone.SkippedHorizons)
+        {
+            console.Warn(string.Create(CultureInfo.InvariantCulture,
+                $"the {skipped}-day horizon needs at least {(3 * skipped) - 1} daily returns (the file gives {returns.Length}); it is left out of the cone."));
+        }
+
+        return cone;
+    }
+
+    /// <summary>The latest implied volatility on or before the last price date, drawn at the implied horizon; none without an implied file.</summary>
+    private static List<ConeOverlay> ImpliedOverlays(CliConsole console, ConeRequest request, DateOnly lastPriceDate, CsvFormat format)
+    {
+        var overlays = new List<ConeOverlay>();
+        if (request.ImpliedFile is not { } impliedFile)
+        {
+            return overlays;
+        }
+
+        var impliedLoad = ImpliedFileReader.Read(impliedFile.ToString(), ImpliedUnit.Infer, format);
+        foreach (var warning in impliedLoad.Warnings)
+        {
+            console.Warn(warning.ToString());
+        }
+
+        var latest = LatestOnOrBefore(impliedLoad.Series, lastPriceDate);
+        if (latest is (DateOnly date, double iv))
+        {
+            overlays.Add(new ConeOverlay(string.Create(CultureInfo.InvariantCulture, $"implied {date:yyyy-MM-dd}"), request.ImpliedHorizon, iv));
+        }
+        else
+        {
+            console.Warn($"{impliedFile}: no implied volatility on or before the last price date; the cone is drawn without it.");
+        }
+
+        return overlays;
     }
 
     private static (DateOnly Date, double Volatility)? LatestOnOrBefore(ImpliedSeries series, DateOnly last)
@@ -132,5 +118,54 @@ internal static class ConeCommand
         }
 
         return null;
+    }
+
+    /// <summary>The command's options.</summary>
+    private sealed record ConeOptions(Option<FileInfo> Prices, Option<FileInfo?> Implied, Option<int> ImpliedHorizon, Option<DirectoryInfo> Output, Option<bool> Force)
+    {
+        public static ConeOptions Define() => new(
+            new Option<FileInfo>("--prices")
+            {
+                Description = "Daily price history CSV (date and close at least).",
+                Required = true,
+            },
+            new Option<FileInfo?>("--implied") { Description = "Implied volatility CSV (date,iv); its latest value is drawn on the cone." },
+            new Option<int>("--implied-horizon")
+            {
+                Description = "Trading days the implied volatility covers, where it is drawn on the cone (21 for a 30-day tenor).",
+                DefaultValueFactory = _ => 21,
+            },
+            new Option<DirectoryInfo>("--out")
+            {
+                Description = "Output folder for cone.png and cone.csv; must not hold them already unless --force.",
+                DefaultValueFactory = _ => new DirectoryInfo("cone"),
+            },
+            new Option<bool>("--force") { Description = "Replace cone.png and cone.csv if they exist." });
+    }
+
+    /// <summary>One cone run as the command line asked for it: the inputs, the implied horizon and the two output paths.</summary>
+    private sealed record ConeRequest(
+        string PricesPath, FileInfo? ImpliedFile, int ImpliedHorizon, List<string> Inputs, string PngPath, string CsvPath, bool Overwrite)
+    {
+        public static ConeRequest Read(ParseResult parse, ConeOptions options)
+        {
+            var horizon = parse.GetValue(options.ImpliedHorizon);
+            if (horizon < 1)
+            {
+                throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--implied-horizon must be at least 1 trading day (was {horizon})."));
+            }
+
+            var pricesPath = parse.GetValue(options.Prices)!.ToString();
+            var impliedFile = parse.GetValue(options.Implied);
+            var inputs = new List<string> { pricesPath };
+            if (impliedFile is not null)
+            {
+                inputs.Add(impliedFile.ToString());
+            }
+
+            var folder = parse.GetValue(options.Output)!.ToString();
+            return new ConeRequest(
+                pricesPath, impliedFile, horizon, inputs, Path.Combine(folder, "cone.png"), Path.Combine(folder, "cone.csv"), parse.GetValue(options.Force));
+        }
     }
 }

@@ -12,7 +12,7 @@ namespace VolCast.Core.Calibration;
 /// martingale and the median of S_τ sits at S·e^{−σ²τ/2}, slightly below today's close. It is the number a trader
 /// reads off an option screen as the "probability of finishing in the money" for a call.
 /// </remarks>
-public static class AboveStrikeProbability
+internal static class AboveStrikeProbability
 {
     /// <summary>d2 of Black-Scholes-Merton.</summary>
     /// <param name="spot">S, above zero.</param>

@@ -75,7 +75,7 @@ public static class BacktestCalibrator
         var coverage = ExpectedMoveCoverage.Evaluate(outcomes, forecaster, options);
         var regimes = regimeValues is null ? ImmutableArray<RegimeCoverage>.Empty : CoverageRegimes.ByTerciles(coverage, regimeValues, options.IntervalZ);
         return new ForecasterOdds(
-            forecaster.Name,
+            forecaster.Spec,
             calibration,
             coverage,
             regimes,

@@ -21,7 +21,7 @@ namespace VolCast.Core.Calibration;
 /// <para>0 · ln 0 is taken as 0 throughout, so all-failure, no-failure and no-transition-from-failure samples give
 /// finite statistics. Statistics below zero by rounding are set to 0.</para>
 /// </remarks>
-public static class CoverageLikelihoodRatio
+internal static class CoverageLikelihoodRatio
 {
     /// <summary>Kupiec's proportion-of-failures test.</summary>
     /// <param name="count">n, at least 1.</param>

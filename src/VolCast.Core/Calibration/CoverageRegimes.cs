@@ -12,7 +12,7 @@ namespace VolCast.Core.Calibration;
 /// applied at the time; large moves fall in the stressed third by construction, so read the stressed third's
 /// shortfall against the calm third's excess rather than on its own.
 /// </remarks>
-public static class CoverageRegimes
+internal static class CoverageRegimes
 {
     private static readonly string[] Labels = ["calm", "middle", "stressed"];
 

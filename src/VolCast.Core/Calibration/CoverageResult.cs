@@ -8,7 +8,7 @@ namespace VolCast.Core.Calibration;
 /// numbers are over the dates with a forecast and are null when there are none. <see cref="ZScale"/> = √(mean z²)
 /// is the factor by which the ranges should have been wider (above 1) or narrower (below 1).
 /// </remarks>
-/// <param name="Forecaster">The forecaster's name.</param>
+/// <param name="Spec">The forecaster's spec, as written in a configuration (for example <c>yang-zhang:21</c> or <c>implied</c>).</param>
 /// <param name="HorizonDays">The horizon h in trading days.</param>
 /// <param name="Count">Dates with a forecast.</param>
 /// <param name="MissingCount">Dates without a forecast; their z is null.</param>
@@ -19,7 +19,7 @@ namespace VolCast.Core.Calibration;
 /// <param name="Levels">The |z| ≤ 1 and |z| ≤ 2 ranges.</param>
 /// <param name="Z">z per aligned date, null where the forecaster had no value.</param>
 public sealed record CoverageResult(
-    string Forecaster,
+    string Spec,
     int HorizonDays,
     int Count,
     int MissingCount,

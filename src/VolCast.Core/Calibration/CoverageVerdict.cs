@@ -32,7 +32,7 @@ public static class CoverageVerdict
         var c = CultureInfo.InvariantCulture;
         var one = coverage.Levels[0];
         var text = new StringBuilder();
-        text.Append(c, $"ranges from {coverage.Forecaster}");
+        text.Append(c, $"ranges from {coverage.Spec}");
         if (coverage.Count == 0 || one.ShareWithin is not { } share || coverage.ZScale is not { } scale)
         {
             text.Append(c, $" could not be checked: the forecaster had no value on any of the {coverage.MissingCount} dates");

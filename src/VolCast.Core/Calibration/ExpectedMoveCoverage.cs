@@ -70,7 +70,7 @@ public static class ExpectedMoveCoverage
         }
 
         return new CoverageResult(
-            forecaster.Name,
+            forecaster.Spec,
             h,
             count,
             missing.Count,

@@ -11,30 +11,30 @@ namespace VolCast.Core.Calibration;
 public sealed record ForecasterVolatility
 {
     /// <summary>Creates the series and checks it.</summary>
-    /// <param name="name">The forecaster's name as written in a configuration, for example <c>yang-zhang:21</c> or <c>implied</c>.</param>
+    /// <param name="spec">The forecaster's spec as written in a configuration, for example <c>yang-zhang:21</c> or <c>implied</c>.</param>
     /// <param name="annualizedVolatility">σ_F per date, annualized decimal; null where the forecaster has no value.</param>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
-    /// <exception cref="ArgumentException">The name is blank.</exception>
+    /// <exception cref="ArgumentException">The spec is blank.</exception>
     /// <exception cref="ArgumentOutOfRangeException">A value present is not finite or not above zero.</exception>
-    public ForecasterVolatility(string name, double?[] annualizedVolatility)
+    public ForecasterVolatility(string spec, double?[] annualizedVolatility)
     {
-        ArgumentException.ThrowIfNullOrWhiteSpace(name);
+        ArgumentException.ThrowIfNullOrWhiteSpace(spec);
         ArgumentNullException.ThrowIfNull(annualizedVolatility);
         for (var i = 0; i < annualizedVolatility.Length; i++)
         {
             if (annualizedVolatility[i] is { } v && (!double.IsFinite(v) || v <= 0))
             {
                 throw new ArgumentOutOfRangeException(nameof(annualizedVolatility), v, string.Create(CultureInfo.InvariantCulture,
-                    $"{name}: annualizedVolatility[{i}] must be a finite volatility above zero, or null where the forecaster has no value, was {v}."));
+                    $"{spec}: annualizedVolatility[{i}] must be a finite volatility above zero, or null where the forecaster has no value, was {v}."));
             }
         }
 
-        Name = name;
+        Spec = spec;
         AnnualizedVolatility = annualizedVolatility;
     }
 
-    /// <summary>The forecaster's name.</summary>
-    public string Name { get; }
+    /// <summary>The forecaster's spec, as written in a configuration.</summary>
+    public string Spec { get; }
 
     /// <summary>σ_F per date, annualized decimal; null where missing.</summary>
     public IReadOnlyList<double?> AnnualizedVolatility { get; }

@@ -8,7 +8,7 @@ namespace VolCast.Core.Calibration;
 /// <param name="N01">No failure followed by a failure.</param>
 /// <param name="N10">A failure followed by no failure.</param>
 /// <param name="N11">A failure followed by a failure.</param>
-public readonly record struct HitTransitions(int N00, int N01, int N10, int N11)
+internal readonly record struct HitTransitions(int N00, int N01, int N10, int N11)
 {
     /// <summary>The number of transitions counted.</summary>
     public int Total => N00 + N01 + N10 + N11;

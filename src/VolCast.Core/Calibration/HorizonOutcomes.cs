@@ -72,7 +72,7 @@ public sealed record HorizonOutcomes
         if (forecaster.AnnualizedVolatility.Count != Count)
         {
             throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                $"{forecaster.Name}: the forecasts must be aligned with the outcomes and have the same length ({Count} dates), was {forecaster.AnnualizedVolatility.Count}."), nameof(forecaster));
+                $"{forecaster.Spec}: the forecasts must be aligned with the outcomes and have the same length ({Count} dates), was {forecaster.AnnualizedVolatility.Count}."), nameof(forecaster));
         }
     }
 

@@ -5,7 +5,7 @@ using VolCast.Core.Data;
 namespace VolCast.Core.Calibration;
 
 /// <summary>Builds <see cref="HorizonOutcomes"/> from a price history, the forecast dates and each date's horizon.</summary>
-public static class OutcomeAlignment
+internal static class OutcomeAlignment
 {
     /// <summary>
     /// Finds S_t and S_{t+h_t} in the price history for each forecast date whose window has closed: a date with a null

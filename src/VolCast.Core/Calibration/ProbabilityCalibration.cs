@@ -22,7 +22,7 @@ namespace VolCast.Core.Calibration;
 /// volatility pulls probabilities towards the middle and the curve is steeper than the diagonal.
 /// </para>
 /// </remarks>
-public static class ProbabilityCalibration
+internal static class ProbabilityCalibration
 {
     /// <summary>Scores one forecaster's above-strike probabilities at every configured moneyness.</summary>
     /// <param name="outcomes">The closes at t and t + h.</param>
@@ -89,7 +89,7 @@ public static class ProbabilityCalibration
             }
         }
 
-        return new ForecasterCalibration(forecaster.Name, h, count, missing.Count, missing.ToImmutable(), results.ToImmutable());
+        return new ForecasterCalibration(forecaster.Spec, h, count, missing.Count, missing.ToImmutable(), results.ToImmutable());
     }
 
     /// <summary>The Brier score and its decomposition for any probabilities and outcomes, over equal-width bins.</summary>

@@ -9,7 +9,7 @@ namespace VolCast.Core.Calibration;
 /// frequency are n-weighted means, and Wilson's interval uses the summed n_eff = Σ n_k / h. Strikes of one date
 /// usually fall in different bins, so pooling adds little dependence inside a bin. Empty bins are left out.
 /// </remarks>
-public static class ReliabilityPooling
+internal static class ReliabilityPooling
 {
     /// <summary>Pools the bins of every strike.</summary>
     /// <param name="calibration">The forecaster's calibration; every strike has the same bins.</param>

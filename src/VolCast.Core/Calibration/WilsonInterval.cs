@@ -20,7 +20,7 @@ namespace VolCast.Core.Calibration;
 /// bins.
 /// </para>
 /// </remarks>
-public static class WilsonInterval
+internal static class WilsonInterval
 {
     /// <summary>The Wilson score interval of an observed proportion.</summary>
     /// <param name="proportion">p̂, in [0, 1].</param>

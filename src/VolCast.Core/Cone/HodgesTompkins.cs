@@ -11,7 +11,7 @@ namespace VolCast.Core.Cone;
 /// m = 1 / (1 − h/n + (h² − 1)/(3n²)), so multiplying a divisor-n variance by m removes the downward bias.
 /// At h = 1 the factor reduces to n/(n − 1), the usual small-sample correction.
 /// </remarks>
-public static class HodgesTompkins
+internal static class HodgesTompkins
 {
     /// <summary>The variance multiplier m for <paramref name="returnCount"/> daily returns and <paramref name="horizonDays"/>-day windows.</summary>
     /// <param name="returnCount">T, the number of daily returns in the sample.</param>

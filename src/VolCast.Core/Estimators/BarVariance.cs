@@ -7,7 +7,7 @@ namespace VolCast.Core.Estimators;
 /// All three are per trading day and not annualized. On a valid bar (L ≤ min(O, C), H ≥ max(O, C)) none is
 /// negative, and a bar with O = H = L = C gives exactly zero.
 /// </remarks>
-public static class BarVariance
+internal static class BarVariance
 {
     /// <summary>1 / (4 ln 2), Parkinson's scale for the squared log range.</summary>
     public const double ParkinsonScale = 0.36067376022224085;

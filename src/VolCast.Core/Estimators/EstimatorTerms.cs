@@ -31,7 +31,7 @@ namespace VolCast.Core.Estimators;
 /// of identical returns gives exactly zero. Instances are immutable and safe to share between threads.
 /// </para>
 /// </remarks>
-public sealed class EstimatorTerms
+internal sealed class EstimatorTerms
 {
     private readonly PrefixSum _closeReturn;
     private readonly PrefixSum _closeReturnSquared;

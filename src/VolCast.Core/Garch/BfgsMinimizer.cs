@@ -53,38 +53,8 @@ internal static class BfgsMinimizer
                 return new BfgsResult(x, fx, g, h, iteration, true, "The gradient test was met.");
             }
 
-            MultiplyNegated(h, g, direction);
-            var slope = Dot(direction, g);
-            if (!(slope < 0))
-            {
-                // The approximation lost positive definiteness: fall back to steepest descent.
-                h = Identity(n);
-                freshIdentity = true;
-                MultiplyNegated(h, g, direction);
-                slope = Dot(direction, g);
-            }
-
-            var biggest = MaxAbs(direction);
-            var step = biggest > maxStep ? maxStep / biggest : 1.0;
-            var accepted = false;
-            double fNew = double.NaN;
-            for (var k = 0; k < MaxBacktracks; k++)
-            {
-                for (var i = 0; i < n; i++)
-                {
-                    xNew[i] = x[i] + (step * direction[i]);
-                }
-
-                fNew = objective(xNew, gNew);
-                if (double.IsFinite(fNew) && fNew <= fx + (Armijo * step * slope))
-                {
-                    accepted = true;
-                    break;
-                }
-
-                step *= 0.5;
-            }
-
+            var slope = DescentDirection(ref h, g, direction, ref freshIdentity);
+            var (accepted, fNew) = LineSearch(objective, x, fx, direction, slope, maxStep, xNew, gNew);
             if (!accepted)
             {
                 if (!freshIdentity)
@@ -94,35 +64,11 @@ internal static class BfgsMinimizer
                     continue;
                 }
 
-                var small = MaxAbs(g) < 1e3 * gradientTolerance;
-                return new BfgsResult(x, fx, g, h, iteration, small,
-                    small ? "No further decrease was possible at working precision; the gradient is near zero."
-                          : "The line search found no decrease.");
+                return Stalled(x, fx, g, h, iteration, gradientTolerance);
             }
 
-            double sy = 0, yy = 0;
-            for (var i = 0; i < n; i++)
+            if (TryUpdate(h, x, xNew, g, gNew, s, yv, hy, ref scaleOnFirstStep))
             {
-                s[i] = xNew[i] - x[i];
-                yv[i] = gNew[i] - g[i];
-                sy += s[i] * yv[i];
-                yy += yv[i] * yv[i];
-            }
-
-            if (sy > 1e-300 && yy > 0)
-            {
-                if (scaleOnFirstStep)
-                {
-                    var scale = sy / yy;
-                    for (var i = 0; i < n; i++)
-                    {
-                        h[(i * n) + i] = scale;
-                    }
-
-                    scaleOnFirstStep = false;
-                }
-
-                Update(h, s, yv, hy, sy);
                 freshIdentity = false;
             }
 
@@ -134,6 +80,94 @@ internal static class BfgsMinimizer
         var converged = MaxAbs(g) < gradientTolerance;
         return new BfgsResult(x, fx, g, h, maxIterations, converged,
             converged ? "The gradient test was met." : "The iteration limit was reached before the gradient test was met.");
+    }
+
+    /// <summary>Writes −H·g into <paramref name="direction"/> and returns its slope; falls back to steepest descent when H lost positive definiteness.</summary>
+    private static double DescentDirection(ref double[] h, double[] g, double[] direction, ref bool freshIdentity)
+    {
+        MultiplyNegated(h, g, direction);
+        var slope = Dot(direction, g);
+        if (!(slope < 0))
+        {
+            // The approximation lost positive definiteness: fall back to steepest descent.
+            h = Identity(g.Length);
+            freshIdentity = true;
+            MultiplyNegated(h, g, direction);
+            slope = Dot(direction, g);
+        }
+
+        return slope;
+    }
+
+    /// <summary>Armijo backtracking from the capped full step; the trial point and its gradient are left in <paramref name="xNew"/> and <paramref name="gNew"/>.</summary>
+    private static (bool Accepted, double FNew) LineSearch(
+        Objective objective, double[] x, double fx, double[] direction, double slope, double maxStep, double[] xNew, double[] gNew)
+    {
+        var n = x.Length;
+        var biggest = MaxAbs(direction);
+        var step = biggest > maxStep ? maxStep / biggest : 1.0;
+        double fNew = double.NaN;
+        for (var k = 0; k < MaxBacktracks; k++)
+        {
+            for (var i = 0; i < n; i++)
+            {
+                xNew[i] = x[i] + (step * direction[i]);
+            }
+
+            fNew = objective(xNew, gNew);
+            if (double.IsFinite(fNew) && fNew <= fx + (Armijo * step * slope))
+            {
+                return (true, fNew);
+            }
+
+            step *= 0.5;
+        }
+
+        return (false, fNew);
+    }
+
+    private static BfgsResult Stalled(double[] x, double fx, double[] g, double[] h, int iteration, double gradientTolerance)
+    {
+        var small = MaxAbs(g) < 1e3 * gradientTolerance;
+        return new BfgsResult(x, fx, g, h, iteration, small,
+            small ? "No further decrease was possible at working precision; the gradient is near zero."
+                  : "The line search found no decrease.");
+    }
+
+    /// <summary>
+    /// The BFGS update of H from the step s = x⁺ − x and y = g⁺ − g, skipped unless the curvature sᵀy is positive; on the
+    /// first update from a default start, the identity is first scaled by sᵀy/yᵀy.
+    /// </summary>
+    private static bool TryUpdate(double[] h, double[] x, double[] xNew, double[] g, double[] gNew, double[] s, double[] yv, double[] hy, ref bool scaleOnFirstStep)
+    {
+        var n = x.Length;
+        double sy = 0, yy = 0;
+        for (var i = 0; i < n; i++)
+        {
+            s[i] = xNew[i] - x[i];
+            yv[i] = gNew[i] - g[i];
+            sy += s[i] * yv[i];
+            yy += yv[i] * yv[i];
+        }
+
+        if (!(sy > 1e-300 && yy > 0))
+        {
+            return false;
+        }
+
+        if (scaleOnFirstStep)
+        {
+            var scale = sy / yy;
+            for (var i = 0; i < n; i++)
+            {
+                h[(i * n) + i] = scale;
+            }
+
+            scaleOnFirstStep = false;
+        }
+
+        Update(h, s, yv, hy, sy);
+        return true;
     }
 
     private static void Update(double[] h, double[] s, double[] y, double[] hy, double sy)

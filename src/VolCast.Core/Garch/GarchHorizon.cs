@@ -8,7 +8,7 @@ namespace VolCast.Core.Garch;
 /// continuous-time approximation used in Hull's textbook tables; the two differ by about 0.01 volatility points at
 /// ten days for a typical equity fit.
 /// </remarks>
-public static class GarchHorizon
+internal static class GarchHorizon
 {
     /// <summary>Returns the expected variance k days after the day whose variance is given: V_L + φᵏ (σ² − V_L).</summary>
     /// <param name="variance">The variance of the starting day.</param>

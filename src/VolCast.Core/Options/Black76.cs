@@ -6,7 +6,7 @@ namespace VolCast.Core.Options;
 /// and d₂ = d₁ − σ√T. With F = S e^{(r − q)T} these are the Black-Scholes-Merton prices.
 /// When σ√T is zero the option is worth its discounted intrinsic value on the forward.
 /// </remarks>
-public static class Black76
+internal static class Black76
 {
     /// <summary>The price of a European option on a forward.</summary>
     /// <param name="type">Call or put.</param>

@@ -10,7 +10,7 @@ namespace VolCast.Core.Options;
 /// decimals per year; T is in years (ACT/365, see <see cref="DayCount"/>); σ is annualized (0.20 = 20%).
 /// When σ√T is zero the option is worth its discounted forward intrinsic value.
 /// </remarks>
-public static class BlackScholesMerton
+internal static class BlackScholesMerton
 {
     /// <summary>The price of a European option.</summary>
     /// <param name="type">Call or put.</param>

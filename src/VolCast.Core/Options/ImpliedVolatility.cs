@@ -14,7 +14,7 @@ namespace VolCast.Core.Options;
 /// below intrinsic or at or above the upper bound, and a vega so small that four units in the last place of
 /// the price would move σ by more than <see cref="VolatilityResolution"/>. None of them yields a number.</para>
 /// </remarks>
-public static class ImpliedVolatility
+internal static class ImpliedVolatility
 {
     /// <summary>The largest change in σ that a rounding-level change of the price may cause before the
     /// solve reports <see cref="ImpliedVolatilityStatus.VegaTooSmall"/>.</summary>

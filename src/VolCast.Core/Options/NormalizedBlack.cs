@@ -51,50 +51,10 @@ internal static class NormalizedBlack
     public static double? Solve(double x, double beta, out int evaluations)
     {
         var expHalfX = Math.Exp(0.5 * x);
-        var sc = Math.Sqrt(-2.0 * x);
         evaluations = 0;
-        var lowerRegion = false;
-        double lo, hi, s;
-        double bc = 0, vegaC = 0;
-        if (sc > 0)
-        {
-            // At s_c the first argument x/s + s/2 is exactly 0, so b(s_c) = e^{x/2}/2 − e^{−x/2} N(−s_c).
-            bc = (0.5 * expHalfX) - (StandardNormal.Cdf(-sc) / expHalfX);
-            vegaC = Vega(x, sc);
-            lowerRegion = beta < bc;
-        }
-
-        var logBeta = 0.0;
-        if (lowerRegion)
-        {
-            lo = 0;
-            hi = sc;
-            logBeta = Math.Log(beta);
-
-            // One Halley step on ln b from s_c, where b'' = 0 so the step is the Newton step divided by
-            // 1 + g/2 (g = ln b_c − ln β); the wing asymptote is better far out. Take the larger.
-            var g = Math.Log(bc) - logBeta;
-            var fromInflection = sc - (g * bc / vegaC / (1.0 + (0.5 * g)));
-            s = Math.Max(LowerGuess(x, logBeta, sc), fromInflection);
-        }
-        else
-        {
-            lo = sc;
-            hi = double.PositiveInfinity;
-
-            // Above s_c b is concave, so its tangent at s_c lands at or below the root.
-            var tangent = sc > 0 ? sc + ((beta - bc) / vegaC) : 0;
-            s = Math.Max(UpperGuess(beta, expHalfX), Math.Max(tangent, sc));
-        }
-
-        if (!(s > 0 && s >= lo && s <= hi))
-        {
-            s = double.IsPositiveInfinity(hi) ? Math.Max(2.0 * lo, 1.0) : 0.5 * (lo + hi);
-        }
-
+        var (lowerRegion, lo, hi, s, logBeta) = Start(x, beta, expHalfX);
         while (evaluations < MaxEvaluations)
         {
-
             var b = Value(x, s, expHalfX);
             evaluations++;
             var vega = Vega(x, s);
@@ -160,6 +120,55 @@ internal static class NormalizedBlack
         }
 
         return null;
+    }
+
+    /// <summary>
+    /// The region of the root (below s_c, where Newton runs on ln b, or above it), the bracket that region gives and
+    /// the first iterate, moved into the bracket when the guesses fall outside it.
+    /// </summary>
+    private static (bool LowerRegion, double Lo, double Hi, double S, double LogBeta) Start(double x, double beta, double expHalfX)
+    {
+        var sc = Math.Sqrt(-2.0 * x);
+        var lowerRegion = false;
+        double lo, hi, s;
+        double bc = 0, vegaC = 0;
+        if (sc > 0)
+        {
+            // At s_c the first argument x/s + s/2 is exactly 0, so b(s_c) = e^{x/2}/2 − e^{−x/2} N(−s_c).
+            bc = (0.5 * expHalfX) - (StandardNormal.Cdf(-sc) / expHalfX);
+            vegaC = Vega(x, sc);
+            lowerRegion = beta < bc;
+        }
+
+        var logBeta = 0.0;
+        if (lowerRegion)
+        {
+            lo = 0;
+            hi = sc;
+            logBeta = Math.Log(beta);
+
+            // One Halley step on ln b from s_c, where b'' = 0 so the step is the Newton step divided by
+            // 1 + g/2 (g = ln b_c − ln β); the wing asymptote is better far out. Take the larger.
+            var g = Math.Log(bc) - logBeta;
+            var fromInflection = sc - (g * bc / vegaC / (1.0 + (0.5 * g)));
+            s = Math.Max(LowerGuess(x, logBeta, sc), fromInflection);
+        }
+        else
+        {
+            lo = sc;
+            hi = double.PositiveInfinity;
+
+            // Above s_c b is concave, so its tangent at s_c lands at or below the root.
+            var tangent = sc > 0 ? sc + ((beta - bc) / vegaC) : 0;
+            s = Math.Max(UpperGuess(beta, expHalfX), Math.Max(tangent, sc));
+        }
+
+        if (!(s > 0 && s >= lo && s <= hi))
+        {
+            s = double.IsPositiveInfinity(hi) ? Math.Max(2.0 * lo, 1.0) : 0.5 * (lo + hi);
+        }
+
+        return (lowerRegion, lo, hi, s, logBeta);
     }
 
     /// <summary>A start below s_c from the wing asymptote b ≈ φ(x/s) s³/x², solved for s by two fixed-point passes.</summary>

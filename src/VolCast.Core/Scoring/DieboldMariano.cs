@@ -23,7 +23,7 @@ namespace VolCast.Core.Scoring;
 /// </para>
 /// <para>Sign convention: a negative statistic means the first forecaster's loss is lower.</para>
 /// </remarks>
-public static class DieboldMariano
+internal static class DieboldMariano
 {
     /// <summary>Tests equal accuracy on a loss differential with lag h − 1.</summary>
     /// <param name="lossDifferential">d_t = L1_t − L2_t, finite, at least 2 observations.</param>

@@ -6,7 +6,7 @@ namespace VolCast.Core.Scoring;
 /// The forecast-encompassing regression on variance, RV² = a + b IV² + c F² + e, with Newey-West (Bartlett, no
 /// prewhitening, divisor T) standard errors (docs/methods.md#mincer-zarnowitz-and-encompassing): implied encompasses the forecast when c = 0.
 /// </summary>
-public static class EncompassingRegression
+internal static class EncompassingRegression
 {
     /// <summary>Fits the regression for h-day forecasts with the Newey-West lag h − 1.</summary>
     /// <param name="realized">Realized volatilities RV_t (decimal, annualized), zero or more.</param>

@@ -5,7 +5,7 @@ namespace VolCast.Core.Scoring;
 /// <summary>
 /// Corrections for testing many hypotheses at once (for example one Diebold-Mariano test per name of a universe).
 /// </summary>
-public static class FalseDiscoveryRate
+internal static class FalseDiscoveryRate
 {
     /// <summary>
     /// Benjamini-Hochberg (1995) adjusted p-values: rejecting every hypothesis whose adjusted p-value is at most q

@@ -13,7 +13,7 @@ namespace VolCast.Core.Scoring;
 /// g_t = x_t ê_t (docs/methods.md#newey-west). This is the covariance a sandwich estimator gives with lag L, prewhitening
 /// off and adjustment off.
 /// </remarks>
-public static class HacRegression
+internal static class HacRegression
 {
     /// <summary>Fits y = Xβ + e by least squares and estimates the HAC covariance of β̂.</summary>
     /// <param name="y">The dependent variable, T finite values.</param>

@@ -9,7 +9,7 @@ namespace VolCast.Core.Scoring;
 /// T for every lag, with no small-sample adjustment and no prewhitening. The long-run variance is
 /// γ̂_0 + 2 Σ_{j=1..L} w_j γ̂_j with Bartlett weights w_j = 1 − j/(L+1) or rectangular weights w_j = 1.
 /// </remarks>
-public static class NeweyWest
+internal static class NeweyWest
 {
     /// <summary>Gets the automatic lag L = floor(4 (T/100)^(2/9)) (docs/methods.md#newey-west).</summary>
     /// <param name="sampleSize">Number of observations T, at least 1.</param>

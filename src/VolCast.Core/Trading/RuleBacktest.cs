@@ -27,7 +27,7 @@ namespace VolCast.Core.Trading;
 /// 1/h with h the horizon's nominal trading days; annualized with <see cref="TradingSettings.AnnualizationDays"/>.
 /// Daily-path tests use a Newey-West lag of h, the test of mean trade P&amp;L a lag of 2 trades.</para>
 /// </remarks>
-public static class RuleBacktest
+internal static class RuleBacktest
 {
     /// <summary>Runs the trading backtest.</summary>
     /// <param name="prices">The price history (closes are traded).</param>
@@ -54,27 +54,79 @@ public static class RuleBacktest
         var n = prices.Count;
         var iv = Checked(implied, n, nameof(implied), TradingGuard.Volatility);
         RuleForecast[] forecasts = [proposed, current, historical];
-        var series = new double?[3][];
-        for (var k = 0; k < 3; k++)
+        var series = CheckedForecasts(forecasts, n);
+        RequireTwoTradingDays(horizon);
+
+        var h = horizon.NominalDays;
+        var windows = RealizedWindows.Compute(prices, horizon, RealizedTarget.SquaredReturns, settings.AnnualizationDays);
+        var lag = settings.EntryTiming == EntryTiming.NextClose ? 1 : 0;
+        var firing = FiringDates(iv, series, windows, lag, settings);
+        var (entry, expiry) = TradeWindows(firing, windows, lag);
+        var m = firing.Count;
+        var start = entry[0];
+        var end = expiry.Max();
+        var length = end - start + 1;
+        var dates = prices.Dates.Slice(start, length).ToArray();
+        var weight = 1.0 / h;
+        var books = BuildBooks(prices, iv, series, firing, entry, expiry, settings);
+
+        var context = new Context(prices, iv, firing, books, start, length, dates, weight, h, settings);
+        var sell = new sbyte[m];
+        Array.Fill(sell, (sbyte)-1);
+        var always = context.Rule(TradingRule.AlwaysSell, null, 0, null, null, RuleSides.SellOnly, sell, null);
+
+        var proposedSides = Signals(iv, series[0], firing, settings.Threshold, settings.Sides);
+        RequireProposedFires(proposedSides, proposed, prices, firing, settings);
+        var proposedRule = context.Rule(TradingRule.Proposed, proposed.Spec, 0, series[0], settings.Threshold, settings.Sides, proposedSides, null);
+        var currentRule = context.Rule(TradingRule.Current, current.Spec, 1, series[1], settings.Threshold, settings.Sides, Signals(iv, series[1], firing, settings.Threshold, settings.Sides), null);
+        var historicalRule = context.Rule(TradingRule.Historical, historical.Spec, 2, series[2], settings.Threshold, settings.Sides, Signals(iv, series[2], firing, settings.Threshold, settings.Sides), null);
+
+        var thresholds = settings.SweepThresholds.Sort();
+        var sweep = Sweep(context, forecasts, series, thresholds, always.Ladder.Net);
+        var walkForward = WalkForward(context, books[0], thresholds, sweep.ProposedSides, settings.Threshold, proposed.Spec, series[0], settings.Sides);
+        ImmutableArray<RulePnl> rules = [always.Result, proposedRule.Result, currentRule.Result, historicalRule.Result, walkForward];
+
+        var versus = ImmutableArray.CreateBuilder<RuleComparison>();
+        for (var r = 1; r < rules.Length; r++)
+        {
+            versus.Add(Compare(rules[r], rules[0], h, settings.AnnualizationDays));
+        }
+
+        var breakEven = BreakEven(always, proposedRule, length, settings);
+        return new RuleBacktestResult(
+            settings, h, m, [.. dates], rules, Compare(rules[1], rules[2], h, settings.AnnualizationDays), versus.ToImmutable(), sweep.Rows, breakEven, sweep.Differences);
+    }
+
+    private static double?[][] CheckedForecasts(RuleForecast[] forecasts, int n)
+    {
+        var series = new double?[forecasts.Length][];
+        for (var k = 0; k < forecasts.Length; k++)
         {
             series[k] = Checked(forecasts[k].Values, n, forecasts[k].Spec, TradingGuard.Forecast);
         }
 
+        return series;
+    }
+
+    private static void RequireTwoTradingDays(BacktestHorizon horizon)
+    {
         if (horizon.TradingDays is < 2 || horizon.NominalDays < 2)
         {
             throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
                 $"A delta-hedged trade needs a horizon of at least two trading days (one rebalance before expiry), was {horizon} ({horizon.NominalDays} trading day); use --horizon 2 or more, or a tenor of at least 3 calendar days."), nameof(horizon));
         }
+    }
 
-        var h = horizon.NominalDays;
-        var windows = RealizedWindows.Compute(prices, horizon, RealizedTarget.SquaredReturns, settings.AnnualizationDays);
-        var lag = settings.EntryTiming == EntryTiming.NextClose ? 1 : 0;
+    /// <summary>Every date with implied, all three forecasts, an entry quote and a closed window of two or more trading days.</summary>
+    private static List<int> FiringDates(double?[] implied, double?[][] series, RealizedWindows windows, int lag, TradingSettings settings)
+    {
+        var n = implied.Length;
         var firing = new List<int>();
         for (var f = 0; f + lag < n; f++)
         {
             var e = f + lag;
             var hedgeable = settings.HedgeVolatility == HedgeVolatility.Implied || (series[0][f] > 0 && series[1][f] > 0 && series[2][f] > 0);
-            if (iv[f] is not null && iv[e] is not null && series[0][f] is not null && series[1][f] is not null && series[2][f] is not null
+            if (implied[f] is not null && implied[e] is not null && series[0][f] is not null && series[1][f] is not null && series[2][f] is not null
                 && windows.WindowDays[e] >= 2 && hedgeable)
             {
                 firing.Add(f);
@@ -88,6 +140,11 @@ public static class RuleBacktest
                 nameof(implied));
         }
 
+        return firing;
+    }
+
+    private static (int[] Entry, int[] Expiry) TradeWindows(List<int> firing, RealizedWindows windows, int lag)
+    {
         var m = firing.Count;
         var entry = new int[m];
         var expiry = new int[m];
@@ -97,13 +154,13 @@ public static class RuleBacktest
             expiry[i] = entry[i] + windows.WindowDays[entry[i]];
         }
 
-        var start = entry[0];
-        var end = expiry.Max();
-        var length = end - start + 1;
-        var dates = prices.Dates.Slice(start, length).ToArray();
-        var weight = 1.0 / h;
+        return (entry, expiry);
+    }
 
-        // One book per hedge volatility series: the entry implied (shared), or each forecaster's.
+    /// <summary>One book per hedge volatility series: the entry implied (shared), or each forecaster's.</summary>
+    private static TradeBook[] BuildBooks(PriceHistory prices, double?[] iv, double?[][] series, List<int> firing, int[] entry, int[] expiry, TradingSettings settings)
+    {
+        var m = firing.Count;
         var books = new TradeBook[3];
         if (settings.HedgeVolatility == HedgeVolatility.Implied)
         {
@@ -114,44 +171,41 @@ public static class RuleBacktest
             }
 
             books[0] = books[1] = books[2] = TradeBook.Build(prices.Dates, prices.Close, entry, expiry, hedge, iv, settings);
+            return books;
         }
-        else
+
+        for (var k = 0; k < 3; k++)
         {
-            for (var k = 0; k < 3; k++)
+            var hedge = new double[m];
+            for (var i = 0; i < m; i++)
             {
-                var hedge = new double[m];
-                for (var i = 0; i < m; i++)
-                {
-                    hedge[i] = series[k][firing[i]]!.Value;
-                }
-
-                books[k] = TradeBook.Build(prices.Dates, prices.Close, entry, expiry, hedge, iv, settings);
+                hedge[i] = series[k][firing[i]]!.Value;
             }
+
+            books[k] = TradeBook.Build(prices.Dates, prices.Close, entry, expiry, hedge, iv, settings);
         }
 
-        var context = new Context(prices, iv, firing, books, start, length, dates, weight, h, settings);
-        var sell = new sbyte[m];
-        Array.Fill(sell, (sbyte)-1);
-        var always = context.Rule(TradingRule.AlwaysSell, null, 0, null, null, RuleSides.SellOnly, sell, null);
+        return books;
+    }
 
-        var proposedSides = Signals(iv, series[0], firing, settings.Threshold, settings.Sides);
+    private static void RequireProposedFires(sbyte[] proposedSides, RuleForecast proposed, PriceHistory prices, List<int> firing, TradingSettings settings)
+    {
         if (Array.TrueForAll(proposedSides, s => s == 0))
         {
             throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                $"The proposed rule never fired: implied minus the {proposed.Spec} forecast was never above the threshold {settings.Threshold} on the {m} firing dates from {prices.Dates[firing[0]]:yyyy-MM-dd} to {prices.Dates[firing[^1]]:yyyy-MM-dd}; lower the rule threshold or check the implied series' unit (decimal: 0.20 = 20%)."),
+                $"The proposed rule never fired: implied minus the {proposed.Spec} forecast was never above the threshold {settings.Threshold} on the {firing.Count} firing dates from {prices.Dates[firing[0]]:yyyy-MM-dd} to {prices.Dates[firing[^1]]:yyyy-MM-dd}; lower the rule threshold or check the implied series' unit (decimal: 0.20 = 20%)."),
                 nameof(settings));
         }
+    }
 
-        var proposedRule = context.Rule(TradingRule.Proposed, proposed.Spec, 0, series[0], settings.Threshold, settings.Sides, proposedSides, null);
-        var currentRule = context.Rule(TradingRule.Current, current.Spec, 1, series[1], settings.Threshold, settings.Sides, Signals(iv, series[1], firing, settings.Threshold, settings.Sides), null);
-        var historicalRule = context.Rule(TradingRule.Historical, historical.Spec, 2, series[2], settings.Threshold, settings.Sides, Signals(iv, series[2], firing, settings.Threshold, settings.Sides), null);
-
-        // The sweep: every forecaster × side shown × threshold.
-        var thresholds = settings.SweepThresholds.Sort();
+    /// <summary>The sweep: every forecaster × side shown × threshold, with each row's daily net P&amp;L less always-sell's.</summary>
+    private static SweepResult Sweep(Context context, RuleForecast[] forecasts, double?[][] series, ImmutableArray<double> thresholds, double[] alwaysNet)
+    {
+        var settings = context.Settings;
+        var length = context.Length;
         RuleSides[] sidesShown = settings.Sides == RuleSides.Both ? [RuleSides.SellOnly, RuleSides.Both] : [RuleSides.SellOnly];
         var sweep = ImmutableArray.CreateBuilder<ThresholdSweepRow>();
         var differences = new List<double[]>();
-        var alwaysNet = always.Ladder.Net;
         sbyte[][]? proposedSweepSides = null;
         TradingRule[] roles = [TradingRule.Proposed, TradingRule.Current, TradingRule.Historical];
         for (var k = 0; k < 3; k++)
@@ -161,10 +215,10 @@ public static class RuleBacktest
                 var perThreshold = new sbyte[thresholds.Length][];
                 for (var j = 0; j < thresholds.Length; j++)
                 {
-                    perThreshold[j] = Signals(iv, series[k], firing, thresholds[j], sides);
-                    var ladder = books[k].Ladder(perThreshold[j], weight, start, length, false);
-                    var net = PnlStatisticsCalculator.Path(ladder.Net, dates, settings.AnnualizationDays);
-                    var gross = PnlStatisticsCalculator.Path(ladder.Gross, dates, settings.AnnualizationDays);
+                    perThreshold[j] = Signals(context.Implied, series[k], context.Firing, thresholds[j], sides);
+                    var ladder = context.Books[k].Ladder(perThreshold[j], context.Weight, context.Start, length, false);
+                    var net = PnlStatisticsCalculator.Path(ladder.Net, context.Dates, settings.AnnualizationDays);
+                    var gross = PnlStatisticsCalculator.Path(ladder.Gross, context.Dates, settings.AnnualizationDays);
                     var label = string.Create(CultureInfo.InvariantCulture, $"{forecasts[k].Spec}|{SidesName(sides)}|{thresholds[j]}");
                     sweep.Add(new ThresholdSweepRow(label, roles[k], forecasts[k].Spec, sides, thresholds[j], ladder.Trades, net.PnlPerYear, gross.PnlPerYear, net.Sharpe, gross.Sharpe));
                     var d = new double[length];
@@ -183,15 +237,12 @@ public static class RuleBacktest
             }
         }
 
-        var walkForward = WalkForward(context, books[0], thresholds, proposedSweepSides!, settings.Threshold, proposed.Spec, series[0], settings.Sides);
-        ImmutableArray<RulePnl> rules = [always.Result, proposedRule.Result, currentRule.Result, historicalRule.Result, walkForward];
+        return new SweepResult(sweep.ToImmutable(), [.. differences], proposedSweepSides!);
+    }
 
-        var versus = ImmutableArray.CreateBuilder<RuleComparison>();
-        for (var r = 1; r < rules.Length; r++)
-        {
-            versus.Add(Compare(rules[r], rules[0], h, settings.AnnualizationDays));
-        }
-
+    /// <summary>The half-spread at which the proposed rule's edge over always-sell, and its own P&amp;L, reach zero.</summary>
+    private static BreakEvenSpread BreakEven((RulePnl Result, Ladder Ladder) always, (RulePnl Result, Ladder Ladder) proposedRule, int length, TradingSettings settings)
+    {
         var years = length / settings.AnnualizationDays;
         var edge = (proposedRule.Result.PathNet.Total - always.Result.PathNet.Total) / years;
         var slope = (proposedRule.Ladder.WeightedCarry - always.Ladder.WeightedCarry) / years;
@@ -200,10 +251,7 @@ public static class RuleBacktest
         var ownSlope = proposedRule.Ladder.WeightedCarry / years;
         var ownPerYear = proposedRule.Result.PathNet.Total / years;
         double? ownSpread = ownSlope > 0 && c0 + (ownPerYear / ownSlope) >= 0 ? c0 + (ownPerYear / ownSlope) : null;
-        var breakEven = new BreakEvenSpread(edge, -slope, edgeSpread, ownSpread);
-
-        return new RuleBacktestResult(
-            settings, h, m, [.. dates], rules, Compare(rules[1], rules[2], h, settings.AnnualizationDays), versus.ToImmutable(), sweep.ToImmutable(), breakEven, [.. differences]);
+        return new BreakEvenSpread(edge, -slope, edgeSpread, ownSpread);
     }
 
     /// <summary>The side of each firing position: −1 sell when implied − forecast &gt; threshold, +1 buy on the mirror with both sides, else 0.</summary>
@@ -305,6 +353,9 @@ public static class RuleBacktest
 
         return result;
     }
+
+    /// <summary>The sweep's rows, each row's daily difference from always-sell, and the proposed forecaster's signals per threshold at the configured sides.</summary>
+    private sealed record SweepResult(ImmutableArray<ThresholdSweepRow> Rows, double[][] Differences, sbyte[][] ProposedSides);
 
     /// <summary>What every rule shares: the prices, the firing dates, the books and the path window.</summary>
     private sealed record Context(

@@ -20,7 +20,7 @@ namespace VolCast.Core.Trading;
 /// the spot moves by <c>stressSpotMove</c> (−0.10 = −10%) and implied by <c>stressVolatilityShift</c> (+0.10 = +10 vol
 /// points), time unchanged.</para>
 /// </remarks>
-public static class StraddleTrader
+internal static class StraddleTrader
 {
     /// <summary>The default stress move of the spot, −10%.</summary>
     public const double DefaultStressSpotMove = -0.10;

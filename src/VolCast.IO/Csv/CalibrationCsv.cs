@@ -14,7 +14,7 @@ namespace VolCast.IO.Csv;
 /// on any date gets one row with its counts and empty scores, so it is never dropped silently. Empty fields mean
 /// "does not exist" (an empty bin); numbers are invariant culture, shortest round-trip form; LF line ends.
 /// </remarks>
-public static class CalibrationCsv
+internal static class CalibrationCsv
 {
     /// <summary>The header row, without the line end.</summary>
     public const string Header = "forecaster,horizon_days,moneyness,dates_scored,dates_missing,brier,reliability,resolution,uncertainty,within_bin_variance,within_bin_covariance,log_score,log_score_clipped,mean_predicted,observed_frequency,bin,bin_lower,bin_upper,bin_count,bin_effective_count,bin_mean_predicted,bin_observed_frequency,bin_interval_lower,bin_interval_upper";
@@ -32,7 +32,7 @@ public static class CalibrationCsv
         foreach (var c in calibrations)
         {
             ArgumentNullException.ThrowIfNull(c);
-            var name = CsvText.Text(c.Forecaster);
+            var name = CsvText.Text(c.Spec);
             if (c.Strikes.IsDefaultOrEmpty)
             {
                 writer.Write(string.Create(CultureInfo.InvariantCulture, $"{name},{c.HorizonDays},,{c.Count},{c.MissingCount},,,,,,,,,,,,,,,,,,,\n"));

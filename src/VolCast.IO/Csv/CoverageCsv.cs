@@ -14,7 +14,7 @@ namespace VolCast.IO.Csv;
 /// every h-th date (see <see cref="CoverageLevelResult"/>). Numbers are invariant culture, shortest round-trip
 /// form; empty fields mean "does not exist"; LF line ends.
 /// </remarks>
-public static class CoverageCsv
+internal static class CoverageCsv
 {
     private static readonly string[] LevelColumns =
         ["share", "expected", "status", "nonoverlapping_dates", "dates_needed", "failures", "kupiec_lr", "kupiec_p", "independence_lr", "independence_p", "conditional_lr", "conditional_p"];
@@ -69,11 +69,11 @@ public static class CoverageCsv
             if (c.Levels.Length != 2)
             {
                 throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                    $"{c.Forecaster}: a coverage result must hold the |z| <= 1 and |z| <= 2 levels, had {c.Levels.Length}."), nameof(rows));
+                    $"{c.Spec}: a coverage result must hold the |z| <= 1 and |z| <= 2 levels, had {c.Levels.Length}."), nameof(rows));
             }
 
             writer.Write(string.Create(CultureInfo.InvariantCulture,
-                $"{CsvText.Text(c.Forecaster)},{c.HorizonDays},{c.Count},{c.MissingCount},{CsvText.Number(c.ZScale)},{CsvText.Number(c.MaxAbsZ)},{CsvText.Number(c.ShareAboveThree)}"));
+                $"{CsvText.Text(c.Spec)},{c.HorizonDays},{c.Count},{c.MissingCount},{CsvText.Number(c.ZScale)},{CsvText.Number(c.MaxAbsZ)},{CsvText.Number(c.ShareAboveThree)}"));
             foreach (var l in c.Levels)
             {
                 var status = l.Status == CoverageTestStatus.Computed ? "computed" : "not-enough-data";

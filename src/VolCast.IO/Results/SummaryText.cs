@@ -95,7 +95,7 @@ internal static class SummaryText
             var one = cov.Levels[0];
             var two = cov.Levels[1];
             w.Write(string.Create(c,
-                $"  {cov.Forecaster,-26} {cov.Count,6} {cov.MissingCount,7} {F(one.ShareWithin, "0.0%"),7} {F(one.Kupiec?.PValue, "F3"),7} {F(two.ShareWithin, "0.0%"),7} {F(two.Kupiec?.PValue, "F3"),7} {F(cov.MaxAbsZ, "F2"),7}\n"));
+                $"  {cov.Spec,-26} {cov.Count,6} {cov.MissingCount,7} {F(one.ShareWithin, "0.0%"),7} {F(one.Kupiec?.PValue, "F3"),7} {F(two.ShareWithin, "0.0%"),7} {F(two.Kupiec?.PValue, "F3"),7} {F(cov.MaxAbsZ, "F2"),7}\n"));
             w.Write("    " + odds.Verdict + "\n");
         }
 

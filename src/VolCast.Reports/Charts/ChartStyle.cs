@@ -1,4 +1,5 @@
 using ScottPlot;
+using VolCast.Core.Trading;
 
 namespace VolCast.Reports.Charts;
 
@@ -31,6 +32,19 @@ internal static class ChartStyle
 
     /// <summary>Grey for reference lines (zero, 45°).</summary>
     public static readonly Color Reference = Color.FromHex("#555555");
+
+    /// <summary>
+    /// The colour of each trading rule, the same in every P&amp;L chart: always-sell (the benchmark) black, proposed
+    /// blue, current orange, plain historical bluish green, walk-forward threshold reddish purple.
+    /// </summary>
+    public static Color Rule(TradingRule rule) => rule switch
+    {
+        TradingRule.AlwaysSell => Realized,
+        TradingRule.Proposed => Palette[3],
+        TradingRule.Current => Palette[0],
+        TradingRule.Historical => Palette[2],
+        _ => Palette[5],
+    };
 
     /// <summary>The colour of the i-th series after realized.</summary>
     public static Color Series(int index) => Palette[index % Palette.Length];

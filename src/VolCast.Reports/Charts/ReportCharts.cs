@@ -18,7 +18,7 @@ public static class ReportCharts
     /// <param name="implied">The implied volatility quoted on each date (decimal), when there is one.</param>
     /// <param name="forecasts">The leading forecasters' series (decimal), each named by its spec.</param>
     /// <returns>The chart as <c>forecast-vs-realized.png</c>.</returns>
-    public static ChartImage ForecastVsRealized(TimeSeries realized, TimeSeries? implied, IReadOnlyList<TimeSeries> forecasts)
+    internal static ChartImage ForecastVsRealized(TimeSeries realized, TimeSeries? implied, IReadOnlyList<TimeSeries> forecasts)
     {
         using var plot = BuildForecastVsRealized(realized, implied, forecasts);
         return new ChartImage("forecast-vs-realized.png", "Forecast, implied and realized volatility",
@@ -29,7 +29,7 @@ public static class ReportCharts
     /// <summary>Implied minus realized volatility over time, with its mean and 10th–90th percentile band.</summary>
     /// <param name="premium">Implied minus realized volatility on each date (decimal, so 0.02 = 2 vol points).</param>
     /// <returns>The chart as <c>premium.png</c>.</returns>
-    public static ChartImage Premium(TimeSeries premium)
+    internal static ChartImage Premium(TimeSeries premium)
     {
         using var plot = BuildPremium(premium);
         return new ChartImage("premium.png", "Volatility premium: implied minus realized",
@@ -40,7 +40,7 @@ public static class ReportCharts
     /// <summary>Cumulative QLIKE loss of each forecaster minus that of implied volatility.</summary>
     /// <param name="lossDifferentials">Per forecaster and date, QLIKE(forecaster) − QLIKE(implied); the chart adds them up.</param>
     /// <returns>The chart as <c>cumulative-qlike.png</c>.</returns>
-    public static ChartImage CumulativeLossDifferential(IReadOnlyList<TimeSeries> lossDifferentials)
+    internal static ChartImage CumulativeLossDifferential(IReadOnlyList<TimeSeries> lossDifferentials)
     {
         using var plot = BuildCumulativeLossDifferential(lossDifferentials);
         return new ChartImage("cumulative-qlike.png", "Cumulative QLIKE loss against implied",
@@ -51,7 +51,7 @@ public static class ReportCharts
     /// <summary>Mean loss against lookback for each estimator family, with the out-of-sample choices marked.</summary>
     /// <param name="curves">One curve per family.</param>
     /// <returns>The chart as <c>loss-vs-lookback.png</c>.</returns>
-    public static ChartImage LossVsLookback(IReadOnlyList<LookbackCurve> curves)
+    internal static ChartImage LossVsLookback(IReadOnlyList<LookbackCurve> curves)
     {
         using var plot = BuildLossVsLookback(curves);
         return new ChartImage("loss-vs-lookback.png", "Loss against lookback",
@@ -66,7 +66,7 @@ public static class ReportCharts
     /// <param name="intercept">The fitted intercept a in RV² = a + b F².</param>
     /// <param name="slope">The fitted slope b.</param>
     /// <returns>The chart as <c>mincer-zarnowitz.png</c>.</returns>
-    public static ChartImage MincerZarnowitz(string forecaster, IReadOnlyList<double> forecastVariance, IReadOnlyList<double> realizedVariance, double intercept, double slope)
+    internal static ChartImage MincerZarnowitz(string forecaster, IReadOnlyList<double> forecastVariance, IReadOnlyList<double> realizedVariance, double intercept, double slope)
     {
         using var plot = BuildMincerZarnowitz(forecaster, forecastVariance, realizedVariance, intercept, slope);
         return new ChartImage("mincer-zarnowitz.png", "Mincer-Zarnowitz: realized against forecast variance",
@@ -91,7 +91,7 @@ public static class ReportCharts
     /// <param name="signalledDates">IV − RV on the dates the rule signalled (decimal).</param>
     /// <param name="rule">The rule in words, e.g. <c>sell when implied &gt; ewma:0.94</c>, for the legend.</param>
     /// <returns>The chart as <c>rule-test.png</c>.</returns>
-    public static ChartImage RuleTest(IReadOnlyList<double> allDates, IReadOnlyList<double> signalledDates, string rule)
+    internal static ChartImage RuleTest(IReadOnlyList<double> allDates, IReadOnlyList<double> signalledDates, string rule)
     {
         using var plot = BuildRuleTest(allDates, signalledDates, rule);
         return new ChartImage("rule-test.png", "Rule test: implied minus realized on signalled dates",
@@ -103,7 +103,7 @@ public static class ReportCharts
     /// <param name="curves">One curve per forecaster (implied first when there is one).</param>
     /// <param name="pooling">Which strikes the bins pool, e.g. <c>pooled over strikes 0.90–1.10 × close</c>, for the title.</param>
     /// <returns>The chart as <c>reliability.png</c>.</returns>
-    public static ChartImage Reliability(IReadOnlyList<ReliabilityCurve> curves, string pooling)
+    internal static ChartImage Reliability(IReadOnlyList<ReliabilityCurve> curves, string pooling)
     {
         using var plot = BuildReliability(curves, pooling);
         return new ChartImage(ReliabilityFileName, "Reliability: predicted probability against what happened",

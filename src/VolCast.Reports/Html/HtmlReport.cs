@@ -10,17 +10,18 @@ namespace VolCast.Reports.Html;
 /// scripts, and a Content-Security-Policy that forbids loading anything from elsewhere.
 /// </summary>
 /// <remarks>
-/// Sections, in order: verdict, metrics, charts, "Do the odds hold?" (probability calibration and range coverage),
+/// Sections, in order: verdict, "Would the rule have paid?" (the rule as delta-hedged straddles, or why it was not
+/// run), metrics, charts, "Do the odds hold?" (probability calibration and range coverage),
 /// data quality, run details, cautions. Every string from the model is
 /// HTML-escaped; numbers are formatted with the invariant culture, so the same model gives the same bytes.
 /// </remarks>
-public static class HtmlReport
+internal static class HtmlReport
 {
     /// <summary>The Content-Security-Policy the page declares: images only from data URIs, inline styles only, nothing else.</summary>
     public const string ContentSecurityPolicy = "default-src 'none'; img-src data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'";
 
     /// <summary>The section ids, in the order they appear.</summary>
-    public static IReadOnlyList<string> SectionIds { get; } = ["verdict", "metrics", "charts", "odds", "data-quality", "run", "cautions"];
+    public static IReadOnlyList<string> SectionIds { get; } = ["verdict", "pnl", "metrics", "charts", "odds", "data-quality", "run", "cautions"];
 
     private const string Css = """
         body{font-family:"DejaVu Sans",Arial,Helvetica,sans-serif;color:#111;background:#fff;max-width:1240px;margin:0 auto;padding:16px 24px;line-height:1.45}
@@ -59,6 +60,7 @@ public static class HtmlReport
         html.Append("<h1>").Append(E(model.Title)).Append("</h1>\n");
 
         Verdict(html, model.Verdict);
+        Pnl(html, model.Pnl);
         Metrics(html, model.Tables);
         Charts(html, model.Charts);
         Odds(html, model.Odds);
@@ -98,6 +100,74 @@ public static class HtmlReport
         }
 
         html.Append("</ul>\n</div>\n</section>\n");
+    }
+
+    private static void Pnl(StringBuilder html, PnlSection? pnl)
+    {
+        html.Append("<section id=\"pnl\">\n<h2>Would the rule have paid?</h2>\n");
+        if (pnl is null || pnl.Absence is not null)
+        {
+            html.Append("<p class=\"note\">").Append(E(pnl?.Absence ?? "The rule was not backtested as option trades for this report.")).Append("</p>\n</section>\n");
+            return;
+        }
+
+        html.Append("<div class=\"cautions\">\n");
+        foreach (var caution in pnl.Cautions)
+        {
+            html.Append("<p>").Append(E(caution)).Append("</p>\n");
+        }
+
+        html.Append("</div>\n<ul>\n");
+        foreach (var point in pnl.Points)
+        {
+            html.Append("<li>").Append(E(point)).Append("</li>\n");
+        }
+
+        html.Append("</ul>\n");
+        foreach (var table in pnl.Tables)
+        {
+            TextTable(html, table);
+        }
+
+        foreach (var chart in pnl.Charts)
+        {
+            Figure(html, chart);
+        }
+
+        html.Append("<h3>Settings and conventions of the trades</h3>\n<table class=\"text\">\n<tbody>\n");
+        foreach (var setting in pnl.Settings)
+        {
+            Row(html, setting.Name, setting.Value);
+        }
+
+        html.Append("</tbody>\n</table>\n</section>\n");
+    }
+
+    private static void TextTable(StringBuilder html, TextTable table)
+    {
+        html.Append("<h3>").Append(E(table.Title)).Append("</h3>\n<table>\n<thead><tr>");
+        foreach (var header in table.Headers)
+        {
+            html.Append("<th>").Append(E(header)).Append("</th>");
+        }
+
+        html.Append("</tr></thead>\n<tbody>\n");
+        foreach (var row in table.Rows)
+        {
+            html.Append("<tr>");
+            foreach (var cell in row)
+            {
+                html.Append("<td>").Append(E(cell)).Append("</td>");
+            }
+
+            html.Append("</tr>\n");
+        }
+
+        html.Append("</tbody>\n</table>\n");
+        if (table.Note is not null)
+        {
+            html.Append("<p class=\"note\">").Append(E(table.Note)).Append("</p>\n");
+        }
     }
 
     private static void Metrics(StringBuilder html, IReadOnlyList<MetricTable> tables)

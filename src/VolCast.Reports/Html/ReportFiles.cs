@@ -3,8 +3,8 @@ using VolCast.Reports.Model;
 
 namespace VolCast.Reports.Html;
 
-/// <summary>Writes a report into a folder: report.html and every chart (the reliability diagram included) as its own PNG, each file atomically.</summary>
-public static class ReportFiles
+/// <summary>Writes a report into a folder: report.html and every chart (the P&amp;L section's and the reliability diagram included) as its own PNG, each file atomically.</summary>
+internal static class ReportFiles
 {
     /// <summary>The report's file name inside the output folder.</summary>
     public const string ReportFileName = "report.html";
@@ -24,7 +24,12 @@ public static class ReportFiles
         cancellationToken.ThrowIfCancellationRequested();
         var html = HtmlReport.Render(model);
         var written = new List<string>();
-        var charts = model.Odds?.Reliability is { } reliability ? [.. model.Charts, reliability] : model.Charts;
+        IReadOnlyList<ChartImage> charts = [.. model.Pnl?.Charts ?? [], .. model.Charts];
+        if (model.Odds?.Reliability is { } reliability)
+        {
+            charts = [.. charts, reliability];
+        }
+
         var reportPath = Path.Combine(folder, ReportFileName);
         if (!overwrite)
         {

@@ -5,7 +5,7 @@ namespace VolCast.Reports.Model;
 /// <param name="LookbackDays">The lookbacks tried, in trading days, increasing.</param>
 /// <param name="MeanLoss">The mean QLIKE loss at each lookback (same length as <paramref name="LookbackDays"/>).</param>
 /// <param name="ChosenLookbackDays">The lookbacks the walk-forward selection picked (each one of <paramref name="LookbackDays"/>), in any order, repeats allowed.</param>
-public sealed record LookbackCurve(
+internal sealed record LookbackCurve(
     string Family,
     IReadOnlyList<int> LookbackDays,
     IReadOnlyList<double> MeanLoss,

@@ -5,4 +5,4 @@ namespace VolCast.Reports.Model;
 /// <param name="Columns">The columns after the row label.</param>
 /// <param name="Rows">The rows, in the order to show them.</param>
 /// <param name="Note">A sentence under the table, e.g. what the test's null hypothesis is; may be null.</param>
-public sealed record MetricTable(string Title, IReadOnlyList<MetricColumn> Columns, IReadOnlyList<MetricRow> Rows, string? Note = null);
+internal sealed record MetricTable(string Title, IReadOnlyList<MetricColumn> Columns, IReadOnlyList<MetricRow> Rows, string? Note = null);

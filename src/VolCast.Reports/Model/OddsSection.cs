@@ -5,4 +5,4 @@ namespace VolCast.Reports.Model;
 /// <param name="Coverage">One row per forecaster: shares of |z| ≤ 1 and ≤ 2, the Kupiec and Christoffersen p-values and the tails.</param>
 /// <param name="Verdicts">Sentences on how the ranges held, one per forecaster shown.</param>
 /// <param name="Notes">How the numbers were computed: the probability model, the pooling, the non-overlapping sample.</param>
-public sealed record OddsSection(ChartImage? Reliability, MetricTable Coverage, IReadOnlyList<string> Verdicts, IReadOnlyList<string> Notes);
+internal sealed record OddsSection(ChartImage? Reliability, MetricTable Coverage, IReadOnlyList<string> Verdicts, IReadOnlyList<string> Notes);

@@ -7,7 +7,7 @@ namespace VolCast.Reports.Model;
 /// <param name="Lower">Lower end of the observed frequency's interval per bin, same length.</param>
 /// <param name="Upper">Upper end of the observed frequency's interval per bin, same length.</param>
 /// <param name="Counts">Forecasts per bin, same length.</param>
-public sealed record ReliabilityCurve(
+internal sealed record ReliabilityCurve(
     string Name,
     IReadOnlyList<double> Predicted,
     IReadOnlyList<double> Observed,

@@ -7,7 +7,7 @@ namespace VolCast.Reports.Model;
 /// <param name="Charts">The rendered charts, in the order to show them.</param>
 /// <param name="DataQuality">What the inputs looked like.</param>
 /// <param name="Run">Settings, tool version, run time and input hashes.</param>
-public sealed record ReportModel(
+internal sealed record ReportModel(
     string Title,
     Verdict Verdict,
     IReadOnlyList<MetricTable> Tables,
@@ -20,4 +20,7 @@ public sealed record ReportModel(
 
     /// <summary>The probability-calibration and range-coverage section, or null when the checks were not run.</summary>
     public OddsSection? Odds { get; init; }
+
+    /// <summary>The "Would the rule have paid?" section, or null when the report was built without it (the page then says it was not run).</summary>
+    public PnlSection? Pnl { get; init; }
 }

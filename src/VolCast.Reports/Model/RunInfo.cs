@@ -6,4 +6,4 @@ namespace VolCast.Reports.Model;
 /// <param name="Elapsed">How long the run took.</param>
 /// <param name="Settings">The resolved settings, in the order to show them.</param>
 /// <param name="Inputs">The input files with their SHA-256.</param>
-public sealed record RunInfo(string ToolVersion, DateTimeOffset StartedAt, TimeSpan Elapsed, IReadOnlyList<Setting> Settings, IReadOnlyList<InputFile> Inputs);
+internal sealed record RunInfo(string ToolVersion, DateTimeOffset StartedAt, TimeSpan Elapsed, IReadOnlyList<Setting> Settings, IReadOnlyList<InputFile> Inputs);

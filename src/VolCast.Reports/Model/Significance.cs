@@ -1,7 +1,7 @@
 namespace VolCast.Reports.Model;
 
 /// <summary>How strongly a test rejects its null hypothesis, shown as stars beside a number.</summary>
-public enum Significance
+internal enum Significance
 {
     /// <summary>Not tested, or not significant at 10%.</summary>
     None,

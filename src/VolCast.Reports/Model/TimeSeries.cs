@@ -3,7 +3,7 @@ using System.Globalization;
 namespace VolCast.Reports.Model;
 
 /// <summary>A named series of values on trading dates, oldest first; missing days are simply absent.</summary>
-public sealed record TimeSeries
+internal sealed record TimeSeries
 {
     /// <summary>Creates a series, checking the dates increase and the values are finite.</summary>
     /// <param name="name">The label shown in legends, e.g. a forecaster's spec such as <c>ewma:0.94</c>.</param>

@@ -24,9 +24,9 @@ public sealed class BacktestCalibratorTests
         var calibration = BacktestCalibrator.Evaluate(result, prices);
 
         var names = new[] { "implied" }.Concat(result.Forecasts.Select(f => f.Spec)).ToArray();
-        Assert.Equal(names, calibration.Forecasters.Select(f => f.Forecaster).ToArray());
-        Assert.Equal(names, calibration.Forecasters.Select(f => f.Calibration.Forecaster).ToArray());
-        Assert.Equal(names, calibration.Forecasters.Select(f => f.Coverage.Forecaster).ToArray());
+        Assert.Equal(names, calibration.Forecasters.Select(f => f.Spec).ToArray());
+        Assert.Equal(names, calibration.Forecasters.Select(f => f.Calibration.Spec).ToArray());
+        Assert.Equal(names, calibration.Forecasters.Select(f => f.Coverage.Spec).ToArray());
 
         // The dates are exactly those whose window closed, with S_t and S_{t+21} from the history.
         var closed = Enumerable.Range(0, result.Dates.Length).Where(i => result.WindowDays[i] is not null).ToArray();
@@ -89,6 +89,6 @@ public sealed class BacktestCalibratorTests
         var expected = result.WindowDays.Where(w => w is not null).Select(w => w!.Value).ToArray();
         Assert.Equal(expected, calibration.Aligned.Outcomes.WindowDays.ToArray());
         Assert.True(expected.Distinct().Count() > 1, "a 30-day tenor over weekdays should give windows of different lengths");
-        Assert.Equal(result.Forecasts.Select(f => f.Spec).ToArray(), calibration.Forecasters.Select(f => f.Coverage.Forecaster).ToArray());
+        Assert.Equal(result.Forecasts.Select(f => f.Spec).ToArray(), calibration.Forecasters.Select(f => f.Coverage.Spec).ToArray());
     }
 }

@@ -14,9 +14,9 @@ public sealed class ForecasterOddsTests
 
         var odds = new[] { a, b }.Select(f => BacktestCalibrator.Score(outcomes, f, options)).ToArray();
 
-        Assert.Equal(["a", "b"], odds.Select(o => o.Forecaster).ToArray());
-        Assert.Equal(["a", "b"], odds.Select(o => o.Calibration.Forecaster).ToArray());
-        Assert.Equal(["a", "b"], odds.Select(o => o.Coverage.Forecaster).ToArray());
+        Assert.Equal(["a", "b"], odds.Select(o => o.Spec).ToArray());
+        Assert.Equal(["a", "b"], odds.Select(o => o.Calibration.Spec).ToArray());
+        Assert.Equal(["a", "b"], odds.Select(o => o.Coverage.Spec).ToArray());
         Assert.Equal(ProbabilityCalibration.Evaluate(outcomes, b).Strikes[0].Decomposition, odds[1].Calibration.Strikes[0].Decomposition);
         Assert.Equal(ExpectedMoveCoverage.Evaluate(outcomes, a).Levels[0], odds[0].Coverage.Levels[0]);
         Assert.Equal(CoverageVerdict.Describe(odds[0].Coverage), odds[0].Verdict);

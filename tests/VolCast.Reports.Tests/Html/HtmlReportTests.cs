@@ -22,7 +22,7 @@ public sealed partial class HtmlReportTests
         var html = HtmlReport.Render(SampleReport.Model(Charts));
 
         var ids = SectionPattern().Matches(html).Select(m => m.Groups[1].Value).ToArray();
-        Assert.Equal(["verdict", "metrics", "charts", "odds", "data-quality", "run", "cautions"], ids);
+        Assert.Equal(["verdict", "pnl", "metrics", "charts", "odds", "data-quality", "run", "cautions"], ids);
         Assert.Equal(HtmlReport.SectionIds, ids);
     }
 
@@ -96,9 +96,10 @@ public sealed partial class HtmlReportTests
     [InlineData(0.049, "0.000", Significance.FivePercent, "0.049<sup>**</sup>")]
     [InlineData(0.5, "0.0%", Significance.TenPercent, "50.0%<sup>*</sup>")]
     [InlineData(null, "0.00", Significance.None, "—")]
-    public void Cell_FormatsValueAndStars(double? value, string format, Significance significance, string expected)
+    public void Cell_FormatsValueAndStars(double? value, string format, object significance, string expected)
     {
-        Assert.Equal(expected, HtmlReport.Cell(new MetricCell(value, format, significance)));
+        // The level arrives as object: Significance is internal to Reports, and a theory method is public.
+        Assert.Equal(expected, HtmlReport.Cell(new MetricCell(value, format, (Significance)significance)));
     }
 
     [Fact]

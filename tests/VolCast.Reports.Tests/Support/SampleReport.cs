@@ -8,7 +8,7 @@ namespace VolCast.Reports.Tests.Support;
 /// Invented data for a full report: 20 years of seeded daily returns with slowly changing volatility, an implied
 /// series that carries a premium, and three forecasters. Only for exercising charts and the HTML, never for numbers.
 /// </summary>
-public sealed class SampleReport
+internal sealed class SampleReport
 {
     private SampleReport(int days, int seed)
     {

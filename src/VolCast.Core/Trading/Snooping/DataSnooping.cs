@@ -21,7 +21,7 @@ namespace VolCast.Core.Trading.Snooping;
 /// analytic kernel (which gives the same quantity up to Monte Carlo error, and is what a test checks it against).
 /// </para>
 /// </remarks>
-public static class DataSnooping
+internal static class DataSnooping
 {
     /// <summary>Draws the stationary-bootstrap resamples for T dates with the options' L, B and seed.</summary>
     /// <param name="days">Number of dates T, at least 2.</param>

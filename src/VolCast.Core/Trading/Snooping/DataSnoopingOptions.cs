@@ -14,7 +14,7 @@ namespace VolCast.Core.Trading.Snooping;
 /// dependence is shorter than the trades' horizon, suffers less.
 /// </para>
 /// </remarks>
-public sealed record DataSnoopingOptions
+internal sealed record DataSnoopingOptions
 {
     /// <summary>Creates the settings, checking each one.</summary>
     /// <param name="meanBlockLength">Mean block length L of the stationary bootstrap in days, at least 1; the horizon of the trades by default (see <see cref="ForHorizon"/>).</param>

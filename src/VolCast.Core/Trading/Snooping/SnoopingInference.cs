@@ -21,8 +21,30 @@ internal static class SnoopingInference
         var rules = estimates.Length;
         var replications = draws.Replications;
         var rootT = Math.Sqrt(days);
+        var omega = BootstrapScales(deviations, rules, replications, days);
+        var (inverse, tStatistics, varying) = Studentize(omega, estimates, deviations, replications, rootT, scale);
+        var best = BestRule(estimates);
+        var logLog = Math.Log(Math.Log(days));
+        var threshold = logLog > 0 ? Math.Sqrt(2 * logLog) : 0.0;
+        if (varying == 0)
+        {
+            // Every rule differs from the benchmark by a constant: there is nothing random to test.
+            return new DataSnoopingResult(measure, days, [.. estimates], [.. omega], [.. tStatistics], best, 1.0, 1.0,
+                new SpaPValues(0.0, threshold, 1.0, 1.0, 1.0), new StepMResult(level, [], [], []),
+                replications, draws.MeanBlockLength, draws.Seed);
+        }
 
-        // ω̂²_k = (T/B) Σ_b (θ̂*_k,b − θ̂_k)²: Hansen's (2005) bootstrap estimate of the variance of √T·θ̂_k.
+        var counts = CountExceedances(estimates, deviations, replications, rootT, inverse, tStatistics, threshold);
+        double count = replications;
+        var spa = new SpaPValues(counts.SpaStatistic, threshold, counts.Lower / count, counts.Consistent / count, counts.Upper / count);
+        var stepM = StepDown(deviations, rules, replications, rootT, inverse, tStatistics, level);
+        return new DataSnoopingResult(measure, days, [.. estimates], [.. omega], [.. tStatistics], best,
+            counts.Reality / count, counts.Studentized / count, spa, stepM, replications, draws.MeanBlockLength, draws.Seed);
+    }
+
+    /// <summary>ω̂_k = √((T/B) Σ_b (θ̂*_k,b − θ̂_k)²): Hansen's (2005) bootstrap estimate of the standard deviation of √T·θ̂_k.</summary>
+    private static double[] BootstrapScales(double[] deviations, int rules, int replications, int days)
+    {
         var omega = new double[rules];
         for (var b = 0; b < replications; b++)
         {
@@ -33,15 +55,29 @@ internal static class SnoopingInference
             }
         }
 
-        var largest = 0.0;
         for (var k = 0; k < rules; k++)
         {
             omega[k] = Math.Sqrt(days * omega[k] / replications);
+        }
+
+        return omega;
+    }
+
+    /// <summary>
+    /// The studentized statistics t_k = √T·θ̂_k/ω̂_k. A rule whose difference from the benchmark is a constant has no
+    /// bootstrap variation (only rounding): it takes no part in the studentized statistics, and its ω̂ and deviations
+    /// are set to exactly zero.
+    /// </summary>
+    private static (double[] Inverse, double?[] TStatistics, int Varying) Studentize(
+        double[] omega, double[] estimates, double[] deviations, int replications, double rootT, double scale)
+    {
+        var rules = omega.Length;
+        var largest = 0.0;
+        for (var k = 0; k < rules; k++)
+        {
             largest = Math.Max(largest, omega[k]);
         }
 
-        // A rule whose difference from the benchmark is a constant has no bootstrap variation (only rounding): it takes
-        // no part in the studentized statistics, and its deviations are set to exactly zero.
         var floor = Math.Max(1e-10 * largest, 1e-12 * scale);
         var inverse = new double[rules];
         var tStatistics = new double?[rules];
@@ -64,8 +100,13 @@ internal static class SnoopingInference
             }
         }
 
+        return (inverse, tStatistics, varying);
+    }
+
+    private static int BestRule(double[] estimates)
+    {
         var best = 0;
-        for (var k = 1; k < rules; k++)
+        for (var k = 1; k < estimates.Length; k++)
         {
             if (estimates[k] > estimates[best])
             {
@@ -73,18 +114,18 @@ internal static class SnoopingInference
             }
         }
 
-        var logLog = Math.Log(Math.Log(days));
-        var threshold = logLog > 0 ? Math.Sqrt(2 * logLog) : 0.0;
-        if (varying == 0)
-        {
-            // Every rule differs from the benchmark by a constant: there is nothing random to test.
-            return new DataSnoopingResult(measure, days, [.. estimates], [.. omega], [.. tStatistics], best, 1.0, 1.0,
-                new SpaPValues(0.0, threshold, 1.0, 1.0, 1.0), new StepMResult(level, [], [], []),
-                replications, draws.MeanBlockLength, draws.Seed);
-        }
+        return best;
+    }
 
-        // Hansen (2005): the bootstrap mean of rule k is recentred at θ̂_k − g(θ̂_k); the shifts below are θ̂_k − g(θ̂_k)
-        // for g_l(x) = max(x, 0) and g_c(x) = x·1{√T·x/ω̂ ≥ −√(2 ln ln T)}; g_u(x) = x gives no shift.
+    /// <summary>
+    /// How many bootstrap replications exceed the Reality Check's, the studentized maximum's and the three SPA
+    /// statistics. Hansen (2005): the bootstrap mean of rule k is recentred at θ̂_k − g(θ̂_k); the shifts below are
+    /// θ̂_k − g(θ̂_k) for g_l(x) = max(x, 0) and g_c(x) = x·1{√T·x/ω̂ ≥ −√(2 ln ln T)}; g_u(x) = x gives no shift.
+    /// </summary>
+    private static Exceedances CountExceedances(
+        double[] estimates, double[] deviations, int replications, double rootT, double[] inverse, double?[] tStatistics, double threshold)
+    {
+        var rules = estimates.Length;
         var shiftLower = new double[rules];
         var shiftConsistent = new double[rules];
         var studentizedMax = double.NegativeInfinity;
@@ -128,11 +169,7 @@ internal static class SnoopingInference
             consistentCount += Math.Max(rootT * consistent, 0.0) > spaStatistic ? 1 : 0;
         }
 
-        double count = replications;
-        var spa = new SpaPValues(spaStatistic, threshold, lowerCount / count, consistentCount / count, upperCount / count);
-        var stepM = StepDown(deviations, rules, replications, rootT, inverse, tStatistics, level);
-        return new DataSnoopingResult(measure, days, [.. estimates], [.. omega], [.. tStatistics], best,
-            realityCount / count, studentizedCount / count, spa, stepM, replications, draws.MeanBlockLength, draws.Seed);
+        return new Exceedances(spaStatistic, realityCount, studentizedCount, lowerCount, consistentCount, upperCount);
     }
 
     /// <summary>
@@ -205,4 +242,7 @@ internal static class SnoopingInference
 
         return new StepMResult(level, rejected.ToImmutable(), rejectedAtStep.ToImmutable(), criticalValues.ToImmutable());
     }
+
+    /// <summary>The SPA statistic and the number of replications above each test's statistic.</summary>
+    private readonly record struct Exceedances(double SpaStatistic, int Reality, int Studentized, int Lower, int Consistent, int Upper);
 }

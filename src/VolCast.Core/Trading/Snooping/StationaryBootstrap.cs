@@ -12,7 +12,7 @@ namespace VolCast.Core.Trading.Snooping;
 /// L = 1 gives blocks of one date (the i.i.d. bootstrap). The generator is <see cref="Random"/> with the given seed,
 /// so the same (T, L, B, seed) give the same draws bit for bit, whatever data they are then applied to.
 /// </remarks>
-public static class StationaryBootstrap
+internal static class StationaryBootstrap
 {
     /// <summary>Draws B stationary-bootstrap resamples of T dates.</summary>
     /// <param name="length">Number of dates T, at least 2.</param>

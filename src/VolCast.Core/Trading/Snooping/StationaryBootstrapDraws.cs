@@ -12,7 +12,7 @@ namespace VolCast.Core.Trading.Snooping;
 /// the mean-difference and Sharpe-ratio tests, the Reality Check, SPA and StepM all see the same resamples.
 /// Immutable after construction; safe to share between threads.
 /// </remarks>
-public sealed class StationaryBootstrapDraws
+internal sealed class StationaryBootstrapDraws
 {
     private readonly int[] _starts;
     private readonly int[] _lengths;

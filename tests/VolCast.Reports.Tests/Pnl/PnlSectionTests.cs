@@ -1,0 +1,330 @@
+using System.Globalization;
+using System.Net;
+using VolCast.Core.Backtest;
+using VolCast.Core.Calibration;
+using VolCast.Core.Demo;
+using VolCast.Core.Trading;
+using VolCast.Core.Trading.Snooping;
+using VolCast.IO.Results;
+using VolCast.Reports.Charts;
+using VolCast.Reports.Html;
+using VolCast.Reports.Model;
+using VolCast.Reports.Tests.Support;
+
+namespace VolCast.Reports.Tests.Pnl;
+
+/// <summary>
+/// The "Would the rule have paid?" section: built from a <see cref="RulePnlReport"/> computed here by calling the Core
+/// engine directly on a seeded history (geometric Brownian motion at 20% a year, implied quoted about 3 vol points
+/// high, invented forecasts), then checked against the record and against the definitions the record documents.
+/// The forecast backtest beside it runs on invented demo data; only the mapping to the page is under test.
+/// </summary>
+public sealed class PnlSectionTests : IDisposable
+{
+    private const string HostileSpec = "<script>alert(1)</script>";
+
+    private static readonly DemoScenario Scenario = new DemoScenarioGenerator(5, years: 3).Generate();
+
+    private static readonly BacktestResult Forecasts = Backtester.Run(Scenario.Index, Scenario.Implied, new BacktestSettings
+    {
+        Forecasters = ["close-to-close:21", "ewma:0.94"],
+        Sweep = false,
+        McsReplications = 200,
+        Baseline = "close-to-close:21",
+        Candidate = "ewma:0.94",
+    });
+
+    private static readonly BacktestRunInfo Info = new(
+        "0.1.0-test",
+        [new InputFileInfo("prices", "prices.csv", new string('a', 64))],
+        DateTimeOffset.UnixEpoch,
+        DateTimeOffset.UnixEpoch,
+        "decimal",
+        []);
+
+    private static readonly RulePnlReport Report = BuildReport(seed: 17, days: 700);
+
+    private readonly string _folder = Path.Combine(Path.GetTempPath(), "volcast-pnl-section-" + Guid.NewGuid().ToString("N"));
+
+    public void Dispose()
+    {
+        if (Directory.Exists(_folder))
+        {
+            Directory.Delete(_folder, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void Build_WithRulePnl_SectionComesFirstAfterTheVerdict()
+    {
+        var model = ReportWriter.Build(With(Report));
+
+        Assert.NotNull(model.Pnl);
+        Assert.Null(model.Pnl!.Absence);
+        var html = HtmlReport.Render(model);
+        var verdict = html.IndexOf("id=\"verdict\"", StringComparison.Ordinal);
+        var pnl = html.IndexOf("id=\"pnl\"", StringComparison.Ordinal);
+        var metrics = html.IndexOf("id=\"metrics\"", StringComparison.Ordinal);
+        Assert.True(verdict < pnl && pnl < metrics, $"verdict {verdict}, pnl {pnl}, metrics {metrics}");
+        Assert.Contains("<h2>Would the rule have paid?</h2>", html, StringComparison.Ordinal);
+        Assert.Equal(
+            ["The rules as delta-hedged straddles", "The tests that decide: differences of daily net P&L", "Threshold sweep", "Does the best rule survive the search?",
+             "Entry at the signal's close against one trading day later (net of costs)", "Net P&L by calendar year, vol points", "The same bet as a variance swap"],
+            model.Pnl.Tables.Select(t => t.Title));
+    }
+
+    [Fact]
+    public void Build_WithoutRulePnl_SaysWhyAndDrawsNoPnlChart()
+    {
+        var run = new BacktestRun(Forecasts, BacktestCalibrator.Evaluate(Forecasts, Scenario.Index), Info, Scenario.Index, Scenario.Index.Count)
+        {
+            RulePnlAbsence = "no implied series was given",
+        };
+
+        var model = ReportWriter.Build(run);
+        var html = HtmlReport.Render(model);
+
+        Assert.Equal("The rule was not backtested as option trades: no implied series was given.", model.Pnl!.Absence);
+        Assert.Empty(model.Pnl.Charts);
+        Assert.Contains("id=\"pnl\"", html, StringComparison.Ordinal);
+        Assert.Contains("no implied series was given", html, StringComparison.Ordinal);
+        Assert.DoesNotContain(PnlCharts.CumulativeFileName, model.Charts.Select(c => c.FileName));
+        Assert.DoesNotContain("Switching from the current rule", model.Verdict.Headline, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Verdict_LeadsWithTheSwitchPerYear_NumbersFromTheDailyPaths()
+    {
+        var model = ReportWriter.Build(With(Report));
+        var close = Report.AtClose;
+        var proposed = close[TradingRule.Proposed];
+        var current = close[TradingRule.Current];
+
+        // The gain per year by its definition (RuleComparison): the mean daily difference of the two net paths times
+        // the trading days per year; recomputed here from the paths, not read from the comparison.
+        var gain = 0.0;
+        for (var t = 0; t < proposed.DailyPnl.Length; t++)
+        {
+            gain += proposed.DailyPnl[t] - current.DailyPnl[t];
+        }
+
+        gain = gain / proposed.DailyPnl.Length * close.Settings.AnnualizationDays;
+        Assert.Equal(gain, close.ProposedVersusCurrent.DifferencePerYear, 9);
+
+        // The worst drawdown by its definition (PathStatistics): the largest fall of the running sum from its peak,
+        // the start counting as a peak of 0.
+        double sum = 0, peak = 0, fall = 0;
+        foreach (var x in proposed.DailyPnl)
+        {
+            sum += x;
+            peak = Math.Max(peak, sum);
+            fall = Math.Max(fall, peak - sum);
+        }
+
+        var c = CultureInfo.InvariantCulture;
+        var headline = model.Verdict.Headline;
+        var test = close.ProposedVersusCurrent.Test;
+        Assert.StartsWith("Switching from the current rule to the proposed one would have earned " + Math.Abs(gain).ToString("0.00", c) + " vol points per year " + (gain >= 0 ? "more" : "less"), headline, StringComparison.Ordinal);
+        Assert.Contains($"t = {test.TStatistic!.Value.ToString("0.00", c)}, p = {ReportVerdict.P(test.PValue!.Value)}", headline, StringComparison.Ordinal);
+        Assert.Contains($"worst drawdown of {fall.ToString("0.00", c)} vol points", headline, StringComparison.Ordinal);
+        Assert.Contains($"SPA p = {ReportVerdict.P(Report.Means.Spa.Consistent)}", headline, StringComparison.Ordinal);
+        Assert.Contains(Report.Means.Spa.Consistent < 0.05 ? " survives the data-snooping test" : " does not survive the data-snooping test", headline, StringComparison.Ordinal);
+        Assert.Contains($"the walk-forward threshold earned {close[TradingRule.WalkForwardThreshold].PathNet.PnlPerYear.ToString("0.00", c)} vol points per year", headline, StringComparison.Ordinal);
+        Assert.Contains("half-spread", headline, StringComparison.Ordinal);
+        Assert.DoesNotContain("per trade", headline, StringComparison.Ordinal);
+
+        // The forecast headline follows as the first point.
+        Assert.Contains("ranks first on QLIKE", model.Verdict.Points[0], StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void RulesTable_Cells_MatchTheTradesByTheirDefinitions()
+    {
+        var section = ReportWriter.Build(With(Report)).Pnl!;
+        var table = section.Tables[0];
+        var close = Report.AtClose;
+        var c = CultureInfo.InvariantCulture;
+        string Cell(string label, TradingRule rule, bool net) =>
+            table.Rows.Single(r => r[0] == label)[1 + (2 * close.Rules.IndexOf(close[rule])) + (net ? 0 : 1)];
+
+        Assert.Equal(11, table.Headers.Count);
+        Assert.Equal("proposed, net", table.Headers[3]);
+        Assert.Equal("proposed, zero cost", table.Headers[4]);
+        foreach (var rule in close.Rules)
+        {
+            var pnl = rule.Trades.Select(t => t.PnlVolPoints).ToArray();
+            var gross = rule.Trades.Select(t => t.GrossPnlVolPoints).ToArray();
+            Assert.Equal(pnl.Length.ToString(c), Cell("Trades (one at a time)", rule.Rule, true));
+
+            // Mean, hit rate (share above zero) and worst trade, from the trades themselves.
+            Assert.Equal(pnl.Average().ToString("0.00", c), Cell("Mean P&L per trade, vol points", rule.Rule, true));
+            Assert.Equal(gross.Average().ToString("0.00", c), Cell("Mean P&L per trade, vol points", rule.Rule, false));
+            Assert.Equal((pnl.Count(x => x > 0) / (double)pnl.Length).ToString("0.0%", c), Cell("Hit rate (trades above zero)", rule.Rule, true));
+            Assert.Equal(pnl.Min().ToString("0.00", c), Cell("Worst trade, vol points", rule.Rule, true));
+
+            // P&L per year of the daily path: its sum over its length in years of trading days.
+            var perYear = rule.DailyPnl.Sum() / (rule.DailyPnl.Length / close.Settings.AnnualizationDays);
+            Assert.Equal(perYear.ToString("0.00", c), Cell("P&L per year, vol points", rule.Rule, true));
+            var perYearGross = rule.DailyPnlZeroCost.Sum() / (rule.DailyPnlZeroCost.Length / close.Settings.AnnualizationDays);
+            Assert.Equal(perYearGross.ToString("0.00", c), Cell("P&L per year, vol points", rule.Rule, false));
+        }
+
+        // Costs only take away: with a half-spread and hedge costs every trade nets less than gross.
+        Assert.All(close.Rules.SelectMany(r => r.Trades), t => Assert.True(t.PnlVolPoints < t.GrossPnlVolPoints));
+
+        // The sweep lists every row searched, and the snooping table names the best by its label.
+        Assert.Equal(close.Sweep.Length, section.Tables[2].Rows.Count);
+        Assert.Equal(close.Sweep[Report.Means.BestRule].Label, section.Tables[3].Rows[0][1]);
+        Assert.Equal(ReportVerdict.P(Report.Means.RealityCheckPValue), section.Tables[3].Rows[0][3]);
+        Assert.Equal(ReportVerdict.P(Report.Sharpe.Spa.Consistent), section.Tables[3].Rows[1][4]);
+        var tradedRows = close.Sweep.Where(r => r.Trades > 0).ToArray();
+        Assert.Equal(tradedRows[Report.Sharpe.BestRule].Label, section.Tables[3].Rows[1][1]);
+
+        // P&L by year adds up to the path's total.
+        var proposed = close[TradingRule.Proposed];
+        Assert.Equal(proposed.DailyPnl.Sum(), proposed.PathNet.ByYear.Sum(y => y.Pnl), 9);
+    }
+
+    [Fact]
+    public void Write_DrawsEveryPnlChart_NonEmptyAtTheReportSize()
+    {
+        var written = ReportWriter.Write(_folder, With(Report));
+
+        foreach (var name in new[] { PnlCharts.CumulativeFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName })
+        {
+            Assert.Contains(name, written);
+            Assert.Contains(name, ReportWriter.FileNames);
+            var bytes = File.ReadAllBytes(Path.Combine(_folder, name));
+            Assert.True(Png.HasSignature(bytes), name);
+            Assert.Equal((1200, 600), Png.Size(bytes));
+        }
+    }
+
+    [Fact]
+    public void CumulativeChart_Drawdown_AgreesWithTheCoreMaximumDrawdown()
+    {
+        var close = Report.AtClose;
+        foreach (var rule in close.Rules)
+        {
+            var drawdown = PnlCharts.Drawdown(PnlCharts.CumulativeSum(rule.DailyPnl));
+            Assert.Equal(rule.PathNet.MaxDrawdown, -drawdown.Min(), 9);
+        }
+
+        // A worked example: daily 1, −2, 3, −5 sums to 1, −1, 2, −3; the peaks are 1, 1, 2, 2.
+        Assert.Equal([0.0, -2.0, 0.0, -5.0], PnlCharts.Drawdown(PnlCharts.CumulativeSum([1.0, -2.0, 3.0, -5.0])));
+    }
+
+    [Fact]
+    public void Charts_EachRuleKeepsOneColourInAllThree()
+    {
+        var close = Report.AtClose;
+        var (top, bottom) = PnlCharts.BuildCumulative(close.Dates, close.Rules);
+        using var trades = PnlCharts.BuildTrades(close.Rules);
+        using var years = PnlCharts.BuildYears(close.Rules);
+        using (top)
+        using (bottom)
+        {
+            var colours = close.Rules.Select(r => ChartStyle.Rule(r.Rule)).ToArray();
+            Assert.Equal(colours.Length, colours.Distinct().Count());
+            foreach (var rule in close.Rules)
+            {
+                var name = RuleNames.Name(rule.Rule);
+                var colour = ChartStyle.Rule(rule.Rule);
+                Assert.Equal(colour, top.GetPlottables().OfType<ScottPlot.Plottables.Scatter>().Single(p => p.LegendText == name).Color);
+                Assert.Equal(colour, trades.GetPlottables().OfType<ScottPlot.Plottables.Scatter>().Single(p => p.LegendText.StartsWith(name + " (n = ", StringComparison.Ordinal)).Color);
+                Assert.Equal(colour, years.GetPlottables().OfType<ScottPlot.Plottables.BarPlot>().Single(p => p.LegendText == name).Bars[0].FillColor);
+            }
+        }
+    }
+
+    [Fact]
+    public void Render_HostileForecasterName_IsEscaped()
+    {
+        var report = BuildReport(seed: 5, days: 400, proposedSpec: HostileSpec);
+
+        var html = HtmlReport.Render(ReportWriter.Build(With(report)));
+
+        Assert.DoesNotContain(HostileSpec, html, StringComparison.Ordinal);
+        Assert.Contains(WebUtility.HtmlEncode(HostileSpec), html, StringComparison.Ordinal);
+        Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+    }
+
+    [Fact]
+    public void Render_CautionsStandBesideTheSection()
+    {
+        var html = HtmlReport.Render(ReportWriter.Build(With(Report)));
+        var section = html[html.IndexOf("id=\"pnl\"", StringComparison.Ordinal)..html.IndexOf("id=\"metrics\"", StringComparison.Ordinal)];
+
+        // The four cautions the trade calls for: unbounded loss of short options, what the simulation leaves out, past
+        // P&L, and the rules of the firm and jurisdiction.
+        Assert.Contains("can lose far more than the premium received", section, StringComparison.Ordinal);
+        Assert.Contains("ignores the smile", section, StringComparison.Ordinal);
+        Assert.Contains("early assignment, margin and liquidity", section, StringComparison.Ordinal);
+        Assert.Contains("Past P&amp;L does not predict future P&amp;L", section, StringComparison.Ordinal);
+        Assert.Contains("rules of your firm and of your jurisdiction", section, StringComparison.Ordinal);
+        foreach (var caution in ReportText.PnlCautions)
+        {
+            Assert.Contains(HtmlReport.E(caution), section, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
+    public void Settings_StateTheConventions()
+    {
+        var settings = ReportWriter.Build(With(Report)).Pnl!.Settings.ToDictionary(s => s.Name, s => s.Value);
+
+        Assert.Contains("at-the-money straddle", settings["Instrument"], StringComparison.Ordinal);
+        Assert.Contains("one vol point", settings["Size"], StringComparison.Ordinal);
+        Assert.Contains("10 trading days after entry", settings["Expiry"], StringComparison.Ordinal);
+        Assert.Contains("entry implied volatility", settings["Hedge"], StringComparison.Ordinal);
+        Assert.Contains("half-spread 0.25 vol points", settings["Costs"], StringComparison.Ordinal);
+        Assert.Contains("1 basis points", settings["Costs"], StringComparison.Ordinal);
+        Assert.Contains("one at a time", settings["Entries"], StringComparison.Ordinal);
+        Assert.Contains("r = 0, q = 0", settings["Rate and dividend"], StringComparison.Ordinal);
+        Assert.Contains("spot −10% and implied +10 vol points", settings["Stress shock"], StringComparison.Ordinal);
+    }
+
+    /// <summary>A run of the invented demo backtest carrying <paramref name="report"/>.</summary>
+    internal static BacktestRun RunWith(RulePnlReport report) => With(report);
+
+    private static BacktestRun With(RulePnlReport report) =>
+        new(Forecasts, BacktestCalibrator.Evaluate(Forecasts, Scenario.Index), Info, Scenario.Index, Scenario.Index.Count)
+        {
+            RulePnl = report,
+        };
+
+    /// <summary>Runs the trading backtest at the close and one day later, and both data-snooping tests, as a run would.</summary>
+    internal static RulePnlReport BuildReport(int seed, int days, string proposedSpec = "candidate")
+    {
+        // 20% a year: 0.20 / √252 a day.
+        var prices = Some.GbmBars(seed, days, dailyVolatility: 0.20 / Math.Sqrt(252), stepsPerDay: 4);
+        var random = new Random(seed + 1);
+        var implied = new double?[days];
+        var proposed = new double?[days];
+        var current = new double?[days];
+        var historical = new double?[days];
+        for (var i = 0; i < days; i++)
+        {
+            implied[i] = 0.23 + (0.02 * (random.NextDouble() - 0.5));
+            proposed[i] = 0.20 + (0.03 * (random.NextDouble() - 0.5));
+            current[i] = 0.21 + (0.03 * (random.NextDouble() - 0.5));
+            historical[i] = 0.21;
+        }
+
+        var horizon = BacktestHorizon.Days(10);
+        RuleForecast p = new(proposedSpec, proposed), c = new("baseline", current), h = new("close-to-close:21", historical);
+        var close = RuleBacktest.Run(prices, implied, horizon, p, c, h, new TradingSettings());
+        var next = RuleBacktest.Run(prices, implied, horizon, p, c, h, new TradingSettings { EntryTiming = EntryTiming.NextClose });
+        var options = new DataSnoopingOptions(close.HorizonDays, seed, replications: 200);
+        var draws = DataSnooping.Draw(close.Dates.Length, options);
+        var always = close[TradingRule.AlwaysSell].DailyPnl.ToArray();
+
+        // A sweep row that never traded has a flat path and no Sharpe ratio: the Sharpe test leaves it out.
+        var paths = close.SnoopingDifferences.Where((_, k) => close.Sweep[k].Trades > 0).Select(d => d.Select((x, t) => x + always[t]).ToArray()).ToArray();
+        return new RulePnlReport(
+            close,
+            next,
+            DataSnooping.TestMeans(close.SnoopingDifferences, draws, options.Level),
+            DataSnooping.TestSharpeRatios(paths, always, draws, options.Level));
+    }
+}
