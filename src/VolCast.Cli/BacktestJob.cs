@@ -32,6 +32,9 @@ internal sealed record BacktestJob(
     /// <summary>Gets the implied series' declared tenor in calendar days, or null when it is the backtest's own.</summary>
     public int? ImpliedTenorDays { get; init; }
 
+    /// <summary>Gets how rows that fail a row check and suspect rows are treated (default: refuse bad rows, warn about suspect ones).</summary>
+    public DataChecks Checks { get; init; } = DataChecks.Default;
+
     /// <summary>Gets the configuration file's SHA-256 when already known, or null to hash the file.</summary>
     public string? ConfigSha256 { get; init; }
 

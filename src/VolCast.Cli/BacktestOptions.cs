@@ -81,6 +81,29 @@ internal static class BacktestOptions
     /// <summary>A value from the command line inside a message: quoted and cut to 40 characters.</summary>
     internal static string Shown(string text) => "'" + (text.Length > 40 ? text[..40] + "…" : text) + "'";
 
+    /// <summary>Resolves how input rows are checked: the configuration's <c>suspect</c> and <c>skipBadRows</c>, overridden by --suspect and --skip-bad-rows.</summary>
+    /// <param name="config">The JSON configuration file, or null.</param>
+    /// <param name="suspect">--suspect (warn, drop or stop), or null.</param>
+    /// <param name="skipBadRows">Whether --skip-bad-rows was given.</param>
+    /// <returns>The checks.</returns>
+    /// <exception cref="InputDataException">The configuration file cannot be used.</exception>
+    public static DataChecks Checks(string? config, string? suspect, bool skipBadRows)
+    {
+        var checks = config is null ? DataChecks.Default : BacktestConfigFile.ReadDataChecks(config);
+        if (suspect is not null)
+        {
+            checks = checks with { Suspect = suspect switch { "drop" => SuspectAction.Drop, "stop" => SuspectAction.Stop, _ => SuspectAction.Warn } };
+        }
+
+        return skipBadRows ? checks with { SkipBadRows = true } : checks;
+    }
+
+    /// <summary>The help text of --suspect.</summary>
+    public const string SuspectHelp = "What to do with rows that pass the row checks but look wrong (a bar that jumps and reverts, a stale or spiking implied value, one far outside the realized range): warn (default; list each in the console, run.json and the report), drop (leave them out as missing days or quotes and list them in rejected-rows.csv) or stop (refuse with exit code 3 and the full list). Overrides the configuration's suspect.";
+
+    /// <summary>The help text of --skip-bad-rows.</summary>
+    public const string SkipBadRowsHelp = "Leave out rows that fail a row check (unparseable, low above high, a duplicate date) and list them in rejected-rows.csv, instead of refusing the file with the list of every bad row.";
+
     /// <summary>Maps --iv-unit to the reader's unit (inferred when not given).</summary>
     public static ImpliedUnit Unit(string? ivUnit) =>
         ivUnit switch { "percent" => ImpliedUnit.Percent, "decimal" => ImpliedUnit.Decimal, _ => ImpliedUnit.Infer };

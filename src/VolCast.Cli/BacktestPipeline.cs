@@ -3,6 +3,7 @@ using System.Reflection;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Data;
+using VolCast.Core.Trading;
 using VolCast.IO;
 using VolCast.IO.Results;
 using VolCast.Reports;
@@ -10,7 +11,8 @@ using VolCast.Reports;
 namespace VolCast.Cli;
 
 /// <summary>
-/// One backtest run, top to bottom: check the output folder → load → forecast and score (Core) → calibrate → stage a
+/// One backtest run, top to bottom: check the output folder → load → forecast and score (Core) → calibrate → trade the
+/// rule (Core) → stage a
 /// temporary folder → write the data files (IO) → write the report (Reports) → run.json with the manifest → commit.
 /// Holds no shared state, so jobs for different assets can run side by side.
 /// </summary>
@@ -48,7 +50,14 @@ internal static class BacktestPipeline
         stage?.Invoke(BacktestStage.Load);
         var started = DateTimeOffset.UtcNow;
         progress?.Report(new BacktestProgress("reading inputs", 0, 1));
-        var (prices, implied, warnings) = Load(job, warn);
+        var (prices, implied, warnings, notes, rejected) = Load(job, warn);
+        if (prices.AdjustedCloseApplied && job.Settings.Trading.DividendYield != 0)
+        {
+            // The adjusted closes already hold the dividends: a dividend yield in the pricing would count them twice.
+            throw new UsageException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"{job.Prices}: the adj_close column rescaled the prices, so the dividends are already in the price path; set dividendYield to 0 (was {job.Settings.Trading.DividendYield}) or give unadjusted closes."));
+        }
+
         progress?.Report(new BacktestProgress("reading inputs", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
 
@@ -60,7 +69,26 @@ internal static class BacktestPipeline
         progress?.Report(new BacktestProgress("checking the odds", 0, 1));
         var calibration = BacktestCalibrator.Evaluate(result, prices.History, cancellationToken: cancellationToken);
         progress?.Report(new BacktestProgress("checking the odds", 1, 1));
-        var run = new BacktestRun(result, calibration, Info(job, prices, implied, warnings, started), prices.History, prices.RowsRead);
+        cancellationToken.ThrowIfCancellationRequested();
+
+        // Would the rule have paid? The rule as delta-hedged straddles, and the threshold search tested for data snooping.
+        stage?.Invoke(BacktestStage.RulePnl);
+        progress?.Report(new BacktestProgress("trading the rule", 0, 1));
+        var (rulePnl, absence) = RulePnlEvaluator.Evaluate(result, prices.History, cancellationToken);
+        progress?.Report(new BacktestProgress("trading the rule", 1, 1));
+        cancellationToken.ThrowIfCancellationRequested();
+        var info = Info(job, prices, implied, warnings, started) with
+        {
+            InputNotes = notes,
+            Suspect = job.Checks.Suspect.ToString().ToLowerInvariant(),
+            RowsLeftOut = rejected.Count,
+        };
+        var run = new BacktestRun(result, calibration, info, prices.History, prices.RowsRead)
+        {
+            RejectedRows = rejected,
+            RulePnl = rulePnl,
+            RulePnlAbsence = absence,
+        };
 
         stage?.Invoke(BacktestStage.WriteData);
         var staging = output.Stage();
@@ -88,7 +116,7 @@ internal static class BacktestPipeline
     public static string ToolVersion() =>
         typeof(BacktestPipeline).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
 
-    private static (PriceLoad Prices, ImpliedLoad? Implied, ImmutableArray<string> Warnings) Load(BacktestJob job, Action<string> warn)
+    private static (PriceLoad Prices, ImpliedLoad? Implied, ImmutableArray<string> Warnings, ImmutableArray<string> Notes, IReadOnlyList<RejectedRow> Rejected) Load(BacktestJob job, Action<string> warn)
     {
         var warnings = ImmutableArray.CreateBuilder<string>();
         void Warn(InputWarning warning)
@@ -97,28 +125,32 @@ internal static class BacktestPipeline
             warnings.Add(warning.ToString());
         }
 
-        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices), job.Format);
-        foreach (var warning in prices.Warnings)
+        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices), job.Format, job.Checks);
+        ImpliedLoad? implied = null;
+        if (job.Implied is not null)
+        {
+            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit, job.Format, job.Checks);
+        }
+
+        // The suspect checks run before any warning is shown, so that --suspect stop refuses with the whole list at once.
+        var checkedInputs = SuspectRows.Apply(prices, implied, job.Implied, job.Checks.Suspect);
+        foreach (var warning in prices.Warnings.Concat(implied?.Warnings ?? []).Concat(checkedInputs.Warnings))
         {
             Warn(warning);
         }
 
-        ImpliedLoad? implied = null;
-        if (job.Implied is not null)
+        var notes = InputNotes.For(job, checkedInputs);
+        foreach (var note in notes)
         {
-            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit, job.Format);
-            foreach (var warning in implied.Warnings)
-            {
-                Warn(warning);
-            }
-
-            if (ImpliedTenor.Check(job.ImpliedTenorDays, job.Settings.Horizon, job.Implied) is { } mismatch)
-            {
-                Warn(mismatch);
-            }
+            warn(note);
         }
 
-        return (prices, implied, warnings.ToImmutable());
+        if (job.Implied is not null && ImpliedTenor.Check(job.ImpliedTenorDays, job.Settings.Horizon, job.Implied) is { } mismatch)
+        {
+            Warn(mismatch);
+        }
+
+        return (checkedInputs.Prices, checkedInputs.Implied, warnings.ToImmutable(), notes, checkedInputs.Rejected);
     }
 
     private static BacktestResult Forecast(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken)

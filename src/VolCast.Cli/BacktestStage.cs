@@ -15,6 +15,9 @@ internal enum BacktestStage
     /// <summary>The odds checks: probability calibration and range coverage.</summary>
     Calibrate,
 
+    /// <summary>The rule is traded as delta-hedged straddles and the threshold search tested for data snooping.</summary>
+    RulePnl,
+
     /// <summary>The data files are written into the staging folder.</summary>
     WriteData,
 

@@ -45,7 +45,7 @@ internal sealed partial class ResultsFolder : IDisposable
     /// the scan's record. A folder whose run.json has no manifest (an earlier version wrote it) is taken to hold these.
     /// </summary>
     public static IReadOnlyList<string> KnownNames { get; } =
-        [.. BacktestResultsWriter.FileNames, .. Reports.ReportWriter.FileNames, ScanAssetJson.FileName];
+        [.. BacktestResultsWriter.FileNames, BacktestResultsWriter.RejectedRowsFileName, .. Reports.ReportWriter.FileNames, ScanAssetJson.FileName];
 
     /// <summary>
     /// Checks an output folder before any computing: it must not exist unless <paramref name="force"/>; none of the

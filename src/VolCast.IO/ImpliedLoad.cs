@@ -13,4 +13,14 @@ public sealed record ImpliedLoad(
     IReadOnlyList<InputWarning> Warnings,
     ImpliedUnit UnitUsed,
     bool UnitInferred,
-    string Sha256);
+    string Sha256)
+{
+    /// <summary>Gets the suspect values found (spikes, stale runs, changes of scale); each is also in <see cref="Warnings"/>.</summary>
+    public IReadOnlyList<SuspectFinding> Suspects { get; init; } = [];
+
+    /// <summary>Gets the rows left out because they failed a row check (only with <see cref="DataChecks.SkipBadRows"/>).</summary>
+    public IReadOnlyList<RejectedRow> Rejected { get; init; } = [];
+
+    /// <summary>Gets each value's physical line in the file, in the order of <see cref="Series"/> (empty when unknown).</summary>
+    public IReadOnlyList<int> Lines { get; init; } = [];
+}

@@ -68,18 +68,34 @@ public static class PriceFileReader
     /// <param name="input">The file's bytes and their SHA-256.</param>
     /// <returns>The history, warnings, row count, whether adj_close was applied, and the SHA-256 of the file's bytes.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static PriceLoad Read(InputBytes input) => Read(input, CsvFormat.Default);
+    public static PriceLoad Read(InputBytes input) => Read(input, CsvFormat.Default, DataChecks.Default);
 
     /// <summary>Loads a price file already read, written in a declared form.</summary>
     /// <param name="input">The file's bytes and their SHA-256.</param>
     /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
     /// <returns>The history, warnings, row count, whether adj_close was applied, and the SHA-256 of the file's bytes.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static PriceLoad Read(InputBytes input, CsvFormat format)
+    public static PriceLoad Read(InputBytes input, CsvFormat format) => Read(input, format, DataChecks.Default);
+
+    /// <summary>Loads a price file already read, with a choice of how bad rows are treated.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
+    /// <returns>The history, warnings, suspect values, rows left out, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(InputBytes input, DataChecks checks) => Read(input, CsvFormat.Default, checks);
+
+    /// <summary>Loads a price file already read, written in a declared form, with a choice of how bad rows are treated.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
+    /// <returns>The history, warnings, suspect values, rows left out, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(InputBytes input, CsvFormat format, DataChecks checks)
     {
         ArgumentNullException.ThrowIfNull(input);
         ArgumentNullException.ThrowIfNull(format);
-        return Parse(input.Text(), input.Path, input.Sha256, format);
+        ArgumentNullException.ThrowIfNull(checks);
+        return Parse(input.Text(), input.Path, input.Sha256, format, checks.SkipBadRows);
     }
 
     /// <summary>Loads price data from a reader (for tests and in-memory data).</summary>
@@ -87,7 +103,7 @@ public static class PriceFileReader
     /// <param name="displayName">The name used for the file in messages.</param>
     /// <returns>The load result; <see cref="PriceLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static PriceLoad Read(TextReader reader, string displayName) => Read(reader, displayName, CsvFormat.Default);
+    public static PriceLoad Read(TextReader reader, string displayName) => Read(reader, displayName, CsvFormat.Default, DataChecks.Default);
 
     /// <summary>Loads price data written in a declared form from a reader (for tests and in-memory data).</summary>
     /// <param name="reader">The CSV text.</param>
@@ -95,22 +111,40 @@ public static class PriceFileReader
     /// <param name="format">The text's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
     /// <returns>The load result; <see cref="PriceLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static PriceLoad Read(TextReader reader, string displayName, CsvFormat format)
+    public static PriceLoad Read(TextReader reader, string displayName, CsvFormat format) => Read(reader, displayName, format, DataChecks.Default);
+
+    /// <summary>Loads price data from a reader, with a choice of how bad rows are treated.</summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="displayName">The name used for the file in messages.</param>
+    /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
+    /// <returns>The load result; <see cref="PriceLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(TextReader reader, string displayName, DataChecks checks) => Read(reader, displayName, CsvFormat.Default, checks);
+
+    /// <summary>Loads price data written in a declared form from a reader, with a choice of how bad rows are treated.</summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="displayName">The name used for the file in messages.</param>
+    /// <param name="format">The text's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
+    /// <returns>The load result; <see cref="PriceLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(TextReader reader, string displayName, CsvFormat format, DataChecks checks)
     {
         ArgumentNullException.ThrowIfNull(displayName);
         ArgumentNullException.ThrowIfNull(format);
+        ArgumentNullException.ThrowIfNull(checks);
         var text = InputText.ReadAll(reader);
-        return Parse(text.StartsWith('\uFEFF') ? text[1..] : text, displayName, InputText.Sha256Hex(text), format);
+        return Parse(text.StartsWith('\uFEFF') ? text[1..] : text, displayName, InputText.Sha256Hex(text), format, checks.SkipBadRows);
     }
 
     /// <summary>Loads price data from a file's bytes.</summary>
     internal static PriceLoad ReadBytes(byte[] bytes, string displayName)
     {
         var text = InputText.Decode(bytes, displayName);
-        return Parse(text, displayName, InputText.Sha256Hex(bytes), CsvFormat.Default);
+        return Parse(text, displayName, InputText.Sha256Hex(bytes), CsvFormat.Default, skipBadRows: false);
     }
 
-    private static PriceLoad Parse(string text, string file, string sha256, CsvFormat format)
+    private static PriceLoad Parse(string text, string file, string sha256, CsvFormat format, bool skipBadRows)
     {
         using var reader = new CsvRowReader(text, file, format.Delimiter);
         if (!reader.TryRead(out var headerRow))
@@ -135,17 +169,34 @@ public static class PriceFileReader
         var low = new List<double>();
         var close = new List<double>();
         var seen = new Dictionary<DateOnly, int>();
+        var bad = new BadRows();
+        var rowsRead = 0;
         while (reader.TryRead(out var row))
         {
-            CheckCellCount(row, header, file);
-            var date = CellParser.Date(row.Cells[layout.Date], file, row.Line, header.Names[layout.Date], format);
-            if (!seen.TryAdd(date, row.Line))
+            rowsRead++;
+            DateOnly? rowDate = null;
+            DateOnly date;
+            Bar bar;
+            try
             {
-                throw new InputDataException(file, row.Line, header.Names[layout.Date], string.Create(CultureInfo.InvariantCulture,
-                    $"the date {ValueText.Date(date)} appears twice, on line {seen[date]} and line {row.Line}; expected one row per trading day."));
+                CheckCellCount(row, header, file);
+                date = CellParser.Date(row.Cells[layout.Date], file, row.Line, header.Names[layout.Date], format);
+                rowDate = date;
+                if (seen.TryGetValue(date, out var first))
+                {
+                    throw new InputDataException(file, row.Line, header.Names[layout.Date], string.Create(CultureInfo.InvariantCulture,
+                        $"the date {ValueText.Date(date)} appears twice, on line {first} and line {row.Line}; expected one row per trading day."));
+                }
+
+                bar = ReadBar(row, layout, header, file, format);
+            }
+            catch (InputDataException error) when (error.Line == row.Line)
+            {
+                bad.Add(error, rowDate);
+                continue;
             }
 
-            var bar = ReadBar(row, layout, header, file, format);
+            seen.Add(date, row.Line);
             dates.Add(date);
             lines.Add(row.Line);
             close.Add(bar.Close);
@@ -157,10 +208,12 @@ public static class PriceFileReader
             }
         }
 
+        var rejected = bad.Resolve(file, skipBadRows);
         if (dates.Count == 0)
         {
-            throw new InputDataException(file, header.Line + 1, null,
-                "the file has a header but no data rows; expected one row per trading day after the header.");
+            throw new InputDataException(file, header.Line + 1, null, rejected.Count > 0
+                ? "every data row fails the row checks (listed with --skip-bad-rows left out); expected at least one valid row per trading day."
+                : "the file has a header but no data rows; expected one row per trading day after the header.");
         }
 
         var dateArray = dates.ToArray();
@@ -171,7 +224,14 @@ public static class PriceFileReader
         var closeArray = SeriesChecks.Permute(close.ToArray(), order);
         SeriesChecks.WarnGaps(dateArray, lineArray, file, warnings);
         SeriesChecks.WarnStale(dateArray, closeArray, lineArray, file, warnings);
-        JumpChecks.Warn(dateArray, closeArray, lineArray, file, "close", flagLargeChanges: true, warnings);
+        var suspects = new List<SuspectFinding>();
+        JumpChecks.Warn(dateArray, closeArray, lineArray, file, "close", flagLargeChanges: true, warnings, suspects);
+        if (rejected.Count > 0)
+        {
+            warnings.Add(new InputWarning(file, null, string.Create(CultureInfo.InvariantCulture,
+                $"{rejected.Count} row(s) failing the row checks were left out (--skip-bad-rows), the first on line {rejected[0].Line}; they are listed with their reasons in rejected-rows.csv.")));
+        }
+
 
         var history = layout.HasRange
             ? PriceHistory.FromBars(
@@ -181,7 +241,7 @@ public static class PriceFileReader
                 SeriesChecks.Permute(low.ToArray(), order),
                 closeArray)
             : PriceHistory.FromCloses(dateArray, closeArray);
-        return new PriceLoad(history, warnings.AsReadOnly(), dates.Count, layout.AdjClose >= 0, sha256);
+        return new PriceLoad(history, warnings.AsReadOnly(), rowsRead, layout.AdjClose >= 0, sha256) { Suspects = suspects.AsReadOnly(), Rejected = rejected };
     }
 
     private static void CheckCellCount(CsvRow row, HeaderMap header, string file)

@@ -13,4 +13,11 @@ public sealed record PriceLoad(
     IReadOnlyList<InputWarning> Warnings,
     int RowsRead,
     bool AdjustedCloseApplied,
-    string Sha256);
+    string Sha256)
+{
+    /// <summary>Gets the suspect values found (spikes, changes of scale, large one-day moves); each is also in <see cref="Warnings"/>.</summary>
+    public IReadOnlyList<SuspectFinding> Suspects { get; init; } = [];
+
+    /// <summary>Gets the rows left out because they failed a row check (only with <see cref="DataChecks.SkipBadRows"/>).</summary>
+    public IReadOnlyList<RejectedRow> Rejected { get; init; } = [];
+}

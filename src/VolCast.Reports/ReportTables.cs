@@ -79,7 +79,7 @@ internal static class ReportTables
             // The values come from the forecaster table's columns (the columns of metrics.csv and metrics.json), scaled for display.
             var row = new ForecasterRow(m, result.Forecasts.FirstOrDefault(f => f.Spec == m.Spec));
             double? V(string column) => ForecasterTable.Definition[column].Value(row).NumberValue;
-            var label = m.InMcs == true ? m.Spec + " ✓" : m.Spec;
+            var label = (m.InMcs == true ? m.Spec + " ✓" : m.Spec) + (LeavesOutOvernight(m.Spec) ? " †" : string.Empty);
             rows.Add(new MetricRow(label,
             [
                 new MetricCell(m.Losses is null ? null : V("n"), "0"),
@@ -98,9 +98,27 @@ internal static class ReportTables
         var alpha = result.ModelConfidenceSet.Result?.Options.Alpha ?? result.Settings.McsAlpha;
         var note = string.Create(CultureInfo.InvariantCulture,
             $"Each forecaster on its own scored dates. DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better, stars = differs from implied. MZ slope b of RV² = a + b F², stars = unbiasedness (a = 0, b = 1) rejected by the Wald test. Encompassing c: weight on the forecast in RV² = a + b IV² + c F², stars = it adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). All tests use Newey-West errors with lag {result.HacLag}.");
+        if (result.Metrics.Any(m => LeavesOutOvernight(m.Spec)))
+        {
+            note += " " + OvernightNote;
+        }
+
         return new MetricTable("Forecast losses, ranked on QLIKE",
             [Dates, Qlike, Mse, Rmse, Bias, new("DM vs implied", "t-statistic"), new("MZ slope b", "1 = unbiased"), new("MZ R²", "0 to 1"), new("Encompassing c", "weight on forecast"), new("MCS p", "probability")],
             rows, note);
+    }
+
+    /// <summary>The explanation beside the range estimators' rows (Parkinson 1980; Garman and Klass 1980; Rogers and Satchell 1991: each measures the day from its open to its close).</summary>
+    internal const string OvernightNote =
+        "† Parkinson, Garman-Klass and Rogers-Satchell measure only the day's own range (open, high, low, close); the overnight move from the previous close to the open is left out, so on a market with overnight gaps they run low against a close-to-close target. Yang-Zhang adds the overnight part back.";
+
+    /// <summary>Whether a forecaster is built on a range estimator that leaves out the overnight gap.</summary>
+    internal static bool LeavesOutOvernight(string spec)
+    {
+        var family = spec.StartsWith("adaptive:", StringComparison.Ordinal) ? spec["adaptive:".Length..] : spec;
+        return family.StartsWith("parkinson", StringComparison.Ordinal)
+            || family.StartsWith("garman-klass", StringComparison.Ordinal)
+            || family.StartsWith("rogers-satchell", StringComparison.Ordinal);
     }
 
     private static MetricTable Lookbacks(BacktestResult result)

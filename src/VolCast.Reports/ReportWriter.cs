@@ -200,7 +200,7 @@ public static class ReportWriter
         }
 
         double? coverage = result.HasImplied && q.ScoredDates > 0 ? q.ScoredDatesWithImplied / (double)q.ScoredDates : null;
-        return new DataQuality(rowsRead, q.ScoredDates, coverage, warnings);
+        return new DataQuality(rowsRead, q.ScoredDates, coverage, warnings) { Notes = run.InputNotes, Suspect = run.Suspect, RowsLeftOut = run.RowsLeftOut };
     }
 
     private static List<Setting> Settings(BacktestResult result, BacktestRunInfo run)

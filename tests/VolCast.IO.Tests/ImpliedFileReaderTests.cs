@@ -27,15 +27,29 @@ public sealed class ImpliedFileReaderTests : IDisposable
     }
 
     [Fact]
-    public void Read_DeclaredPercentButValuesLookDecimal_WarnsAndSaysHowToFix()
+    public void Read_DeclaredPercentButValuesLookDecimal_IsRefusedNamingTheMedianAndTheOtherUnit()
     {
-        // 0.18 read as percent is 0.18% a year, far below any traded volatility: common practice, no source.
-        var load = ImpliedFileReader.Read(_temp.Write("iv.csv", "date,iv\n2024-01-02,0.18\n2024-01-03,0.19\n"), ImpliedUnit.Percent);
+        // 0.18 read as percent is 0.18% a year, far below any traded volatility (common practice, no source); a median
+        // below 1.5 is the same threshold the unit is inferred with.
+        var error = Assert.Throws<InputDataException>(() => ImpliedFileReader.Read(_temp.Write("iv.csv", "date,iv\n2024-01-02,0.18\n2024-01-03,0.19\n2024-01-04,0.2\n"), ImpliedUnit.Percent));
 
-        Assert.Equal(0.0018, load.Series.Volatility[0], 1e-15);
-        var warning = Assert.Single(load.Warnings);
-        Assert.Contains("declared percent", warning.Message, StringComparison.Ordinal);
-        Assert.Contains("--iv-unit decimal", warning.Message, StringComparison.Ordinal);
+        Assert.EndsWith("iv.csv", error.File, StringComparison.Ordinal);
+        Assert.Null(error.Line);
+        Assert.Contains("declared percent", error.Message, StringComparison.Ordinal);
+        Assert.Contains("median value is 0.19", error.Message, StringComparison.Ordinal);
+        Assert.Contains("--iv-unit decimal", error.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Read_DeclaredDecimalButValuesLookPercent_IsRefusedNamingTheMedianAndTheOtherUnit()
+    {
+        // 21 read as a decimal is 2100% a year: a percent file (common practice, no source).
+        var error = Assert.Throws<InputDataException>(() => ReadText("date,iv\n2024-01-02,20\n2024-01-03,21\n2024-01-04,22\n", ImpliedUnit.Decimal));
+
+        Assert.Equal("iv.csv", error.File);
+        Assert.Contains("declared decimal", error.Message, StringComparison.Ordinal);
+        Assert.Contains("median value is 21", error.Message, StringComparison.Ordinal);
+        Assert.Contains("--iv-unit percent", error.Message, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -128,8 +142,10 @@ public sealed class ImpliedFileReaderTests : IDisposable
     [InlineData("0.01", ImpliedUnit.Percent, 0.0001)]
     public void Read_ValuesAtTheLimits_AreAccepted(string value, ImpliedUnit unit, double expected)
     {
-        var load = ReadText("date,iv\n2024-01-02," + value + "\n", unit);
-        Assert.Equal(expected, load.Series.Volatility[0], 1e-15);
+        // Two ordinary values beside it keep the median in the declared unit.
+        var usual = unit == ImpliedUnit.Percent ? "20" : "0.2";
+        var load = ReadText("date,iv\n2024-01-02," + usual + "\n2024-01-03," + usual + "\n2024-01-04," + value + "\n", unit);
+        Assert.Equal(expected, load.Series.Volatility[2], 1e-15);
     }
 
     [Theory]
@@ -143,8 +159,9 @@ public sealed class ImpliedFileReaderTests : IDisposable
     [InlineData("20", ImpliedUnit.Decimal)]
     public void Read_OutOfRange_NamesTheLine(string value, ImpliedUnit unit)
     {
-        // Line 2 holds 0.2 (valid in either unit); line 3 is blank; the offending value is on line 4.
-        var error = Assert.Throws<InputDataException>(() => ReadText("date,iv\n2024-01-02,0.2\n\n2024-01-04," + value + "\n", unit));
+        // Lines 2 and 5 hold an ordinary value in the declared unit; line 3 is blank; the offending value is on line 4.
+        var usual = unit == ImpliedUnit.Percent ? "20" : "0.2";
+        var error = Assert.Throws<InputDataException>(() => ReadText("date,iv\n2024-01-02," + usual + "\n\n2024-01-04," + value + "\n2024-01-05," + usual + "\n", unit));
 
         Assert.Equal("iv.csv", error.File);
         Assert.Equal(4, error.Line);

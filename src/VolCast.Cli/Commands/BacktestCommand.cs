@@ -3,6 +3,7 @@ using System.Globalization;
 using VolCast.Core.Backtest;
 using VolCast.IO;
 using VolCast.IO.Config;
+using VolCast.IO.Results;
 
 namespace VolCast.Cli.Commands;
 
@@ -16,7 +17,7 @@ internal static class BacktestCommand
         var implied = new Option<string?>("--implied") { Description = "Implied-volatility CSV (date, iv). Optional: without it forecasters are ranked among themselves." };
         var ivUnit = new Option<string?>("--iv-unit") { Description = "Unit of the iv column: percent (20 = 20%) or decimal (0.20); inferred with a warning when left out." };
         ivUnit.AcceptOnlyFromAmong("percent", "decimal");
-        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate. Every setting is optional. " + SettingLimits.HelpText() };
+        var config = new Option<string?>("--config") { Description = "JSON configuration: forecasters, sweep, horizon or tenor, start/end, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, ruleThreshold, baseline, candidate; the rule's trades: costs {optionHalfSpreadVolPoints, hedgeCostBps}, rate, dividendYield, entries (one-at-a-time | every-signal), ruleSides (sell-only | both), hedgeVolatility (implied | forecast), ruleThresholds, snooping {replications, blockLength, seed}; suspect, skipBadRows. Every setting is optional. " + SettingLimits.HelpText() };
         var horizon = new Option<int?>("--horizon") { Description = $"Forecast horizon in trading days, {SettingLimits.Horizon} (default 21). Overrides the configuration." };
         var tenor = new Option<string?>("--tenor") { Description = $"Forecast horizon as a calendar tenor such as 30d ({SettingLimits.TenorDays}), mapped through the price file's own trading calendar. Overrides the configuration." };
         var start = new Option<string?>("--start") { Description = "First forecast date, yyyy-MM-dd (earlier rows still warm the forecasters up)." };
@@ -24,9 +25,12 @@ internal static class BacktestCommand
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>). Written in a hidden temporary folder and moved into place when complete." };
         var force = new Option<bool>("--force") { Description = "Use an existing output folder: replace the earlier run's files (those listed in its run.json) as one set, keeping any other file; a file of an output name that volcast did not write is never replaced." };
         var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor the implied series quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
-        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt. Ctrl-C stops the run without writing any results (exit code 130).")
+        var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
+        suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
+        var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
+        var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
-            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force,
+            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -42,7 +46,9 @@ internal static class BacktestCommand
             parse.GetValue(force),
             parse.GetValue(impliedTenor),
             parse,
-            formatOptions))));
+            formatOptions,
+            parse.GetValue(suspect),
+            parse.GetValue(skipBadRows)))));
         return command;
     }
 
@@ -57,9 +63,10 @@ internal static class BacktestCommand
         {
             Format = a.FormatOptions.Resolve(a.Parse, configFormat),
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
+            Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
         };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
-        BacktestResult result;
+        BacktestRun run;
         using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
         ConsoleCancelEventHandler onCtrlC = (_, e) =>
         {
@@ -71,7 +78,7 @@ internal static class BacktestCommand
         Console.CancelKeyPress += onCtrlC;
         try
         {
-            result = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token).Result;
+            run = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token);
         }
         catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
         {
@@ -84,12 +91,16 @@ internal static class BacktestCommand
             progress.Finish();
         }
 
+        var result = run.Result;
         var head = result.CandidateVersusBaseline;
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{result.Dates.Length} forecast dates ({result.DataQuality.DatesWithTarget} with a realized target), {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}."));
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {Show(head.Qlike?.Statistic)} (p {Show(head.Qlike?.PValue)}), DM MSE {Show(head.MseVariance?.Statistic)} (p {Show(head.MseVariance?.PValue)}); negative favours the candidate."));
-        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt)");
+        console.Out.WriteLine(run.RulePnl is null
+            ? $"rule's trades not run: {run.RulePnlAbsence}"
+            : "would the rule have paid? " + RulePnlAnswer.Sentence(run.RulePnl));
+        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt{(run.RulePnl is null ? string.Empty : ", trades.csv, rule-pnl.csv")})");
         return ExitCodes.Success;
     }
 
@@ -97,5 +108,5 @@ internal static class BacktestCommand
 
     private sealed record Arguments(
         string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force,
-        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions);
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows);
 }

@@ -87,6 +87,22 @@ public sealed record BacktestSettings
     /// <summary>Gets how the realized target is measured (zero-mean squared returns by default).</summary>
     public RealizedTarget Target { get; init; } = RealizedTarget.SquaredReturns;
 
+    /// <summary>
+    /// Gets the settings of the rule's trading backtest: rate, dividend yield, costs, entries, sides, hedge volatility and the
+    /// threshold sweep (the defaults by default). Its threshold and trading days per year are taken from
+    /// <see cref="RuleThreshold"/> and <see cref="AnnualizationFactor"/> when the trades are run.
+    /// </summary>
+    public Trading.TradingSettings Trading { get; init; } = new();
+
+    /// <summary>Gets the bootstrap replications B of the data-snooping tests of the threshold search (1,000 by default).</summary>
+    public int SnoopingReplications { get; init; } = 1000;
+
+    /// <summary>Gets the mean block length of the stationary bootstrap of the data-snooping tests, or null (the default) for the horizon.</summary>
+    public int? SnoopingBlockLength { get; init; }
+
+    /// <summary>Gets the seed of the data-snooping bootstrap (20240601 by default), so that a run can be repeated exactly.</summary>
+    public int SnoopingSeed { get; init; } = 20240601;
+
     /// <summary>Checks every setting on its own (not against the data).</summary>
     /// <exception cref="ArgumentException">A setting is out of range; the message names it, its value and what is expected.</exception>
     public void Validate()

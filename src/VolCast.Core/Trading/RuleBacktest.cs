@@ -334,6 +334,20 @@ internal static class RuleBacktest
         return context.Rule(TradingRule.WalkForwardThreshold, spec, 0, forecast, null, sides, chosen, [.. chosenThreshold]).Result;
     }
 
+    private static List<int> EverySignal(sbyte[] signal)
+    {
+        var result = new List<int>();
+        for (var i = 0; i < signal.Length; i++)
+        {
+            if (signal[i] != 0)
+            {
+                result.Add(i);
+            }
+        }
+
+        return result;
+    }
+
     private static string SidesName(RuleSides sides) => sides == RuleSides.Both ? "both" : "sell-only";
 
     private static double?[] Checked(IReadOnlyList<double?> values, int n, string name, Action<double?, string, int> check)
@@ -377,7 +391,7 @@ internal static class RuleBacktest
                 var taken = book.OneAtATime(signal, Start + o);
                 if (o == 0)
                 {
-                    first = taken;
+                    first = Settings.Entries == TradeEntries.EverySignal ? EverySignal(signal) : taken;
                 }
 
                 double total = 0;

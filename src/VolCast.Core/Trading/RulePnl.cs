@@ -15,7 +15,7 @@ namespace VolCast.Core.Trading;
 /// <param name="ForecastSpec">The forecaster that drives it; null for always-sell.</param>
 /// <param name="Threshold">Its threshold; null for always-sell and the walk-forward threshold.</param>
 /// <param name="Sides">The sides it trades (sell only for always-sell).</param>
-/// <param name="Trades">The one-at-a-time trades from the first start date.</param>
+/// <param name="Trades">The trade table: one-at-a-time trades from the first start date, or every signal's trade (<see cref="TradingSettings.Entries"/>).</param>
 /// <param name="TradeStatisticsNet">Statistics of those trades after costs.</param>
 /// <param name="TradeStatisticsZeroCost">The same without costs.</param>
 /// <param name="LadderTrades">Trades in the every-signal ladder.</param>

@@ -28,6 +28,9 @@ public sealed record TradingSettings
     /// <summary>Gets which sides the forecast rules trade (default sell only).</summary>
     public RuleSides Sides { get; init; } = RuleSides.SellOnly;
 
+    /// <summary>Gets which signals open the trades of the trade table (default one at a time, no overlap).</summary>
+    public TradeEntries Entries { get; init; } = TradeEntries.OneAtATime;
+
     /// <summary>Gets when a trade is entered (default at the close of the firing date).</summary>
     public EntryTiming EntryTiming { get; init; } = EntryTiming.FiringClose;
 

@@ -46,4 +46,24 @@ internal sealed class BacktestConfigDocument
     public string? Decimal { get; set; }
 
     public string? ImpliedTenor { get; set; }
+
+    public string? Suspect { get; set; }
+
+    public bool? SkipBadRows { get; set; }
+
+    public CostsConfigDocument? Costs { get; set; }
+
+    public double? Rate { get; set; }
+
+    public double? DividendYield { get; set; }
+
+    public string? Entries { get; set; }
+
+    public string? RuleSides { get; set; }
+
+    public string? HedgeVolatility { get; set; }
+
+    public double[]? RuleThresholds { get; set; }
+
+    public SnoopingConfigDocument? Snooping { get; set; }
 }

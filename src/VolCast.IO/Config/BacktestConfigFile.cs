@@ -5,6 +5,7 @@ using VolCast.Core.Backtest;
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
 using VolCast.Core.Forecasters;
+using VolCast.Core.Trading;
 
 namespace VolCast.IO.Config;
 
@@ -15,6 +16,9 @@ namespace VolCast.IO.Config;
 /// "ewmaLambdas": [0.94, 0.97], "selectionWindowDays": 504, "mcs": { "replications": 1000, "alpha": 0.10,
 /// "blockLength": 21, "seed": 1 }, "ruleThreshold": 0.02, "ruleForecaster": "garch", "ruleHistorical": "close-to-close:21",
 /// "baseline": "implied", "candidate": "garch", "annualizationFactor": 252, "target": "squared-returns",
+/// "costs": { "optionHalfSpreadVolPoints": 0.25, "hedgeCostBps": 1.0 }, "rate": 0, "dividendYield": 0,
+/// "entries": "one-at-a-time", "ruleSides": "sell-only", "hedgeVolatility": "implied",
+/// "ruleThresholds": [0, 0.005, 0.01, 0.02, 0.03, 0.04, 0.05], "snooping": { "replications": 1000, "blockLength": 21, "seed": 1 },
 /// "dateFormat": "dd.MM.yyyy", "delimiter": ";", "decimal": ",", "impliedTenor": "30d" }</c>. The last four say how the input
 /// files are written and what the implied series covers; they are read with <see cref="ReadInputForm"/>.
 /// Unknown properties are errors (a misspelt setting must not be silently ignored). Comments and trailing commas are allowed.
@@ -211,6 +215,14 @@ public static class BacktestConfigFile
             s = s with { Target = index >= 0 ? (RealizedTarget)index : throw Bad(file, "target", $"unknown realized target \"{Cut(target)}\"; valid: {string.Join(", ", TargetNames)}") };
         }
 
+        s = s with { Trading = ToTrading(doc, s, file) };
+        s = s with
+        {
+            SnoopingReplications = doc.Snooping?.Replications ?? s.SnoopingReplications,
+            SnoopingBlockLength = doc.Snooping?.BlockLength ?? s.SnoopingBlockLength,
+            SnoopingSeed = doc.Snooping?.Seed ?? s.SnoopingSeed,
+        };
+
         foreach (var (property, spec) in new[] { ("ruleHistorical", s.RuleHistorical), ("ruleForecaster", s.RuleForecaster), ("baseline", s.Baseline), ("candidate", s.Candidate) })
         {
             if (spec is not null && !spec.Trim().Equals(ImpliedSeries.Name, StringComparison.OrdinalIgnoreCase) && !spec.Trim().StartsWith("adaptive:", StringComparison.OrdinalIgnoreCase))
@@ -239,6 +251,51 @@ public static class BacktestConfigFile
         return s;
     }
 
+    /// <summary>Gets the accepted values of <c>entries</c>, <c>ruleSides</c> and <c>hedgeVolatility</c>, in the order of their enums.</summary>
+    internal static (string[] Entries, string[] Sides, string[] Hedge) TradingNames { get; } =
+        (["one-at-a-time", "every-signal"], ["sell-only", "both"], ["implied", "forecast"]);
+
+    private static TradingSettings ToTrading(BacktestConfigDocument doc, BacktestSettings s, string file)
+    {
+        var t = s.Trading;
+        var spread = doc.Costs?.OptionHalfSpreadVolPoints ?? t.Costs.OptionHalfSpreadVolPoints;
+        var hedge = doc.Costs?.HedgeCostBps ?? t.Costs.HedgeCostBps;
+        SettingLimits.OptionHalfSpread.Check(spread, SettingLimits.OptionHalfSpread.Name, file);
+        SettingLimits.HedgeCost.Check(hedge, SettingLimits.HedgeCost.Name, file);
+        t = t with
+        {
+            Costs = new TradeCosts(spread, hedge),
+            Rate = doc.Rate ?? t.Rate,
+            DividendYield = doc.DividendYield ?? t.DividendYield,
+            SweepThresholds = doc.RuleThresholds is null ? t.SweepThresholds : [.. doc.RuleThresholds],
+            Entries = doc.Entries is null ? t.Entries : (TradeEntries)Choice(doc.Entries, TradingNames.Entries, file, "entries"),
+            Sides = doc.RuleSides is null ? t.Sides : (RuleSides)Choice(doc.RuleSides, TradingNames.Sides, file, "ruleSides"),
+            HedgeVolatility = doc.HedgeVolatility is null ? t.HedgeVolatility : (HedgeVolatility)Choice(doc.HedgeVolatility, TradingNames.Hedge, file, "hedgeVolatility"),
+        };
+
+        if (doc.RuleThresholds is not null)
+        {
+            foreach (var threshold in doc.RuleThresholds)
+            {
+                SettingLimits.RuleThresholds.Check(threshold, SettingLimits.RuleThresholds.Name, file);
+            }
+
+            var distinct = doc.RuleThresholds.Distinct().Count();
+            if (distinct < 2 || distinct != doc.RuleThresholds.Length)
+            {
+                throw Bad(file, "ruleThresholds", $"must list at least two different thresholds, each once, to compare (and to test for data snooping), such as [0, 0.01, 0.02] (was {doc.RuleThresholds.Length} value(s), {distinct} different)");
+            }
+        }
+
+        return t;
+    }
+
+    private static int Choice(string text, string[] names, string file, string property)
+    {
+        var index = Array.FindIndex(names, n => string.Equals(n, text.Trim(), StringComparison.OrdinalIgnoreCase));
+        return index >= 0 ? index : throw Bad(file, property, $"unknown value \"{Cut(text)}\"; valid: {string.Join(", ", names)}");
+    }
+
     /// <summary>Parses a calendar tenor such as <c>30d</c>.</summary>
     /// <param name="text">The text: a whole number of calendar days, at least 1, followed by d.</param>
     /// <returns>The horizon, or null when the text is not a tenor.</returns>
@@ -258,6 +315,41 @@ public static class BacktestConfigFile
 
     /// <summary>Cuts text echoed from the file to 40 characters, so a huge value cannot flood a message.</summary>
     private static string Cut(string? text) => text is null ? string.Empty : text.Length > 40 ? text[..40] + "…" : text;
+
+    /// <summary>
+    /// Reads the keys of a configuration that say how input rows are checked: <c>suspect</c> (<c>warn</c>, <c>drop</c>
+    /// or <c>stop</c>) and <c>skipBadRows</c> (true or false). Missing keys keep the defaults.
+    /// </summary>
+    /// <param name="json">The JSON text (already accepted by <see cref="Parse"/>).</param>
+    /// <param name="file">The file name to put in error messages.</param>
+    /// <returns>The checks.</returns>
+    /// <exception cref="InputDataException">The text is not a valid configuration, or <c>suspect</c> is not one of the three words.</exception>
+    public static DataChecks ParseDataChecks(string json, string file)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        ArgumentNullException.ThrowIfNull(file);
+        Parse(json, file);
+        var doc = JsonSerializer.Deserialize<BacktestConfigDocument>(json, Options)!;
+        var suspect = doc.Suspect switch
+        {
+            null or "warn" => SuspectAction.Warn,
+            "drop" => SuspectAction.Drop,
+            "stop" => SuspectAction.Stop,
+            _ => throw Bad(file, "suspect", $"must be \"warn\", \"drop\" or \"stop\" (was \"{Cut(doc.Suspect)}\")"),
+        };
+        return new DataChecks(suspect, doc.SkipBadRows ?? false);
+    }
+
+    /// <summary>Reads the row-check keys of a configuration file (see <see cref="ParseDataChecks"/>).</summary>
+    /// <param name="path">The configuration file.</param>
+    /// <returns>The checks.</returns>
+    /// <exception cref="InputDataException">The file cannot be read or is not a valid configuration.</exception>
+    public static DataChecks ReadDataChecks(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        var bytes = InputFiles.ReadCapped(path, "a JSON configuration file", InputFiles.MaxConfigBytes);
+        return ParseDataChecks(Reading.InputText.Decode(bytes, path), path);
+    }
 
     private static InputDataException Bad(string file, string property, FormattableString problem) =>
         new(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");

@@ -33,12 +33,36 @@ public static class SettingLimits
     /// <summary>Gets the bars per year used to annualize (<c>annualizationFactor</c>, <c>--annualization</c>): from yearly bars to one-second bars.</summary>
     public static SettingRange AnnualizationFactor { get; } = new("annualizationFactor", 1, 10_000_000, "bars a year");
 
+    /// <summary>Gets the option half-spread of the rule's trades in volatility points (<c>costs.optionHalfSpreadVolPoints</c>).</summary>
+    public static SettingRange OptionHalfSpread { get; } = new("costs.optionHalfSpreadVolPoints", 0, VolCast.Core.Trading.TradeCosts.MaximumHalfSpreadVolPoints, "vol points");
+
+    /// <summary>Gets the cost of a hedge trade in basis points of its notional (<c>costs.hedgeCostBps</c>).</summary>
+    public static SettingRange HedgeCost { get; } = new("costs.hedgeCostBps", 0, VolCast.Core.Trading.TradeCosts.MaximumHedgeCostBps, "basis points");
+
+    /// <summary>Gets the continuous risk-free rate of the option pricing (<c>rate</c>; 0.05 = 5% a year).</summary>
+    public static SettingRange Rate { get; } = new("rate", -1, 1, "(continuous decimal a year)");
+
+    /// <summary>Gets the continuous dividend yield of the option pricing (<c>dividendYield</c>).</summary>
+    public static SettingRange DividendYield { get; } = new("dividendYield", -1, 1, "(continuous decimal a year)");
+
+    /// <summary>Gets each threshold of the rule's threshold sweep (<c>ruleThresholds</c>; 0.02 = 2 points).</summary>
+    public static SettingRange RuleThresholds { get; } = new("ruleThresholds", 0, 1, "(decimal volatility)");
+
+    /// <summary>Gets the bootstrap replications of the data-snooping tests (<c>snooping.replications</c>).</summary>
+    public static SettingRange SnoopingReplications { get; } = new("snooping.replications", 10, 100_000, string.Empty);
+
+    /// <summary>Gets the mean block length of the data-snooping bootstrap (<c>snooping.blockLength</c>).</summary>
+    public static SettingRange SnoopingBlockLength { get; } = new("snooping.blockLength", 1, 2520, "dates");
+
     /// <summary>Gets how many names a scan runs at once (<c>scan --jobs</c>).</summary>
     public static SettingRange Jobs { get; } = new("--jobs", 1, 256, string.Empty);
 
     /// <summary>Gets every range, for the help text and the README.</summary>
     public static IReadOnlyList<SettingRange> All { get; } =
-        [Horizon, TenorDays, Window, SelectionWindowDays, McsReplications, McsBlockLength, RuleThreshold, AnnualizationFactor, Jobs];
+        [
+            Horizon, TenorDays, Window, SelectionWindowDays, McsReplications, McsBlockLength, RuleThreshold, AnnualizationFactor,
+            OptionHalfSpread, HedgeCost, Rate, DividendYield, RuleThresholds, SnoopingReplications, SnoopingBlockLength, Jobs,
+        ];
 
     /// <summary>The ranges of the configuration's numeric settings in one line, for --help.</summary>
     /// <returns>The text.</returns>
@@ -76,5 +100,23 @@ public static class SettingLimits
 
         RuleThreshold.Check(settings.RuleThreshold, RuleThreshold.Name, file);
         AnnualizationFactor.Check(settings.AnnualizationFactor, AnnualizationFactor.Name, file);
+        var trading = settings.Trading;
+        OptionHalfSpread.Check(trading.Costs.OptionHalfSpreadVolPoints, OptionHalfSpread.Name, file);
+        HedgeCost.Check(trading.Costs.HedgeCostBps, HedgeCost.Name, file);
+        Rate.Check(trading.Rate, Rate.Name, file);
+        DividendYield.Check(trading.DividendYield, DividendYield.Name, file);
+        if (!trading.SweepThresholds.IsDefault)
+        {
+            foreach (var threshold in trading.SweepThresholds)
+            {
+                RuleThresholds.Check(threshold, RuleThresholds.Name, file);
+            }
+        }
+
+        SnoopingReplications.Check(settings.SnoopingReplications, SnoopingReplications.Name, file);
+        if (settings.SnoopingBlockLength is int snoopingBlock)
+        {
+            SnoopingBlockLength.Check(snoopingBlock, SnoopingBlockLength.Name, file);
+        }
     }
 }

@@ -40,7 +40,8 @@ internal static class JumpChecks
     /// <param name="what">What the values are, such as "close" or "implied volatility".</param>
     /// <param name="flagLargeChanges">Whether any |log change| above 1 is named (prices).</param>
     /// <param name="warnings">Receives the warnings.</param>
-    public static void Warn(ReadOnlySpan<DateOnly> dates, ReadOnlySpan<double> values, ReadOnlySpan<int> lines, string file, string what, bool flagLargeChanges, List<InputWarning> warnings)
+    /// <param name="suspects">Receives each finding as well, with the date of the row to drop for an isolated spike (the other findings name no single row), or null.</param>
+    public static void Warn(ReadOnlySpan<DateOnly> dates, ReadOnlySpan<double> values, ReadOnlySpan<int> lines, string file, string what, bool flagLargeChanges, List<InputWarning> warnings, List<SuspectFinding>? suspects = null)
     {
         var n = values.Length;
         if (n < 3)
@@ -69,6 +70,7 @@ internal static class JumpChecks
 
             var c = CultureInfo.InvariantCulture;
             string? message = null;
+            var droppable = false;
             var skip = 0;
             var abs = Math.Abs(d[t]);
             if (abs >= Math.Log(20) && Holds(d, t))
@@ -80,6 +82,7 @@ internal static class JumpChecks
                 && Math.Sign(d[t + 1]) == -Math.Sign(d[t]) && Math.Abs(d[t] + d[t + 1]) <= abs / 2)
             {
                 message = string.Create(c, $"the {what} {ValueText.Number(values[t])} on {ValueText.Date(dates[t])} is an isolated spike: {ValueText.Number(Math.Round(abs / scale, 0))} times the usual daily change (robust scale), reverting the next day to {ValueText.Number(values[t + 1])}; a bad print or corrupt cell distorts every measure that uses it.");
+                droppable = true;
                 skip = 1;
             }
             else if (flagLargeChanges && abs > 1)
@@ -90,6 +93,7 @@ internal static class JumpChecks
             if (message is not null)
             {
                 found++;
+                suspects?.Add(new SuspectFinding(file, lines[t], droppable ? dates[t] : null, message));
                 if (found <= MaxListed)
                 {
                     warnings.Add(new InputWarning(file, lines[t], message));

@@ -6,7 +6,7 @@ namespace VolCast.IO.Results;
 
 /// <summary>
 /// Writes a backtest's data files into a folder it is given: forecasts.csv, metrics.csv, metrics.json, summary.txt,
-/// calibration.csv and coverage.csv (<see cref="WriteData"/>), and last run.json with the manifest of every file of the
+/// calibration.csv, coverage.csv, and trades.csv and rule-pnl.csv when the rule's trades were run (<see cref="WriteData"/>), and last run.json with the manifest of every file of the
 /// run (<see cref="WriteRunRecord"/>).
 /// </summary>
 /// <remarks>
@@ -24,9 +24,18 @@ public static class BacktestResultsWriter
     /// <summary>The range-coverage table's file name (see <see cref="CoverageCsv"/>).</summary>
     public const string CoverageFileName = "coverage.csv";
 
-    /// <summary>Gets the names of the data files this writer produces, run.json included.</summary>
+    /// <summary>The file of rows left out of the run (<see cref="RejectedRowsCsv"/>), written only when there are any.</summary>
+    public const string RejectedRowsFileName = "rejected-rows.csv";
+
+    /// <summary>The name of the rule's trades file (written only when the rule's trades were run).</summary>
+    public const string TradesFileName = "trades.csv";
+
+    /// <summary>The name of the rule's daily P&amp;L paths file (written only when the rule's trades were run).</summary>
+    public const string RulePnlFileName = "rule-pnl.csv";
+
+    /// <summary>Gets the names of the data files this writer can produce, run.json included (trades.csv and rule-pnl.csv only with the rule's trades).</summary>
     public static IReadOnlyList<string> FileNames { get; } =
-        ["forecasts.csv", "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName];
+        ["forecasts.csv", "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName];
 
     /// <summary>Writes every data file except run.json into <paramref name="folder"/>, checking for cancellation between files.</summary>
     /// <param name="folder">An existing folder (the caller's staging folder); no file of these names may exist in it.</param>
@@ -45,17 +54,30 @@ public static class BacktestResultsWriter
         {
             ("forecasts.csv", path => AtomicFile.WriteText(path, w => ForecastsCsv.Write(w, result))),
             ("metrics.csv", path => AtomicFile.WriteText(path, w => MetricsCsv.Write(w, result))),
-            ("metrics.json", path => AtomicFile.WriteText(path, w => MetricsJson.Write(w, result, calibration))),
-            ("summary.txt", path => AtomicFile.WriteText(path, w => SummaryText.Write(w, result, run.Info, calibration))),
+            ("metrics.json", path => AtomicFile.WriteText(path, w => MetricsJson.Write(w, result, calibration, run.RulePnl, run.RulePnlAbsence))),
+            ("summary.txt", path => AtomicFile.WriteText(path, w => SummaryText.Write(w, result, run.Info, calibration, run.RulePnl, run.RulePnlAbsence))),
             (CalibrationFileName, path => CalibrationCsv.WriteFile(path, [.. calibration.Forecasters.Select(f => f.Calibration)])),
             (CoverageFileName, path => CoverageCsv.WriteFile(path, calibration.Forecasters)),
-        };
-        var written = new List<string>(steps.Length);
+        }.ToList();
+        if (run.RulePnl is { } rulePnl)
+        {
+            steps.Add((TradesFileName, path => AtomicFile.WriteText(path, w => TradesCsv.Write(w, rulePnl))));
+            steps.Add((RulePnlFileName, path => AtomicFile.WriteText(path, w => RulePnlCsv.Write(w, rulePnl))));
+        }
+
+        var written = new List<string>(steps.Count);
         foreach (var (name, write) in steps)
         {
             cancellationToken.ThrowIfCancellationRequested();
             write(Path.Combine(folder, name));
             written.Add(name);
+        }
+
+        if (run.RejectedRows.Count > 0)
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            AtomicFile.WriteText(Path.Combine(folder, RejectedRowsFileName), w => RejectedRowsCsv.Write(w, run.RejectedRows));
+            written.Add(RejectedRowsFileName);
         }
 
         return written;

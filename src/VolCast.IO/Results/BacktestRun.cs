@@ -24,6 +24,9 @@ public sealed record BacktestRun(
     /// <summary>Gets the rule as delta-hedged option trades, or null when it was not run (see <see cref="RulePnlAbsence"/>).</summary>
     public RulePnlReport? RulePnl { get; init; }
 
+    /// <summary>Gets the input rows left out of the run, with their reasons (written to rejected-rows.csv when there are any).</summary>
+    public IReadOnlyList<VolCast.IO.RejectedRow> RejectedRows { get; init; } = [];
+
     /// <summary>Gets why <see cref="RulePnl"/> is null (for example: no implied series was given), or null when it was run.</summary>
     public string? RulePnlAbsence { get; init; }
 }

@@ -15,4 +15,14 @@ public sealed record BacktestRunInfo(
     DateTimeOffset StartedUtc,
     DateTimeOffset FinishedUtc,
     string? ImpliedUnit,
-    ImmutableArray<string> InputWarnings);
+    ImmutableArray<string> InputWarnings)
+{
+    /// <summary>Gets statements about how the inputs were read (the adjusted-close scaling, a default forecaster replaced on a close-only file, rows left out), repeated in the report's data section.</summary>
+    public ImmutableArray<string> InputNotes { get; init; } = [];
+
+    /// <summary>Gets what was done with suspect rows: <c>warn</c>, <c>drop</c> or <c>stop</c>.</summary>
+    public string Suspect { get; init; } = "warn";
+
+    /// <summary>Gets how many rows were left out (bad rows with --skip-bad-rows, suspect rows with --suspect drop); they are listed in rejected-rows.csv.</summary>
+    public int RowsLeftOut { get; init; }
+}

@@ -2,6 +2,7 @@ using System.Text.Json;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Scoring;
+using VolCast.Core.Trading;
 using VolCast.IO.Tables;
 
 namespace VolCast.IO.Results;
@@ -13,10 +14,10 @@ namespace VolCast.IO.Results;
 /// </summary>
 internal static class MetricsJson
 {
-    public static void Write(TextWriter writer, BacktestResult result, BacktestCalibration calibration) =>
-        writer.Write(JsonText.Build(json => Metrics(json, result, calibration)));
+    public static void Write(TextWriter writer, BacktestResult result, BacktestCalibration calibration, RulePnlReport? rulePnl = null, string? rulePnlAbsence = null) =>
+        writer.Write(JsonText.Build(json => Metrics(json, result, calibration, rulePnl, rulePnlAbsence)));
 
-    private static void Metrics(Utf8JsonWriter json, BacktestResult r, BacktestCalibration calibration)
+    private static void Metrics(Utf8JsonWriter json, BacktestResult r, BacktestCalibration calibration, RulePnlReport? rulePnl, string? rulePnlAbsence)
     {
         json.WriteStartObject();
         json.WriteString("sign_convention", "Diebold-Mariano d_t = L(first) - L(second); a negative statistic means the first named has the lower loss. dm_* in a forecaster row: first = the forecaster, second = implied.");
@@ -125,6 +126,7 @@ internal static class MetricsJson
             json.WriteNull("rule_test");
         }
 
+        RulePnlJson.Write(json, rulePnl, rulePnlAbsence);
         CalibrationJson.Write(json, calibration);
 
         var q = r.DataQuality;

@@ -88,6 +88,9 @@ internal static class RunJson
         json.WriteString("target", Config.BacktestConfigFile.TargetNames[(int)s.Target]);
         json.WriteEndObject();
         Strings(json, "input_warnings", run.InputWarnings);
+        Strings(json, "input_notes", run.InputNotes);
+        json.WriteString("suspect", run.Suspect);
+        json.WriteNumber("rows_left_out", run.RowsLeftOut);
         Strings(json, "files", files);
         json.WriteEndObject();
     }

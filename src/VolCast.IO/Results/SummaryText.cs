@@ -2,17 +2,28 @@ using System.Globalization;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Scoring;
+using VolCast.Core.Trading;
 
 namespace VolCast.IO.Results;
 
 /// <summary>Writes summary.txt, a plain-text digest of the results (until the HTML report exists), leading with baseline vs candidate.</summary>
 internal static class SummaryText
 {
-    public static void Write(TextWriter w, BacktestResult r, BacktestRunInfo run, BacktestCalibration calibration)
+    public static void Write(TextWriter w, BacktestResult r, BacktestRunInfo run, BacktestCalibration calibration, RulePnlReport? rulePnl = null, string? rulePnlAbsence = null)
     {
         var c = CultureInfo.InvariantCulture;
         var q = r.DataQuality;
         w.Write("VolCast backtest summary\n");
+        if (rulePnl is not null)
+        {
+            w.Write("Would the rule have paid? " + RulePnlAnswer.Sentence(rulePnl) + "\n");
+            w.Write("Caution: " + RulePnlAnswer.Cautions + "\n");
+        }
+        else if (rulePnlAbsence is not null)
+        {
+            w.Write("Would the rule have paid? Not computed: " + rulePnlAbsence + "\n");
+        }
+
         w.Write(string.Create(c, $"Forecast dates {r.Dates[0]:yyyy-MM-dd} to {r.Dates[^1]:yyyy-MM-dd} ({q.ForecastDates}), horizon {r.Settings.Horizon}{(r.Settings.Horizon.TenorCalendarDays is null ? " trading days" : string.Empty)}, HAC lag {r.HacLag}.\n"));
         w.Write(string.Create(c, $"Scored dates with a realized target: {q.DatesWithTarget}; last {q.DatesWithoutTarget} dates have forecasts but no target yet; {q.ZeroRealizedDates} with zero realized vol not scored.\n"));
         if (r.HasImplied)

@@ -265,8 +265,25 @@ internal static class HtmlReport
         Row(html, "Price rows read", quality.RowsRead.ToString(CultureInfo.InvariantCulture));
         Row(html, "Dates scored", quality.ScoredDates.ToString(CultureInfo.InvariantCulture));
         Row(html, "Implied coverage of scored dates", quality.ImpliedCoverage is double c ? c.ToString("0.0%", CultureInfo.InvariantCulture) : "no implied file");
+        Row(html, "Suspect rows", quality.Suspect switch { "drop" => "dropped (--suspect drop)", "stop" => "refused (--suspect stop)", _ => "kept and listed below (--suspect warn)" });
+        if (quality.RowsLeftOut > 0)
+        {
+            Row(html, "Rows left out", quality.RowsLeftOut.ToString(CultureInfo.InvariantCulture) + " (listed in rejected-rows.csv)");
+        }
+
         Row(html, "Warnings", quality.Warnings.Count.ToString(CultureInfo.InvariantCulture));
         html.Append("</tbody>\n</table>\n");
+        if (quality.Notes.Count > 0)
+        {
+            html.Append("<p>How the inputs were read:</p>\n<ul>\n");
+            foreach (var note in quality.Notes)
+            {
+                html.Append("<li>").Append(E(note)).Append("</li>\n");
+            }
+
+            html.Append("</ul>\n");
+        }
+
         if (quality.Warnings.Count > 0)
         {
             html.Append("<ul>\n");

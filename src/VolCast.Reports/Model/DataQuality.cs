@@ -5,4 +5,14 @@ namespace VolCast.Reports.Model;
 /// <param name="ScoredDates">Dates with a forecast and a realized target above zero, i.e. scored.</param>
 /// <param name="ImpliedCoverage">Share of scored dates with an implied volatility (0 to 1), or null without an implied file.</param>
 /// <param name="Warnings">Every warning raised while reading and aligning, in order.</param>
-public sealed record DataQuality(int RowsRead, int ScoredDates, double? ImpliedCoverage, IReadOnlyList<string> Warnings);
+public sealed record DataQuality(int RowsRead, int ScoredDates, double? ImpliedCoverage, IReadOnlyList<string> Warnings)
+{
+    /// <summary>Gets statements about how the inputs were read (adjusted-close scaling, a default forecaster replaced on a close-only file, rows left out).</summary>
+    public IReadOnlyList<string> Notes { get; init; } = [];
+
+    /// <summary>Gets what was done with suspect rows: warn, drop or stop.</summary>
+    public string Suspect { get; init; } = "warn";
+
+    /// <summary>Gets how many input rows were left out (listed in rejected-rows.csv).</summary>
+    public int RowsLeftOut { get; init; }
+}

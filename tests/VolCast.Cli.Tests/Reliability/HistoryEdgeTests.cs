@@ -69,8 +69,10 @@ public sealed class HistoryEdgeTests(ITestOutputHelper output) : IDisposable
         var result = CliRunner.Run("backtest", "--prices", prices, "--implied", implied, "--iv-unit", "decimal", "--out", _temp.Combine("out"));
 
         Assert.Equal(3, result.ExitCode);
-        Assert.Contains("implied.csv, line 2", result.Stderr, StringComparison.Ordinal);
-        Assert.Contains("(decimal) is 2000%", result.Stderr, StringComparison.Ordinal); // 20 read as a decimal
+        // The declared unit contradicts the values (median 20, above the 1.5 that separates decimal from percent).
+        Assert.Contains("implied.csv: the file was declared decimal", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("median value is 20", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("--iv-unit percent", result.Stderr, StringComparison.Ordinal);
         Assert.DoesNotContain("   at ", result.Stderr, StringComparison.Ordinal);
     }
 

@@ -237,6 +237,7 @@ public sealed class OutputSafetyTests : IDisposable
     [InlineData("Load")]
     [InlineData("Forecast")]
     [InlineData("Calibrate")]
+    [InlineData("RulePnl")]
     [InlineData("WriteData")]
     [InlineData("WriteReport")]
     [InlineData("Commit")]

@@ -1,0 +1,39 @@
+using System.Globalization;
+using VolCast.Core.Trading;
+
+namespace VolCast.IO.Results;
+
+/// <summary>The one-sentence answer of the rule's trading backtest, in plain words: the line summary.txt leads with.</summary>
+public static class RulePnlAnswer
+{
+    /// <summary>The level at which the data-snooping p-value is read (5%).</summary>
+    public const double Level = 0.05;
+
+    /// <summary>Gets the cautions shown beside the rule's P&amp;L wherever it is shown.</summary>
+    public static string Cautions { get; } =
+        "Short options can lose far more than the premium received; the simulation ignores the smile, early assignment, margin and liquidity; past P&L does not predict future P&L; follow the rules of your firm and jurisdiction.";
+
+    /// <summary>The answer: proposed against current per year after costs, the worst drawdown, the data-snooping verdict, the walk-forward threshold and the break-even half-spread.</summary>
+    /// <param name="report">The rule's trading backtest.</param>
+    /// <returns>One sentence.</returns>
+    public static string Sentence(RulePnlReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        var c = CultureInfo.InvariantCulture;
+        var r = report.AtClose;
+        var versus = r.ProposedVersusCurrent;
+        var proposed = r[TradingRule.Proposed];
+        var walk = r[TradingRule.WalkForwardThreshold];
+        var difference = versus.DifferencePerYear;
+        var test = versus.Test.TStatistic is double t && versus.Test.PValue is double p
+            ? string.Create(c, $"t = {t:F2}, p = {p:F3}")
+            : "no test: the two rules' paths do not differ";
+        var spa = report.Means.Spa.Consistent;
+        var survives = spa <= Level ? "survives" : "does not survive";
+        var breakEven = r.BreakEven.EdgeHalfSpreadVolPoints is double w
+            ? string.Create(c, $"the edge over always-sell is zero at a half-spread of {w:F2} vol points")
+            : "no half-spread between zero and any width makes the edge over always-sell zero";
+        return string.Create(c,
+            $"Switching from the current rule to the proposed one would have earned {Math.Abs(difference):F2} vol points per year {(difference >= 0 ? "more" : "less")} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:F2} vol points; the best rule's edge over always-sell {survives} the data-snooping test (SPA p = {spa:F3}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:F2} vol points per year; {breakEven}.");
+    }
+}
