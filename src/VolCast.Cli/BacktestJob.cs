@@ -26,6 +26,12 @@ internal sealed record BacktestJob(
     /// <summary>Gets the implied file's bytes when already read, or null.</summary>
     public InputBytes? ImpliedRead { get; init; }
 
+    /// <summary>Gets how the price and implied files are written (date format, delimiter, decimal separator).</summary>
+    public CsvFormat Format { get; init; } = CsvFormat.Default;
+
+    /// <summary>Gets the implied series' declared tenor in calendar days, or null when it is the backtest's own.</summary>
+    public int? ImpliedTenorDays { get; init; }
+
     /// <summary>Gets how rows that fail a row check and suspect rows are treated (default: refuse bad rows, warn about suspect ones).</summary>
     public DataChecks Checks { get; init; } = DataChecks.Default;
 

@@ -125,11 +125,11 @@ internal static class BacktestPipeline
             warnings.Add(warning.ToString());
         }
 
-        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices), job.Checks);
+        var prices = PriceFileReader.Read(job.PricesRead ?? InputBytes.Read(job.Prices), job.Format, job.Checks);
         ImpliedLoad? implied = null;
         if (job.Implied is not null)
         {
-            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit, job.Checks);
+            implied = ImpliedFileReader.Read(job.ImpliedRead ?? InputBytes.Read(job.Implied), job.ImpliedUnit, job.Format, job.Checks);
         }
 
         // The suspect checks run before any warning is shown, so that --suspect stop refuses with the whole list at once.
@@ -143,6 +143,11 @@ internal static class BacktestPipeline
         foreach (var note in notes)
         {
             warn(note);
+        }
+
+        if (job.Implied is not null && ImpliedTenor.Check(job.ImpliedTenorDays, job.Settings.Horizon, job.Implied) is { } mismatch)
+        {
+            Warn(mismatch);
         }
 
         return (checkedInputs.Prices, checkedInputs.Implied, warnings.ToImmutable(), notes, checkedInputs.Rejected);

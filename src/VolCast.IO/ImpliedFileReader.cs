@@ -10,7 +10,7 @@ namespace VolCast.IO;
 /// </summary>
 /// <remarks>
 /// <para>Format as for price files: comma-separated UTF-8 (byte-order mark optional), LF or CRLF, a header row,
-/// ISO dates yyyy-MM-dd, '.' decimal point. The value column may be headed <c>iv</c>, <c>implied</c>,
+/// ISO dates yyyy-MM-dd, '.' decimal point, unless another <see cref="CsvFormat"/> is declared. The value column may be headed <c>iv</c>, <c>implied</c>,
 /// <c>implied_vol</c>, <c>implied volatility</c> or <c>vol</c> (case-insensitive); other columns are ignored with a warning.</para>
 /// <para>Unit: declared (<see cref="ImpliedUnit.Percent"/>: 20 means 20%; <see cref="ImpliedUnit.Decimal"/>: 0.20
 /// means 20%) or inferred: when the median value is above 1.5 the file is read as percent, otherwise as decimal,
@@ -48,12 +48,28 @@ public static class ImpliedFileReader
     /// <exception cref="InputDataException">The file is missing or unreadable, or its content is invalid.</exception>
     public static ImpliedLoad Read(string path, ImpliedUnit unit = ImpliedUnit.Infer) => Read(InputBytes.Read(path), unit);
 
+    /// <summary>Loads an implied-volatility file written in a declared form (date format, delimiter, decimal separator).</summary>
+    /// <param name="path">The file, as the user gave it; used as given in messages.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The series as decimals, the warnings, the unit used, whether it was inferred, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The file is missing or unreadable, or its content is invalid.</exception>
+    public static ImpliedLoad Read(string path, ImpliedUnit unit, CsvFormat format) => Read(InputBytes.Read(path), unit, format);
+
     /// <summary>Loads an implied-volatility file already read (<see cref="InputBytes.Read"/>), without reading or hashing it again.</summary>
     /// <param name="input">The file's bytes and their SHA-256.</param>
     /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
     /// <returns>The series as decimals, the warnings, the unit used, whether it was inferred, and the SHA-256 of the file's bytes.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit = ImpliedUnit.Infer) => Read(input, unit, DataChecks.Default);
+    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit = ImpliedUnit.Infer) => Read(input, unit, CsvFormat.Default, DataChecks.Default);
+
+    /// <summary>Loads an implied-volatility file already read, written in a declared form.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The series as decimals, the warnings, the unit used, whether it was inferred, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit, CsvFormat format) => Read(input, unit, format, DataChecks.Default);
 
     /// <summary>Loads an implied-volatility file already read, with a choice of how bad rows are treated.</summary>
     /// <param name="input">The file's bytes and their SHA-256.</param>
@@ -61,11 +77,21 @@ public static class ImpliedFileReader
     /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
     /// <returns>The series as decimals, the warnings, suspect values, rows left out, the unit used and the SHA-256.</returns>
     /// <exception cref="InputDataException">The content is invalid, or the declared unit contradicts the values.</exception>
-    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit, DataChecks checks)
+    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit, DataChecks checks) => Read(input, unit, CsvFormat.Default, checks);
+
+    /// <summary>Loads an implied-volatility file already read, written in a declared form, with a choice of how bad rows are treated.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
+    /// <returns>The series as decimals, the warnings, suspect values, rows left out, the unit used and the SHA-256.</returns>
+    /// <exception cref="InputDataException">The content is invalid, or the declared unit contradicts the values.</exception>
+    public static ImpliedLoad Read(InputBytes input, ImpliedUnit unit, CsvFormat format, DataChecks checks)
     {
         ArgumentNullException.ThrowIfNull(input);
+        ArgumentNullException.ThrowIfNull(format);
         ArgumentNullException.ThrowIfNull(checks);
-        return Parse(input.Text(), input.Path, unit, input.Sha256, checks.SkipBadRows);
+        return Parse(input.Text(), input.Path, unit, input.Sha256, format, checks.SkipBadRows);
     }
 
     /// <summary>Loads implied-volatility data from a reader (for tests and in-memory data).</summary>
@@ -74,7 +100,18 @@ public static class ImpliedFileReader
     /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
     /// <returns>The load result; <see cref="ImpliedLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit = ImpliedUnit.Infer) => Read(reader, displayName, unit, DataChecks.Default);
+    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit = ImpliedUnit.Infer) =>
+        Read(reader, displayName, unit, CsvFormat.Default, DataChecks.Default);
+
+    /// <summary>Loads implied-volatility data written in a declared form from a reader (for tests and in-memory data).</summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="displayName">The name used for the file in messages.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <param name="format">The text's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The load result; <see cref="ImpliedLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit, CsvFormat format) =>
+        Read(reader, displayName, unit, format, DataChecks.Default);
 
     /// <summary>Loads implied-volatility data from a reader, with a choice of how bad rows are treated.</summary>
     /// <param name="reader">The CSV text.</param>
@@ -83,36 +120,48 @@ public static class ImpliedFileReader
     /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
     /// <returns>The load result; <see cref="ImpliedLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
     /// <exception cref="InputDataException">The content is invalid, or the declared unit contradicts the values.</exception>
-    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit, DataChecks checks)
+    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit, DataChecks checks) =>
+        Read(reader, displayName, unit, CsvFormat.Default, checks);
+
+    /// <summary>Loads implied-volatility data written in a declared form from a reader, with a choice of how bad rows are treated.</summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="displayName">The name used for the file in messages.</param>
+    /// <param name="unit">The unit of the values, or <see cref="ImpliedUnit.Infer"/> to infer it with a warning.</param>
+    /// <param name="format">The text's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
+    /// <returns>The load result; <see cref="ImpliedLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
+    /// <exception cref="InputDataException">The content is invalid, or the declared unit contradicts the values.</exception>
+    public static ImpliedLoad Read(TextReader reader, string displayName, ImpliedUnit unit, CsvFormat format, DataChecks checks)
     {
         ArgumentNullException.ThrowIfNull(displayName);
+        ArgumentNullException.ThrowIfNull(format);
         ArgumentNullException.ThrowIfNull(checks);
         var text = InputText.ReadAll(reader);
-        return Parse(text.StartsWith('\uFEFF') ? text[1..] : text, displayName, unit, InputText.Sha256Hex(text), checks.SkipBadRows);
+        return Parse(text.StartsWith('\uFEFF') ? text[1..] : text, displayName, unit, InputText.Sha256Hex(text), format, checks.SkipBadRows);
     }
 
     /// <summary>Loads implied-volatility data from a file's bytes.</summary>
     internal static ImpliedLoad ReadBytes(byte[] bytes, string displayName, ImpliedUnit unit)
     {
         var text = InputText.Decode(bytes, displayName);
-        return Parse(text, displayName, unit, InputText.Sha256Hex(bytes), skipBadRows: false);
+        return Parse(text, displayName, unit, InputText.Sha256Hex(bytes), CsvFormat.Default, skipBadRows: false);
     }
 
-    private static ImpliedLoad Parse(string text, string file, ImpliedUnit unit, string sha256, bool skipBadRows)
+    private static ImpliedLoad Parse(string text, string file, ImpliedUnit unit, string sha256, CsvFormat format, bool skipBadRows)
     {
         if (!Enum.IsDefined(unit))
         {
             throw new ArgumentOutOfRangeException(nameof(unit), unit, "unit must be Infer, Percent or Decimal.");
         }
 
-        using var reader = new CsvRowReader(text, file);
+        using var reader = new CsvRowReader(text, file, format.Delimiter);
         if (!reader.TryRead(out var headerRow))
         {
             throw new InputDataException(file, 1, null,
                 "the file is empty; expected a header row (" + Expected + ") followed by one row per date.");
         }
 
-        var header = HeaderMap.Resolve(headerRow, file, Aliases, Expected);
+        var header = HeaderMap.Resolve(headerRow, file, Aliases, Expected, format);
         reader.UseHeader([.. header.Names]);
         var dateIndex = header.Require("date", file, Expected);
         var ivIndex = header.Require("iv", file, Expected);
@@ -133,7 +182,7 @@ public static class ImpliedFileReader
             DateOnly? rowDate = null;
             try
             {
-                var (date, value) = ReadRow(row, header, dateIndex, ivIndex, file, seen, ref rowDate);
+                var (date, value) = ReadRow(row, header, dateIndex, ivIndex, file, seen, format, ref rowDate);
                 seen.Add(date, row.Line);
                 dates.Add(date);
                 lines.Add(row.Line);
@@ -154,7 +203,7 @@ public static class ImpliedFileReader
         return Finish(file, unit, sha256, skipBadRows, ivName, warnings, dates, lines, values, bad);
     }
 
-    private static (DateOnly Date, double Value) ReadRow(CsvRow row, HeaderMap header, int dateIndex, int ivIndex, string file, Dictionary<DateOnly, int> seen, ref DateOnly? rowDate)
+    private static (DateOnly Date, double Value) ReadRow(CsvRow row, HeaderMap header, int dateIndex, int ivIndex, string file, Dictionary<DateOnly, int> seen, CsvFormat format, ref DateOnly? rowDate)
     {
         if (row.Cells.Length < header.Count)
         {
@@ -171,7 +220,7 @@ public static class ImpliedFileReader
             }
         }
 
-        var date = CellParser.Date(row.Cells[dateIndex], file, row.Line, header.Names[dateIndex]);
+        var date = CellParser.Date(row.Cells[dateIndex], file, row.Line, header.Names[dateIndex], format);
         rowDate = date;
         if (seen.TryGetValue(date, out var first))
         {
@@ -179,7 +228,7 @@ public static class ImpliedFileReader
                 $"the date {ValueText.Date(date)} appears twice, on line {first} and line {row.Line}; expected one value per date."));
         }
 
-        var value = CellParser.Number(row.Cells[ivIndex], file, row.Line, header.Names[ivIndex], "an implied volatility such as 0.21 (decimal) or 21 (percent)");
+        var value = CellParser.Number(row.Cells[ivIndex], file, row.Line, header.Names[ivIndex], "an implied volatility such as 0.21 (decimal) or 21 (percent)", format);
         return (date, value);
     }
 

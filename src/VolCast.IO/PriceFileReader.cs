@@ -14,7 +14,9 @@ namespace VolCast.IO;
 /// <c>volume</c>, in any order; or close-only <c>date, close</c> (optionally <c>adj_close</c>). Header names are
 /// matched case-insensitively ignoring spaces, underscores, hyphens and dots ("Adj Close", "adj_close",
 /// "AdjClose", "Adjusted Close"); other columns are ignored with one warning. Dates are ISO 8601 yyyy-MM-dd,
-/// numbers use '.' as the decimal point (invariant culture). Blank lines are skipped.</para>
+/// numbers use '.' as the decimal point (invariant culture), unless another <see cref="CsvFormat"/> is declared. A daily
+/// timestamp (midnight or a usual close) is read as its date. Blank lines are skipped. A missing-value mark (null, NA,
+/// NaN, -, empty) is a missing volume, and refuses the row in a price or adj_close column.</para>
 /// <para>Each row must parse completely; prices must be finite, at least 1e-8 and below 1e15 (values outside are
 /// taken as corrupt cells, and the bounds keep every log price ratio finite); high ≥ low and open and close must lie within [low, high]; volume, when given, must be
 /// a finite number ≥ 0 or blank. A date may appear once. Rows out of date order are sorted (with a warning).</para>
@@ -55,22 +57,45 @@ public static class PriceFileReader
     /// <exception cref="InputDataException">The file is missing or unreadable, or its content is invalid.</exception>
     public static PriceLoad Read(string path) => Read(InputBytes.Read(path));
 
+    /// <summary>Loads a price file written in a declared form (date format, delimiter, decimal separator).</summary>
+    /// <param name="path">The file, as the user gave it; used as given in messages.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The history, warnings, row count, whether adj_close was applied, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The file is missing or unreadable, or its content is invalid.</exception>
+    public static PriceLoad Read(string path, CsvFormat format) => Read(InputBytes.Read(path), format);
+
     /// <summary>Loads a price file already read (<see cref="InputBytes.Read"/>), without reading or hashing it again.</summary>
     /// <param name="input">The file's bytes and their SHA-256.</param>
     /// <returns>The history, warnings, row count, whether adj_close was applied, and the SHA-256 of the file's bytes.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static PriceLoad Read(InputBytes input) => Read(input, DataChecks.Default);
+    public static PriceLoad Read(InputBytes input) => Read(input, CsvFormat.Default, DataChecks.Default);
+
+    /// <summary>Loads a price file already read, written in a declared form.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The history, warnings, row count, whether adj_close was applied, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(InputBytes input, CsvFormat format) => Read(input, format, DataChecks.Default);
 
     /// <summary>Loads a price file already read, with a choice of how bad rows are treated.</summary>
     /// <param name="input">The file's bytes and their SHA-256.</param>
     /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
     /// <returns>The history, warnings, suspect values, rows left out, and the SHA-256 of the file's bytes.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static PriceLoad Read(InputBytes input, DataChecks checks)
+    public static PriceLoad Read(InputBytes input, DataChecks checks) => Read(input, CsvFormat.Default, checks);
+
+    /// <summary>Loads a price file already read, written in a declared form, with a choice of how bad rows are treated.</summary>
+    /// <param name="input">The file's bytes and their SHA-256.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
+    /// <returns>The history, warnings, suspect values, rows left out, and the SHA-256 of the file's bytes.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(InputBytes input, CsvFormat format, DataChecks checks)
     {
         ArgumentNullException.ThrowIfNull(input);
+        ArgumentNullException.ThrowIfNull(format);
         ArgumentNullException.ThrowIfNull(checks);
-        return Parse(input.Text(), input.Path, input.Sha256, checks.SkipBadRows);
+        return Parse(input.Text(), input.Path, input.Sha256, format, checks.SkipBadRows);
     }
 
     /// <summary>Loads price data from a reader (for tests and in-memory data).</summary>
@@ -78,7 +103,15 @@ public static class PriceFileReader
     /// <param name="displayName">The name used for the file in messages.</param>
     /// <returns>The load result; <see cref="PriceLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static PriceLoad Read(TextReader reader, string displayName) => Read(reader, displayName, DataChecks.Default);
+    public static PriceLoad Read(TextReader reader, string displayName) => Read(reader, displayName, CsvFormat.Default, DataChecks.Default);
+
+    /// <summary>Loads price data written in a declared form from a reader (for tests and in-memory data).</summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="displayName">The name used for the file in messages.</param>
+    /// <param name="format">The text's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The load result; <see cref="PriceLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(TextReader reader, string displayName, CsvFormat format) => Read(reader, displayName, format, DataChecks.Default);
 
     /// <summary>Loads price data from a reader, with a choice of how bad rows are treated.</summary>
     /// <param name="reader">The CSV text.</param>
@@ -86,31 +119,41 @@ public static class PriceFileReader
     /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
     /// <returns>The load result; <see cref="PriceLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
     /// <exception cref="InputDataException">The content is invalid.</exception>
-    public static PriceLoad Read(TextReader reader, string displayName, DataChecks checks)
+    public static PriceLoad Read(TextReader reader, string displayName, DataChecks checks) => Read(reader, displayName, CsvFormat.Default, checks);
+
+    /// <summary>Loads price data written in a declared form from a reader, with a choice of how bad rows are treated.</summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="displayName">The name used for the file in messages.</param>
+    /// <param name="format">The text's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <param name="checks">Whether rows failing a row check are left out (and listed) instead of refusing the file.</param>
+    /// <returns>The load result; <see cref="PriceLoad.Sha256"/> is the SHA-256 of the text's UTF-8 encoding.</returns>
+    /// <exception cref="InputDataException">The content is invalid.</exception>
+    public static PriceLoad Read(TextReader reader, string displayName, CsvFormat format, DataChecks checks)
     {
         ArgumentNullException.ThrowIfNull(displayName);
+        ArgumentNullException.ThrowIfNull(format);
         ArgumentNullException.ThrowIfNull(checks);
         var text = InputText.ReadAll(reader);
-        return Parse(text.StartsWith('\uFEFF') ? text[1..] : text, displayName, InputText.Sha256Hex(text), checks.SkipBadRows);
+        return Parse(text.StartsWith('\uFEFF') ? text[1..] : text, displayName, InputText.Sha256Hex(text), format, checks.SkipBadRows);
     }
 
     /// <summary>Loads price data from a file's bytes.</summary>
     internal static PriceLoad ReadBytes(byte[] bytes, string displayName)
     {
         var text = InputText.Decode(bytes, displayName);
-        return Parse(text, displayName, InputText.Sha256Hex(bytes), skipBadRows: false);
+        return Parse(text, displayName, InputText.Sha256Hex(bytes), CsvFormat.Default, skipBadRows: false);
     }
 
-    private static PriceLoad Parse(string text, string file, string sha256, bool skipBadRows)
+    private static PriceLoad Parse(string text, string file, string sha256, CsvFormat format, bool skipBadRows)
     {
-        using var reader = new CsvRowReader(text, file);
+        using var reader = new CsvRowReader(text, file, format.Delimiter);
         if (!reader.TryRead(out var headerRow))
         {
             throw new InputDataException(file, 1, null,
                 "the file is empty; expected a header row (" + Expected + ") followed by one row per trading day.");
         }
 
-        var header = HeaderMap.Resolve(headerRow, file, Aliases, Expected);
+        var header = HeaderMap.Resolve(headerRow, file, Aliases, Expected, format);
         reader.UseHeader([.. header.Names]);
         var layout = Layout.From(header, file);
         var warnings = new List<InputWarning>();
@@ -137,7 +180,7 @@ public static class PriceFileReader
             try
             {
                 CheckCellCount(row, header, file);
-                date = CellParser.Date(row.Cells[layout.Date], file, row.Line, header.Names[layout.Date]);
+                date = CellParser.Date(row.Cells[layout.Date], file, row.Line, header.Names[layout.Date], format);
                 rowDate = date;
                 if (seen.TryGetValue(date, out var first))
                 {
@@ -145,7 +188,7 @@ public static class PriceFileReader
                         $"the date {ValueText.Date(date)} appears twice, on line {first} and line {row.Line}; expected one row per trading day."));
                 }
 
-                bar = ReadBar(row, layout, header, file);
+                bar = ReadBar(row, layout, header, file, format);
             }
             catch (InputDataException error) when (error.Line == row.Line)
             {
@@ -220,18 +263,18 @@ public static class PriceFileReader
         }
     }
 
-    private static Bar ReadBar(CsvRow row, Layout layout, HeaderMap header, string file)
+    private static Bar ReadBar(CsvRow row, Layout layout, HeaderMap header, string file, CsvFormat format)
     {
         var line = row.Line;
         double open = 0, high = 0, low = 0;
         if (layout.HasRange)
         {
-            open = Price(row, layout.Open, header, file);
-            high = Price(row, layout.High, header, file);
-            low = Price(row, layout.Low, header, file);
+            open = Price(row, layout.Open, header, file, format);
+            high = Price(row, layout.High, header, file, format);
+            low = Price(row, layout.Low, header, file, format);
         }
 
-        var close = Price(row, layout.Close, header, file);
+        var close = Price(row, layout.Close, header, file, format);
         if (layout.HasRange)
         {
             if (high < low)
@@ -244,9 +287,9 @@ public static class PriceFileReader
             CheckWithinRange(close, layout.Close, low, high, line, header, file);
         }
 
-        if (layout.Volume >= 0 && !string.IsNullOrWhiteSpace(row.Cells[layout.Volume]))
+        if (layout.Volume >= 0 && !CellParser.IsMissing(row.Cells[layout.Volume]))
         {
-            var volume = CellParser.Number(row.Cells[layout.Volume], file, line, header.Names[layout.Volume], "a traded volume of zero or more, or a blank cell");
+            var volume = CellParser.Number(row.Cells[layout.Volume], file, line, header.Names[layout.Volume], "a traded volume of zero or more, or a blank cell", format);
             if (volume < 0)
             {
                 throw new InputDataException(file, line, header.Names[layout.Volume],
@@ -259,7 +302,14 @@ public static class PriceFileReader
             return new Bar(open, high, low, close);
         }
 
-        var adj = Price(row, layout.AdjClose, header, file);
+        if (CellParser.IsMissing(row.Cells[layout.AdjClose]))
+        {
+            // One row without its adjustment would put a false jump into the adjusted series.
+            throw new InputDataException(file, line, header.Names[layout.AdjClose], (row.Cells[layout.AdjClose].Trim().Length == 0 ? "the adjusted close is missing" : ValueText.Quote(row.Cells[layout.AdjClose].Trim()) + " marks a missing adjusted close")
+                + "; when the file has an adj_close column every row needs one (a row without it would mix adjusted and unadjusted prices). Fill it in, or remove the column to use the prices as written.");
+        }
+
+        var adj = Price(row, layout.AdjClose, header, file, format);
         var factor = adj / close;
         var bar = new Bar(open * factor, high * factor, low * factor, close * factor);
         if (!Plausible(factor) || !Plausible(bar.Close) || (layout.HasRange && !(Plausible(bar.Open) && Plausible(bar.High) && Plausible(bar.Low))))
@@ -271,10 +321,10 @@ public static class PriceFileReader
         return bar;
     }
 
-    private static double Price(CsvRow row, int index, HeaderMap header, string file)
+    private static double Price(CsvRow row, int index, HeaderMap header, string file, CsvFormat format)
     {
         var column = header.Names[index];
-        var value = CellParser.Number(row.Cells[index], file, row.Line, column, PriceExpected);
+        var value = CellParser.Number(row.Cells[index], file, row.Line, column, PriceExpected, format);
         if (value <= 0)
         {
             throw new InputDataException(file, row.Line, column,

@@ -24,13 +24,15 @@ internal static class BacktestCommand
         var end = new Option<string?>("--end") { Description = "Last forecast date, yyyy-MM-dd." };
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>). Written in a hidden temporary folder and moved into place when complete." };
         var force = new Option<bool>("--force") { Description = "Use an existing output folder: replace the earlier run's files (those listed in its run.json) as one set, keeping any other file; a file of an output name that volcast did not write is never replaced." };
+        var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor the implied series quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
         var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
         suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
         var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
-            prices, implied, ivUnit, config, horizon, tenor, start, end, output, force, suspect, skipBadRows,
+            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows,
         };
+        var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
             parse.GetValue(prices)!,
             parse.GetValue(implied),
@@ -42,6 +44,9 @@ internal static class BacktestCommand
             parse.GetValue(end),
             parse.GetValue(output),
             parse.GetValue(force),
+            parse.GetValue(impliedTenor),
+            parse,
+            formatOptions,
             parse.GetValue(suspect),
             parse.GetValue(skipBadRows)))));
         return command;
@@ -53,7 +58,13 @@ internal static class BacktestCommand
         var outFolder = a.Out ?? Path.Combine("reports", "backtest-" + Path.GetFileNameWithoutExtension(a.Prices));
         OutputChecks.Folder(outFolder);
         var unit = BacktestOptions.Unit(a.IvUnit);
-        var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force) { Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows) };
+        var (configFormat, configTenor) = InputFormatOptions.FromConfig(a.Config);
+        var job = new BacktestJob(a.Prices, a.Implied, unit, settings, a.Config, outFolder, a.Force)
+        {
+            Format = a.FormatOptions.Resolve(a.Parse, configFormat),
+            ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
+            Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
+        };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestRun run;
         using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
@@ -96,5 +107,6 @@ internal static class BacktestCommand
     private static string Show(double? value) => value is double v && double.IsFinite(v) ? v.ToString("F4", CultureInfo.InvariantCulture) : "n/a";
 
     private sealed record Arguments(
-        string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force, string? Suspect, bool SkipBadRows);
+        string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force,
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows);
 }

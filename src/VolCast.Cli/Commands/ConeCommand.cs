@@ -23,15 +23,16 @@ internal static class ConeCommand
         {
             options.Prices, options.Implied, options.ImpliedHorizon, options.Output, options.Force,
         };
+        var formatOptions = InputFormatOptions.AddTo(command);
 
-        command.SetAction(parse => console.Execute(() => Run(console, ConeRequest.Read(parse, options))));
+        command.SetAction(parse => console.Execute(() => Run(console, ConeRequest.Read(parse, options), formatOptions.Resolve(parse))));
         return command;
     }
 
-    private static int Run(CliConsole console, ConeRequest request)
+    private static int Run(CliConsole console, ConeRequest request, CsvFormat format)
     {
         RefuseExisting(request);
-        var load = PriceFileReader.Read(request.PricesPath);
+        var load = PriceFileReader.Read(request.PricesPath, format);
         foreach (var warning in load.Warnings)
         {
             console.Warn(warning.ToString());
@@ -39,7 +40,7 @@ internal static class ConeCommand
 
         var returns = Returns.LogReturns(load.History.Close);
         var cone = ComputeCone(console, request.PricesPath, returns);
-        var overlays = ImpliedOverlays(console, request, load.History.Dates[^1]);
+        var overlays = ImpliedOverlays(console, request, load.History.Dates[^1], format);
         var chart = ReportCharts.Cone(cone, overlays);
         AtomicFile.WriteText(request.CsvPath, w => ConeCsv.Write(w, cone), request.Overwrite, request.Inputs);
         AtomicFile.WriteBytes(request.PngPath, chart.Png, request.Overwrite);
@@ -79,7 +80,7 @@ internal static class ConeCommand
     }
 
     /// <summary>The latest implied volatility on or before the last price date, drawn at the implied horizon; none without an implied file.</summary>
-    private static List<ConeOverlay> ImpliedOverlays(CliConsole console, ConeRequest request, DateOnly lastPriceDate)
+    private static List<ConeOverlay> ImpliedOverlays(CliConsole console, ConeRequest request, DateOnly lastPriceDate, CsvFormat format)
     {
         var overlays = new List<ConeOverlay>();
         if (request.ImpliedFile is not { } impliedFile)
@@ -87,7 +88,7 @@ internal static class ConeCommand
             return overlays;
         }
 
-        var impliedLoad = ImpliedFileReader.Read(impliedFile.ToString());
+        var impliedLoad = ImpliedFileReader.Read(impliedFile.ToString(), ImpliedUnit.Infer, format);
         foreach (var warning in impliedLoad.Warnings)
         {
             console.Warn(warning.ToString());

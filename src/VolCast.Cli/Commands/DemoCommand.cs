@@ -44,8 +44,13 @@ internal static class DemoCommand
         return command;
     }
 
-    /// <summary>Finds data-demo: the current folder's, else the one beside VolCast.sln above the tool's own folder; null when neither exists.</summary>
-    internal static string? FindDataFolder()
+    /// <summary>
+    /// Finds data-demo: the current folder's, else the one beside VolCast.sln above the tool's own folder, else (with
+    /// <paramref name="besideTool"/>) the copy installed beside the tool; null when none exists.
+    /// </summary>
+    /// <remarks>The repository's copy comes before the installed one so that a build inside the repository runs (and
+    /// <c>--regenerate</c> rewrites) the data the repository holds, and its run records name the same paths.</remarks>
+    internal static string? FindDataFolder(bool besideTool = false)
     {
         var local = Path.GetFullPath(DataFolderName);
         if (File.Exists(Path.Combine(local, DemoFiles.Index)))
@@ -53,6 +58,21 @@ internal static class DemoCommand
             return local;
         }
 
+        if (FindRepositoryDataFolder() is string repository)
+        {
+            return repository;
+        }
+
+        var installed = Path.Combine(AppContext.BaseDirectory, DataFolderName);
+        return besideTool && File.Exists(Path.Combine(installed, DemoFiles.Index)) ? installed : null;
+    }
+
+    /// <summary>Gets whether a data folder is the copy installed beside the tool (its reports must not be written there).</summary>
+    internal static bool IsBesideTool(string folder) =>
+        string.Equals(Path.GetFullPath(folder).TrimEnd(Path.DirectorySeparatorChar), Path.Combine(AppContext.BaseDirectory, DataFolderName).TrimEnd(Path.DirectorySeparatorChar), StringComparison.Ordinal);
+
+    private static string? FindRepositoryDataFolder()
+    {
         for (var folder = new DirectoryInfo(AppContext.BaseDirectory); folder is not null; folder = folder.Parent)
         {
             if (File.Exists(Path.Combine(folder.FullName, "VolCast.sln")))
@@ -77,11 +97,11 @@ internal static class DemoCommand
     private static int Run(CliConsole console, string? data, string? output, bool force)
     {
         var clock = Stopwatch.StartNew();
-        var folder = data is null ? FindDataFolder() : Path.GetFullPath(data);
+        var folder = data is null ? FindDataFolder(besideTool: true) : Path.GetFullPath(data);
         if (folder is null)
         {
             throw new InputDataException(DataFolderName, null, null,
-                "the demo data folder was not found in the current folder nor beside VolCast.sln above the tool's folder; run volcast demo from the repository's root, or pass --data DIR (create it with volcast demo --regenerate --data DIR).");
+                "the demo data folder was not found in the current folder, beside VolCast.sln above the tool's folder, nor installed beside the tool; pass --data DIR (create it with volcast demo --regenerate --data DIR).");
         }
 
         foreach (var name in new[] { DemoFiles.Index, DemoFiles.Implied, DemoFiles.Config })
@@ -94,7 +114,10 @@ internal static class DemoCommand
         }
 
         // With no --out the demo replaces its own report: the README's main command must run again and again.
-        var outFolder = output is null ? Path.Combine(Path.GetDirectoryName(folder)!, "reports", "demo") : Path.GetFullPath(output);
+        // The copy installed beside the tool is read only: its report goes to reports/demo under the current folder.
+        var outFolder = output is null
+            ? Path.Combine(data is null && IsBesideTool(folder) ? Directory.GetCurrentDirectory() : Path.GetDirectoryName(folder)!, "reports", "demo")
+            : Path.GetFullPath(output);
         var replace = output is null || force;
         if (Directory.Exists(outFolder) && !replace)
         {

@@ -45,6 +45,7 @@ internal static class EstimateCommand
         {
             prices, estimator, window, annualization, zeroMean, output, force,
         };
+        var formatOptions = InputFormatOptions.AddTo(command);
 
         command.SetAction(parse => console.Execute(() =>
         {
@@ -67,7 +68,7 @@ internal static class EstimateCommand
                 OutputGuard.RefuseInputs([outFile.ToString()], [pricesPath]);
             }
 
-            var load = PriceFileReader.Read(pricesPath);
+            var load = PriceFileReader.Read(pricesPath, formatOptions.Resolve(parse));
             foreach (var warning in load.Warnings)
             {
                 console.Warn(warning.Line is int line ? $"{warning.File}, line {line}: {warning.Message}" : $"{warning.File}: {warning.Message}");

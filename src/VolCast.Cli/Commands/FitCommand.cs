@@ -37,6 +37,7 @@ internal static class FitCommand
         {
             prices, model, zeroMean, annualization, output, force,
         };
+        var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(
             console,
             parse.GetValue(prices)!,
@@ -44,11 +45,12 @@ internal static class FitCommand
             !parse.GetValue(zeroMean),
             parse.GetValue(annualization),
             parse.GetValue(output),
-            parse.GetValue(force))));
+            parse.GetValue(force),
+            formatOptions.Resolve(parse))));
         return command;
     }
 
-    private static int Run(CliConsole console, string pricesPath, GarchVariant variant, bool includeMean, double annualization, string? outPath, bool force)
+    private static int Run(CliConsole console, string pricesPath, GarchVariant variant, bool includeMean, double annualization, string? outPath, bool force, CsvFormat format)
     {
         var modelName = variant == GarchVariant.GjrGarch ? "gjr-garch" : "garch";
         SettingLimits.AnnualizationFactor.Check(annualization, "--annualization");
@@ -62,7 +64,7 @@ internal static class FitCommand
             throw new UsageException($"{output}: the file already exists; choose another --out or pass --force to replace it.");
         }
 
-        var load = PriceFileReader.Read(pricesPath);
+        var load = PriceFileReader.Read(pricesPath, format);
         foreach (var warning in load.Warnings)
         {
             console.Warn(warning.ToString());

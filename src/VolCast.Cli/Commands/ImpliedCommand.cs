@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using VolCast.Core.Options;
+using VolCast.IO;
 using VolCast.IO.Csv;
 using VolCast.IO.Quotes;
 
@@ -46,6 +47,7 @@ internal static class ImpliedCommand
         {
             quotes, tenor, rate, dividendYield, extrapolation, output, force,
         };
+        var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(
             console,
             parse.GetValue(quotes)!,
@@ -54,11 +56,12 @@ internal static class ImpliedCommand
             parse.GetValue(dividendYield),
             parse.GetValue(extrapolation) == "flat" ? TenorExtrapolation.FlatVolatility : TenorExtrapolation.Refuse,
             parse.GetValue(output),
-            parse.GetValue(force))));
+            parse.GetValue(force),
+            formatOptions.Resolve(parse))));
         return command;
     }
 
-    private static int Run(CliConsole console, string quotesPath, string tenorText, double? rate, double dividendYield, TenorExtrapolation extrapolation, string? outPath, bool force)
+    private static int Run(CliConsole console, string quotesPath, string tenorText, double? rate, double dividendYield, TenorExtrapolation extrapolation, string? outPath, bool force, CsvFormat format)
     {
         var tenorDays = ParseTenor(tenorText);
         CheckDecimalRate(rate, "--rate");
@@ -74,7 +77,7 @@ internal static class ImpliedCommand
             }
         }
 
-        var quotes = OptionQuoteCsvReader.Read(quotesPath, rate, dividendYield);
+        var quotes = OptionQuoteCsvReader.Read(quotesPath, rate, dividendYield, format);
         var result = ConstantTenorSeries.Compute(quotes, new ConstantTenorOptions(tenorDays, extrapolation));
         string[] inputs = [quotesPath];
         QuoteDiagnosticsCsv.Write(diagnosticsPath, result.Diagnostics, force, inputs);

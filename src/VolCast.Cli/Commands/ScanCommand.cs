@@ -22,11 +22,13 @@ internal static class ScanCommand
         var tenor = new Option<string?>("--tenor") { Description = $"Forecast horizon as a calendar tenor such as 30d ({SettingLimits.TenorDays}), mapped through each price file's own trading calendar. Overrides the configuration." };
         var output = new Option<string?>("--out") { Description = "Scan folder (default reports/scan): assets/NAME/ per name, summary.csv and summary.html. An existing scan folder is resumed." };
         var jobs = new Option<int?>("--jobs") { Description = $"How many names run at the same time, {SettingLimits.Jobs} (default: the number of processor cores)." };
+        var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor every implied file quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
         var force = new Option<bool>("--force") { Description = "Recompute every name, even those whose results are complete and whose inputs and configuration are unchanged." };
         var command = new Command("scan", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted scan resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
-            pricesDir, impliedDir, ivUnit, config, horizon, tenor, output, jobs, force,
+            pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force,
         };
+        var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
             parse.GetValue(pricesDir)!,
             parse.GetValue(impliedDir),
@@ -36,7 +38,10 @@ internal static class ScanCommand
             parse.GetValue(tenor),
             parse.GetValue(output),
             parse.GetValue(jobs),
-            parse.GetValue(force)))));
+            parse.GetValue(force),
+            parse.GetValue(impliedTenor),
+            parse,
+            formatOptions))));
         return command;
     }
 
@@ -53,7 +58,12 @@ internal static class ScanCommand
         OutputChecks.Separate(outFolder, a.PricesDir, a.ImpliedDir);
         var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor);
         var unit = BacktestOptions.Unit(a.IvUnit);
-        return new ScanRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, outFolder, a.Jobs ?? Environment.ProcessorCount, a.Force);
+        var (configFormat, configTenor) = InputFormatOptions.FromConfig(a.Config);
+        return new ScanRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, outFolder, a.Jobs ?? Environment.ProcessorCount, a.Force)
+        {
+            Format = a.FormatOptions.Resolve(a.Parse, configFormat),
+            ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
+        };
     }
 
     private static int Run(CliConsole console, Arguments a)
@@ -98,5 +108,6 @@ internal static class ScanCommand
     }
 
     private sealed record Arguments(
-        string PricesDir, string? ImpliedDir, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Out, int? Jobs, bool Force);
+        string PricesDir, string? ImpliedDir, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Out, int? Jobs, bool Force,
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions);
 }

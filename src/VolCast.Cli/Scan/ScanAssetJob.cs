@@ -27,6 +27,12 @@ internal sealed record ScanAssetJob(
     string Fingerprint,
     bool Force)
 {
+    /// <summary>Gets how the asset's files are written (date format, delimiter, decimal separator).</summary>
+    public CsvFormat Format { get; init; } = CsvFormat.Default;
+
+    /// <summary>Gets the implied file's declared tenor in calendar days, or null when it is the backtest's own.</summary>
+    public int? ImpliedTenorDays { get; init; }
+
     /// <summary>Gets the configuration file's SHA-256, hashed once for the whole scan, or null to hash it here.</summary>
     public string? ConfigSha256 { get; init; }
 
@@ -65,6 +71,8 @@ internal sealed record ScanAssetJob(
                 PricesRead = prices,
                 ImpliedRead = implied,
                 ConfigSha256 = Config is null ? null : inputs["config"],
+                Format = Format,
+                ImpliedTenorDays = ImpliedTenorDays,
             };
             ScanAssetRow? row = null;
             BacktestPipeline.Run(job, static _ => { }, null, writeMore: (staging, run) =>

@@ -13,7 +13,7 @@ namespace VolCast.Cli.Scan;
 /// </summary>
 internal static class ScanFingerprint
 {
-    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion)
+    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null)
     {
         var text = new StringBuilder();
         void Line(string name, object? value) => text.Append(name).Append('=').Append(Convert.ToString(value, CultureInfo.InvariantCulture) ?? "null").Append('\n');
@@ -39,6 +39,17 @@ internal static class ScanFingerprint
         Line("candidate", s.Candidate);
         Line("annualizationFactor", s.AnnualizationFactor.ToString("R", CultureInfo.InvariantCulture));
         Line("target", s.Target);
+        if (format is { IsDefault: false })
+        {
+            // Only a declared form is written, so the fingerprints of scans of ISO files stay as they were.
+            Line("format", format);
+        }
+
+        if (impliedTenorDays is int days)
+        {
+            Line("impliedTenorDays", days);
+        }
+
         return Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text.ToString())));
     }
 }

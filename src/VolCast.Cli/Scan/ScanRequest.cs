@@ -20,4 +20,11 @@ internal sealed record ScanRequest(
     string? Config,
     string OutputFolder,
     int Jobs,
-    bool Force);
+    bool Force)
+{
+    /// <summary>Gets how every price and implied file is written (date format, delimiter, decimal separator).</summary>
+    public CsvFormat Format { get; init; } = CsvFormat.Default;
+
+    /// <summary>Gets the implied files' declared tenor in calendar days, or null when it is the backtest's own.</summary>
+    public int? ImpliedTenorDays { get; init; }
+}

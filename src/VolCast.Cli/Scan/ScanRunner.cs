@@ -40,7 +40,7 @@ internal static class ScanRunner
 
         // The scan owns OUT/assets: what killed runs left there is removed before any name is looked at.
         ResultsFolder.RemoveStaleTemporaries(Path.Combine(request.OutputFolder, AssetsFolder));
-        var fingerprint = ScanFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion());
+        var fingerprint = ScanFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays);
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
         var rows = new ScanAssetRow?[assets.Count];
         var gate = new Lock();
@@ -65,6 +65,8 @@ internal static class ScanRunner
                             Path.Combine(request.OutputFolder, AssetsFolder, asset.Name), fingerprint, request.Force)
                         {
                             ConfigSha256 = configSha256,
+                            Format = request.Format,
+                            ImpliedTenorDays = request.ImpliedTenorDays,
                         }.Run(cancellationToken);
                     ScanProgress report;
                     lock (gate)

@@ -39,6 +39,14 @@ internal sealed class BacktestConfigDocument
 
     public string? Target { get; set; }
 
+    public string? DateFormat { get; set; }
+
+    public string? Delimiter { get; set; }
+
+    public string? Decimal { get; set; }
+
+    public string? ImpliedTenor { get; set; }
+
     public string? Suspect { get; set; }
 
     public bool? SkipBadRows { get; set; }

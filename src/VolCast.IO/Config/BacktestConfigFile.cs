@@ -18,7 +18,9 @@ namespace VolCast.IO.Config;
 /// "baseline": "implied", "candidate": "garch", "annualizationFactor": 252, "target": "squared-returns",
 /// "costs": { "optionHalfSpreadVolPoints": 0.25, "hedgeCostBps": 1.0 }, "rate": 0, "dividendYield": 0,
 /// "entries": "one-at-a-time", "ruleSides": "sell-only", "hedgeVolatility": "implied",
-/// "ruleThresholds": [0, 0.005, 0.01, 0.02, 0.03, 0.04, 0.05], "snooping": { "replications": 1000, "blockLength": 21, "seed": 1 } }</c>.
+/// "ruleThresholds": [0, 0.005, 0.01, 0.02, 0.03, 0.04, 0.05], "snooping": { "replications": 1000, "blockLength": 21, "seed": 1 },
+/// "dateFormat": "dd.MM.yyyy", "delimiter": ";", "decimal": ",", "impliedTenor": "30d" }</c>. The last four say how the input
+/// files are written and what the implied series covers; they are read with <see cref="ReadInputForm"/>.
 /// Unknown properties are errors (a misspelt setting must not be silently ignored). Comments and trailing commas are allowed.
 /// </remarks>
 public static class BacktestConfigFile
@@ -47,6 +49,52 @@ public static class BacktestConfigFile
         ArgumentNullException.ThrowIfNull(path);
         var bytes = InputFiles.ReadCapped(path, "a JSON configuration file", InputFiles.MaxConfigBytes);
         return Parse(Reading.InputText.Decode(bytes, path), path);
+    }
+
+    /// <summary>Reads how the input files are written (dateFormat, delimiter, decimal) and the implied series' tenor (impliedTenor).</summary>
+    /// <param name="path">The JSON file.</param>
+    /// <returns>The form (the default for keys left out) and the implied tenor in calendar days, or null when not given.</returns>
+    /// <exception cref="InputDataException">The file cannot be read or a value is not accepted (the message names the key).</exception>
+    public static (CsvFormat Format, int? ImpliedTenorDays) ReadInputForm(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        var bytes = InputFiles.ReadCapped(path, "a JSON configuration file", InputFiles.MaxConfigBytes);
+        return ParseInputForm(Reading.InputText.Decode(bytes, path), path);
+    }
+
+    /// <summary>Parses the input-form keys of configuration text (see <see cref="ReadInputForm"/>).</summary>
+    /// <param name="json">The JSON text.</param>
+    /// <param name="file">The file name to put in error messages.</param>
+    /// <returns>The form and the implied tenor in calendar days, or null.</returns>
+    /// <exception cref="InputDataException">The text is not a valid configuration or a value is not accepted.</exception>
+    public static (CsvFormat Format, int? ImpliedTenorDays) ParseInputForm(string json, string file)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        ArgumentNullException.ThrowIfNull(file);
+        Parse(json, file);
+        return InputForm(JsonSerializer.Deserialize<BacktestConfigDocument>(json, Options)!, file);
+    }
+
+    private static (CsvFormat Format, int? ImpliedTenorDays) InputForm(BacktestConfigDocument doc, string file)
+    {
+        CsvFormat format;
+        try
+        {
+            format = CsvFormat.Parse(doc.DateFormat, doc.Delimiter, doc.Decimal, key => key switch { "date-format" => "dateFormat", _ => key });
+        }
+        catch (ArgumentException ex)
+        {
+            var property = ex.Message.StartsWith("dateFormat", StringComparison.Ordinal) ? "dateFormat" : ex.Message.StartsWith("delimiter", StringComparison.Ordinal) ? "delimiter" : "decimal";
+            throw new InputDataException(file, null, property, ex.Message);
+        }
+
+        int? tenor = null;
+        if (doc.ImpliedTenor is string text)
+        {
+            tenor = ImpliedTenor.Parse(text) ?? throw Bad(file, "impliedTenor", $"must be a number of calendar days from 1 to {ImpliedTenor.MaxDays} followed by d, such as \"30d\" (was \"{Cut(text)}\")");
+        }
+
+        return (format, tenor);
     }
 
     /// <summary>Parses configuration text.</summary>
@@ -89,6 +137,8 @@ public static class BacktestConfigFile
 
     private static BacktestSettings ToSettings(BacktestConfigDocument doc, string file)
     {
+        // The input form is not a setting of the backtest, but a bad value must stop the read like any other.
+        InputForm(doc, file);
         var s = new BacktestSettings();
         if (doc.Horizon is not null && doc.Tenor is not null)
         {

@@ -55,7 +55,17 @@ public static class OptionQuoteCsvReader
     /// <param name="defaultDividendYield">The dividend yield for rows without one (0 when not given).</param>
     /// <returns>The quotes in file order, each with its 1-based line.</returns>
     /// <exception cref="InputDataException">The file is missing, or its content cannot be used (see remarks).</exception>
-    public static IReadOnlyList<OptionQuote> Read(string path, double? defaultRate, double defaultDividendYield = 0)
+    public static IReadOnlyList<OptionQuote> Read(string path, double? defaultRate, double defaultDividendYield = 0) =>
+        Read(path, defaultRate, defaultDividendYield, CsvFormat.Default);
+
+    /// <summary>Reads every quote of a file written in a declared form (date format, delimiter, decimal separator).</summary>
+    /// <param name="path">The quotes file.</param>
+    /// <param name="defaultRate">The rate for rows without one; null when every row must carry its own.</param>
+    /// <param name="defaultDividendYield">The dividend yield for rows without one.</param>
+    /// <param name="format">The file's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The quotes in file order, each with its 1-based line.</returns>
+    /// <exception cref="InputDataException">The file is missing, or its content cannot be used (see remarks).</exception>
+    public static IReadOnlyList<OptionQuote> Read(string path, double? defaultRate, double defaultDividendYield, CsvFormat format)
     {
         ArgumentNullException.ThrowIfNull(path);
         if (!File.Exists(path))
@@ -64,7 +74,7 @@ public static class OptionQuoteCsvReader
         }
 
         using var text = new StreamReader(new MemoryStream(InputFiles.ReadCapped(path, "a CSV file of option quotes", InputText.MaxBytes)));
-        return Read(text, path, defaultRate, defaultDividendYield);
+        return Read(text, path, defaultRate, defaultDividendYield, format);
     }
 
     /// <summary>Reads every quote from a text reader.</summary>
@@ -74,13 +84,25 @@ public static class OptionQuoteCsvReader
     /// <param name="defaultDividendYield">The dividend yield for rows without one.</param>
     /// <returns>The quotes in order, each with its 1-based line.</returns>
     /// <exception cref="InputDataException">The content cannot be used (see remarks).</exception>
-    public static IReadOnlyList<OptionQuote> Read(TextReader reader, string file, double? defaultRate, double defaultDividendYield = 0)
+    public static IReadOnlyList<OptionQuote> Read(TextReader reader, string file, double? defaultRate, double defaultDividendYield = 0) =>
+        Read(reader, file, defaultRate, defaultDividendYield, CsvFormat.Default);
+
+    /// <summary>Reads every quote from a text reader, written in a declared form.</summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="file">The name to use in error messages.</param>
+    /// <param name="defaultRate">The rate for rows without one; null when every row must carry its own.</param>
+    /// <param name="defaultDividendYield">The dividend yield for rows without one.</param>
+    /// <param name="format">The text's form; <see cref="CsvFormat.Default"/> is ISO dates, commas and '.'.</param>
+    /// <returns>The quotes in order, each with its 1-based line.</returns>
+    /// <exception cref="InputDataException">The content cannot be used (see remarks).</exception>
+    public static IReadOnlyList<OptionQuote> Read(TextReader reader, string file, double? defaultRate, double defaultDividendYield, CsvFormat format)
     {
         ArgumentNullException.ThrowIfNull(reader);
         ArgumentNullException.ThrowIfNull(file);
+        ArgumentNullException.ThrowIfNull(format);
         // The shared row reader refuses a line break inside quotes, so a quote left open is reported on the line
         // where its record starts, not on the last line the parser consumed looking for the closing quote.
-        using var rows = new CsvRowReader(reader.ReadToEnd(), file);
+        using var rows = new CsvRowReader(reader.ReadToEnd(), file, format.Delimiter);
         if (!rows.TryRead(out var headerRow))
         {
             throw new InputDataException(file, 1, null, "the file is empty; expected a header row: date,underlying,expiry,strike,type,price[,rate,dividend_yield].");
@@ -88,7 +110,7 @@ public static class OptionQuoteCsvReader
 
         var header = Trimmed(headerRow.Cells);
         rows.UseHeader(header);
-        var columns = MapHeader(header, file, headerRow.Line);
+        var columns = MapHeader(header, file, headerRow.Line, format.Delimiter);
         if (!columns.ContainsKey("rate") && defaultRate is null)
         {
             throw new InputDataException(file, headerRow.Line, "rate",
@@ -106,7 +128,7 @@ public static class OptionQuoteCsvReader
                     string.Create(CultureInfo.InvariantCulture, $"expected {header.Length} fields as in the header, found {record.Length}."));
             }
 
-            var row = new Row(record, columns, file, line);
+            var row = new Row(record, columns, file, line, format);
             var date = row.Date("date");
             var underlying = row.Positive("underlying");
             var expiry = row.Date("expiry");
@@ -137,13 +159,11 @@ public static class OptionQuoteCsvReader
         return trimmed;
     }
 
-    private static Dictionary<string, int> MapHeader(string[] header, string file, long line)
+    private static Dictionary<string, int> MapHeader(string[] header, string file, long line, char delimiter)
     {
-        if (header.Length == 1 && header[0].IndexOfAny([';', '\t', '|']) >= 0)
+        if (header.Length == 1)
         {
-            var delimiter = header[0].Contains(';', StringComparison.Ordinal) ? "semicolon" : header[0].Contains('\t', StringComparison.Ordinal) ? "tab" : "pipe";
-            throw new InputDataException(file, (int)line, null,
-                $"the header looks {delimiter}-delimited; expected comma-separated columns date,underlying,expiry,strike,type,price. Re-export the file with commas and '.' as the decimal point.");
+            HeaderMap.CheckDelimiter(header[0], (int)line, file, "date, underlying, expiry, strike, type, price", delimiter);
         }
 
         var columns = new Dictionary<string, int>(StringComparer.Ordinal);
@@ -188,25 +208,28 @@ public static class OptionQuoteCsvReader
         return new string(buffer[..n]);
     }
 
-    private readonly struct Row(string[] record, Dictionary<string, int> columns, string file, int line)
+    private readonly struct Row(string[] record, Dictionary<string, int> columns, string file, int line, CsvFormat format)
     {
         public string Cell(string column) => record[columns[column]];
 
         public DateOnly Date(string column)
         {
             var value = Cell(column);
-            return DateOnly.TryParseExact(value, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var date)
+            return CellParser.TryDate(value, format, file, line, column, out var date)
                 && date >= CellParser.MinDate && date <= CellParser.MaxDate
                 ? date
-                : throw Error(column, value, "a date in ISO 8601 form yyyy-MM-dd from 1800-01-01 to 9989-12-31, for example 2024-03-15");
+                : throw Error(column, value, format.DateFormat is null
+                    ? "a date in ISO 8601 form yyyy-MM-dd from 1800-01-01 to 9989-12-31, for example 2024-03-15 (dates written another way are read with --date-format)"
+                    : "a date written " + format.DateFormat + " (--date-format) from 1800-01-01 to 9989-12-31");
         }
 
         public double Number(string column)
         {
             var value = Cell(column);
-            return double.TryParse(value, NumberStyles.Float, CultureInfo.InvariantCulture, out var number) && double.IsFinite(number)
+            return CellParser.TryNumber(value, format, out var number) && double.IsFinite(number)
                 ? number
-                : throw Error(column, value, "a finite decimal number with '.' as the decimal point");
+                : throw Error(column, value, "a finite decimal number with '" + format.DecimalSeparator + "' as the decimal point"
+                    + (CellParser.IsMissing(value) ? " (" + ValueText.Quote(value) + " marks a missing value, but the column is required on every quote)" : string.Empty));
         }
 
         public double Positive(string column)
@@ -217,7 +240,7 @@ public static class OptionQuoteCsvReader
 
         public double? Rate(string column, double? fallback)
         {
-            if (!columns.ContainsKey(column) || Cell(column).Length == 0)
+            if (!columns.ContainsKey(column) || CellParser.IsMissing(Cell(column)))
             {
                 return fallback ?? throw new InputDataException(file, line, column,
                     "the cell is empty and no --rate was given; fill in the rate (decimal, 0.05 = 5%) or pass --rate.");

@@ -16,19 +16,27 @@ namespace VolCast.IO.Reading;
 internal sealed class CsvRowReader : IDisposable
 {
     private readonly string _file;
+    private readonly char _delimiter;
     private readonly StringReader _text;
     private readonly CsvParser _parser;
     private string[]? _header;
     private (int Line, string Field, string RawRecord)? _badData;
 
-    /// <summary>Starts reading a text.</summary>
+    /// <summary>Starts reading a comma-separated text.</summary>
     public CsvRowReader(string text, string file)
+        : this(text, file, ',')
+    {
+    }
+
+    /// <summary>Starts reading a text whose cells are separated by <paramref name="delimiter"/>.</summary>
+    public CsvRowReader(string text, string file, char delimiter)
     {
         _file = file;
+        _delimiter = delimiter;
         _text = new StringReader(text);
         var config = new CsvConfiguration(CultureInfo.InvariantCulture)
         {
-            Delimiter = ",",
+            Delimiter = delimiter.ToString(),
             Mode = CsvMode.RFC4180,
             IgnoreBlankLines = true,
             LineBreakInQuotedFieldIsBadData = true,
@@ -56,7 +64,7 @@ internal sealed class CsvRowReader : IDisposable
             catch (CsvHelperException e)
             {
                 throw new InputDataException(_file, _parser.Row, null,
-                    "the line could not be read as comma-separated values (" + FirstLine(e.Message) + "); expected plain cells separated by commas.");
+                    "the line could not be read as values separated by " + CsvFormat.Name(_delimiter) + " (" + FirstLine(e.Message) + "); expected plain cells separated by " + CsvFormat.Name(_delimiter) + ".");
             }
 
             if (_badData is { } bad)
@@ -108,7 +116,7 @@ internal sealed class CsvRowReader : IDisposable
         return end < 0 ? message : message[..end];
     }
 
-    /// <summary>Names the header column of a malformed cell by counting the commas before it, outside quotes.</summary>
+    /// <summary>Names the header column of a malformed cell by counting the delimiters before it, outside quotes.</summary>
     private string? ColumnOf(string field, string rawRecord)
     {
         if (_header is null || field.Length == 0)
@@ -130,7 +138,7 @@ internal sealed class CsvRowReader : IDisposable
             {
                 quoted = !quoted;
             }
-            else if (rawRecord[i] == ',' && !quoted)
+            else if (rawRecord[i] == _delimiter && !quoted)
             {
                 index++;
             }

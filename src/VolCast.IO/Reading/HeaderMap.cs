@@ -66,8 +66,19 @@ internal sealed class HeaderMap
     /// <param name="aliases">Normalized spelling → canonical column name.</param>
     /// <param name="expected">The expected header, for messages (e.g. "date, open, high, low, close").</param>
     /// <exception cref="InputDataException">The header looks like another delimiter, like data, or repeats a column.</exception>
-    public static HeaderMap Resolve(CsvRow header, string file, IReadOnlyDictionary<string, string> aliases, string expected)
+    public static HeaderMap Resolve(CsvRow header, string file, IReadOnlyDictionary<string, string> aliases, string expected) =>
+        Resolve(header, file, aliases, expected, CsvFormat.Default);
+
+    /// <summary>Reads a header row of a file in a declared form.</summary>
+    /// <param name="header">The first non-blank row.</param>
+    /// <param name="file">The file, for messages.</param>
+    /// <param name="aliases">Normalized spelling → canonical column name.</param>
+    /// <param name="expected">The expected header, for messages (e.g. "date, open, high, low, close").</param>
+    /// <param name="format">The file's declared form (its delimiter and date format).</param>
+    /// <exception cref="InputDataException">The header looks like another delimiter, like data, or repeats a column.</exception>
+    public static HeaderMap Resolve(CsvRow header, string file, IReadOnlyDictionary<string, string> aliases, string expected, CsvFormat format)
     {
+        ArgumentNullException.ThrowIfNull(format);
         var names = new string[header.Cells.Length];
         for (var i = 0; i < names.Length; i++)
         {
@@ -76,12 +87,12 @@ internal sealed class HeaderMap
 
         if (names.Length == 1)
         {
-            CheckDelimiter(names[0], header.Line, file, expected);
+            CheckDelimiter(names[0], header.Line, file, expected, format.Delimiter);
         }
 
-        if (names.Length > 0 && DateOnly.TryParseExact(names[0], "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out _))
+        if (names.Length > 0 && DateOnly.TryParseExact(names[0], format.DateFormatOrIso, CultureInfo.InvariantCulture, DateTimeStyles.None, out _))
         {
-            throw new InputDataException(file, header.Line, null, "the first line " + ValueText.Quote(string.Join(',', names))
+            throw new InputDataException(file, header.Line, null, "the first line " + ValueText.Quote(string.Join(format.Delimiter, names))
                 + " looks like data, not a header; expected a header row first: " + expected + ".");
         }
 
@@ -163,16 +174,19 @@ internal sealed class HeaderMap
         return sb.ToString();
     }
 
-    private static void CheckDelimiter(string only, int line, string file, string expected)
+    /// <summary>Refuses a one-cell header that holds another delimiter, naming the --delimiter that would read it.</summary>
+    internal static void CheckDelimiter(string only, int line, string file, string expected, char declared)
     {
-        string? kind = only.Contains(';', StringComparison.Ordinal) ? "semicolon"
-            : only.Contains('\t', StringComparison.Ordinal) ? "tab"
-            : only.Contains('|', StringComparison.Ordinal) ? "pipe"
-            : null;
-        if (kind is not null)
+        (char Char, string Kind, string Option)[] others = [(';', "semicolon", "';'"), ('\t', "tab", "tab"), ('|', "pipe", "'|'"), (',', "comma", "','")];
+        foreach (var (c, kind, option) in others)
         {
-            throw new InputDataException(file, line, null, "the header " + ValueText.Quote(only) + " looks " + kind
-                + "-delimited; VolCast reads comma-separated files with '.' as the decimal point: re-export the file as CSV with commas, header " + expected + ".");
+            if (c != declared && only.Contains(c, StringComparison.Ordinal))
+            {
+                var declaredText = declared == ',' ? "VolCast reads comma-separated files by default" : "the file was declared with --delimiter " + CsvFormat.Name(declared);
+                throw new InputDataException(file, line, null, "the header " + ValueText.Quote(only) + " looks " + kind + "-delimited, but " + declaredText
+                    + ": give --delimiter " + option + (c == ';' ? " (and --decimal ',' when numbers are written with a decimal comma)" : string.Empty)
+                    + ", or re-export the file; expected the header " + expected + ".");
+            }
         }
     }
 }

@@ -15,9 +15,12 @@ internal static class CliRunner
     }
 
     /// <summary>Runs the built executable (volcast.dll beside the test assembly) as a child process.</summary>
-    public static CliResult RunProcess(string workingDirectory, params string[] args)
+    public static CliResult RunProcess(string workingDirectory, params string[] args) =>
+        RunDll(Path.Combine(AppContext.BaseDirectory, "volcast.dll"), workingDirectory, args);
+
+    /// <summary>Runs a copy of the built executable at <paramref name="dll"/> as a child process.</summary>
+    public static CliResult RunDll(string dll, string workingDirectory, params string[] args)
     {
-        var dll = Path.Combine(AppContext.BaseDirectory, "volcast.dll");
         var start = new ProcessStartInfo("dotnet")
         {
             WorkingDirectory = workingDirectory,
