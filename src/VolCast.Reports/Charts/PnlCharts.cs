@@ -164,19 +164,7 @@ internal static class PnlCharts
                 }
 
                 var color = ChartStyle.Rule(rule.Rule);
-                var counts = Counts(values, edges, width);
-                var xs = new double[(counts.Length * 2) + 2];
-                var ys = new double[xs.Length];
-                xs[0] = edges[0];
-                for (var i = 0; i < counts.Length; i++)
-                {
-                    xs[(2 * i) + 1] = edges[i];
-                    ys[(2 * i) + 1] = counts[i];
-                    xs[(2 * i) + 2] = edges[i + 1];
-                    ys[(2 * i) + 2] = counts[i];
-                }
-
-                xs[^1] = edges[^1];
+                var (xs, ys) = ReportCharts.StepOutline(edges, Counts(values, edges, width));
                 var step = plot.Add.ScatterLine(xs, ys);
                 step.Color = color;
                 step.LineWidth = rule.Rule == TradingRule.Proposed ? 2.5f : 1.8f;

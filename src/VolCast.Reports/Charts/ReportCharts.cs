@@ -487,6 +487,27 @@ public static class ReportCharts
         return shares;
     }
 
+    /// <summary>A histogram's step outline: each bin's height held flat across its width, closed to zero at both ends.</summary>
+    /// <param name="edges">The bin edges (one more than the heights).</param>
+    /// <param name="heights">The height of each bin.</param>
+    /// <returns>The outline's points.</returns>
+    internal static (double[] Xs, double[] Ys) StepOutline(double[] edges, double[] heights)
+    {
+        var xs = new double[(heights.Length * 2) + 2];
+        var ys = new double[xs.Length];
+        xs[0] = edges[0];
+        for (var i = 0; i < heights.Length; i++)
+        {
+            xs[(2 * i) + 1] = edges[i];
+            ys[(2 * i) + 1] = heights[i];
+            xs[(2 * i) + 2] = edges[i + 1];
+            ys[(2 * i) + 2] = heights[i];
+        }
+
+        xs[^1] = edges[^1];
+        return (xs, ys);
+    }
+
     private static void AddHistogram(Plot plot, double[] values, double[] edges, double width, Color color, string label, bool filled)
     {
         if (values.Length == 0)
@@ -494,21 +515,7 @@ public static class ReportCharts
             return;
         }
 
-        var shares = Shares(values, edges, width);
-
-        // A step outline: each bin's share held flat across its width, closed to zero at both ends.
-        var xs = new double[(shares.Length * 2) + 2];
-        var ys = new double[xs.Length];
-        xs[0] = edges[0];
-        for (var i = 0; i < shares.Length; i++)
-        {
-            xs[(2 * i) + 1] = edges[i];
-            ys[(2 * i) + 1] = shares[i];
-            xs[(2 * i) + 2] = edges[i + 1];
-            ys[(2 * i) + 2] = shares[i];
-        }
-
-        xs[^1] = edges[^1];
+        var (xs, ys) = StepOutline(edges, Shares(values, edges, width));
         var fill = plot.Add.ScatterLine(xs, ys);
         fill.Color = color;
         fill.LineWidth = 2.5f;
