@@ -20,7 +20,7 @@ internal sealed record BacktestJob(
     string OutputFolder,
     bool Force)
 {
-    /// <summary>Gets the price file's bytes when the caller has already read them (the scan hashes them first), or null to read the file.</summary>
+    /// <summary>Gets the price file's bytes when the caller has already read them (the batch hashes them first), or null to read the file.</summary>
     public InputBytes? PricesRead { get; init; }
 
     /// <summary>Gets the implied file's bytes when already read, or null.</summary>

@@ -5,7 +5,7 @@ using VolCast.IO.Config;
 
 namespace VolCast.Cli;
 
-/// <summary>Turns the options that <c>backtest</c> and <c>scan</c> share into resolved, checked settings.</summary>
+/// <summary>Turns the options that <c>backtest</c> and <c>batch</c> share into resolved, checked settings.</summary>
 internal static class BacktestOptions
 {
     /// <summary>Reads the configuration (if any), applies the command-line overrides and checks the result.</summary>

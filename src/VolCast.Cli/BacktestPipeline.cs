@@ -25,7 +25,7 @@ internal static class BacktestPipeline
     /// <param name="stage">Told as each stage starts, or null.</param>
     /// <param name="writeMore">
     /// Writes further files of the same run into the staging folder it is given and returns their names, so they are
-    /// committed (and listed in run.json) with the rest; or null. The scan writes its record this way.
+    /// committed (and listed in run.json) with the rest; or null. The batch writes its record this way.
     /// </param>
     /// <param name="cancellationToken">Stops the run at any stage before the commit; nothing is then written.</param>
     /// <returns>The run that was written.</returns>

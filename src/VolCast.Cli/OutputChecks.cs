@@ -3,7 +3,7 @@ namespace VolCast.Cli;
 /// <summary>
 /// Checks an output path before any computing, so a run that could never write its results stops at once with a clear
 /// message: empty paths, the root, a path under a file, a folder where a file is wanted, a parent that cannot be
-/// written, and (for a scan) an output folder that is, holds or lies inside an input folder, compared by real path
+/// written, and (for a batch) an output folder that is, holds or lies inside an input folder, compared by real path
 /// with symbolic links followed.
 /// </summary>
 internal static class OutputChecks

@@ -25,7 +25,7 @@ internal static class Program
         root.Subcommands.Add(FitCommand.Create(console));
         root.Subcommands.Add(ConeCommand.Create(console));
         root.Subcommands.Add(BacktestCommand.Create(console));
-        root.Subcommands.Add(ScanCommand.Create(console));
+        root.Subcommands.Add(BatchCommand.Create(console));
 
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)

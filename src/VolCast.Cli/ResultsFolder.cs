@@ -42,10 +42,10 @@ internal sealed partial class ResultsFolder : IDisposable
 
     /// <summary>
     /// Gets every name a run of this tool may write into a results folder: the data files, the report and its charts, and
-    /// the scan's record. A folder whose run.json has no manifest (an earlier version wrote it) is taken to hold these.
+    /// the batch's record. A folder whose run.json has no manifest (an earlier version wrote it) is taken to hold these.
     /// </summary>
     public static IReadOnlyList<string> KnownNames { get; } =
-        [.. BacktestResultsWriter.FileNames, BacktestResultsWriter.RejectedRowsFileName, .. Reports.ReportWriter.FileNames, ScanAssetJson.FileName];
+        [.. BacktestResultsWriter.FileNames, BacktestResultsWriter.RejectedRowsFileName, .. Reports.ReportWriter.FileNames, BatchAssetJson.FileName];
 
     /// <summary>
     /// Checks an output folder before any computing: it must not exist unless <paramref name="force"/>; none of the

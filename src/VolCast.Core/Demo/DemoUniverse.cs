@@ -1,7 +1,7 @@
 namespace VolCast.Core.Demo;
 
 /// <summary>
-/// A small invented universe for trying a scan over many names: twenty assets with different volatility levels,
+/// A small invented universe for trying a batch over many names: twenty assets with different volatility levels,
 /// regimes, persistence, leverage, jumps and implied premiums. Every name is of our own making.
 /// </summary>
 /// <remarks>

@@ -54,7 +54,7 @@ public static class SettingLimits
     /// <summary>Gets the mean block length of the data-snooping bootstrap (<c>snooping.blockLength</c>).</summary>
     public static SettingRange SnoopingBlockLength { get; } = new("snooping.blockLength", 1, 2520, "dates");
 
-    /// <summary>Gets how many names a scan runs at once (<c>scan --jobs</c>).</summary>
+    /// <summary>Gets how many names a batch runs at once (<c>batch --jobs</c>).</summary>
     public static SettingRange Jobs { get; } = new("--jobs", 1, 256, string.Empty);
 
     /// <summary>Gets every range, for the help text and the README.</summary>

@@ -4,7 +4,7 @@ using VolCast.IO.Results;
 namespace VolCast.IO.Tables;
 
 /// <summary>
-/// The scan's cross-name table, defined once: per forecaster, on how many names it beats implied on QLIKE before and
+/// The batch's cross-name table, defined once: per forecaster, on how many names it beats implied on QLIKE before and
 /// after the Benjamini-Hochberg correction (<see cref="VersusImpliedFdr"/>). beats-implied.csv is this table, and the
 /// summary page shows the same rows.
 /// </summary>
@@ -22,10 +22,10 @@ public static class VersusImpliedTable
         new("fdr_level", "the false discovery rate level q", _ => TableCell.Number(VersusImpliedFdr.DefaultLevel)),
     ]);
 
-    /// <summary>The rows of a scan: every name's tests of each forecaster against implied, counted per forecaster.</summary>
-    /// <param name="rows">The scan's rows (failed rows and rows without implied contribute nothing).</param>
+    /// <summary>The rows of a batch: every name's tests of each forecaster against implied, counted per forecaster.</summary>
+    /// <param name="rows">The batch's rows (failed rows and rows without implied contribute nothing).</param>
     /// <returns>One row per forecaster, in the order forecasters first appear.</returns>
-    public static IReadOnlyList<VersusImpliedFdrRow> Rows(IEnumerable<ScanAssetRow> rows)
+    public static IReadOnlyList<VersusImpliedFdrRow> Rows(IEnumerable<BatchAssetRow> rows)
     {
         ArgumentNullException.ThrowIfNull(rows);
         return VersusImpliedFdr.Count(rows.SelectMany(r => r.VersusImplied).Select(t => (t.Spec, t.Statistic, t.PValue)));

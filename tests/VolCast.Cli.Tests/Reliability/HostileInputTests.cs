@@ -4,7 +4,7 @@ using VolCast.Cli.Tests.Support;
 
 namespace VolCast.Cli.Tests.Reliability;
 
-// Inputs a hostile or careless user gives: names that would escape the scan folder, an output folder that overlaps
+// Inputs a hostile or careless user gives: names that would escape the batch folder, an output folder that overlaps
 // the inputs, pipes and devices where files belong, settings far outside their range, output paths that cannot be
 // written, and values that hide a bad print. Each used to lose data, hang, overflow or pass silently (invented files,
 // common practice, no source).
@@ -20,14 +20,14 @@ public sealed class HostileInputTests : IDisposable
     [InlineData(".hidden.csv", "'.hidden'")]
     [InlineData("a b.csv", "' '")]
     [InlineData("=cmd.csv", "'=cmd'")]
-    public void Scan_UnsafeAssetName_FailsThatNameOnlyAndWritesNothingOutsideItsFolder(string fileName, string named)
+    public void Batch_UnsafeAssetName_FailsThatNameOnlyAndWritesNothingOutsideItsFolder(string fileName, string named)
     {
         var prices = Directory.CreateDirectory(Path.Combine(_work, "prices")).FullName;
         ReliabilityFiles.Prices(prices, "good.csv", 300, seed: 1);
         ReliabilityFiles.Prices(prices, fileName, 300, seed: 2);
         var output = Path.Combine(_work, "out");
 
-        var result = CliRunner.Run("scan", "--prices-dir", prices, "--out", output, "--config", ReliabilityFiles.FastConfig(_work), "--jobs", "1");
+        var result = CliRunner.Run("batch", "--prices-dir", prices, "--out", output, "--config", ReliabilityFiles.FastConfig(_work), "--jobs", "1");
 
         Assert.Equal(3, result.ExitCode);
         Assert.Contains(named, result.Stderr, StringComparison.Ordinal);
@@ -39,13 +39,13 @@ public sealed class HostileInputTests : IDisposable
     }
 
     [Fact]
-    public void Scan_CapitalCsvExtension_IsRead()
+    public void Batch_CapitalCsvExtension_IsRead()
     {
         var prices = Directory.CreateDirectory(Path.Combine(_work, "prices")).FullName;
         ReliabilityFiles.Prices(prices, "UPPER.CSV", 300, seed: 3);
         var output = Path.Combine(_work, "out");
 
-        var result = CliRunner.Run("scan", "--prices-dir", prices, "--out", output, "--config", ReliabilityFiles.FastConfig(_work));
+        var result = CliRunner.Run("batch", "--prices-dir", prices, "--out", output, "--config", ReliabilityFiles.FastConfig(_work));
 
         Assert.True(result.ExitCode == 0, result.Stderr);
         Assert.True(File.Exists(Path.Combine(output, "assets", "UPPER", "metrics.csv")));
@@ -56,7 +56,7 @@ public sealed class HostileInputTests : IDisposable
     [InlineData("inside")]
     [InlineData("contains")]
     [InlineData("alias")]
-    public void Scan_OutputOverlappingThePricesFolder_RefusedBeforeAnythingIsWritten(string how)
+    public void Batch_OutputOverlappingThePricesFolder_RefusedBeforeAnythingIsWritten(string how)
     {
         var prices = Directory.CreateDirectory(Path.Combine(_work, "prices")).FullName;
         var input = ReliabilityFiles.Prices(prices, "summary.csv", 300, seed: 4);
@@ -81,7 +81,7 @@ public sealed class HostileInputTests : IDisposable
                 break;
         }
 
-        var result = CliRunner.Run("scan", "--prices-dir", pricesArg, "--out", output, "--force");
+        var result = CliRunner.Run("batch", "--prices-dir", pricesArg, "--out", output, "--force");
 
         Assert.Equal(2, result.ExitCode);
         Assert.Contains("input folder", result.Stderr, StringComparison.Ordinal);
@@ -90,7 +90,7 @@ public sealed class HostileInputTests : IDisposable
     }
 
     [Fact]
-    public void Scan_PipeAndDeviceAmongPriceFiles_FailThoseNamesWithoutHanging()
+    public void Batch_PipeAndDeviceAmongPriceFiles_FailThoseNamesWithoutHanging()
     {
         if (OperatingSystem.IsWindows())
         {
@@ -104,13 +104,13 @@ public sealed class HostileInputTests : IDisposable
         var output = Path.Combine(_work, "out");
         var clock = Stopwatch.StartNew();
 
-        var result = CliRunner.Run("scan", "--prices-dir", prices, "--out", output, "--config", ReliabilityFiles.FastConfig(_work), "--jobs", "1");
+        var result = CliRunner.Run("batch", "--prices-dir", prices, "--out", output, "--config", ReliabilityFiles.FastConfig(_work), "--jobs", "1");
 
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("named pipe", result.Stderr, StringComparison.Ordinal);
         Assert.Contains("character device", result.Stderr, StringComparison.Ordinal);
         Assert.True(File.Exists(Path.Combine(output, "assets", "good", "metrics.csv")));
-        Assert.True(clock.Elapsed < TimeSpan.FromMinutes(2), "the scan must not wait on the pipe");
+        Assert.True(clock.Elapsed < TimeSpan.FromMinutes(2), "the batch must not wait on the pipe");
     }
 
     [Theory]

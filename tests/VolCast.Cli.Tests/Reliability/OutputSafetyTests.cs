@@ -216,15 +216,15 @@ public sealed class OutputSafetyTests : IDisposable
     }
 
     [Fact]
-    public void Scan_StaleTemporaryFolderInAssets_IsRemovedAndNeverReadAsAName()
+    public void Batch_StaleTemporaryFolderInAssets_IsRemovedAndNeverReadAsAName()
     {
         var pricesDir = Directory.CreateDirectory(Path.Combine(_work, "prices")).FullName;
         ReliabilityFiles.Prices(pricesDir, "alpha.csv", 400, seed: 11);
-        var output = Path.Combine(_work, "scan");
+        var output = Path.Combine(_work, "batch");
         var stale = Directory.CreateDirectory(Path.Combine(output, "assets", $".alpha.{DeadProcessId()}.{Guid.NewGuid():N}.tmp")).FullName;
-        File.WriteAllText(Path.Combine(stale, "scan.json"), "{}");
+        File.WriteAllText(Path.Combine(stale, "batch.json"), "{}");
 
-        var result = CliRunner.Run("scan", "--prices-dir", pricesDir, "--config", ReliabilityFiles.FastConfig(_work), "--out", output, "--jobs", "1");
+        var result = CliRunner.Run("batch", "--prices-dir", pricesDir, "--config", ReliabilityFiles.FastConfig(_work), "--out", output, "--jobs", "1");
 
         Assert.True(result.ExitCode == 0, result.Stderr);
         Assert.False(Directory.Exists(stale));

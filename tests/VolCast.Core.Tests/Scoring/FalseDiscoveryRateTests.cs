@@ -7,12 +7,12 @@ namespace VolCast.Core.Tests.Scoring;
 
 public sealed class FalseDiscoveryRateTests
 {
-    private static readonly string FixturePath = Path.Combine(AppContext.BaseDirectory, "Fixtures", "Scan", "bh-reference.csv");
+    private static readonly string FixturePath = Path.Combine(AppContext.BaseDirectory, "Fixtures", "Batch", "bh-reference.csv");
 
     [Fact]
     public void BenjaminiHochberg_RFixture_MatchesPAdjust()
     {
-        // R 4.2.2 stats::p.adjust(method = "BH"), Fixtures/Scan/make-bh-fixture.R [C]: an independent recomputation.
+        // R 4.2.2 stats::p.adjust(method = "BH"), Fixtures/Batch/make-bh-fixture.R [C]: an independent recomputation.
         var rows = File.ReadAllLines(FixturePath).Where(l => !l.StartsWith('#')).Skip(1)
             .Select(l => l.Split(','))
             .Select(f => (Case: int.Parse(f[0], CultureInfo.InvariantCulture), P: double.Parse(f[2], CultureInfo.InvariantCulture), Bh: double.Parse(f[3], CultureInfo.InvariantCulture)))

@@ -10,7 +10,7 @@ public sealed class BeatsImpliedCsvTests
     {
         // Hand-worked, common practice, no source: p = 0.01, 0.04, 0.03, 0.20 with m = 4 sorted 0.01, 0.03, 0.04, 0.20
         // give BH-adjusted 0.04, 0.0533, 0.0533, 0.20; at q = 0.05 only the first is a discovery.
-        ScanAssetRow[] rows =
+        BatchAssetRow[] rows =
         [
             Row("n1", -2.9, 0.01),
             Row("n2", -2.1, 0.04),
@@ -28,11 +28,11 @@ public sealed class BeatsImpliedCsvTests
             writer.ToString());
     }
 
-    private static ScanAssetRow Row(string name, double dm, double p) => new()
+    private static BatchAssetRow Row(string name, double dm, double p) => new()
     {
         Name = name,
         Succeeded = true,
         HasImplied = true,
-        VersusImplied = [new ScanForecasterTest("garch", dm, p)],
+        VersusImplied = [new BatchForecasterTest("garch", dm, p)],
     };
 }

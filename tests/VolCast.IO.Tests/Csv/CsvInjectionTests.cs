@@ -45,12 +45,12 @@ public sealed class CsvInjectionTests
 
     [Theory]
     [MemberData(nameof(Hostile))]
-    public void ScanSummary_HostileAssetName_FirstCellIsNeutralised(string name, string expected)
+    public void BatchSummary_HostileAssetName_FirstCellIsNeutralised(string name, string expected)
     {
-        var row = new ScanAssetRow { Name = name, Succeeded = false, HasImplied = false, Error = name, MeanPremium = -0.5 };
+        var row = new BatchAssetRow { Name = name, Succeeded = false, HasImplied = false, Error = name, MeanPremium = -0.5 };
         using var writer = new StringWriter();
 
-        ScanSummaryCsv.Write(writer, [row]);
+        BatchSummaryCsv.Write(writer, [row]);
 
         var body = writer.ToString()[(writer.ToString().IndexOf('\n', StringComparison.Ordinal) + 1)..];
         Assert.StartsWith(expected + ",failed,", body, StringComparison.Ordinal);

@@ -5,12 +5,12 @@ using VolCast.IO.Results;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Model;
 
-namespace VolCast.Reports.Scan;
+namespace VolCast.Reports.Batch;
 
 /// <summary>The summary's charts: the distribution of Diebold-Mariano statistics against implied, and the volatility premium by name.</summary>
-internal static class ScanCharts
+internal static class BatchCharts
 {
-    public static ChartImage DmDistribution(IReadOnlyList<ScanAssetRow> rows)
+    public static ChartImage DmDistribution(IReadOnlyList<BatchAssetRow> rows)
     {
         var stats = rows.SelectMany(r => r.VersusImplied).Select(t => t.Statistic).Where(double.IsFinite).ToArray();
         var plot = ChartStyle.NewPlot("Diebold-Mariano statistics against implied, every forecaster and name", "DM statistic on QLIKE (below 0: forecaster better)", "Share of tests (%)");
@@ -45,13 +45,13 @@ internal static class ScanCharts
 
         plot.Axes.Margins(0.02, 0.05);
         return new ChartImage(
-            "scan-dm-distribution.png",
+            "batch-dm-distribution.png",
             "Distribution of Diebold-Mariano statistics",
             string.Create(CultureInfo.InvariantCulture, $"{stats.Length} tests of a forecaster against implied on QLIKE, one per forecaster and name; dashed lines at ±1.96 (the 5% two-sided level of one test, before any correction for many names)."),
             ChartStyle.Png(plot));
     }
 
-    public static ChartImage PremiumByName(IReadOnlyList<ScanAssetRow> rows)
+    public static ChartImage PremiumByName(IReadOnlyList<BatchAssetRow> rows)
     {
         var withPremium = rows.Where(r => r.MeanPremium is not null).ToArray();
         var plot = ChartStyle.NewPlot("Mean implied minus realized volatility by name", "Name", "Implied − realized (vol points, %)");
@@ -77,7 +77,7 @@ internal static class ScanCharts
         zero.LineWidth = 1;
         plot.Axes.Margins(0.02, 0.08);
         return new ChartImage(
-            "scan-premium-by-name.png",
+            "batch-premium-by-name.png",
             "Volatility premium by name",
             string.Create(CultureInfo.InvariantCulture, $"Mean of implied minus the realized volatility that followed, over the dates with both, for the {withPremium.Length} names with an implied file; above 0 implied was higher on average."),
             ChartStyle.Png(plot));

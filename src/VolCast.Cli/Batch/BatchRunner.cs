@@ -2,24 +2,24 @@ using System.Diagnostics;
 using VolCast.IO;
 using VolCast.IO.Results;
 
-namespace VolCast.Cli.Scan;
+namespace VolCast.Cli.Batch;
 
 /// <summary>
-/// Runs a scan: one <see cref="ScanAssetJob"/> per asset on a bounded number of workers, keeping only each asset's
+/// Runs a batch: one <see cref="BatchAssetJob"/> per asset on a bounded number of workers, keeping only each asset's
 /// summary row (so memory does not grow with the number of names), then writes summary.csv, beats-implied.csv and summary.html.
 /// </summary>
-internal static class ScanRunner
+internal static class BatchRunner
 {
-    /// <summary>The folder under the scan's output folder that holds one results folder per asset.</summary>
+    /// <summary>The folder under the batch's output folder that holds one results folder per asset.</summary>
     public const string AssetsFolder = "assets";
 
-    /// <summary>Runs the scan.</summary>
-    /// <param name="request">What to scan.</param>
+    /// <summary>Runs the batch.</summary>
+    /// <param name="request">What to batch.</param>
     /// <param name="progress">Receives one report per finished asset, or null.</param>
-    /// <param name="cancellationToken">Stops the scan: no new asset starts, running ones stop between forecasters, finished ones stay.</param>
+    /// <param name="cancellationToken">Stops the batch: no new asset starts, running ones stop between forecasters, finished ones stay.</param>
     /// <returns>What happened; the summary is written only when every asset finished or failed.</returns>
     /// <exception cref="UsageException">The prices folder is missing or holds no CSV file.</exception>
-    public static ScanOutcome Run(ScanRequest request, IProgress<ScanProgress>? progress, CancellationToken cancellationToken = default)
+    public static BatchOutcome Run(BatchRequest request, IProgress<BatchProgress>? progress, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(request);
         if (!Directory.Exists(request.PricesFolder))
@@ -32,17 +32,17 @@ internal static class ScanRunner
             throw new UsageException($"{request.ImpliedFolder}: the implied folder does not exist; --implied-dir must name a folder of NAME.csv implied files.");
         }
 
-        var assets = ScanAsset.Find(request.PricesFolder, request.ImpliedFolder);
+        var assets = BatchAsset.Find(request.PricesFolder, request.ImpliedFolder);
         if (assets.Count == 0)
         {
-            throw new UsageException($"{request.PricesFolder}: no .csv price file found; the scan runs one backtest per NAME.csv in this folder.");
+            throw new UsageException($"{request.PricesFolder}: no .csv price file found; the batch runs one backtest per NAME.csv in this folder.");
         }
 
-        // The scan owns OUT/assets: what killed runs left there is removed before any name is looked at.
+        // The batch owns OUT/assets: what killed runs left there is removed before any name is looked at.
         ResultsFolder.RemoveStaleTemporaries(Path.Combine(request.OutputFolder, AssetsFolder));
-        var fingerprint = ScanFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays);
+        var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays);
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
-        var rows = new ScanAssetRow?[assets.Count];
+        var rows = new BatchAssetRow?[assets.Count];
         var gate = new Lock();
         int done = 0, reused = 0, failed = 0, computed = 0;
         var clock = Stopwatch.StartNew();
@@ -59,8 +59,8 @@ internal static class ScanRunner
                     var asset = assets[i];
                     var started = clock.Elapsed;
                     var (row, wasReused) = asset.Problem is string problem
-                        ? (ScanRows.Failed(asset.Name, asset.Implied is not null, problem), false)
-                        : new ScanAssetJob(
+                        ? (BatchRows.Failed(asset.Name, asset.Implied is not null, problem), false)
+                        : new BatchAssetJob(
                             asset, request.ImpliedUnit, request.Settings, request.Config,
                             Path.Combine(request.OutputFolder, AssetsFolder, asset.Name), fingerprint, request.Force)
                         {
@@ -68,7 +68,7 @@ internal static class ScanRunner
                             Format = request.Format,
                             ImpliedTenorDays = request.ImpliedTenorDays,
                         }.Run(cancellationToken);
-                    ScanProgress report;
+                    BatchProgress report;
                     lock (gate)
                     {
                         rows[i] = row;
@@ -95,7 +95,7 @@ internal static class ScanRunner
                         TimeSpan? eta = computed == 0
                             ? null
                             : TimeSpan.FromTicks(computeTime.Ticks / computed * remaining / Math.Max(1, Math.Min(request.Jobs, Math.Max(1, remaining))));
-                        report = new ScanProgress(done, reused, failed, assets.Count, clock.Elapsed, eta, asset.Name);
+                        report = new BatchProgress(done, reused, failed, assets.Count, clock.Elapsed, eta, asset.Name);
                     }
 
                     progress?.Report(report);
@@ -113,9 +113,9 @@ internal static class ScanRunner
         var finished = rows.Where(r => r is not null).Select(r => r!).ToList();
         if (!cancelled)
         {
-            ScanSummaryWriter.Write(request, finished);
+            BatchSummaryWriter.Write(request, finished);
         }
 
-        return new ScanOutcome(finished, computed, reused, failed, cancelled);
+        return new BatchOutcome(finished, computed, reused, failed, cancelled);
     }
 }

@@ -2,27 +2,27 @@ using VolCast.IO.Results;
 using VolCast.IO.Tables;
 using VolCast.Reports.Html;
 using VolCast.Reports.Model;
-using VolCast.Reports.Scan;
+using VolCast.Reports.Batch;
 
-namespace VolCast.Reports.Tests.Scan;
+namespace VolCast.Reports.Tests.Batch;
 
-public sealed class ScanSummaryHtmlTests
+public sealed class BatchSummaryHtmlTests
 {
-    private static readonly ScanAssetRow[] Rows =
+    private static readonly BatchAssetRow[] Rows =
     [
         Row("AAA", -3.1, 0.001, 0.031),
         Row("B<b>&'\"", 0.8, 0.40, -0.012),
         new() { Name = "CCC", Succeeded = true, HasImplied = false, Dates = 500, BestQlike = "har", BestQlikeValue = -3.2 },
-        ScanRows.Failed("DDD", hasImplied: true, "DDD.csv, line 3, column 1: 'x<y' is not a date"),
+        BatchRows.Failed("DDD", hasImplied: true, "DDD.csv, line 3, column 1: 'x<y' is not a date"),
     ];
 
     [Fact]
     public void Render_Rows_SelfContainedWithEverySectionAndEscapedText()
     {
-        var html = ScanSummaryHtml.Render(Rows, [new Setting("Horizon", "21 trading days")]);
+        var html = BatchSummaryHtml.Render(Rows, [new Setting("Horizon", "21 trading days")]);
 
         Assert.Contains("content=\"" + HtmlReport.ContentSecurityPolicy + "\"", html, StringComparison.Ordinal);
-        foreach (var id in ScanSummaryHtml.SectionIds)
+        foreach (var id in BatchSummaryHtml.SectionIds)
         {
             Assert.Contains($"<section id=\"{id}\">", html, StringComparison.Ordinal);
         }
@@ -38,7 +38,7 @@ public sealed class ScanSummaryHtmlTests
         Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
         Assert.DoesNotContain("http://", html, StringComparison.Ordinal);
         Assert.DoesNotContain("https://", html, StringComparison.Ordinal);
-        var folder = Path.Combine(AppContext.BaseDirectory, "look", nameof(ScanSummaryHtmlTests));
+        var folder = Path.Combine(AppContext.BaseDirectory, "look", nameof(BatchSummaryHtmlTests));
         Directory.CreateDirectory(folder);
         File.WriteAllText(Path.Combine(folder, "summary.html"), html);
     }
@@ -48,7 +48,7 @@ public sealed class ScanSummaryHtmlTests
     {
         // Hand-worked, common practice, no source: p = 0.01, 0.04, 0.03, 0.20 with m = 4 sorted 0.01, 0.03, 0.04, 0.20
         // give BH-adjusted 0.04, 0.0533, 0.0533, 0.20; at q = 0.05 only the first is a discovery.
-        ScanAssetRow[] rows =
+        BatchAssetRow[] rows =
         [
             Row("n1", -2.9, 0.01, 0.0),
             Row("n2", -2.1, 0.04, 0.0),
@@ -67,7 +67,7 @@ public sealed class ScanSummaryHtmlTests
         Assert.Equal(0.25, row.ShareBeatsAfterFdr);
     }
 
-    private static ScanAssetRow Row(string name, double dm, double p, double premium) => new()
+    private static BatchAssetRow Row(string name, double dm, double p, double premium) => new()
     {
         Name = name,
         Succeeded = true,
@@ -78,9 +78,9 @@ public sealed class ScanSummaryHtmlTests
         BestDmStatistic = dm,
         BestDmPValue = p,
         McsMembers = ["garch", "implied"],
-        Lookbacks = [new ScanLookback("yang-zhang", "yang-zhang:21", 0.8, 12)],
+        Lookbacks = [new BatchLookback("yang-zhang", "yang-zhang:21", 0.8, 12)],
         MeanPremium = premium,
-        VersusImplied = [new ScanForecasterTest("garch", dm, p)],
+        VersusImplied = [new BatchForecasterTest("garch", dm, p)],
     };
 
     private static int CountOf(string text, string part)

@@ -3,20 +3,20 @@ using VolCast.Core.Backtest;
 
 namespace VolCast.IO.Results;
 
-/// <summary>Reduces a backtest result to its summary row, so a scan can drop the result and keep memory flat.</summary>
-public static class ScanRows
+/// <summary>Reduces a backtest result to its summary row, so a batch can drop the result and keep memory flat.</summary>
+public static class BatchRows
 {
     /// <summary>Builds the row of an asset whose backtest finished.</summary>
     /// <param name="name">The asset's name.</param>
     /// <param name="result">The backtest result.</param>
     /// <returns>The row.</returns>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
-    public static ScanAssetRow FromResult(string name, BacktestResult result)
+    public static BatchAssetRow FromResult(string name, BacktestResult result)
     {
         ArgumentNullException.ThrowIfNull(name);
         ArgumentNullException.ThrowIfNull(result);
         ForecasterMetrics? best = null;
-        var tests = ImmutableArray.CreateBuilder<ScanForecasterTest>();
+        var tests = ImmutableArray.CreateBuilder<BatchForecasterTest>();
         var members = ImmutableArray.CreateBuilder<string>();
         foreach (var m in result.Metrics)
         {
@@ -37,11 +37,11 @@ public static class ScanRows
 
             if (m.VersusImplied?.Qlike is { Statistic: double stat, PValue: double p } && double.IsFinite(stat) && p >= 0 && p <= 1)
             {
-                tests.Add(new ScanForecasterTest(m.Spec, stat, p));
+                tests.Add(new BatchForecasterTest(m.Spec, stat, p));
             }
         }
 
-        var lookbacks = ImmutableArray.CreateBuilder<ScanLookback>();
+        var lookbacks = ImmutableArray.CreateBuilder<BatchLookback>();
         foreach (var a in result.Adaptive)
         {
             if (a.DatesWithChoice == 0 || a.Candidates.IsEmpty)
@@ -68,7 +68,7 @@ public static class ScanRows
                 }
             }
 
-            lookbacks.Add(new ScanLookback(a.Family, a.Candidates[top], (double)counts[top] / a.DatesWithChoice, a.ChangeCount));
+            lookbacks.Add(new BatchLookback(a.Family, a.Candidates[top], (double)counts[top] / a.DatesWithChoice, a.ChangeCount));
         }
 
         double sum = 0;
@@ -83,7 +83,7 @@ public static class ScanRows
         }
 
         var bestDm = best?.VersusImplied?.Qlike;
-        return new ScanAssetRow
+        return new BatchAssetRow
         {
             Name = name,
             Succeeded = true,
@@ -105,6 +105,6 @@ public static class ScanRows
     /// <param name="hasImplied">Whether an implied file was found for it.</param>
     /// <param name="error">What went wrong, as the user should read it.</param>
     /// <returns>The row.</returns>
-    public static ScanAssetRow Failed(string name, bool hasImplied, string error) =>
+    public static BatchAssetRow Failed(string name, bool hasImplied, string error) =>
         new() { Name = name, Succeeded = false, HasImplied = hasImplied, Error = error };
 }

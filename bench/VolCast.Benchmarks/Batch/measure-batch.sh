@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
-# Measures the scan: wall time for 40 names against (single-name backtest time x 40 / 2), and peak RSS for 20 and
+# Measures the batch: wall time for 40 names against (single-name backtest time x 40 / 2), and peak RSS for 20 and
 # 200 names. Invented data from make-universe.py. Run from the repository root:
-#   bench/VolCast.Benchmarks/Scan/measure-scan.sh [WORK_DIR]
+#   bench/VolCast.Benchmarks/Batch/measure-batch.sh [WORK_DIR]
 set -euo pipefail
 here=$(cd "$(dirname "$0")" && pwd)
 work=${1:-$(mktemp -d)}
@@ -21,13 +21,13 @@ for k in 000 001 002; do
 done
 single=$(echo "$total / 3" | bc -l)
 s=$(date +%s.%N)
-volcast scan --prices-dir "$work/u40/prices" --implied-dir "$work/u40/implied" --iv-unit decimal --out "$work/scan40" >/dev/null
+volcast batch --prices-dir "$work/u40/prices" --implied-dir "$work/u40/implied" --iv-unit decimal --out "$work/batch40" >/dev/null
 e=$(date +%s.%N)
-scan=$(echo "$e - $s" | bc -l)
+batch=$(echo "$e - $s" | bc -l)
 target=$(echo "$single * 40 / 2" | bc -l)
-printf 'scan of 40 names: %.1f s; single x 40 / 2 = %.1f s; ratio %.3f\n' "$scan" "$target" "$(echo "$scan / $target" | bc -l)"
+printf 'batch of 40 names: %.1f s; single x 40 / 2 = %.1f s; ratio %.3f\n' "$batch" "$target" "$(echo "$batch / $target" | bc -l)"
 
 for n in 20 200; do
-  /usr/bin/time -v dotnet "$work/bin/volcast.dll" scan --prices-dir "$work/u$n/prices" --implied-dir "$work/u$n/implied" --iv-unit decimal --out "$work/scan$n" >/dev/null 2>"$work/time$n.txt" || true
+  /usr/bin/time -v dotnet "$work/bin/volcast.dll" batch --prices-dir "$work/u$n/prices" --implied-dir "$work/u$n/implied" --iv-unit decimal --out "$work/batch$n" >/dev/null 2>"$work/time$n.txt" || true
   printf '%s names (2 years): peak RSS %s kB, wall %s\n' "$n" "$(grep 'Maximum resident' "$work/time$n.txt" | awk '{print $NF}')" "$(grep 'Elapsed (wall' "$work/time$n.txt" | awk '{print $NF}')"
 done

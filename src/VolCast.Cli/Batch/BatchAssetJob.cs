@@ -4,10 +4,10 @@ using VolCast.Core.Data;
 using VolCast.IO;
 using VolCast.IO.Results;
 
-namespace VolCast.Cli.Scan;
+namespace VolCast.Cli.Batch;
 
 /// <summary>
-/// The scan's unit of work: one asset, one configuration, inputs identified by content hash, results written
+/// The batch's unit of work: one asset, one configuration, inputs identified by content hash, results written
 /// atomically into the asset's own folder. Reads nothing but its inputs and its folder and shares no state, so many
 /// run side by side, and any worker anywhere could run one.
 /// </summary>
@@ -16,10 +16,10 @@ namespace VolCast.Cli.Scan;
 /// <param name="Settings">The resolved settings.</param>
 /// <param name="Config">The configuration file, if any (recorded in run.json).</param>
 /// <param name="Folder">The asset's results folder, <c>OUT/assets/NAME</c>.</param>
-/// <param name="Fingerprint">The fingerprint of the resolved configuration (<see cref="ScanFingerprint"/>).</param>
+/// <param name="Fingerprint">The fingerprint of the resolved configuration (<see cref="BatchFingerprint"/>).</param>
 /// <param name="Force">Recompute even when the folder is complete and up to date.</param>
-internal sealed record ScanAssetJob(
-    ScanAsset Asset,
+internal sealed record BatchAssetJob(
+    BatchAsset Asset,
     ImpliedUnit ImpliedUnit,
     BacktestSettings Settings,
     string? Config,
@@ -33,13 +33,13 @@ internal sealed record ScanAssetJob(
     /// <summary>Gets the implied file's declared tenor in calendar days, or null when it is the backtest's own.</summary>
     public int? ImpliedTenorDays { get; init; }
 
-    /// <summary>Gets the configuration file's SHA-256, hashed once for the whole scan, or null to hash it here.</summary>
+    /// <summary>Gets the configuration file's SHA-256, hashed once for the whole batch, or null to hash it here.</summary>
     public string? ConfigSha256 { get; init; }
 
     /// <summary>Runs the asset, or keeps its results when they are complete and its inputs and configuration are unchanged.</summary>
     /// <returns>The summary row and whether the earlier results were kept. A failure is a row with its message, never an exception, except cancellation.</returns>
     /// <exception cref="OperationCanceledException">The token was cancelled; the folder is left as it was or complete.</exception>
-    public (ScanAssetRow Row, bool Reused) Run(CancellationToken cancellationToken)
+    public (BatchAssetRow Row, bool Reused) Run(CancellationToken cancellationToken)
     {
         var hasImplied = Asset.Implied is not null;
         try
@@ -60,7 +60,7 @@ internal sealed record ScanAssetJob(
             }
 
             var inputs = hashes.ToImmutable();
-            if (!Force && UpToDate(inputs) is ScanAssetRow kept)
+            if (!Force && UpToDate(inputs) is BatchAssetRow kept)
             {
                 return (kept, true);
             }
@@ -74,13 +74,13 @@ internal sealed record ScanAssetJob(
                 Format = Format,
                 ImpliedTenorDays = ImpliedTenorDays,
             };
-            ScanAssetRow? row = null;
+            BatchAssetRow? row = null;
             BacktestPipeline.Run(job, static _ => { }, null, writeMore: (staging, run) =>
             {
                 // Committed with the results: its presence says the folder is complete for these inputs and this configuration.
-                row = ScanRows.FromResult(Asset.Name, run.Result);
-                ScanAssetJson.Write(staging, new ScanAssetRecord(inputs, Fingerprint, row));
-                return [ScanAssetJson.FileName];
+                row = BatchRows.FromResult(Asset.Name, run.Result);
+                BatchAssetJson.Write(staging, new BatchAssetRecord(inputs, Fingerprint, row));
+                return [BatchAssetJson.FileName];
             }, cancellationToken: cancellationToken);
             return (row!, false);
         }
@@ -90,19 +90,19 @@ internal sealed record ScanAssetJob(
         }
         catch (Exception ex) when (ex is InputDataException or UsageException or IOException or UnauthorizedAccessException)
         {
-            return (ScanRows.Failed(Asset.Name, hasImplied, ex.Message), false);
+            return (BatchRows.Failed(Asset.Name, hasImplied, ex.Message), false);
         }
 #pragma warning disable CA1031 // One asset's unexpected failure must not stop the others; its message goes into the summary.
         catch (Exception ex)
 #pragma warning restore CA1031
         {
-            return (ScanRows.Failed(Asset.Name, hasImplied, "unexpected failure: " + ex.Message), false);
+            return (BatchRows.Failed(Asset.Name, hasImplied, "unexpected failure: " + ex.Message), false);
         }
     }
 
-    private ScanAssetRow? UpToDate(ImmutableSortedDictionary<string, string> inputs)
+    private BatchAssetRow? UpToDate(ImmutableSortedDictionary<string, string> inputs)
     {
-        if (!Directory.Exists(Folder) || ScanAssetJson.TryRead(Folder) is not { } record)
+        if (!Directory.Exists(Folder) || BatchAssetJson.TryRead(Folder) is not { } record)
         {
             return null;
         }
@@ -121,7 +121,7 @@ internal sealed record ScanAssetJob(
         }
 
         // run.json must agree too: it is what a reader traces the results back to.
-        var run = ScanAssetJson.TryReadRunInputs(Folder);
+        var run = BatchAssetJson.TryReadRunInputs(Folder);
         return run is not null && SameHashes(run, inputs) ? record.Row : null;
     }
 

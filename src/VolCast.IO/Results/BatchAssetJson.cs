@@ -4,17 +4,17 @@ using System.Text.Json;
 
 namespace VolCast.IO.Results;
 
-/// <summary>Reads and writes an asset's scan.json (<see cref="ScanAssetRecord"/>) and reads the input hashes recorded in its run.json.</summary>
-public static class ScanAssetJson
+/// <summary>Reads and writes an asset's batch.json (<see cref="BatchAssetRecord"/>) and reads the input hashes recorded in its run.json.</summary>
+public static class BatchAssetJson
 {
     /// <summary>The file name of the record in an asset's folder.</summary>
-    public const string FileName = "scan.json";
+    public const string FileName = "batch.json";
 
     /// <summary>Writes the record atomically into the asset's folder, replacing an older one.</summary>
     /// <param name="folder">The asset's results folder.</param>
     /// <param name="record">The record.</param>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
-    public static void Write(string folder, ScanAssetRecord record)
+    public static void Write(string folder, BatchAssetRecord record)
     {
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(record);
@@ -24,7 +24,7 @@ public static class ScanAssetJson
     /// <summary>Reads the record, or returns null when it is missing or unreadable (the asset is then run again).</summary>
     /// <param name="folder">The asset's results folder.</param>
     /// <returns>The record, or null.</returns>
-    public static ScanAssetRecord? TryRead(string folder)
+    public static BatchAssetRecord? TryRead(string folder)
     {
         ArgumentNullException.ThrowIfNull(folder);
         var path = Path.Combine(folder, FileName);
@@ -44,7 +44,7 @@ public static class ScanAssetJson
             }
 
             var r = root.GetProperty("row");
-            var row = new ScanAssetRow
+            var row = new BatchAssetRow
             {
                 Name = r.GetProperty("name").GetString()!,
                 Succeeded = r.GetProperty("succeeded").GetBoolean(),
@@ -55,14 +55,14 @@ public static class ScanAssetJson
                 BestDmStatistic = Num(r, "best_dm_qlike_stat"),
                 BestDmPValue = Num(r, "best_dm_qlike_p"),
                 McsMembers = [.. r.GetProperty("mcs").EnumerateArray().Select(e => e.GetString()!)],
-                Lookbacks = [.. r.GetProperty("lookbacks").EnumerateArray().Select(e => new ScanLookback(
+                Lookbacks = [.. r.GetProperty("lookbacks").EnumerateArray().Select(e => new BatchLookback(
                     e.GetProperty("family").GetString()!, e.GetProperty("most_chosen").GetString()!, e.GetProperty("share").GetDouble(), e.GetProperty("changes").GetInt32()))],
                 MeanPremium = Num(r, "mean_iv_minus_rv_vol"),
-                VersusImplied = [.. r.GetProperty("versus_implied").EnumerateArray().Select(e => new ScanForecasterTest(
+                VersusImplied = [.. r.GetProperty("versus_implied").EnumerateArray().Select(e => new BatchForecasterTest(
                     e.GetProperty("forecaster").GetString()!, e.GetProperty("dm_qlike_stat").GetDouble(), e.GetProperty("dm_qlike_p").GetDouble()))],
                 Error = Str(r, "error"),
             };
-            return new ScanAssetRecord(hashes.ToImmutable(), root.GetProperty("configuration_sha256").GetString()!, row);
+            return new BatchAssetRecord(hashes.ToImmutable(), root.GetProperty("configuration_sha256").GetString()!, row);
         }
         catch (Exception ex) when (ex is JsonException or KeyNotFoundException or InvalidOperationException or FormatException)
         {
@@ -99,7 +99,7 @@ public static class ScanAssetJson
         }
     }
 
-    private static string Serialize(ScanAssetRecord record)
+    private static string Serialize(BatchAssetRecord record)
     {
         using var stream = new MemoryStream();
         using (var json = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true }))

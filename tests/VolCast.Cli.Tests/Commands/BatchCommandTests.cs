@@ -1,7 +1,7 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using VolCast.Cli.Scan;
+using VolCast.Cli.Batch;
 using VolCast.Cli.Tests.Support;
 using VolCast.Core.Backtest;
 using VolCast.Core.Demo;
@@ -11,22 +11,22 @@ using VolCast.IO.Csv;
 
 namespace VolCast.Cli.Tests.Commands;
 
-public sealed class ScanCommandTests : IDisposable
+public sealed class BatchCommandTests : IDisposable
 {
     private static readonly string[] SameBytes = ["forecasts.csv", "metrics.csv", "metrics.json"];
 
-    private readonly TempFolder _temp = new("scan");
+    private readonly TempFolder _temp = new("batch");
     private readonly string _prices;
     private readonly string _implied;
     private readonly string _config;
 
-    public ScanCommandTests()
+    public BatchCommandTests()
     {
         _prices = _temp.Combine("prices");
         _implied = _temp.Combine("implied");
         Directory.CreateDirectory(_prices);
         Directory.CreateDirectory(_implied);
-        // Fewer bootstrap replications than the default keep the tests quick; the scan passes the same file to every asset.
+        // Fewer bootstrap replications than the default keep the tests quick; the batch passes the same file to every asset.
         _config = _temp.Combine("config.json");
         File.WriteAllText(_config, "{\"mcs\": {\"replications\": 200}}\n");
     }
@@ -34,17 +34,17 @@ public sealed class ScanCommandTests : IDisposable
     public void Dispose() => _temp.Dispose();
 
     [Fact]
-    public void Scan_SmallUniverse_EachAssetMatchesBacktestAloneByteForByte()
+    public void Batch_SmallUniverse_EachAssetMatchesBacktestAloneByteForByte()
     {
         // Invented demo data (3 years per name), not reference data. "gamma" has no implied file.
         WriteAsset("alpha", 11, withImplied: true);
         WriteAsset("beta", 12, withImplied: true);
         WriteAsset("gamma", 13, withImplied: false);
-        var output = _temp.Combine("scan");
+        var output = _temp.Combine("batch");
 
-        var scan = CliRunner.Run("scan", "--prices-dir", _prices, "--implied-dir", _implied, "--iv-unit", "decimal", "--config", _config, "--out", output, "--jobs", "2");
+        var batch = CliRunner.Run("batch", "--prices-dir", _prices, "--implied-dir", _implied, "--iv-unit", "decimal", "--config", _config, "--out", output, "--jobs", "2");
 
-        Assert.True(scan.ExitCode == 0, scan.Stderr);
+        Assert.True(batch.ExitCode == 0, batch.Stderr);
         foreach (var name in new[] { "alpha", "beta", "gamma" })
         {
             var alone = _temp.Combine("alone-" + name);
@@ -56,15 +56,15 @@ public sealed class ScanCommandTests : IDisposable
 
             var single = CliRunner.Run([.. args]);
             Assert.True(single.ExitCode == 0, single.Stderr);
-            var inScan = Path.Combine(output, "assets", name);
+            var inBatch = Path.Combine(output, "assets", name);
             foreach (var file in SameBytes)
             {
-                Assert.True(File.ReadAllBytes(Path.Combine(alone, file)).AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(inScan, file))), $"{name}/{file} differs from backtest alone");
+                Assert.True(File.ReadAllBytes(Path.Combine(alone, file)).AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(inBatch, file))), $"{name}/{file} differs from backtest alone");
             }
 
-            // run.json agrees but for the times and the manifest, which in the scan also lists the scan's own record.
-            Assert.Equal(WithoutTimes(Path.Combine(alone, "run.json")), WithoutTimes(Path.Combine(inScan, "run.json")));
-            Assert.Equal(Manifest(alone).Append("scan.json").Order(StringComparer.Ordinal), Manifest(inScan));
+            // run.json agrees but for the times and the manifest, which in the batch also lists the batch's own record.
+            Assert.Equal(WithoutTimes(Path.Combine(alone, "run.json")), WithoutTimes(Path.Combine(inBatch, "run.json")));
+            Assert.Equal(Manifest(alone).Append("batch.json").Order(StringComparer.Ordinal), Manifest(inBatch));
         }
 
         var summary = File.ReadAllLines(Path.Combine(output, "summary.csv"));
@@ -89,10 +89,10 @@ public sealed class ScanCommandTests : IDisposable
             WriteAsset(name, seed, withImplied: true);
         }
 
-        var output = _temp.Combine("scan");
-        var request = new ScanRequest(_prices, _implied, ImpliedUnit.Decimal, BacktestConfigFile.Read(_config), _config, output, Jobs: 1, Force: false);
+        var output = _temp.Combine("batch");
+        var request = new BatchRequest(_prices, _implied, ImpliedUnit.Decimal, BacktestConfigFile.Read(_config), _config, output, Jobs: 1, Force: false);
         using var stop = new CancellationTokenSource();
-        var first = ScanRunner.Run(request, new CancelAfterFirst(stop), stop.Token);
+        var first = BatchRunner.Run(request, new CancelAfterFirst(stop), stop.Token);
 
         Assert.True(first.Cancelled);
         var finished = Assert.Single(first.Rows);
@@ -102,7 +102,7 @@ public sealed class ScanCommandTests : IDisposable
         var times = Directory.GetFiles(kept).ToDictionary(f => f, File.GetLastWriteTimeUtc);
         Assert.False(Directory.Exists(Path.Combine(output, "assets", "a3")));
 
-        var second = ScanRunner.Run(request, null);
+        var second = BatchRunner.Run(request, null);
 
         Assert.False(second.Cancelled);
         Assert.Equal(1, second.Reused);
@@ -113,28 +113,28 @@ public sealed class ScanCommandTests : IDisposable
 
         // A changed input is noticed by its hash: only that asset runs again.
         WriteAsset("a2", 99, withImplied: true);
-        var third = ScanRunner.Run(request, null);
+        var third = BatchRunner.Run(request, null);
         Assert.Equal(3, third.Reused);
         Assert.Equal(1, third.Computed);
 
         // A changed configuration is noticed too: every asset runs again.
-        var fourth = ScanRunner.Run(request with { Settings = request.Settings with { McsSeed = 7 } }, null);
+        var fourth = BatchRunner.Run(request with { Settings = request.Settings with { McsSeed = 7 } }, null);
         Assert.Equal(0, fourth.Reused);
         Assert.Equal(4, fourth.Computed);
     }
 
     [Fact]
-    public void Scan_OneBadFile_FailsOnlyThatAssetWithItsMessage()
+    public void Batch_OneBadFile_FailsOnlyThatAssetWithItsMessage()
     {
         WriteAsset("good1", 31, withImplied: true);
         WriteAsset("good2", 32, withImplied: true);
         File.WriteAllText(Path.Combine(_prices, "broken.csv"), "date,open,high,low,close\n2024-01-02,1,1,1,1\nnot-a-date,1,1,1,1\n");
-        var output = _temp.Combine("scan");
+        var output = _temp.Combine("batch");
 
-        var scan = CliRunner.Run("scan", "--prices-dir", _prices, "--implied-dir", _implied, "--iv-unit", "decimal", "--config", _config, "--out", output);
+        var batch = CliRunner.Run("batch", "--prices-dir", _prices, "--implied-dir", _implied, "--iv-unit", "decimal", "--config", _config, "--out", output);
 
-        Assert.Equal(3, scan.ExitCode);
-        Assert.Contains("broken", scan.Stderr, StringComparison.Ordinal);
+        Assert.Equal(3, batch.ExitCode);
+        Assert.Contains("broken", batch.Stderr, StringComparison.Ordinal);
         var summary = File.ReadAllLines(Path.Combine(output, "summary.csv"));
         Assert.Equal(4, summary.Length);
         var broken = summary.Single(l => l.StartsWith("broken,", StringComparison.Ordinal));
@@ -146,9 +146,9 @@ public sealed class ScanCommandTests : IDisposable
     }
 
     [Fact]
-    public void Scan_Help_DescribesEveryOption()
+    public void Batch_Help_DescribesEveryOption()
     {
-        var help = CliRunner.Run("scan", "--help");
+        var help = CliRunner.Run("batch", "--help");
 
         Assert.Equal(0, help.ExitCode);
         foreach (var option in new[] { "--prices-dir", "--implied-dir", "--iv-unit", "--config", "--horizon", "--tenor", "--out", "--jobs", "--force" })
@@ -158,12 +158,12 @@ public sealed class ScanCommandTests : IDisposable
     }
 
     [Fact]
-    public void Scan_MissingPricesFolder_IsBadUsage()
+    public void Batch_MissingPricesFolder_IsBadUsage()
     {
-        var scan = CliRunner.Run("scan", "--prices-dir", _temp.Combine("nowhere"), "--out", _temp.Combine("scan"));
+        var batch = CliRunner.Run("batch", "--prices-dir", _temp.Combine("nowhere"), "--out", _temp.Combine("batch"));
 
-        Assert.Equal(2, scan.ExitCode);
-        Assert.Contains("prices folder does not exist", scan.Stderr, StringComparison.Ordinal);
+        Assert.Equal(2, batch.ExitCode);
+        Assert.Contains("prices folder does not exist", batch.Stderr, StringComparison.Ordinal);
     }
 
     private static string WithoutTimes(string runJson)
@@ -194,8 +194,8 @@ public sealed class ScanCommandTests : IDisposable
         }
     }
 
-    private sealed class CancelAfterFirst(CancellationTokenSource stop) : IProgress<ScanProgress>
+    private sealed class CancelAfterFirst(CancellationTokenSource stop) : IProgress<BatchProgress>
     {
-        public void Report(ScanProgress value) => stop.Cancel();
+        public void Report(BatchProgress value) => stop.Cancel();
     }
 }

@@ -1,11 +1,11 @@
-namespace VolCast.Cli.Scan;
+namespace VolCast.Cli.Batch;
 
 /// <summary>One asset found in the prices folder.</summary>
 /// <param name="Name">The price file's name without its <c>.csv</c> extension.</param>
 /// <param name="Prices">The price file.</param>
 /// <param name="Implied">The implied file of the same name, or null when there is none.</param>
 /// <param name="Problem">Why the name cannot be used (it would escape or collide inside the output folder), or null when it can.</param>
-internal sealed record ScanAsset(string Name, string Prices, string? Implied, string? Problem = null)
+internal sealed record BatchAsset(string Name, string Prices, string? Implied, string? Problem = null)
 {
     /// <summary>The longest asset name accepted.</summary>
     public const int MaxNameLength = 100;
@@ -18,7 +18,7 @@ internal sealed record ScanAsset(string Name, string Prices, string? Implied, st
     /// ordinal name order, with implied matched by name (again in any capitals of <c>.csv</c>). A name outside
     /// <see cref="SafeSet"/> is listed with its problem and never run, so no name can reach outside its own results folder.
     /// </summary>
-    public static IReadOnlyList<ScanAsset> Find(string pricesFolder, string? impliedFolder)
+    public static IReadOnlyList<BatchAsset> Find(string pricesFolder, string? impliedFolder)
     {
         var implied = new Dictionary<string, string>(StringComparer.Ordinal);
         if (impliedFolder is not null)
@@ -32,7 +32,7 @@ internal sealed record ScanAsset(string Name, string Prices, string? Implied, st
             }
         }
 
-        var assets = new List<ScanAsset>();
+        var assets = new List<BatchAsset>();
         var seen = new Dictionary<string, string>(StringComparer.OrdinalIgnoreCase);
         foreach (var path in Directory.EnumerateFiles(pricesFolder).Order(StringComparer.Ordinal))
         {
@@ -48,7 +48,7 @@ internal sealed record ScanAsset(string Name, string Prices, string? Implied, st
                 problem = $"the name is the same as that of {Path.GetFileName(seen[name])} apart from capitals, so their results folders could be one; rename one of the files.";
             }
 
-            assets.Add(new ScanAsset(name, path, implied.GetValueOrDefault(name), problem));
+            assets.Add(new BatchAsset(name, path, implied.GetValueOrDefault(name), problem));
         }
 
         return assets;

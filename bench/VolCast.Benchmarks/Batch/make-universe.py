@@ -1,5 +1,5 @@
 #!/usr/bin/env python3
-"""Writes an invented universe for the scan measurement: N names of daily OHLC prices with GARCH(1,1)-like volatility
+"""Writes an invented universe for the batch measurement: N names of daily OHLC prices with GARCH(1,1)-like volatility
 and an implied series (true forward vol plus a premium and noise). Invented data, for timing and memory only.
 Usage: make-universe.py N YEARS OUT_DIR [SEED]"""
 import math, os, random, sys

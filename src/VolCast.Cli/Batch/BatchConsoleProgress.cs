@@ -1,20 +1,20 @@
 using System.Globalization;
 
-namespace VolCast.Cli.Scan;
+namespace VolCast.Cli.Batch;
 
-/// <summary>Shows a scan's progress: one line updated in place on a terminal, one plain line per finished asset when redirected.</summary>
-internal sealed class ScanConsoleProgress(TextWriter writer, bool interactive) : IProgress<ScanProgress>
+/// <summary>Shows a batch's progress: one line updated in place on a terminal, one plain line per finished asset when redirected.</summary>
+internal sealed class BatchConsoleProgress(TextWriter writer, bool interactive) : IProgress<BatchProgress>
 {
     private readonly Lock _gate = new();
     private bool _lineOpen;
 
     /// <inheritdoc/>
-    public void Report(ScanProgress value)
+    public void Report(BatchProgress value)
     {
         var eta = value.EstimatedRemaining is TimeSpan t ? Format(t) : "estimating";
         var text = string.Create(
             CultureInfo.InvariantCulture,
-            $"scan: {value.Done} done ({value.Reused} kept from an earlier run), {value.Failed} failed, {value.Remaining} remaining of {value.Total}; about {eta} left");
+            $"batch: {value.Done} done ({value.Reused} kept from an earlier run), {value.Failed} failed, {value.Remaining} remaining of {value.Total}; about {eta} left");
         lock (_gate)
         {
             if (interactive)

@@ -4,4 +4,4 @@ namespace VolCast.IO.Results;
 /// <param name="Spec">The forecaster's spec.</param>
 /// <param name="Statistic">The DM statistic, d_t = L(forecaster) − L(implied): negative means the forecaster's loss is lower.</param>
 /// <param name="PValue">The two-sided p-value.</param>
-public sealed record ScanForecasterTest(string Spec, double Statistic, double PValue);
+public sealed record BatchForecasterTest(string Spec, double Statistic, double PValue);

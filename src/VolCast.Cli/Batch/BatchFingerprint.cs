@@ -5,13 +5,13 @@ using VolCast.Core.Backtest;
 using VolCast.Core.Estimators;
 using VolCast.IO;
 
-namespace VolCast.Cli.Scan;
+namespace VolCast.Cli.Batch;
 
 /// <summary>
 /// The SHA-256 of a resolved configuration: every setting, the implied unit and the tool version, written in one
 /// canonical text. Two runs with the same fingerprint and the same input bytes produce the same results.
 /// </summary>
-internal static class ScanFingerprint
+internal static class BatchFingerprint
 {
     public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null)
     {
@@ -41,7 +41,7 @@ internal static class ScanFingerprint
         Line("target", s.Target);
         if (format is { IsDefault: false })
         {
-            // Only a declared form is written, so the fingerprints of scans of ISO files stay as they were.
+            // Only a declared form is written, so the fingerprints of batches of ISO files stay as they were.
             Line("format", format);
         }
 

@@ -1,18 +1,18 @@
 using VolCast.Core.Backtest;
 using VolCast.IO;
 
-namespace VolCast.Cli.Scan;
+namespace VolCast.Cli.Batch;
 
-/// <summary>A whole scan: where the inputs are, the one configuration every asset runs with, and where the results go.</summary>
+/// <summary>A whole batch: where the inputs are, the one configuration every asset runs with, and where the results go.</summary>
 /// <param name="PricesFolder">The folder of price files, one <c>NAME.csv</c> per asset.</param>
 /// <param name="ImpliedFolder">The folder of implied files matched by name, or null.</param>
 /// <param name="ImpliedUnit">The unit of every implied file's iv column.</param>
 /// <param name="Settings">The resolved settings, the same for every asset.</param>
 /// <param name="Config">The configuration file the settings came from, if any.</param>
-/// <param name="OutputFolder">The scan's folder: <c>assets/NAME/</c>, summary.csv, beats-implied.csv and summary.html go here.</param>
+/// <param name="OutputFolder">The batch's folder: <c>assets/NAME/</c>, summary.csv, beats-implied.csv and summary.html go here.</param>
 /// <param name="Jobs">How many assets run at the same time (at least 1).</param>
 /// <param name="Force">Recompute every asset even when its results are complete and up to date.</param>
-internal sealed record ScanRequest(
+internal sealed record BatchRequest(
     string PricesFolder,
     string? ImpliedFolder,
     ImpliedUnit ImpliedUnit,

@@ -2,12 +2,12 @@ using System.Collections.Immutable;
 
 namespace VolCast.IO.Results;
 
-/// <summary>One asset's line in a scan's summary: all the scan keeps of a backtest once its results folder is written.</summary>
+/// <summary>One asset's line in a batch's summary: all the batch keeps of a backtest once its results folder is written.</summary>
 /// <remarks>
 /// Volatilities are decimals. Diebold-Mariano statistics follow d_t = L(forecaster) − L(implied), so negative favours
 /// the forecaster. A failed asset has <see cref="Error"/> set and no scores.
 /// </remarks>
-public sealed record ScanAssetRow
+public sealed record BatchAssetRow
 {
     /// <summary>Gets the asset's name: the price file's name without <c>.csv</c>.</summary>
     public required string Name { get; init; }
@@ -37,13 +37,13 @@ public sealed record ScanAssetRow
     public ImmutableArray<string> McsMembers { get; init; } = [];
 
     /// <summary>Gets the adaptive lookback choices, one per swept family.</summary>
-    public ImmutableArray<ScanLookback> Lookbacks { get; init; } = [];
+    public ImmutableArray<BatchLookback> Lookbacks { get; init; } = [];
 
     /// <summary>Gets the mean of implied minus realized volatility over dates with both (the volatility premium, decimal); null without implied.</summary>
     public double? MeanPremium { get; init; }
 
     /// <summary>Gets every forecaster's DM test on QLIKE against implied, for the cross-asset false-discovery-rate table.</summary>
-    public ImmutableArray<ScanForecasterTest> VersusImplied { get; init; } = [];
+    public ImmutableArray<BatchForecasterTest> VersusImplied { get; init; } = [];
 
     /// <summary>Gets why the asset failed, or null.</summary>
     public string? Error { get; init; }

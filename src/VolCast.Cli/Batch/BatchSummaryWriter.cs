@@ -3,17 +3,17 @@ using VolCast.IO;
 using VolCast.IO.Csv;
 using VolCast.IO.Results;
 using VolCast.Reports.Model;
-using VolCast.Reports.Scan;
+using VolCast.Reports.Batch;
 
-namespace VolCast.Cli.Scan;
+namespace VolCast.Cli.Batch;
 
-/// <summary>Writes summary.csv, beats-implied.csv and summary.html into the scan's folder, each atomically (temporary file, then a move).</summary>
-internal static class ScanSummaryWriter
+/// <summary>Writes summary.csv, beats-implied.csv and summary.html into the batch's folder, each atomically (temporary file, then a move).</summary>
+internal static class BatchSummaryWriter
 {
-    public static void Write(ScanRequest request, IReadOnlyList<ScanAssetRow> rows)
+    public static void Write(BatchRequest request, IReadOnlyList<BatchAssetRow> rows)
     {
         Directory.CreateDirectory(request.OutputFolder);
-        AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.csv"), w => ScanSummaryCsv.Write(w, rows), overwrite: true);
+        AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
         var s = request.Settings;
         Setting[] settings =
@@ -26,7 +26,7 @@ internal static class ScanSummaryWriter
             new("Names", rows.Count.ToString(CultureInfo.InvariantCulture)),
             new("Parallel jobs", request.Jobs.ToString(CultureInfo.InvariantCulture)),
         ];
-        var html = ScanSummaryHtml.Render(rows, settings);
+        var html = BatchSummaryHtml.Render(rows, settings);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.html"), w => w.Write(html), overwrite: true);
     }
 }

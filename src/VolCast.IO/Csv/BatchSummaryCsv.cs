@@ -3,8 +3,8 @@ using VolCast.IO.Results;
 
 namespace VolCast.IO.Csv;
 
-/// <summary>Writes a scan's summary.csv: one row per asset, in name order, invariant culture, empty cells where undefined.</summary>
-public static class ScanSummaryCsv
+/// <summary>Writes a batch's summary.csv: one row per asset, in name order, invariant culture, empty cells where undefined.</summary>
+public static class BatchSummaryCsv
 {
     /// <summary>Gets the column names.</summary>
     public static IReadOnlyList<string> Columns { get; } =
@@ -17,7 +17,7 @@ public static class ScanSummaryCsv
     /// <param name="writer">Where to write.</param>
     /// <param name="rows">The rows, already in the order wanted.</param>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
-    public static void Write(TextWriter writer, IEnumerable<ScanAssetRow> rows)
+    public static void Write(TextWriter writer, IEnumerable<BatchAssetRow> rows)
     {
         ArgumentNullException.ThrowIfNull(writer);
         ArgumentNullException.ThrowIfNull(rows);
@@ -48,7 +48,7 @@ public static class ScanSummaryCsv
     /// <summary>Formats one lookback choice as <c>spec (share% of dates, N changes)</c>.</summary>
     /// <param name="lookback">The choice.</param>
     /// <returns>The text.</returns>
-    public static string Lookback(ScanLookback lookback)
+    public static string Lookback(BatchLookback lookback)
     {
         ArgumentNullException.ThrowIfNull(lookback);
         return string.Create(CultureInfo.InvariantCulture, $"{lookback.MostChosen} ({lookback.Share:0%} of dates, {lookback.Changes} changes)");

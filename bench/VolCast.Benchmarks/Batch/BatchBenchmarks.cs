@@ -3,19 +3,19 @@ using VolCast.Core.Scoring;
 using VolCast.IO.Results;
 using VolCast.IO.Tables;
 
-namespace VolCast.Benchmarks.Scan;
+namespace VolCast.Benchmarks.Batch;
 
 /// <summary>
-/// The scan's reduce step: the Benjamini-Hochberg adjustment and the per-forecaster table over the summary rows of a
-/// universe (8 forecasters tested against implied per name). The wall-time and memory targets of the whole scan are
-/// measured on the command line by measure-scan.sh beside this file (see bench/README.md, "Scan"); this class checks
+/// The batch's reduce step: the Benjamini-Hochberg adjustment and the per-forecaster table over the summary rows of a
+/// universe (8 forecasters tested against implied per name). The wall-time and memory targets of the whole batch are
+/// measured on the command line by measure-batch.sh beside this file (see bench/README.md, "Batch"); this class checks
 /// that the reduce stays negligible as names grow.
 /// </summary>
 [MemoryDiagnoser]
-public class ScanBenchmarks
+public class BatchBenchmarks
 {
     private double[] _p = [];
-    private ScanAssetRow[] _rows = [];
+    private BatchAssetRow[] _rows = [];
 
     /// <summary>Number of names.</summary>
     [Params(50, 500, 5000)]
@@ -31,16 +31,16 @@ public class ScanBenchmarks
             _p[i] = random.NextDouble() < 0.2 ? random.NextDouble() * 0.01 : random.NextDouble();
         }
 
-        _rows = new ScanAssetRow[Names];
+        _rows = new BatchAssetRow[Names];
         for (var i = 0; i < Names; i++)
         {
-            var tests = new ScanForecasterTest[8];
+            var tests = new BatchForecasterTest[8];
             for (var f = 0; f < tests.Length; f++)
             {
-                tests[f] = new ScanForecasterTest("f" + f, (random.NextDouble() * 6) - 3, random.NextDouble());
+                tests[f] = new BatchForecasterTest("f" + f, (random.NextDouble() * 6) - 3, random.NextDouble());
             }
 
-            _rows[i] = new ScanAssetRow { Name = "n" + i, Succeeded = true, HasImplied = true, VersusImplied = [.. tests] };
+            _rows[i] = new BatchAssetRow { Name = "n" + i, Succeeded = true, HasImplied = true, VersusImplied = [.. tests] };
         }
     }
 

@@ -7,14 +7,14 @@ using VolCast.IO.Tables;
 using VolCast.Reports.Html;
 using VolCast.Reports.Model;
 
-namespace VolCast.Reports.Scan;
+namespace VolCast.Reports.Batch;
 
 /// <summary>
-/// Renders a scan's summary.html: the cross-asset picture, self-contained like report.html (inline CSS, charts as PNG
+/// Renders a batch's summary.html: the cross-asset picture, self-contained like report.html (inline CSS, charts as PNG
 /// data URIs, no scripts, the same Content-Security-Policy), with relative links to each asset's report.
 /// </summary>
 /// <remarks>Every string from the rows is HTML-escaped; numbers use the invariant culture.</remarks>
-public static class ScanSummaryHtml
+public static class BatchSummaryHtml
 {
     /// <summary>The section ids, in the order they appear.</summary>
     public static IReadOnlyList<string> SectionIds { get; } = ["overview", "beats-implied", "charts", "assets", "settings", "cautions"];
@@ -39,11 +39,11 @@ public static class ScanSummaryHtml
 
     /// <summary>Renders the page.</summary>
     /// <param name="rows">One row per asset, in the order to show.</param>
-    /// <param name="settings">The scan's settings as name/value pairs (shown as given).</param>
+    /// <param name="settings">The batch's settings as name/value pairs (shown as given).</param>
     /// <param name="reportFileName">The file name of each asset's report inside <c>assets/NAME/</c>, linked relatively.</param>
     /// <returns>The complete HTML document.</returns>
     /// <exception cref="ArgumentNullException">An argument is null.</exception>
-    public static string Render(IReadOnlyList<ScanAssetRow> rows, IReadOnlyList<Setting> settings, string reportFileName = "report.html")
+    public static string Render(IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<Setting> settings, string reportFileName = "report.html")
     {
         ArgumentNullException.ThrowIfNull(rows);
         ArgumentNullException.ThrowIfNull(settings);
@@ -52,8 +52,8 @@ public static class ScanSummaryHtml
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
         html.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"").Append(HtmlReport.ContentSecurityPolicy).Append("\">\n");
         html.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
-        html.Append("<title>Volatility forecast scan</title>\n<style>\n").Append(Css).Append("\n</style>\n</head>\n<body>\n");
-        html.Append("<h1>Volatility forecast scan: ").Append(rows.Count.ToString(CultureInfo.InvariantCulture)).Append(" names</h1>\n");
+        html.Append("<title>Volatility forecast batch</title>\n<style>\n").Append(Css).Append("\n</style>\n</head>\n<body>\n");
+        html.Append("<h1>Volatility forecast batch: ").Append(rows.Count.ToString(CultureInfo.InvariantCulture)).Append(" names</h1>\n");
 
         var done = rows.Count(r => r.Succeeded);
         var failed = rows.Count - done;
@@ -67,8 +67,8 @@ public static class ScanSummaryHtml
         FdrSection(html, rows);
 
         html.Append("<section id=\"charts\">\n<h2>Charts</h2>\n");
-        Figure(html, ScanCharts.DmDistribution(rows));
-        Figure(html, ScanCharts.PremiumByName(rows));
+        Figure(html, BatchCharts.DmDistribution(rows));
+        Figure(html, BatchCharts.PremiumByName(rows));
         html.Append("</section>\n");
 
         AssetsSection(html, rows, reportFileName);
@@ -91,7 +91,7 @@ public static class ScanSummaryHtml
         return html.ToString();
     }
 
-    private static void FdrSection(StringBuilder html, IReadOnlyList<ScanAssetRow> rows)
+    private static void FdrSection(StringBuilder html, IReadOnlyList<BatchAssetRow> rows)
     {
         var table = VersusImpliedTable.Rows(rows);
         html.Append("<section id=\"beats-implied\">\n<h2>Where each forecaster beats implied</h2>\n");
@@ -115,7 +115,7 @@ public static class ScanSummaryHtml
         html.Append("</section>\n");
     }
 
-    private static void AssetsSection(StringBuilder html, IReadOnlyList<ScanAssetRow> rows, string reportFileName)
+    private static void AssetsSection(StringBuilder html, IReadOnlyList<BatchAssetRow> rows, string reportFileName)
     {
         html.Append("<section id=\"assets\">\n<h2>Names</h2>\n<table>\n<thead><tr><th>Name</th><th>Status</th><th>Dates scored</th><th>Best on QLIKE</th><th>DM vs implied</th><th>p-value</th><th>Mean implied − realized (vol pts)</th><th class=\"text\">Model confidence set</th><th class=\"text\">Lookbacks chosen (stability)</th></tr></thead>\n<tbody>\n");
         foreach (var r in rows)
@@ -145,7 +145,7 @@ public static class ScanSummaryHtml
                 .Append("<td>").Append(Num(r.BestDmPValue, "0.000")).Append("</td>")
                 .Append("<td>").Append(Num(r.MeanPremium * 100.0, "0.00")).Append("</td>")
                 .Append("<td class=\"text\">").Append(HtmlReport.E(string.Join(", ", r.McsMembers))).Append("</td>")
-                .Append("<td class=\"text\">").Append(HtmlReport.E(string.Join("; ", r.Lookbacks.Select(ScanSummaryCsv.Lookback)))).Append("</td></tr>\n");
+                .Append("<td class=\"text\">").Append(HtmlReport.E(string.Join("; ", r.Lookbacks.Select(BatchSummaryCsv.Lookback)))).Append("</td></tr>\n");
         }
 
         html.Append("</tbody>\n</table>\n<p class=\"note\">Best on QLIKE: the forecaster (implied excluded) with the lowest mean QLIKE on its own scored dates. DM: d = L(forecaster) − L(implied), negative favours the forecaster; the p-value here is for that one name, uncorrected.</p>\n</section>\n");

@@ -1,14 +1,14 @@
 using System.CommandLine;
 using System.Globalization;
-using VolCast.Cli.Scan;
+using VolCast.Cli.Batch;
 using VolCast.Core.Backtest;
 using VolCast.IO;
 using VolCast.IO.Config;
 
 namespace VolCast.Cli.Commands;
 
-/// <summary><c>volcast scan</c>: the backtest over every name in a folder, in parallel and resumable, with a cross-asset summary.</summary>
-internal static class ScanCommand
+/// <summary><c>volcast batch</c>: the backtest over every name in a folder, in parallel and resumable, with a cross-asset summary.</summary>
+internal static class BatchCommand
 {
     /// <summary>Builds the command.</summary>
     public static Command Create(CliConsole console)
@@ -20,11 +20,11 @@ internal static class ScanCommand
         var config = new Option<string?>("--config") { Description = "JSON configuration used for every name (same keys as backtest --config). Every setting is optional. " + SettingLimits.HelpText() };
         var horizon = new Option<int?>("--horizon") { Description = $"Forecast horizon in trading days, {SettingLimits.Horizon} (default 21). Overrides the configuration." };
         var tenor = new Option<string?>("--tenor") { Description = $"Forecast horizon as a calendar tenor such as 30d ({SettingLimits.TenorDays}), mapped through each price file's own trading calendar. Overrides the configuration." };
-        var output = new Option<string?>("--out") { Description = "Scan folder (default reports/scan): assets/NAME/ per name, summary.csv and summary.html. An existing scan folder is resumed." };
+        var output = new Option<string?>("--out") { Description = "Batch folder (default reports/batch): assets/NAME/ per name, summary.csv and summary.html. An existing batch folder is resumed." };
         var jobs = new Option<int?>("--jobs") { Description = $"How many names run at the same time, {SettingLimits.Jobs} (default: the number of processor cores)." };
         var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor every implied file quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
         var force = new Option<bool>("--force") { Description = "Recompute every name, even those whose results are complete and whose inputs and configuration are unchanged." };
-        var command = new Command("scan", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted scan resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
+        var command = new Command("batch", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted batch resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
             pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force,
         };
@@ -45,21 +45,21 @@ internal static class ScanCommand
         return command;
     }
 
-    /// <summary>Turns the command-line values into a scan request, checking them.</summary>
-    private static ScanRequest Request(Arguments a)
+    /// <summary>Turns the command-line values into a batch request, checking them.</summary>
+    private static BatchRequest Request(Arguments a)
     {
         if (a.Jobs is int j)
         {
             SettingLimits.Jobs.Check(j, "--jobs");
         }
 
-        var outFolder = a.Out ?? Path.Combine("reports", "scan");
+        var outFolder = a.Out ?? Path.Combine("reports", "batch");
         OutputChecks.Folder(outFolder);
         OutputChecks.Separate(outFolder, a.PricesDir, a.ImpliedDir);
         var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor);
         var unit = BacktestOptions.Unit(a.IvUnit);
         var (configFormat, configTenor) = InputFormatOptions.FromConfig(a.Config);
-        return new ScanRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, outFolder, a.Jobs ?? Environment.ProcessorCount, a.Force)
+        return new BatchRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, outFolder, a.Jobs ?? Environment.ProcessorCount, a.Force)
         {
             Format = a.FormatOptions.Resolve(a.Parse, configFormat),
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
@@ -77,11 +77,11 @@ internal static class ScanCommand
             stop.Cancel();
         };
         Console.CancelKeyPress += onCancel;
-        var progress = new ScanConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
-        ScanOutcome outcome;
+        var progress = new BatchConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
+        BatchOutcome outcome;
         try
         {
-            outcome = ScanRunner.Run(request, progress, stop.Token);
+            outcome = BatchRunner.Run(request, progress, stop.Token);
         }
         finally
         {
@@ -97,7 +97,7 @@ internal static class ScanCommand
         if (outcome.Cancelled)
         {
             console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"scan stopped: {outcome.Rows.Count} names finished and kept in {request.OutputFolder}{Path.DirectorySeparatorChar}assets; run the same command again to resume."));
+                $"batch stopped: {outcome.Rows.Count} names finished and kept in {request.OutputFolder}{Path.DirectorySeparatorChar}assets; run the same command again to resume."));
             return ExitCodes.Interrupted;
         }
 
