@@ -2,8 +2,8 @@ using System.Globalization;
 using VolCast.IO;
 using VolCast.IO.Csv;
 using VolCast.IO.Results;
-using VolCast.Reports.Model;
 using VolCast.Reports.Batch;
+using VolCast.Reports.Model;
 
 namespace VolCast.Cli.Batch;
 

@@ -1,8 +1,8 @@
 using VolCast.IO.Results;
 using VolCast.IO.Tables;
+using VolCast.Reports.Batch;
 using VolCast.Reports.Html;
 using VolCast.Reports.Model;
-using VolCast.Reports.Batch;
 
 namespace VolCast.Reports.Tests.Batch;
 
