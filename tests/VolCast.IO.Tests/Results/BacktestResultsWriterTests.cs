@@ -11,7 +11,7 @@ namespace VolCast.IO.Tests.Results;
 
 public sealed class BacktestResultsWriterTests
 {
-    private static (BacktestResult Result, PriceHistory Prices) SmallRun()
+    internal static (BacktestResult Result, PriceHistory Prices) SmallRun()
     {
         // Invented random-walk closes (not reference data), enough for every statistic.
         var random = new Random(3);
@@ -47,7 +47,7 @@ public sealed class BacktestResultsWriterTests
     private static BacktestRunInfo Run() => new("0.1.0-test", [new InputFileInfo("prices", "p.csv", "ab12")], DateTimeOffset.UnixEpoch, DateTimeOffset.UnixEpoch, "decimal", []);
 
     // Writes a whole results folder as the command line does: the data files, then run.json with the manifest.
-    private static ImmutableArray<string> Write(string folder, BacktestResult result, PriceHistory prices)
+    internal static ImmutableArray<string> Write(string folder, BacktestResult result, PriceHistory prices)
     {
         Directory.CreateDirectory(folder);
         var run = new BacktestRun(result, BacktestCalibrator.Evaluate(result, prices), Run(), prices, prices.Count);
