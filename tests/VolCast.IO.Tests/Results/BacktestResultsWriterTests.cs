@@ -121,6 +121,10 @@ public sealed class BacktestResultsWriterTests
         Assert.Equal(result.Metrics.Length, rows.GetArrayLength());
         Assert.Equal(JsonValueKind.Null, rows[0].GetProperty("dm_qlike_stat").ValueKind); // implied vs itself: null, not NaN
         Assert.Equal(result.Metrics[1].Losses!.Qlike, rows[1].GetProperty("qlike").GetDouble());
+        // The Diebold-Mariano variance estimator is named for the run and for each test (rectangular unless it fell back).
+        Assert.StartsWith("rectangular: autocovariances to lag h-1", json.RootElement.GetProperty("dm_variance_estimator").GetString(), StringComparison.Ordinal);
+        var headToHead = json.RootElement.GetProperty("baseline_vs_candidate").GetProperty("comparison").GetProperty("dm_qlike");
+        Assert.Equal(result.CandidateVersusBaseline.Qlike!.VarianceEstimator, headToHead.GetProperty("variance_estimator").GetString());
         var metricsCsv = File.ReadAllLines(Path.Combine(folder, "metrics.csv"));
         Assert.Equal(result.Metrics.Length + 1, metricsCsv.Length);
     }
@@ -139,7 +143,7 @@ public sealed class BacktestResultsWriterTests
         Assert.Equal(
             ["forecaster", "kind", "n", "missing", "bias", "mae_vol", "rmse_vol", "mse_var", "qlike",
              "mz_a", "mz_b", "mz_a_se", "mz_b_se", "mz_r2", "mz_wald", "mz_wald_p",
-             "dm_n", "dm_qlike_stat", "dm_qlike_p", "dm_mse_stat", "dm_mse_p",
+             "dm_n", "dm_qlike_stat", "dm_qlike_p", "dm_mse_stat", "dm_mse_p", "dm_bartlett_fallback",
              "enc_implied_b", "enc_forecast_c", "enc_forecast_c_se", "enc_forecast_c_p",
              "mcs_p", "in_mcs", "refits", "failed_fits", "nonstationary_fits", "variance_fallbacks"],
             header);
