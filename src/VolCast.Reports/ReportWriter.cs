@@ -156,7 +156,8 @@ public static class ReportWriter
             Next();
             var (all, sell) = ReportSeries.RuleGaps(result);
             charts.Add(ReportCharts.RuleTest(all, sell, string.Create(CultureInfo.InvariantCulture,
-                $"sell: implied > {rule.ForecastSpec} + {rule.ThresholdVolatility * 100:0.0} pts"), rule.ForecastSpec, null, colors));
+                $"sell: implied > {rule.ForecastSpec} + {rule.ThresholdVolatility * 100:0.0} pts"), rule.ForecastSpec,
+                rule.SignalledMinusAll(RuleSignal.SellVolatility, result.HacLag).PValue, colors));
         }
 
         progress?.Report(new BacktestProgress("drawing charts", planned, planned));

@@ -126,7 +126,7 @@ public static class ReportCharts
     {
         using var plot = BuildRuleTest(allDates, signalledDates, rule, forecastSpec, differenceP, colors);
         return new ChartImage("rule-test.png", RuleTestTitle,
-            "Share of dates in each band of implied minus realized volatility, for the dates the rule signalled and for all dates. The bracket above runs from the mean of all dates (grey circle) to the mean of the signalled dates (the difference the rule test is about); the legend gives it in vol points.",
+            "Share of dates in each band of implied minus realized volatility, for the dates the rule signalled and for all dates. The bracket above runs from the mean of all dates (grey circle) to the mean of the signalled dates (the difference the rule test is about); the legend gives it in vol points with the p-value of a Newey-West test that it is zero (delta method, allowing for overlapping windows).",
             ChartStyle.Png(plot));
     }
 
