@@ -29,7 +29,7 @@ internal static class ReportOdds
             : moneyness.Length == 1
                 ? string.Create(c, $"strike {moneyness[0]:0.00} × close")
                 : string.Create(c, $"pooled over strikes {moneyness[0]:0.00}–{moneyness[^1]:0.00} × close");
-        var chart = curves.Count == 0 ? null : ReportCharts.Reliability(curves, pooling);
+        var chart = curves.Count == 0 ? null : ReportCharts.Reliability(curves, pooling, SeriesColors.For(result));
 
         var rows = new List<MetricRow>();
         var needed = 0;

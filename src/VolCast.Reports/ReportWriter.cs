@@ -113,16 +113,17 @@ public static class ReportWriter
         void Drawn() => progress?.Report(new BacktestProgress("drawing charts", Math.Min(charts.Count, planned), planned));
         Next();
         var leading = ReportSeries.Leading(result);
+        var colors = SeriesColors.For(result);
         var realized = ReportSeries.Realized(result);
         var implied = result.HasImplied ? ReportSeries.Implied(result) : null;
-        charts.Add(ReportCharts.ForecastVsRealized(realized, implied, [.. leading.Select(s => ReportSeries.Forecast(result, s))]));
+        charts.Add(ReportCharts.ForecastVsRealized(realized, implied, [.. leading.Select(s => ReportSeries.Forecast(result, s))], colors));
         Drawn();
         if (result.HasImplied)
         {
             Next();
             charts.Add(ReportCharts.Premium(ReportSeries.Premium(result)));
             Next();
-            charts.Add(ReportCharts.CumulativeLossDifferential([.. leading.Select(s => ReportSeries.QlikeDifferential(result, s))]));
+            charts.Add(ReportCharts.CumulativeLossDifferential([.. leading.Select(s => ReportSeries.QlikeDifferential(result, s))], colors));
             Drawn();
         }
 
@@ -130,7 +131,7 @@ public static class ReportWriter
         if (curves.Count > 0)
         {
             Next();
-            charts.Add(ReportCharts.LossVsLookback(curves));
+            charts.Add(ReportCharts.LossVsLookback(curves, colors));
             Drawn();
         }
 
@@ -139,14 +140,14 @@ public static class ReportWriter
         {
             Next();
             var (forecast, realizedVariance) = ReportSeries.Variances(result, leader.Spec);
-            charts.Add(ReportCharts.MincerZarnowitz(leader.Spec, forecast, realizedVariance, leader.MincerZarnowitz!.Intercept, leader.MincerZarnowitz.Slope));
+            charts.Add(ReportCharts.MincerZarnowitz(leader.Spec, forecast, realizedVariance, leader.MincerZarnowitz!.Intercept, leader.MincerZarnowitz.Slope, colors));
             Drawn();
         }
 
         Next();
         if (cone.Horizons.Count > 0)
         {
-            charts.Add(ReportCharts.Cone(cone, ConeOverlays(result, leading)));
+            charts.Add(ReportCharts.Cone(cone, ConeOverlays(result, leading), colors));
             Drawn();
         }
 
@@ -155,7 +156,8 @@ public static class ReportWriter
             Next();
             var (all, sell) = ReportSeries.RuleGaps(result);
             charts.Add(ReportCharts.RuleTest(all, sell, string.Create(CultureInfo.InvariantCulture,
-                $"sell: implied > {rule.ForecastSpec} + {rule.ThresholdVolatility * 100:0.0} pts")));
+                $"sell: implied > {rule.ForecastSpec} + {rule.ThresholdVolatility * 100:0.0} pts"), rule.ForecastSpec,
+                rule.SignalledMinusAll(RuleSignal.SellVolatility, result.HacLag).PValue, colors));
         }
 
         progress?.Report(new BacktestProgress("drawing charts", planned, planned));

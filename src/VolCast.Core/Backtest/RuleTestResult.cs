@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using VolCast.Core.Trading;
 
 namespace VolCast.Core.Backtest;
 
@@ -51,5 +52,55 @@ public sealed record RuleTestResult(
         }
 
         return gaps.ToImmutable();
+    }
+
+    /// <summary>
+    /// The difference the rule test asks about: mean IV − RV on the dates the rule forecast gave <paramref name="signal"/>
+    /// minus the mean on all dates, with a Newey-West (Bartlett) standard error and a two-sided normal p-value.
+    /// </summary>
+    /// <remarks>
+    /// The signalled dates are a share π of all dates, so the two means are not independent. The error is that of the
+    /// delta method: the difference is the mean of d_t = s_t (g_t − μ_S) / π − (g_t − μ_A) + (μ_S − μ_A), where g_t is
+    /// IV − RV, s_t is 1 on a signalled date and 0 otherwise, and μ_S and μ_A are the two means; its Newey-West
+    /// long-run variance (Newey and West, 1987) allows for the overlapping windows.
+    /// </remarks>
+    /// <param name="signal">Sell or buy signals (all dates gives a difference of zero).</param>
+    /// <param name="lag">The Newey-West lag (the run's HAC lag), capped at n − 1.</param>
+    /// <returns>The difference (decimal) as the mean, its error and p; no error or p when no date signalled or every date did.</returns>
+    public NeweyWestMeanTest SignalledMinusAll(RuleSignal signal, int lag)
+    {
+        var n = Dates.Length;
+        var signalled = new bool[n];
+        double sumAll = 0, sumSignalled = 0;
+        var count = 0;
+        for (var i = 0; i < n; i++)
+        {
+            var gap = Implied[i] - Realized[i];
+            signalled[i] = signal == RuleSignal.AllDates || RuleTest.SignalOf(Implied[i], Forecast[i], ThresholdVolatility) == signal;
+            sumAll += gap;
+            if (signalled[i])
+            {
+                sumSignalled += gap;
+                count++;
+            }
+        }
+
+        if (count == 0 || count == n)
+        {
+            var same = count == 0 ? 0 : (sumSignalled / count) - (sumAll / n);
+            return new NeweyWestMeanTest(n, Math.Max(0, Math.Min(lag, n - 1)), same, null, null, null);
+        }
+
+        var meanAll = sumAll / n;
+        var meanSignalled = sumSignalled / count;
+        var share = count / (double)n;
+        var terms = new double[n];
+        for (var i = 0; i < n; i++)
+        {
+            var gap = Implied[i] - Realized[i];
+            terms[i] = ((signalled[i] ? (gap - meanSignalled) / share : 0) - (gap - meanAll)) + (meanSignalled - meanAll);
+        }
+
+        return PnlStatisticsCalculator.MeanTest(terms, lag);
     }
 }

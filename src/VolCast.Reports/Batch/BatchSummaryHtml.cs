@@ -153,8 +153,11 @@ public static class BatchSummaryHtml
 
     private static void Figure(StringBuilder html, ChartImage chart) =>
         html.Append("<figure>\n<img src=\"data:image/png;base64,").Append(Convert.ToBase64String(chart.Png.Span))
-            .Append("\" width=\"1200\" height=\"600\" alt=\"").Append(HtmlReport.E(chart.Description)).Append("\">\n<figcaption><strong>")
+            .Append("\" width=\"1200\" height=\"").Append(PngHeight(chart.Png.Span).ToString(CultureInfo.InvariantCulture)).Append("\" alt=\"").Append(HtmlReport.E(chart.Description)).Append("\">\n<figcaption><strong>")
             .Append(HtmlReport.E(chart.Title)).Append("</strong>").Append(HtmlReport.E(chart.Description)).Append("</figcaption>\n</figure>\n");
+
+    /// <summary>A PNG's height from its header (bytes 20–23 of the IHDR chunk, big-endian): a chart may be taller than 600 pixels.</summary>
+    private static int PngHeight(ReadOnlySpan<byte> png) => System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(png.Slice(20, 4));
 
     private static void Li(StringBuilder html, string text) => html.Append("<li>").Append(HtmlReport.E(text)).Append("</li>\n");
 

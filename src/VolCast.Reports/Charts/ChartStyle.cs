@@ -18,36 +18,45 @@ internal static class ChartStyle
     /// <summary>Black, for the realized series that everything else is judged against.</summary>
     public static readonly Color Realized = Color.FromHex("#000000");
 
-    /// <summary>Okabe and Ito's colour-blind-safe palette without black: orange, sky blue, bluish green, yellow, blue, vermillion, reddish purple.</summary>
-    public static readonly Color[] Palette =
-    [
-        Color.FromHex("#E69F00"),
-        Color.FromHex("#56B4E9"),
-        Color.FromHex("#009E73"),
-        Color.FromHex("#0072B2"),
-        Color.FromHex("#D55E00"),
-        Color.FromHex("#CC79A7"),
-        Color.FromHex("#F0E442"),
-    ];
+    /// <summary>Okabe-Ito orange, for implied volatility (and the premium, which is implied's).</summary>
+    public static readonly Color Implied = Color.FromHex("#E69F00");
 
-    /// <summary>Grey for reference lines (zero, 45°).</summary>
+    /// <summary>Okabe-Ito sky blue.</summary>
+    public static readonly Color SkyBlue = Color.FromHex("#56B4E9");
+
+    /// <summary>Okabe-Ito bluish green.</summary>
+    public static readonly Color BluishGreen = Color.FromHex("#009E73");
+
+    /// <summary>Okabe-Ito blue.</summary>
+    public static readonly Color Blue = Color.FromHex("#0072B2");
+
+    /// <summary>Okabe-Ito vermillion.</summary>
+    public static readonly Color Vermillion = Color.FromHex("#D55E00");
+
+    /// <summary>Okabe-Ito reddish purple.</summary>
+    public static readonly Color ReddishPurple = Color.FromHex("#CC79A7");
+
+    /// <summary>Dark grey for reference lines (zero, y = x, means of a whole sample).</summary>
     public static readonly Color Reference = Color.FromHex("#555555");
 
+    /// <summary>Mid grey for secondary references and for bars that stand for no series.</summary>
+    public static readonly Color Neutral = Color.FromHex("#8C8C8C");
+
+    /// <summary>Light grey for shaded reference bands.</summary>
+    public static readonly Color Band = Color.FromHex("#BDBDBD");
+
     /// <summary>
-    /// The colour of each trading rule, the same in every P&amp;L chart: always-sell (the benchmark) black, proposed
-    /// blue, current orange, plain historical bluish green, walk-forward threshold reddish purple.
+    /// The colour of each trading rule, the same in every P&amp;L chart: always-sell (the benchmark) dark grey, proposed
+    /// blue, current vermillion, plain historical bluish green, walk-forward threshold reddish purple.
     /// </summary>
     public static Color Rule(TradingRule rule) => rule switch
     {
-        TradingRule.AlwaysSell => Realized,
-        TradingRule.Proposed => Palette[3],
-        TradingRule.Current => Palette[0],
-        TradingRule.Historical => Palette[2],
-        _ => Palette[5],
+        TradingRule.AlwaysSell => Reference,
+        TradingRule.Proposed => Blue,
+        TradingRule.Current => Vermillion,
+        TradingRule.Historical => BluishGreen,
+        _ => ReddishPurple,
     };
-
-    /// <summary>The colour of the i-th series after realized.</summary>
-    public static Color Series(int index) => Palette[index % Palette.Length];
 
     /// <summary>A new plot with the title, axis labels, font and sizes set.</summary>
     public static Plot NewPlot(string title, string xLabel, string yLabel)
@@ -84,6 +93,47 @@ internal static class ChartStyle
 
     /// <summary>Renders a plot at the fixed size as PNG bytes.</summary>
     public static byte[] Png(Plot plot) => plot.GetImageBytes(Width, Height, ImageFormat.Png);
+
+    /// <summary>Renders a plot at the fixed width and the given height as PNG bytes.</summary>
+    public static byte[] Png(Plot plot, int height) => plot.GetImageBytes(Width, height, ImageFormat.Png);
+
+    /// <summary>
+    /// Turns the bottom axis into a log scale: the caller draws log10 of its x values, and the ticks stand at the given
+    /// values (for example the lookbacks swept), labelled in plain numbers.
+    /// </summary>
+    public static void LogTicksBottom(Plot plot, IEnumerable<double> values) =>
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual(LogTicks(values));
+
+    /// <summary>Turns the left axis into a log scale with ticks at the given values (the caller draws log10 of its y values).</summary>
+    public static void LogTicksLeft(Plot plot, IEnumerable<double> values) =>
+        plot.Axes.Left.TickGenerator = new ScottPlot.TickGenerators.NumericManual(LogTicks(values));
+
+    /// <summary>Round values (1, 2, 5 times a power of ten) from below <paramref name="low"/> to above <paramref name="high"/>, for a log axis.</summary>
+    public static double[] RoundLogValues(double low, double high)
+    {
+        var values = new List<double>();
+        if (!(low > 0) || !(high >= low))
+        {
+            return [];
+        }
+
+        for (var power = Math.Floor(Math.Log10(low)); power <= Math.Ceiling(Math.Log10(high)); power++)
+        {
+            foreach (var step in new[] { 1.0, 2.0, 5.0 })
+            {
+                var value = step * Math.Pow(10, power);
+                if (value >= low / 2.5 && value <= high * 2.5)
+                {
+                    values.Add(value);
+                }
+            }
+        }
+
+        return [.. values];
+    }
+
+    private static Tick[] LogTicks(IEnumerable<double> values) =>
+        [.. values.Where(v => v > 0).Distinct().Order().Select(v => new Tick(Math.Log10(v), v.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture)))];
 
     /// <summary>A date as the x coordinate ScottPlot's date axis reads.</summary>
     public static double X(DateOnly date) => date.ToDateTime(TimeOnly.MinValue).ToOADate();

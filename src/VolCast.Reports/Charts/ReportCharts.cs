@@ -13,15 +13,34 @@ namespace VolCast.Reports.Charts;
 /// </summary>
 public static class ReportCharts
 {
+    /// <summary>The title of the forecast chart, on the image and above its caption.</summary>
+    internal const string ForecastTitle = "Forecast, implied and realized volatility";
+
+    /// <summary>The title of the premium chart.</summary>
+    internal const string PremiumTitle = "Implied minus realized volatility (the volatility premium)";
+
+    /// <summary>The title of the cumulative-loss chart.</summary>
+    internal const string CumulativeTitle = "Cumulative QLIKE loss against implied";
+
+    /// <summary>The title of the lookback chart.</summary>
+    internal const string LookbackTitle = "Mean QLIKE loss against lookback";
+
+    /// <summary>The title of the cone.</summary>
+    internal const string ConeTitle = "Volatility cone (Hodges-Tompkins adjusted)";
+
+    /// <summary>The title of the rule-test chart.</summary>
+    internal const string RuleTestTitle = "Implied minus realized: signalled dates against all dates";
+
     /// <summary>Forecasts, implied and realized volatility over time.</summary>
     /// <param name="realized">The realized volatility that followed each forecast date (decimal).</param>
     /// <param name="implied">The implied volatility quoted on each date (decimal), when there is one.</param>
     /// <param name="forecasts">The leading forecasters' series (decimal), each named by its spec.</param>
+    /// <param name="colors">The report's colour map, or null for one made from these series.</param>
     /// <returns>The chart as <c>forecast-vs-realized.png</c>.</returns>
-    internal static ChartImage ForecastVsRealized(TimeSeries realized, TimeSeries? implied, IReadOnlyList<TimeSeries> forecasts)
+    internal static ChartImage ForecastVsRealized(TimeSeries realized, TimeSeries? implied, IReadOnlyList<TimeSeries> forecasts, SeriesColors? colors = null)
     {
-        using var plot = BuildForecastVsRealized(realized, implied, forecasts);
-        return new ChartImage("forecast-vs-realized.png", "Forecast, implied and realized volatility",
+        using var plot = BuildForecastVsRealized(realized, implied, forecasts, colors);
+        return new ChartImage("forecast-vs-realized.png", ForecastTitle,
             "Each line is an annualized volatility in percent on the date the forecast was made; the black line is the realized volatility that followed over the horizon.",
             ChartStyle.Png(plot));
     }
@@ -32,153 +51,180 @@ public static class ReportCharts
     internal static ChartImage Premium(TimeSeries premium)
     {
         using var plot = BuildPremium(premium);
-        return new ChartImage("premium.png", "Volatility premium: implied minus realized",
+        return new ChartImage("premium.png", PremiumTitle,
             "Above zero, the implied volatility quoted on that date was higher than the volatility that followed. The dashed line is the mean; the shaded band holds the middle 80% of dates.",
             ChartStyle.Png(plot));
     }
 
-    /// <summary>Cumulative QLIKE loss of each forecaster minus that of implied volatility.</summary>
+    /// <summary>Cumulative QLIKE loss of each forecaster minus that of implied volatility, from the first date they all share.</summary>
     /// <param name="lossDifferentials">Per forecaster and date, QLIKE(forecaster) − QLIKE(implied); the chart adds them up.</param>
+    /// <param name="colors">The report's colour map, or null for one made from these series.</param>
     /// <returns>The chart as <c>cumulative-qlike.png</c>.</returns>
-    internal static ChartImage CumulativeLossDifferential(IReadOnlyList<TimeSeries> lossDifferentials)
+    internal static ChartImage CumulativeLossDifferential(IReadOnlyList<TimeSeries> lossDifferentials, SeriesColors? colors = null)
     {
-        using var plot = BuildCumulativeLossDifferential(lossDifferentials);
-        return new ChartImage("cumulative-qlike.png", "Cumulative QLIKE loss against implied",
-            "A falling line means the forecaster lost less than implied volatility over that stretch (it helped); a rising line means it lost more (it hurt).",
+        using var plot = BuildCumulativeLossDifferential(lossDifferentials, colors);
+        return new ChartImage("cumulative-qlike.png", CumulativeTitle,
+            "Each line adds up the forecaster's daily QLIKE loss minus implied's, from the first date every line has. A falling line means the forecaster lost less than implied volatility over that stretch (it helped); a rising line means it lost more (it hurt).",
             ChartStyle.Png(plot));
     }
 
     /// <summary>Mean loss against lookback for each estimator family, with the out-of-sample choices marked.</summary>
     /// <param name="curves">One curve per family.</param>
+    /// <param name="colors">The report's colour map, or null for one made from these families.</param>
     /// <returns>The chart as <c>loss-vs-lookback.png</c>.</returns>
-    internal static ChartImage LossVsLookback(IReadOnlyList<LookbackCurve> curves)
+    internal static ChartImage LossVsLookback(IReadOnlyList<LookbackCurve> curves, SeriesColors? colors = null)
     {
-        using var plot = BuildLossVsLookback(curves);
-        return new ChartImage("loss-vs-lookback.png", "Loss against lookback",
-            "Mean QLIKE loss (lower is better) for each lookback, in sample; the open circles are the lookbacks the walk-forward selection chose out of sample on at least 2% of dates, sized by how often. EWMA decays are in the lookback table, not here.",
+        using var plot = BuildLossVsLookback(curves, colors);
+        return new ChartImage("loss-vs-lookback.png", LookbackTitle,
+            "Mean QLIKE loss (lower is better) for each lookback, in sample, on a log scale of lookbacks; each family is drawn in the colour of its adaptive forecaster. The open circles are the lookbacks the walk-forward selection chose out of sample on at least 2% of dates, sized by how often. EWMA decays are in the lookback table, not here.",
             ChartStyle.Png(plot));
     }
 
-    /// <summary>Mincer-Zarnowitz scatter of realized against forecast variance, with the fitted and 45° lines.</summary>
+    /// <summary>Mincer-Zarnowitz scatter of realized against forecast variance on log-log axes, with the fitted line and y = x.</summary>
     /// <param name="forecaster">The forecaster's spec, for the title.</param>
     /// <param name="forecastVariance">Forecast annualized variance on each date (decimal², 0.04 = 20% vol).</param>
     /// <param name="realizedVariance">Realized annualized variance that followed (decimal²), same length.</param>
-    /// <param name="intercept">The fitted intercept a in RV² = a + b F².</param>
+    /// <param name="intercept">The fitted intercept a in RV² = a + b F² (decimal²).</param>
     /// <param name="slope">The fitted slope b.</param>
+    /// <param name="colors">The report's colour map, or null for one made from this forecaster.</param>
     /// <returns>The chart as <c>mincer-zarnowitz.png</c>.</returns>
-    internal static ChartImage MincerZarnowitz(string forecaster, IReadOnlyList<double> forecastVariance, IReadOnlyList<double> realizedVariance, double intercept, double slope)
+    internal static ChartImage MincerZarnowitz(string forecaster, IReadOnlyList<double> forecastVariance, IReadOnlyList<double> realizedVariance, double intercept, double slope, SeriesColors? colors = null)
     {
-        using var plot = BuildMincerZarnowitz(forecaster, forecastVariance, realizedVariance, intercept, slope);
-        return new ChartImage("mincer-zarnowitz.png", "Mincer-Zarnowitz: realized against forecast variance",
-            "Each point is one forecast date. An unbiased forecast scatters around the 45° line; the fitted line shows the regression of realized on forecast variance.",
+        using var plot = BuildMincerZarnowitz(forecaster, forecastVariance, realizedVariance, intercept, slope, colors);
+        return new ChartImage("mincer-zarnowitz.png", MincerZarnowitzTitle(forecaster),
+            "Each point is one forecast date, variances in %² (20% volatility is 400 %²) on log scales on both axes. An unbiased forecast scatters around the line y = x; the fitted line is the regression of realized on forecast variance (a straight line in variance, curved on log axes).",
             ChartStyle.Png(plot));
     }
 
-    /// <summary>The volatility cone (Hodges-Tompkins adjusted percentiles) with the latest implied and forecasts overlaid.</summary>
+    /// <summary>The Mincer-Zarnowitz chart's title for a forecaster.</summary>
+    internal static string MincerZarnowitzTitle(string forecaster) => $"Mincer-Zarnowitz: realized against forecast variance, {forecaster}";
+
+    /// <summary>The volatility cone (Hodges-Tompkins adjusted percentiles) with today's realized, implied and forecasts beside it.</summary>
     /// <param name="cone">The cone.</param>
     /// <param name="overlays">Points to draw on it: the latest implied volatility and forecasts at their horizons.</param>
     /// <returns>The chart as <c>cone.png</c>.</returns>
-    public static ChartImage Cone(VolatilityConeResult cone, IReadOnlyList<ConeOverlay> overlays)
+    public static ChartImage Cone(VolatilityConeResult cone, IReadOnlyList<ConeOverlay> overlays) => Cone(cone, overlays, null);
+
+    /// <summary>The volatility cone with the report's colour map.</summary>
+    internal static ChartImage Cone(VolatilityConeResult cone, IReadOnlyList<ConeOverlay> overlays, SeriesColors? colors)
     {
-        using var plot = BuildCone(cone, overlays);
-        return new ChartImage("cone.png", "Volatility cone (overlapping-window adjusted)",
-            "For each horizon, the spread of realized volatility over every window of that length in the history, adjusted for overlapping windows (Hodges-Tompkins); the markers are today's implied volatility and forecasts (markers at the same horizon are drawn 2 days apart).",
+        using var plot = BuildCone(cone, overlays, colors);
+        return new ChartImage("cone.png", ConeTitle,
+            "For each horizon (log scale), the spread of realized volatility over every window of that length in the history, adjusted for overlapping windows (Hodges-Tompkins): the dark band holds the middle half of windows, the light band the middle 80%, the line is the median and the thin whiskers reach the lowest and highest. The black circles are the latest window's realized volatility at each horizon; the markers beside them are today's implied volatility and forecasts (markers at one horizon are set side by side).",
             ChartStyle.Png(plot));
     }
 
-    /// <summary>The distribution of implied minus realized volatility on the dates a rule signalled, against all dates.</summary>
+    /// <summary>The distribution of implied minus realized volatility on the dates a rule signalled, against all dates, with the difference of their means.</summary>
     /// <param name="allDates">IV − RV on every date (decimal).</param>
     /// <param name="signalledDates">IV − RV on the dates the rule signalled (decimal).</param>
     /// <param name="rule">The rule in words, e.g. <c>sell when implied &gt; ewma:0.94</c>, for the legend.</param>
+    /// <param name="forecastSpec">The forecaster the rule uses: the signalled dates are drawn in its colour.</param>
+    /// <param name="differenceP">The p-value of the test that the signalled dates' mean differs from all dates', or null when there is none.</param>
+    /// <param name="colors">The report's colour map, or null for one made from the rule's forecaster.</param>
     /// <returns>The chart as <c>rule-test.png</c>.</returns>
-    internal static ChartImage RuleTest(IReadOnlyList<double> allDates, IReadOnlyList<double> signalledDates, string rule)
+    internal static ChartImage RuleTest(IReadOnlyList<double> allDates, IReadOnlyList<double> signalledDates, string rule, string forecastSpec, double? differenceP = null, SeriesColors? colors = null)
     {
-        using var plot = BuildRuleTest(allDates, signalledDates, rule);
-        return new ChartImage("rule-test.png", "Rule test: implied minus realized on signalled dates",
-            "Share of dates in each band of implied minus realized volatility, for the dates the rule signalled and for all dates; dashed lines mark the means.",
+        using var plot = BuildRuleTest(allDates, signalledDates, rule, forecastSpec, differenceP, colors);
+        return new ChartImage("rule-test.png", RuleTestTitle,
+            "Share of dates in each band of implied minus realized volatility, for the dates the rule signalled and for all dates. The bracket above runs from the mean of all dates (grey circle) to the mean of the signalled dates (the difference the rule test is about); the legend gives it in vol points with the p-value of a Newey-West test that it is zero (delta method, allowing for overlapping windows).",
             ChartStyle.Png(plot));
     }
 
-    /// <summary>The reliability diagram: observed frequency against predicted probability per bin, with the 45° line and interval bars.</summary>
+    /// <summary>The reliability diagram: observed frequency against predicted probability per bin, with the y = x line, interval bars and bin counts.</summary>
     /// <param name="curves">One curve per forecaster (implied first when there is one).</param>
     /// <param name="pooling">Which strikes the bins pool, e.g. <c>pooled over strikes 0.90–1.10 × close</c>, for the title.</param>
+    /// <param name="colors">The report's colour map, or null for one made from these curves.</param>
     /// <returns>The chart as <c>reliability.png</c>.</returns>
-    internal static ChartImage Reliability(IReadOnlyList<ReliabilityCurve> curves, string pooling)
+    internal static ChartImage Reliability(IReadOnlyList<ReliabilityCurve> curves, string pooling, SeriesColors? colors = null)
     {
-        using var plot = BuildReliability(curves, pooling);
-        return new ChartImage(ReliabilityFileName, "Reliability: predicted probability against what happened",
-            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did. Points on the dashed 45° line mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Below the line in the low bins and above it in the high bins means the probabilities stayed too close to 50% (the volatility was too high); the reverse means they were too bold.",
+        using var plot = BuildReliability(curves, pooling, colors);
+        return new ChartImage(ReliabilityFileName, ReliabilityTitle(pooling),
+            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did; the small number above each bar is the bin's count of dates. Forecasters are set a little apart across so that their bars do not overlap. Points on the dashed line y = x mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Below the line in the low bins and above it in the high bins means the probabilities stayed too close to 50% (the volatility was too high); the reverse means they were too bold.",
             ChartStyle.Png(plot));
     }
 
     /// <summary>The reliability diagram's file name.</summary>
     internal const string ReliabilityFileName = "reliability.png";
 
-    internal static Plot BuildReliability(IReadOnlyList<ReliabilityCurve> curves, string pooling)
+    /// <summary>The reliability diagram's title for a pooling.</summary>
+    internal static string ReliabilityTitle(string pooling) => "Reliability of P(close at horizon > strike), " + pooling;
+
+    /// <summary>How far apart, in percentage points of predicted probability, the reliability curves of different forecasters are drawn.</summary>
+    internal const double ReliabilityOffset = 1.2;
+
+    internal static Plot BuildReliability(IReadOnlyList<ReliabilityCurve> curves, string pooling, SeriesColors? colors = null)
     {
         ArgumentNullException.ThrowIfNull(curves);
         ArgumentNullException.ThrowIfNull(pooling);
-        var plot = ChartStyle.NewPlot("Reliability of P(close at horizon > strike), " + pooling, "Predicted probability (%)", "Observed frequency (%)");
+        colors ??= new SeriesColors(curves.Select(c => c.Name));
+        var plot = ChartStyle.NewPlot(ReliabilityTitle(pooling), "Predicted probability (%)", "Observed frequency (%)");
         var diagonal = plot.Add.Line(0, 0, 100, 100);
         diagonal.Color = ChartStyle.Reference;
         diagonal.LineWidth = 2;
         diagonal.LinePattern = LinePattern.Dashed;
-        diagonal.LegendText = "45° line (odds held)";
-        var shapes = new[] { MarkerShape.FilledCircle, MarkerShape.FilledSquare, MarkerShape.FilledTriangleUp, MarkerShape.FilledDiamond };
+        diagonal.LegendText = "y = x (odds held)";
         for (var k = 0; k < curves.Count; k++)
         {
             var curve = curves[k];
             var n = curve.Predicted.Count;
-            if (curve.Observed.Count != n || curve.Lower.Count != n || curve.Upper.Count != n)
+            if (curve.Observed.Count != n || curve.Lower.Count != n || curve.Upper.Count != n || curve.Counts.Count != n)
             {
                 throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
-                    $"curve '{curve.Name}' has {n} predicted values but {curve.Observed.Count} observed, {curve.Lower.Count} lower and {curve.Upper.Count} upper; expected one of each per bin."), nameof(curves));
+                    $"curve '{curve.Name}' has {n} predicted values but {curve.Observed.Count} observed, {curve.Lower.Count} lower, {curve.Upper.Count} upper and {curve.Counts.Count} counts; expected one of each per bin."), nameof(curves));
             }
 
-            // Implied keeps the palette's first colour, as in the other charts; forecasters follow.
-            var color = ChartStyle.Series(curve.Name == ImpliedSeries.Name ? 0 : k + (curves[0].Name == ImpliedSeries.Name ? 0 : 1));
+            var style = colors.Style(curve.Name);
+            var offset = ReliabilityOffset * (k - ((curves.Count - 1) / 2.0));
             var xs = new double[n];
             var ys = new double[n];
             for (var i = 0; i < n; i++)
             {
-                xs[i] = curve.Predicted[i] * 100.0;
+                xs[i] = (curve.Predicted[i] * 100.0) + offset;
                 ys[i] = curve.Observed[i] * 100.0;
                 var bar = plot.Add.Line(xs[i], curve.Lower[i] * 100.0, xs[i], curve.Upper[i] * 100.0);
-                bar.Color = color.WithAlpha(0.7);
+                bar.Color = style.Color.WithAlpha(0.7);
                 bar.LineWidth = 2;
                 bar.LegendText = string.Empty;
+                var count = plot.Add.Text(curve.Counts[i].ToString(CultureInfo.InvariantCulture), xs[i], curve.Upper[i] * 100.0);
+                count.LabelFontColor = style.Color;
+                count.LabelFontSize = 11;
+                count.LabelFontName = ChartStyle.FontName;
+                count.Alignment = Alignment.MiddleLeft;
+                count.LabelRotation = -90;
+                count.OffsetY = -4;
             }
 
             var line = plot.Add.Scatter(xs, ys);
-            line.Color = color;
+            line.Color = style.Color;
             line.LineWidth = 2;
+            line.LinePattern = style.Pattern;
             line.MarkerSize = 9;
-            line.MarkerShape = shapes[k % shapes.Length];
+            line.MarkerShape = style.Marker;
             line.LegendText = curve.Name;
         }
 
-        plot.Axes.SetLimits(-2, 102, -2, 102);
+        plot.Axes.SetLimits(-3, 103, -2, 106);
         ChartStyle.LegendBelow(plot);
         return plot;
     }
 
-    internal static Plot BuildForecastVsRealized(TimeSeries realized, TimeSeries? implied, IReadOnlyList<TimeSeries> forecasts)
+    internal static Plot BuildForecastVsRealized(TimeSeries realized, TimeSeries? implied, IReadOnlyList<TimeSeries> forecasts, SeriesColors? colors = null)
     {
         ArgumentNullException.ThrowIfNull(realized);
         ArgumentNullException.ThrowIfNull(forecasts);
-        var plot = ChartStyle.NewPlot("Forecast, implied and realized volatility", "Forecast date", "Annualized volatility (%)");
-        var colour = 0;
+        colors ??= new SeriesColors(forecasts.Select(f => f.Name));
+        var plot = ChartStyle.NewPlot(ForecastTitle, "Forecast date", "Annualized volatility (%)");
         foreach (var forecast in forecasts)
         {
-            AddLine(plot, forecast, 100.0, ChartStyle.Series(colour++ + 1), 1.5f, forecast.Name);
+            AddLine(plot, forecast, 100.0, colors.Style(forecast.Name), 1.5f, forecast.Name);
         }
 
         if (implied is not null)
         {
-            AddLine(plot, implied, 100.0, ChartStyle.Series(0), 1.5f, implied.Name);
+            AddLine(plot, implied, 100.0, colors.Style(ImpliedSeries.Name), 1.5f, implied.Name);
         }
 
-        AddLine(plot, realized, 100.0, ChartStyle.Realized, 1.5f, realized.Name);
+        AddLine(plot, realized, 100.0, colors.Style("realized"), 1.5f, realized.Name);
         ChartStyle.DateAxis(plot, "Forecast date");
         plot.Axes.Margins(0.01, 0.05);
         ChartStyle.LegendBelow(plot);
@@ -188,7 +234,7 @@ public static class ReportCharts
     internal static Plot BuildPremium(TimeSeries premium)
     {
         ArgumentNullException.ThrowIfNull(premium);
-        var plot = ChartStyle.NewPlot("Implied minus realized volatility", "Date", "Implied − realized (vol points, %)");
+        var plot = ChartStyle.NewPlot(PremiumTitle, "Forecast date", "Implied − realized (vol points)");
         var points = new double[premium.Values.Count];
         for (var i = 0; i < points.Length; i++)
         {
@@ -202,7 +248,7 @@ public static class ReportCharts
             var low = Quantile.Type7(sorted, 0.10);
             var high = Quantile.Type7(sorted, 0.90);
             var band = plot.Add.VerticalSpan(low, high);
-            band.FillColor = ChartStyle.Series(1).WithAlpha(0.25);
+            band.FillColor = ChartStyle.Band.WithAlpha(0.45);
             band.LineColor = Colors.Transparent;
             band.LegendText = string.Create(CultureInfo.InvariantCulture, $"10th–90th percentile ({low:0.0} to {high:0.0})");
         }
@@ -210,76 +256,113 @@ public static class ReportCharts
         var zero = plot.Add.HorizontalLine(0);
         zero.Color = ChartStyle.Reference;
         zero.LineWidth = 1;
-        AddLine(plot, premium, 100.0, ChartStyle.Series(3), 1.2f, premium.Name);
+
+        // The premium is implied's: it is drawn in implied's colour.
+        AddLine(plot, premium, 100.0, new SeriesStyle(ChartStyle.Implied, LinePattern.Solid, MarkerShape.FilledCircle), 1.2f, premium.Name);
         if (points.Length > 0)
         {
             var mean = points.Average();
             var meanLine = plot.Add.HorizontalLine(mean);
-            meanLine.Color = ChartStyle.Series(4);
+            meanLine.Color = ChartStyle.Realized;
             meanLine.LineWidth = 2.5f;
             meanLine.LinePattern = LinePattern.Dashed;
             meanLine.LegendText = string.Create(CultureInfo.InvariantCulture, $"mean {mean:0.00}");
         }
 
-        ChartStyle.DateAxis(plot, "Date");
+        ChartStyle.DateAxis(plot, "Forecast date");
         plot.Axes.Margins(0.01, 0.05);
         ChartStyle.LegendBelow(plot);
         return plot;
     }
 
-    internal static Plot BuildCumulativeLossDifferential(IReadOnlyList<TimeSeries> lossDifferentials)
+    /// <summary>The first date on which every series has a value (the latest of their first dates), or null when there are none.</summary>
+    internal static DateOnly? CommonStart(IReadOnlyList<TimeSeries> series)
+    {
+        DateOnly? start = null;
+        foreach (var s in series)
+        {
+            if (s.Dates.Count == 0)
+            {
+                continue;
+            }
+
+            start = start is DateOnly d && d >= s.Dates[0] ? d : s.Dates[0];
+        }
+
+        return start;
+    }
+
+    internal static Plot BuildCumulativeLossDifferential(IReadOnlyList<TimeSeries> lossDifferentials, SeriesColors? colors = null)
     {
         ArgumentNullException.ThrowIfNull(lossDifferentials);
-        var plot = ChartStyle.NewPlot("Cumulative QLIKE loss minus implied's (below 0: forecaster better)", "Date", "Cumulative QLIKE, forecaster − implied");
+        colors ??= new SeriesColors(lossDifferentials.Select(f => f.Name));
+        var plot = ChartStyle.NewPlot(CumulativeTitle, "Forecast date", "Cumulative QLIKE, forecaster − implied (loss units)");
         var zero = plot.Add.HorizontalLine(0);
         zero.Color = ChartStyle.Reference;
         zero.LineWidth = 1;
-        var colour = 1;
+
+        // Every line starts on the first date all of them have, so that they add up over the same stretch.
+        var start = CommonStart(lossDifferentials);
         foreach (var series in lossDifferentials)
         {
-            var xs = new double[series.Dates.Count];
-            var ys = new double[series.Values.Count];
+            var xs = new List<double>(series.Dates.Count);
+            var ys = new List<double>(series.Dates.Count);
             var sum = 0.0;
-            for (var i = 0; i < xs.Length; i++)
+            for (var i = 0; i < series.Dates.Count; i++)
             {
+                if (series.Dates[i] < start)
+                {
+                    continue;
+                }
+
                 sum += series.Values[i];
-                xs[i] = ChartStyle.X(series.Dates[i]);
-                ys[i] = sum;
+                xs.Add(ChartStyle.X(series.Dates[i]));
+                ys.Add(sum);
             }
 
-            var (drawnX, drawnY) = ChartPoints.Line(xs, ys);
+            var (drawnX, drawnY) = ChartPoints.Line([.. xs], [.. ys]);
+            var style = colors.Style(series.Name);
             var line = plot.Add.ScatterLine(drawnX, drawnY);
-            line.Color = ChartStyle.Series(colour++);
+            line.Color = style.Color;
+            line.LinePattern = style.Pattern;
             line.LineWidth = 2;
             line.LegendText = series.Name;
         }
 
-        ChartStyle.DateAxis(plot, "Date");
+        ChartStyle.DateAxis(plot, "Forecast date");
         plot.Axes.Margins(0.01, 0.05);
         ChartStyle.LegendBelow(plot);
         return plot;
     }
 
-    internal static Plot BuildLossVsLookback(IReadOnlyList<LookbackCurve> curves)
+    /// <summary>The legend text of the out-of-sample marks on the lookback chart.</summary>
+    internal const string ChosenLegend = "chosen out of sample (circle size: share of dates)";
+
+    internal static Plot BuildLossVsLookback(IReadOnlyList<LookbackCurve> curves, SeriesColors? colors = null)
     {
         ArgumentNullException.ThrowIfNull(curves);
-        var plot = ChartStyle.NewPlot("Mean QLIKE against lookback (circles: chosen out of sample, by share)", "Lookback (trading days)", "Mean QLIKE loss (lower is better)");
-        var colour = 1;
+        colors ??= new SeriesColors(curves.Select(c => "adaptive:" + c.Family));
+        var plot = ChartStyle.NewPlot(LookbackTitle, "Lookback (trading days, log scale)", "Mean QLIKE loss, in sample (lower is better)");
+        var swept = new SortedSet<double>();
         foreach (var curve in curves)
         {
-            var color = ChartStyle.Series(colour++);
+            // The family is drawn in the colour of the adaptive forecaster that chooses among its lookbacks.
+            var style = colors.Style("adaptive:" + curve.Family);
             var xs = new double[curve.LookbackDays.Count];
             var ys = new double[xs.Length];
             for (var i = 0; i < xs.Length; i++)
             {
-                xs[i] = curve.LookbackDays[i];
+                xs[i] = Math.Log10(curve.LookbackDays[i]);
                 ys[i] = curve.MeanLoss[i];
+                swept.Add(curve.LookbackDays[i]);
             }
 
             var line = plot.Add.Scatter(xs, ys);
-            line.Color = color;
+            line.Color = style.Color;
+            line.LinePattern = style.Pattern;
             line.LineWidth = 2;
-            line.MarkerSize = 6;
+            line.MarkerSize = 7;
+            line.MarkerShape = style.Marker;
             line.LegendText = curve.Family;
 
             // One marker per distinct chosen lookback, its size growing with how often it was chosen.
@@ -299,20 +382,33 @@ public static class ReportCharts
                     continue;
                 }
 
-                var marker = plot.Add.Marker(lookback, curve.MeanLoss[index]);
-                marker.Color = color;
+                var marker = plot.Add.Marker(Math.Log10(lookback), curve.MeanLoss[index]);
+                marker.Color = style.Color;
                 marker.MarkerShape = MarkerShape.OpenCircle;
                 marker.MarkerLineWidth = 2.5f;
                 marker.Size = 10 + (30f * times / curve.ChosenLookbackDays.Count);
             }
         }
 
+        plot.Legend.ManualItems.Add(new LegendItem
+        {
+            LabelText = ChosenLegend,
+            MarkerShape = MarkerShape.OpenCircle,
+            MarkerColor = ChartStyle.Reference,
+            MarkerSize = 14,
+            MarkerLineWidth = 2.5f,
+            LineWidth = 0,
+        });
+        ChartStyle.LogTicksBottom(plot, swept);
         plot.Axes.Margins(0.05, 0.1);
         ChartStyle.LegendBelow(plot);
         return plot;
     }
 
-    internal static Plot BuildMincerZarnowitz(string forecaster, IReadOnlyList<double> forecastVariance, IReadOnlyList<double> realizedVariance, double intercept, double slope)
+    /// <summary>How many points draw the fitted Mincer-Zarnowitz line, which bends on log axes.</summary>
+    private const int FittedPoints = 60;
+
+    internal static Plot BuildMincerZarnowitz(string forecaster, IReadOnlyList<double> forecastVariance, IReadOnlyList<double> realizedVariance, double intercept, double slope, SeriesColors? colors = null)
     {
         ArgumentNullException.ThrowIfNull(forecaster);
         ArgumentNullException.ThrowIfNull(forecastVariance);
@@ -323,138 +419,232 @@ public static class ReportCharts
                 $"realizedVariance has {realizedVariance.Count} values but forecastVariance has {forecastVariance.Count}; expected one pair per date."), nameof(realizedVariance));
         }
 
-        var plot = ChartStyle.NewPlot($"Mincer-Zarnowitz: {forecaster}", "Forecast variance F² (annualized, decimal²)", "Realized variance RV² (annualized, decimal²)");
-        var xs = forecastVariance.ToArray();
-        var ys = realizedVariance.ToArray();
-        var (drawnX, drawnY) = ChartPoints.Scatter(xs, ys);
+        colors ??= new SeriesColors([forecaster]);
+        var style = colors.Style(forecaster);
+        var plot = ChartStyle.NewPlot(MincerZarnowitzTitle(forecaster), "Forecast variance F² (annualized, %², log scale)", "Realized variance RV² (annualized, %², log scale)");
+
+        // Variances in %² (decimal² × 10 000) on log axes: the cloud spreads out instead of sitting in one corner.
+        var xs = new List<double>(forecastVariance.Count);
+        var ys = new List<double>(forecastVariance.Count);
+        double low = double.PositiveInfinity, high = 0, lowY = double.PositiveInfinity, highY = 0;
+        for (var i = 0; i < forecastVariance.Count; i++)
+        {
+            var f = forecastVariance[i] * 1e4;
+            var r = realizedVariance[i] * 1e4;
+            if (f > 0 && r > 0 && double.IsFinite(f) && double.IsFinite(r))
+            {
+                xs.Add(Math.Log10(f));
+                ys.Add(Math.Log10(r));
+                low = Math.Min(low, f);
+                high = Math.Max(high, f);
+                lowY = Math.Min(lowY, r);
+                highY = Math.Max(highY, r);
+            }
+        }
+
+        var (drawnX, drawnY) = ChartPoints.Scatter([.. xs], [.. ys]);
         var points = plot.Add.ScatterPoints(drawnX, drawnY);
-        points.Color = ChartStyle.Series(3).WithAlpha(0.45);
+        points.Color = style.Color.WithAlpha(0.4);
+        points.MarkerShape = style.Marker;
         points.MarkerSize = 4;
         points.LegendText = "forecast dates";
 
-        var top = 0.0;
-        for (var i = 0; i < xs.Length; i++)
+        if (xs.Count > 0)
         {
-            top = Math.Max(top, xs[i]);
+            var diagonal = plot.Add.Line(Math.Log10(low), Math.Log10(low), Math.Log10(high), Math.Log10(high));
+            diagonal.Color = ChartStyle.Reference;
+            diagonal.LineWidth = 2;
+            diagonal.LinePattern = LinePattern.Dashed;
+            diagonal.LegendText = "y = x (unbiased)";
+
+            var fx = new List<double>(FittedPoints);
+            var fy = new List<double>(FittedPoints);
+            for (var i = 0; i < FittedPoints; i++)
+            {
+                var x = Math.Log10(low) + ((Math.Log10(high) - Math.Log10(low)) * i / (FittedPoints - 1));
+                var y = (intercept * 1e4) + (slope * Math.Pow(10, x));
+                if (y > 0)
+                {
+                    fx.Add(x);
+                    fy.Add(Math.Log10(y));
+                }
+            }
+
+            var fitted = plot.Add.ScatterLine(fx.ToArray(), fy.ToArray());
+            fitted.Color = ChartStyle.Realized;
+            fitted.LineWidth = 2.5f;
+            fitted.LegendText = string.Create(CultureInfo.InvariantCulture, $"fitted: RV² = {intercept * 1e4:0.0} %² + {slope:0.000} F²");
+            ChartStyle.LogTicksBottom(plot, ChartStyle.RoundLogValues(low, high));
+            ChartStyle.LogTicksLeft(plot, ChartStyle.RoundLogValues(Math.Min(low, lowY), Math.Max(high, highY)));
         }
 
-        var diagonal = plot.Add.Line(0, 0, top, top);
-        diagonal.Color = ChartStyle.Reference;
-        diagonal.LineWidth = 2;
-        diagonal.LinePattern = LinePattern.Dashed;
-        diagonal.LegendText = "45° line (unbiased)";
-
-        var fitted = plot.Add.Line(0, intercept, top, intercept + (slope * top));
-        fitted.Color = ChartStyle.Series(4);
-        fitted.LineWidth = 2.5f;
-        fitted.LegendText = string.Create(CultureInfo.InvariantCulture, $"fitted: RV² = {intercept:0.0000} + {slope:0.000} F²");
         plot.Axes.Margins(0.02, 0.05);
         ChartStyle.LegendBelow(plot);
         return plot;
     }
 
-    internal static Plot BuildCone(VolatilityConeResult cone, IReadOnlyList<ConeOverlay> overlays)
+    /// <summary>The shaded bands of the cone: the 10th–90th and 25th–75th percentiles at each horizon, in percent.</summary>
+    internal static IReadOnlyList<(string Label, double[] Lower, double[] Upper)> ConeBands(VolatilityConeResult cone)
+    {
+        ArgumentNullException.ThrowIfNull(cone);
+        var h = cone.Horizons;
+        return
+        [
+            ("10th–90th percentile", [.. h.Select(x => x.Adjusted.P10 * 100.0)], [.. h.Select(x => x.Adjusted.P90 * 100.0)]),
+            ("25th–75th percentile", [.. h.Select(x => x.Adjusted.P25 * 100.0)], [.. h.Select(x => x.Adjusted.P75 * 100.0)]),
+        ];
+    }
+
+    /// <summary>The legend text of the cone's current realized volatility.</summary>
+    internal const string ConeLatest = "realized, latest window";
+
+    /// <summary>How far apart, in log10 of the horizon, overlay markers at one horizon are set.</summary>
+    internal const double ConeOverlayStep = 0.03;
+
+    internal static Plot BuildCone(VolatilityConeResult cone, IReadOnlyList<ConeOverlay> overlays, SeriesColors? colors = null)
     {
         ArgumentNullException.ThrowIfNull(cone);
         ArgumentNullException.ThrowIfNull(overlays);
-        var plot = ChartStyle.NewPlot("Volatility cone (Hodges-Tompkins adjusted)", "Horizon (trading days)", "Annualized realized volatility (%)");
+        colors ??= new SeriesColors(overlays.Select(o => o.Name));
+        var plot = ChartStyle.NewPlot(ConeTitle, "Horizon (trading days, log scale)", "Annualized realized volatility (%)");
         var xs = new double[cone.Horizons.Count];
         for (var i = 0; i < xs.Length; i++)
         {
-            xs[i] = cone.Horizons[i].HorizonDays;
+            xs[i] = Math.Log10(cone.Horizons[i].HorizonDays);
         }
 
-        // Percentile lines: the extremes thin and grey, the quartiles coloured, the median heavy.
-        var styles = new (Color Color, float Width, LinePattern Pattern)[]
+        // Min and max as thin whiskers, one per horizon, under the bands.
+        for (var i = 0; i < xs.Length; i++)
         {
-            (ChartStyle.Reference, 1.5f, LinePattern.Dotted),
-            (ChartStyle.Series(1), 2f, LinePattern.Dashed),
-            (ChartStyle.Series(3), 2f, LinePattern.Solid),
-            (ChartStyle.Realized, 3f, LinePattern.Solid),
-            (ChartStyle.Series(3), 2f, LinePattern.Solid),
-            (ChartStyle.Series(1), 2f, LinePattern.Dashed),
-            (ChartStyle.Reference, 1.5f, LinePattern.Dotted),
-        };
-        for (var level = ConePercentiles.Levels.Count - 1; level >= 0; level--)
-        {
-            var ys = new double[xs.Length];
-            for (var i = 0; i < xs.Length; i++)
+            var whisker = plot.Add.Line(xs[i], cone.Horizons[i].Adjusted.Min * 100.0, xs[i], cone.Horizons[i].Adjusted.Max * 100.0);
+            whisker.Color = ChartStyle.Neutral;
+            whisker.LineWidth = 1.2f;
+            whisker.LegendText = i == 0 ? "min to max" : string.Empty;
+            foreach (var end in new[] { cone.Horizons[i].Adjusted.Min, cone.Horizons[i].Adjusted.Max })
             {
-                ys[i] = cone.Horizons[i].Adjusted.ToArray()[level] * 100.0;
+                var cap = plot.Add.Marker(xs[i], end * 100.0);
+                cap.MarkerShape = MarkerShape.HorizontalBar;
+                cap.Size = 12;
+                cap.MarkerLineWidth = 1.2f;
+                cap.Color = ChartStyle.Neutral;
+                cap.LegendText = string.Empty;
             }
-
-            var line = plot.Add.Scatter(xs, ys);
-            line.Color = styles[level].Color;
-            line.LineWidth = styles[level].Width;
-            line.LinePattern = styles[level].Pattern;
-            line.MarkerSize = 5;
-            line.LegendText = ConePercentiles.Labels[level];
         }
 
-        var shapes = new[] { MarkerShape.FilledDiamond, MarkerShape.FilledTriangleUp, MarkerShape.FilledSquare, MarkerShape.FilledTriangleDown };
-        var index = 0;
-        foreach (var overlay in overlays)
+        var shades = new[] { ChartStyle.Band.WithAlpha(0.55), ChartStyle.Neutral.WithAlpha(0.6) };
+        var bands = ConeBands(cone);
+        for (var b = 0; b < bands.Count; b++)
         {
-            // Points at the same horizon are spread 2 days apart so none hides another; the caption says so.
-            var marker = plot.Add.Marker(overlay.HorizonDays + OverlayOffset(overlays, index), overlay.AnnualizedVolatility * 100.0);
-            marker.MarkerShape = shapes[index % shapes.Length];
-            marker.Size = 16;
-            marker.Color = index == 0 ? ChartStyle.Series(0) : ChartStyle.Series(4 + ((index - 1) % 3));
-            marker.LegendText = overlay.Name;
-            index++;
+            var (label, lower, upper) = bands[b];
+            var fill = plot.Add.FillY(xs, lower, upper);
+            fill.FillColor = shades[b];
+            fill.LineColor = Colors.Transparent;
+            fill.LineWidth = 0;
+            fill.LegendText = label;
         }
 
-        plot.Axes.Margins(0.03, 0.08);
+        var median = plot.Add.Scatter(xs, [.. cone.Horizons.Select(h => h.Adjusted.Median * 100.0)]);
+        median.Color = ChartStyle.Reference;
+        median.LineWidth = 3;
+        median.MarkerSize = 0;
+        median.LegendText = "median";
+
+        // Today's realized volatility at every horizon, drawn beside implied and the forecasts.
+        var latest = plot.Add.Scatter(xs, [.. cone.Horizons.Select(h => h.Latest * 100.0)]);
+        var realized = colors.Style("realized");
+        latest.Color = realized.Color;
+        latest.LineWidth = 1.5f;
+        latest.LinePattern = LinePattern.Dashed;
+        latest.MarkerShape = MarkerShape.OpenCircle;
+        latest.MarkerSize = 11;
+        latest.MarkerLineWidth = 2;
+        latest.LegendText = ConeLatest;
+
+        for (var index = 0; index < overlays.Count; index++)
+        {
+            var overlay = overlays[index];
+            var style = colors.Style(overlay.Name);
+
+            // Markers at one horizon are set side by side, a fixed step apart on the log axis, so none hides another.
+            var x = Math.Log10(overlay.HorizonDays) + (ConeOverlayStep * OverlayOffset(overlays, index));
+            var marker = plot.Add.Marker(x, overlay.AnnualizedVolatility * 100.0);
+            marker.MarkerShape = style.Marker;
+            marker.Size = 14;
+            marker.Color = style.Color;
+            marker.LegendText = overlay.Name;
+        }
+
+        ChartStyle.LogTicksBottom(plot, cone.Horizons.Select(h => (double)h.HorizonDays));
+        plot.Axes.Margins(0.04, 0.08);
         ChartStyle.LegendBelow(plot);
         return plot;
     }
 
-    internal static Plot BuildRuleTest(IReadOnlyList<double> allDates, IReadOnlyList<double> signalledDates, string rule)
+    /// <summary>The legend text of the rule-test chart's difference bracket.</summary>
+    internal static string DifferenceLegend(double difference, double? p) => p is double value
+        ? string.Create(CultureInfo.InvariantCulture, $"signalled − all dates = {difference:+0.00;−0.00;0.00} vol points ({PValue(value)})")
+        : string.Create(CultureInfo.InvariantCulture, $"signalled − all dates = {difference:+0.00;−0.00;0.00} vol points");
+
+    internal static Plot BuildRuleTest(IReadOnlyList<double> allDates, IReadOnlyList<double> signalledDates, string rule, string forecastSpec, double? differenceP = null, SeriesColors? colors = null)
     {
         ArgumentNullException.ThrowIfNull(allDates);
         ArgumentNullException.ThrowIfNull(signalledDates);
         ArgumentNullException.ThrowIfNull(rule);
-        var plot = ChartStyle.NewPlot("Implied minus realized: signalled dates against all dates", "Implied − realized (vol points, %)", "Share of dates (%)");
+        ArgumentNullException.ThrowIfNull(forecastSpec);
+        colors ??= new SeriesColors([forecastSpec]);
+        var color = colors.Style(forecastSpec).Color;
+        var plot = ChartStyle.NewPlot(RuleTestTitle, "Implied − realized (vol points)", "Share of dates (%)");
         var all = Scale(allDates, 100.0);
         var signalled = Scale(signalledDates, 100.0);
-        if (all.Length > 0)
-        {
-            var (edges, width) = Bins(all, 40);
-            AddHistogram(plot, all, edges, width, ChartStyle.Series(1), $"all dates (n = {all.Length.ToString(CultureInfo.InvariantCulture)})", filled: true);
-            AddHistogram(plot, signalled, edges, width, ChartStyle.Series(4), $"{rule} (n = {signalled.Length.ToString(CultureInfo.InvariantCulture)})", filled: false);
-            AddMean(plot, all, ChartStyle.Series(1), "mean, all dates");
-            if (signalled.Length > 0)
-            {
-                AddMean(plot, signalled, ChartStyle.Series(4), "mean, signalled");
-            }
-        }
-
         var zero = plot.Add.VerticalLine(0);
         zero.Color = ChartStyle.Reference;
         zero.LineWidth = 1;
+        if (all.Length > 0)
+        {
+            var (edges, width) = Bins(all, 40);
+            var top = AddHistogram(plot, all, edges, width, ChartStyle.Neutral, $"all dates (n = {all.Length.ToString(CultureInfo.InvariantCulture)})", filled: true);
+            top = Math.Max(top, AddHistogram(plot, signalled, edges, width, color, $"{rule} (n = {signalled.Length.ToString(CultureInfo.InvariantCulture)})", filled: false));
+            if (signalled.Length > 0)
+            {
+                // The difference the test is about, as a bracket above the bars from one mean to the other.
+                var meanAll = all.Average();
+                var meanSignalled = signalled.Average();
+                var y = top * 1.12;
+                var bracket = plot.Add.Line(meanAll, y, meanSignalled, y);
+                bracket.Color = color;
+                bracket.LineWidth = 3;
+                bracket.LegendText = DifferenceLegend(meanSignalled - meanAll, differenceP);
+                var from = plot.Add.Marker(meanAll, y);
+                from.MarkerShape = MarkerShape.FilledCircle;
+                from.Size = 11;
+                from.Color = ChartStyle.Neutral;
+                from.LegendText = string.Create(CultureInfo.InvariantCulture, $"mean, all dates {meanAll:0.00}");
+                var to = plot.Add.Marker(meanSignalled, y);
+                to.MarkerShape = MarkerShape.FilledTriangleUp;
+                to.Size = 13;
+                to.Color = color;
+                to.LegendText = string.Create(CultureInfo.InvariantCulture, $"mean, signalled {meanSignalled:0.00}");
+            }
+        }
+
         plot.Axes.Margins(0.02, 0.08);
         ChartStyle.LegendBelow(plot);
         return plot;
     }
 
-    /// <summary>How far to shift the i-th overlay along the horizon axis: 2 days per earlier overlay at the same horizon, centred.</summary>
+    /// <summary>How many steps to the right of its horizon the i-th overlay sits: one more than the overlays before it at the same horizon, so that the latest realized mark on the horizon itself stays in view.</summary>
     internal static double OverlayOffset(IReadOnlyList<ConeOverlay> overlays, int index)
     {
         var before = 0;
-        var same = 0;
-        for (var i = 0; i < overlays.Count; i++)
+        for (var i = 0; i < index; i++)
         {
             if (overlays[i].HorizonDays == overlays[index].HorizonDays)
             {
-                same++;
-                if (i < index)
-                {
-                    before++;
-                }
+                before++;
             }
         }
 
-        return 2.0 * (before - ((same - 1) / 2.0));
+        return before + 1;
     }
 
     /// <summary>Equal-width bins over the sample's range: the left edges and the width.</summary>
@@ -508,33 +698,26 @@ public static class ReportCharts
         return (xs, ys);
     }
 
-    private static void AddHistogram(Plot plot, double[] values, double[] edges, double width, Color color, string label, bool filled)
+    /// <summary>Draws a histogram's outline and returns its highest share (0 when there are no values).</summary>
+    private static double AddHistogram(Plot plot, double[] values, double[] edges, double width, Color color, string label, bool filled)
     {
         if (values.Length == 0)
         {
-            return;
+            return 0;
         }
 
-        var (xs, ys) = StepOutline(edges, Shares(values, edges, width));
+        var shares = Shares(values, edges, width);
+        var (xs, ys) = StepOutline(edges, shares);
         var fill = plot.Add.ScatterLine(xs, ys);
         fill.Color = color;
         fill.LineWidth = 2.5f;
         fill.FillY = filled;
         fill.FillYColor = color.WithAlpha(0.2);
         fill.LegendText = label;
+        return shares.Max();
     }
 
-    private static void AddMean(Plot plot, double[] values, Color color, string label)
-    {
-        var mean = values.Average();
-        var line = plot.Add.VerticalLine(mean);
-        line.Color = color;
-        line.LineWidth = 2.5f;
-        line.LinePattern = LinePattern.Dashed;
-        line.LegendText = string.Create(CultureInfo.InvariantCulture, $"{label} {mean:0.00}");
-    }
-
-    private static void AddLine(Plot plot, TimeSeries series, double scale, Color color, float width, string label)
+    private static void AddLine(Plot plot, TimeSeries series, double scale, SeriesStyle style, float width, string label)
     {
         var xs = new double[series.Dates.Count];
         var ys = new double[xs.Length];
@@ -546,10 +729,13 @@ public static class ReportCharts
 
         var (drawnX, drawnY) = ChartPoints.Line(xs, ys);
         var line = plot.Add.ScatterLine(drawnX, drawnY);
-        line.Color = color;
+        line.Color = style.Color;
+        line.LinePattern = style.Pattern;
         line.LineWidth = width;
         line.LegendText = label;
     }
+
+    private static string PValue(double p) => p < 0.001 ? "p < 0.001" : string.Create(CultureInfo.InvariantCulture, $"p = {p:0.000}");
 
     private static double[] Scale(IReadOnlyList<double> values, double factor)
     {

@@ -105,19 +105,41 @@ public sealed class ReportChartsTests
     }
 
     [Fact]
+    public void CumulativeLossDifferential_EveryLineStartsOnTheFirstDateTheyShare()
+    {
+        var early = new DateOnly(2020, 1, 2);
+        var dates = new[] { early, new DateOnly(2020, 1, 3), new DateOnly(2020, 1, 6) };
+        var longer = new TimeSeries("garch", dates, [5.0, 1.0, 2.0]);
+        var shorter = new TimeSeries("yang-zhang:21", dates[1..], [0.5, 0.5]);
+
+        using var plot = ReportCharts.BuildCumulativeLossDifferential([longer, shorter]);
+
+        // garch's value on 2 January is left out: both lines add up from 3 January, the first date yang-zhang:21 has.
+        var x = dates[1..].Select(d => d.ToDateTime(TimeOnly.MinValue).ToOADate()).ToArray();
+        AssertSeries(Line(plot, "garch"), x, [1.0, 3.0]);
+        AssertSeries(Line(plot, "yang-zhang:21"), x, [0.5, 1.0]);
+    }
+
+    [Fact]
     public void LossVsLookback_CurvesAndOneMarkerPerDistinctChoice()
     {
         using var plot = ReportCharts.BuildLossVsLookback(Sample.Lookbacks);
 
+        // The horizon axis is a log scale: the curves are drawn at log10 of the lookback, ticks at each lookback swept.
         foreach (var curve in Sample.Lookbacks)
         {
-            AssertSeries(Line(plot, curve.Family), curve.LookbackDays.Select(d => (double)d).ToArray(), curve.MeanLoss);
+            AssertSeries(Line(plot, curve.Family), curve.LookbackDays.Select(d => Math.Log10(d)).ToArray(), curve.MeanLoss);
         }
 
         var markers = plot.GetPlottables().OfType<Marker>().ToArray();
         Assert.Equal(Sample.Lookbacks.Sum(c => c.ChosenLookbackDays.Distinct().Count()), markers.Length);
         // close-to-close chose 42 five times out of 7: its marker sits on the curve at 42 days.
-        Assert.Contains(markers, m => m.Location.X == 42 && m.Location.Y == 0.17);
+        Assert.Contains(markers, m => m.Location.X == Math.Log10(42) && m.Location.Y == 0.17);
+        Assert.Contains(plot.Legend.ManualItems, i => i.LabelText == ReportCharts.ChosenLegend && i.MarkerShape == MarkerShape.OpenCircle);
+        _ = plot.GetImageBytes(1200, 600, ImageFormat.Png); // ticks are laid out when the plot is drawn
+        var ticks = plot.Axes.Bottom.TickGenerator.Ticks;
+        Assert.Equal([10, 21, 42, 63, 126, 252], ticks.Select(t => Math.Round(Math.Pow(10, t.Position))).ToArray());
+        Assert.Equal(["10", "21", "42", "63", "126", "252"], ticks.Select(t => t.Label).ToArray());
     }
 
     [Fact]
@@ -128,15 +150,18 @@ public sealed class ReportChartsTests
 
         using var plot = ReportCharts.BuildMincerZarnowitz("garch", f, rv, 0.001, 1.1);
 
-        AssertSeries(plot.GetPlottables().OfType<Scatter>().Single(), f, rv);
-        var lines = plot.GetPlottables().OfType<LinePlot>().ToArray();
-        var diagonal = lines.Single(l => l.LegendText.StartsWith("45", StringComparison.Ordinal));
+        // Variances in %² (decimal² × 10 000: 0.04 is 20% volatility, 400 %²), drawn as log10 on both axes.
+        AssertSeries(Line(plot, "forecast dates"), [.. f.Select(v => Math.Log10(v * 1e4))], [.. rv.Select(v => Math.Log10(v * 1e4))]);
+        var diagonal = plot.GetPlottables().OfType<LinePlot>().Single(l => l.LegendText.StartsWith("y = x", StringComparison.Ordinal));
         Assert.Equal(diagonal.Start.X, diagonal.Start.Y);
         Assert.Equal(diagonal.End.X, diagonal.End.Y);
-        Assert.Equal(0.09, diagonal.End.X);
-        var fitted = lines.Single(l => l.LegendText.StartsWith("fitted", StringComparison.Ordinal));
-        Assert.Equal(0.001, fitted.Start.Y, 12);
-        Assert.Equal(0.001 + (1.1 * 0.09), fitted.End.Y, 12);
+        Assert.Equal(Math.Log10(900), diagonal.End.X, 12);
+        var fitted = plot.GetPlottables().OfType<Scatter>().Single(l => l.LegendText.StartsWith("fitted", StringComparison.Ordinal));
+        var ends = fitted.Data.GetScatterPoints();
+        // RV² = a + b F² in %²: a = 0.001 decimal² = 10 %²; at F² = 900 %², 10 + 1.1 × 900 = 1000 %².
+        Assert.Equal(Math.Log10(10 + (1.1 * 100)), ends[0].Y, 12);
+        Assert.Equal(Math.Log10(1000), ends[^1].Y, 12);
+        Assert.Contains("RV² = 10.0 %² + 1.100 F²", fitted.LegendText, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -144,22 +169,42 @@ public sealed class ReportChartsTests
     {
         using var plot = ReportCharts.BuildCone(Sample.Cone, Sample.Overlays);
 
-        var horizons = Sample.Cone.Horizons.Select(h => (double)h.HorizonDays).ToArray();
+        // A log horizon axis: every series sits at log10 of the horizon, with a tick labelled at each horizon.
+        var horizons = Sample.Cone.Horizons.Select(h => Math.Log10(h.HorizonDays)).ToArray();
         AssertSeries(Line(plot, "median"), horizons, Sample.Cone.Horizons.Select(h => h.Adjusted.Median * 100).ToArray());
-        AssertSeries(Line(plot, "max"), horizons, Sample.Cone.Horizons.Select(h => h.Adjusted.Max * 100).ToArray());
-        AssertSeries(Line(plot, "p10"), horizons, Sample.Cone.Horizons.Select(h => h.Adjusted.P10 * 100).ToArray());
-        var implied = plot.GetPlottables().OfType<Marker>().Single(m => m.LegendText == "implied 30d");
-        Assert.Equal(Sample.Overlays[0].AnnualizedVolatility * 100, implied.Location.Y, 10);
-        Assert.True(Math.Abs(implied.Location.X - 21) <= 2);
+        AssertSeries(Line(plot, ReportCharts.ConeLatest), horizons, Sample.Cone.Horizons.Select(h => h.Latest * 100).ToArray());
+        _ = plot.GetImageBytes(1200, 600, ImageFormat.Png); // ticks are laid out when the plot is drawn
+        Assert.Equal(Sample.Cone.Horizons.Select(h => h.HorizonDays.ToString(System.Globalization.CultureInfo.InvariantCulture)), plot.Axes.Bottom.TickGenerator.Ticks.Select(t => t.Label));
+
+        // Two shaded bands (10th–90th, 25th–75th) and one thin whisker per horizon from min to max.
+        var bands = ReportCharts.ConeBands(Sample.Cone);
+        Assert.Equal(Sample.Cone.Horizons.Select(h => h.Adjusted.P10 * 100), bands[0].Lower);
+        Assert.Equal(Sample.Cone.Horizons.Select(h => h.Adjusted.P90 * 100), bands[0].Upper);
+        Assert.Equal(Sample.Cone.Horizons.Select(h => h.Adjusted.P25 * 100), bands[1].Lower);
+        Assert.Equal(Sample.Cone.Horizons.Select(h => h.Adjusted.P75 * 100), bands[1].Upper);
+        Assert.Equal(bands.Select(b => b.Label), plot.GetPlottables().OfType<FillY>().Select(f => f.LegendText));
+        var whiskers = plot.GetPlottables().OfType<LinePlot>().ToArray();
+        Assert.Equal(horizons.Length, whiskers.Length);
+        for (var i = 0; i < horizons.Length; i++)
+        {
+            Assert.Equal((horizons[i], Sample.Cone.Horizons[i].Adjusted.Min * 100, Sample.Cone.Horizons[i].Adjusted.Max * 100), (whiskers[i].Start.X, whiskers[i].Start.Y, whiskers[i].End.Y));
+        }
+
+        // The three overlays share the 21-day horizon: they stand side by side to its right, one step apart.
+        var overlays = plot.GetPlottables().OfType<Marker>().Where(m => m.LegendText.Length > 0).ToArray();
+        Assert.Equal(Sample.Overlays.Select(o => o.Name), overlays.Select(m => m.LegendText));
+        Assert.Equal(Sample.Overlays[0].AnnualizedVolatility * 100, overlays[0].Location.Y, 10);
+        Assert.Equal([1.0, 2.0, 3.0], overlays.Select(m => Math.Round((m.Location.X - Math.Log10(21)) / ReportCharts.ConeOverlayStep, 9)).ToArray());
     }
 
     [Theory]
-    // One overlay: no shift. Two at one horizon: −1 and +1. Three: −2, 0, +2. Others at other horizons do not count.
-    [InlineData(new[] { 21 }, 0, 0.0)]
-    [InlineData(new[] { 21, 21 }, 0, -1.0)]
-    [InlineData(new[] { 21, 21 }, 1, 1.0)]
-    [InlineData(new[] { 21, 63, 21, 21 }, 2, 0.0)]
-    [InlineData(new[] { 21, 63, 21, 21 }, 1, 0.0)]
+    // One overlay: one step right of its horizon. Two at one horizon: one and two steps. Others at other horizons do not count.
+    [InlineData(new[] { 21 }, 0, 1.0)]
+    [InlineData(new[] { 21, 21 }, 0, 1.0)]
+    [InlineData(new[] { 21, 21 }, 1, 2.0)]
+    [InlineData(new[] { 21, 63, 21, 21 }, 2, 2.0)]
+    [InlineData(new[] { 21, 63, 21, 21 }, 3, 3.0)]
+    [InlineData(new[] { 21, 63, 21, 21 }, 1, 1.0)]
     public void OverlayOffset_SpreadsPointsAtOneHorizon(int[] horizons, int index, double expected)
     {
         var overlays = horizons.Select(h => new ConeOverlay("x", h, 0.2)).ToArray();
@@ -180,15 +225,20 @@ public sealed class ReportChartsTests
     }
 
     [Fact]
-    public void RuleTest_MeansOfBothSamples()
+    public void RuleTest_BracketRunsFromTheMeanOfAllDatesToTheMeanOfSignalledDates()
     {
         double[] all = [-0.02, 0.0, 0.01, 0.03];
         double[] signalled = [0.01, 0.03];
 
-        using var plot = ReportCharts.BuildRuleTest(all, signalled, "sell when implied > garch");
+        using var plot = ReportCharts.BuildRuleTest(all, signalled, "sell when implied > garch", "garch", differenceP: 0.0004);
 
-        var means = plot.GetPlottables().OfType<VerticalLine>().Where(l => l.LegendText.StartsWith("mean", StringComparison.Ordinal)).Select(l => l.X).ToArray();
+        // Means by hand: all (−2 + 0 + 1 + 3) / 4 = 0.5 vol points, signalled (1 + 3) / 2 = 2; the difference is 1.5.
+        var means = plot.GetPlottables().OfType<Marker>().Where(l => l.LegendText.StartsWith("mean", StringComparison.Ordinal)).Select(l => l.Location.X).ToArray();
         Assert.Equal([0.5, 2.0], means, new ToleranceComparer(1e-12));
+        var bracket = plot.GetPlottables().OfType<LinePlot>().Single();
+        Assert.Equal((0.5, 2.0), (bracket.Start.X, bracket.End.X));
+        Assert.Equal("signalled − all dates = +1.50 vol points (p < 0.001)", bracket.LegendText);
+        Assert.Equal("signalled − all dates = −0.25 vol points (p = 0.412)", ReportCharts.DifferenceLegend(-0.25, 0.412));
     }
 
     private sealed class ToleranceComparer(double tolerance) : IEqualityComparer<double>
@@ -209,14 +259,19 @@ public sealed class ReportChartsTests
 
         using var plot = ReportCharts.BuildReliability(curves, "pooled over strikes");
 
-        AssertSeries(Line(plot, "implied"), [5, 50, 90], [2, 55, 97]);
-        AssertSeries(Line(plot, "garch"), [10, 60], [12, 58]);
+        // Two curves are set 1.2 points apart across, centred: implied 0.6 left, garch 0.6 right of the bins' predicted means.
+        AssertSeries(Line(plot, "implied"), [4.4, 49.4, 89.4], [2, 55, 97]);
+        AssertSeries(Line(plot, "garch"), [10.6, 60.6], [12, 58]);
         var lines = plot.GetPlottables().OfType<LinePlot>().ToArray();
-        var diagonal = lines.Single(l => l.LegendText.StartsWith("45", StringComparison.Ordinal));
+        var diagonal = lines.Single(l => l.LegendText.StartsWith("y = x", StringComparison.Ordinal));
         Assert.Equal((0.0, 0.0, 100.0, 100.0), (diagonal.Start.X, diagonal.Start.Y, diagonal.End.X, diagonal.End.Y));
         var bars = lines.Where(l => l.LegendText.Length == 0).ToArray();
         Assert.Equal(5, bars.Length);
-        Assert.Contains(bars, b => b.Start.X == 50 && b.End.X == 50 && Math.Abs(b.Start.Y - 40) < 1e-9 && Math.Abs(b.End.Y - 70) < 1e-9);
+        Assert.Contains(bars, b => Math.Abs(b.Start.X - 49.4) < 1e-9 && b.End.X == b.Start.X && Math.Abs(b.Start.Y - 40) < 1e-9 && Math.Abs(b.End.Y - 70) < 1e-9);
+
+        // Each bin's count stands above its bar.
+        var counts = plot.GetPlottables().OfType<Text>().Select(t => t.LabelText).ToArray();
+        Assert.Equal(["40", "20", "40", "50", "50"], counts);
         Assert.Equal("reliability.png", ReportCharts.Reliability(curves, "pooled").FileName);
     }
 }

@@ -128,7 +128,7 @@ internal sealed class SampleReport
         ReportCharts.LossVsLookback(Lookbacks),
         ReportCharts.MincerZarnowitz("ewma:0.94", ForecastVariance, RealizedVariance, 0.004, 0.92),
         ReportCharts.Cone(Cone, Overlays),
-        ReportCharts.RuleTest(PremiumAll, PremiumSignalled, "sell when implied > ewma:0.94 + 2 pts"),
+        ReportCharts.RuleTest(PremiumAll, PremiumSignalled, "sell when implied > ewma:0.94 + 2 pts", "ewma:0.94"),
     ];
 
     /// <summary>A complete model with the given charts and price file name (to test escaping).</summary>
