@@ -5,5 +5,14 @@ namespace VolCast.Benchmarks;
 /// <summary>Hands the command line to BenchmarkDotNet's switcher: `dotnet run -c Release -- --filter '*Estimator*'`.</summary>
 internal static class Program
 {
-    public static void Main(string[] args) => BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    public static void Main(string[] args)
+    {
+        if (args.Length > 0 && args[0] == "phases")
+        {
+            Batch.PhaseBreakdown.Run(args[1..]);
+            return;
+        }
+
+        BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    }
 }

@@ -41,6 +41,9 @@ internal sealed record BacktestJob(
     /// <summary>Gets the configuration file's SHA-256 when already known, or null to hash the file.</summary>
     public string? ConfigSha256 { get; init; }
 
+    /// <summary>Gets whether the report page and its charts are drawn (the batch may leave them to the summary page).</summary>
+    public bool WriteReport { get; init; } = true;
+
     /// <summary>Gets every input file of the job.</summary>
     public IEnumerable<string> Inputs =>
         new[] { Prices, Implied, Config }.OfType<string>();

@@ -98,7 +98,11 @@ internal static class BacktestPipeline
         progress?.Report(new BacktestProgress("writing results", 1, 1));
 
         stage?.Invoke(BacktestStage.WriteReport);
-        files.AddRange(ReportWriter.Write(staging, run, progress, cancellationToken));
+        if (job.WriteReport)
+        {
+            files.AddRange(ReportWriter.Write(staging, run, progress, cancellationToken));
+        }
+
         if (writeMore is not null)
         {
             cancellationToken.ThrowIfCancellationRequested();

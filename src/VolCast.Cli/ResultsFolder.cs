@@ -256,7 +256,23 @@ internal sealed partial class ResultsFolder : IDisposable
     /// </summary>
     /// <param name="parent">The folder that holds the results folders.</param>
     /// <param name="name">The results folder's name, or null for all.</param>
-    public static void RemoveStaleTemporaries(string parent, string? name = null)
+    public static void RemoveStaleTemporaries(string parent, string? name = null) => Remove(parent, name, anyProcess: false);
+
+    /// <summary>
+    /// Removes every temporary folder of <paramref name="name"/> in <paramref name="parent"/>, whether or not the process
+    /// that made it still runs. Only for a name the caller alone owns, before it stages anything for it: a batch shard's name
+    /// in a folder shared between machines, where another machine's process id says nothing here (in containers the rerun
+    /// of a killed shard may even have the same id).
+    /// </summary>
+    /// <param name="parent">The folder that holds the results folders.</param>
+    /// <param name="name">The results folder's name.</param>
+    public static void RemoveTemporariesOf(string parent, string name)
+    {
+        ArgumentNullException.ThrowIfNull(name);
+        Remove(parent, name, anyProcess: true);
+    }
+
+    private static void Remove(string parent, string? name, bool anyProcess)
     {
         if (!Directory.Exists(parent))
         {
@@ -267,7 +283,8 @@ internal sealed partial class ResultsFolder : IDisposable
         {
             var match = TemporaryPattern().Match(Path.GetFileName(path));
             if (!match.Success || (name is not null && match.Groups["name"].Value != name)
-                || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid) || Running(pid))
+                || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid)
+                || (!anyProcess && Running(pid)))
             {
                 continue;
             }

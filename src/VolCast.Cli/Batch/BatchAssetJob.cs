@@ -27,6 +27,9 @@ internal sealed record BatchAssetJob(
     string Fingerprint,
     bool Force)
 {
+    /// <summary>The per-name report page that a kept folder must hold when pages are drawn.</summary>
+    public const string ReportPage = "report.html";
+
     /// <summary>Gets how the asset's files are written (date format, delimiter, decimal separator).</summary>
     public CsvFormat Format { get; init; } = CsvFormat.Default;
 
@@ -36,32 +39,31 @@ internal sealed record BatchAssetJob(
     /// <summary>Gets the configuration file's SHA-256, hashed once for the whole batch, or null to hash it here.</summary>
     public string? ConfigSha256 { get; init; }
 
+    /// <summary>Gets which report pages are drawn; with <see cref="BatchReports.Full"/> a kept folder must hold its report page too.</summary>
+    public BatchReports Reports { get; init; } = BatchReports.Full;
+
+    /// <summary>
+    /// Gets the folder where a shard keeps the record of a failed name (<c>OUT/failures/NAME</c>) so that the reduce can
+    /// show the same failure as a single-process batch, or null when failures are not recorded.
+    /// </summary>
+    public string? FailureFolder { get; init; }
+
     /// <summary>Runs the asset, or keeps its results when they are complete and its inputs and configuration are unchanged.</summary>
     /// <returns>The summary row and whether the earlier results were kept. A failure is a row with its message, never an exception, except cancellation.</returns>
     /// <exception cref="OperationCanceledException">The token was cancelled; the folder is left as it was or complete.</exception>
     public (BatchAssetRow Row, bool Reused) Run(CancellationToken cancellationToken)
     {
         var hasImplied = Asset.Implied is not null;
+        var inputs = ImmutableSortedDictionary<string, string>.Empty.WithComparers(StringComparer.Ordinal);
         try
         {
             // Each input is read once: the hash that decides whether earlier results still hold is of the very bytes the backtest then parses.
             var prices = InputBytes.Read(Asset.Prices);
             var implied = Asset.Implied is null ? null : InputBytes.Read(Asset.Implied);
-            var hashes = ImmutableSortedDictionary.CreateBuilder<string, string>(StringComparer.Ordinal);
-            hashes["prices"] = prices.Sha256;
-            if (implied is not null)
-            {
-                hashes[ImpliedSeries.Name] = implied.Sha256;
-            }
-
-            if (Config is not null)
-            {
-                hashes["config"] = ConfigSha256 ?? InputBytes.Read(Config).Sha256;
-            }
-
-            var inputs = hashes.ToImmutable();
+            inputs = Hashes(prices, implied);
             if (!Force && UpToDate(inputs) is BatchAssetRow kept)
             {
+                ForgetFailure();
                 return (kept, true);
             }
 
@@ -73,15 +75,18 @@ internal sealed record BatchAssetJob(
                 ConfigSha256 = Config is null ? null : inputs["config"],
                 Format = Format,
                 ImpliedTenorDays = ImpliedTenorDays,
+                WriteReport = Reports == BatchReports.Full,
             };
             BatchAssetRow? row = null;
+            var hashes = inputs;
             BacktestPipeline.Run(job, static _ => { }, null, writeMore: (staging, run) =>
             {
                 // Committed with the results: its presence says the folder is complete for these inputs and this configuration.
                 row = BatchRows.FromResult(Asset.Name, run.Result);
-                BatchAssetJson.Write(staging, new BatchAssetRecord(inputs, Fingerprint, row));
+                BatchAssetJson.Write(staging, new BatchAssetRecord(hashes, Fingerprint, row));
                 return [BatchAssetJson.FileName];
             }, cancellationToken: cancellationToken);
+            ForgetFailure();
             return (row!, false);
         }
         catch (OperationCanceledException)
@@ -90,13 +95,88 @@ internal sealed record BatchAssetJob(
         }
         catch (Exception ex) when (ex is InputDataException or UsageException or IOException or UnauthorizedAccessException)
         {
-            return (BatchRows.Failed(Asset.Name, hasImplied, ex.Message), false);
+            return (Failed(inputs, BatchRows.Failed(Asset.Name, hasImplied, ex.Message)), false);
         }
 #pragma warning disable CA1031 // One asset's unexpected failure must not stop the others; its message goes into the summary.
         catch (Exception ex)
 #pragma warning restore CA1031
         {
-            return (BatchRows.Failed(Asset.Name, hasImplied, "unexpected failure: " + ex.Message), false);
+            return (Failed(inputs, BatchRows.Failed(Asset.Name, hasImplied, "unexpected failure: " + ex.Message)), false);
+        }
+    }
+
+    /// <summary>
+    /// What a finished run left for this asset, without computing anything: the row of a complete, up-to-date folder, or
+    /// the recorded failure of these very inputs and this configuration, or null when the asset is missing, incomplete
+    /// or stale (its inputs changed since).
+    /// </summary>
+    /// <exception cref="IOException">An input file cannot be read.</exception>
+    public BatchAssetRow? Finished()
+    {
+        var prices = InputBytes.Read(Asset.Prices);
+        var implied = Asset.Implied is null ? null : InputBytes.Read(Asset.Implied);
+        var inputs = Hashes(prices, implied);
+        if (UpToDate(inputs) is BatchAssetRow kept)
+        {
+            return kept;
+        }
+
+        if (FailureFolder is not null && BatchAssetJson.TryRead(FailureFolder) is { } failure
+            && failure.ConfigurationFingerprint == Fingerprint && failure.Row.Name == Asset.Name && !failure.Row.Succeeded
+            && SameHashes(failure.InputHashes, inputs))
+        {
+            return failure.Row;
+        }
+
+        return null;
+    }
+
+    private ImmutableSortedDictionary<string, string> Hashes(InputBytes prices, InputBytes? implied)
+    {
+        var hashes = ImmutableSortedDictionary.CreateBuilder<string, string>(StringComparer.Ordinal);
+        hashes["prices"] = prices.Sha256;
+        if (implied is not null)
+        {
+            hashes[ImpliedSeries.Name] = implied.Sha256;
+        }
+
+        if (Config is not null)
+        {
+            hashes["config"] = ConfigSha256 ?? InputBytes.Read(Config).Sha256;
+        }
+
+        return hashes.ToImmutable();
+    }
+
+    private BatchAssetRow Failed(ImmutableSortedDictionary<string, string> inputs, BatchAssetRow row)
+    {
+        if (FailureFolder is not null && inputs.Count > 0)
+        {
+            try
+            {
+                BatchAssetJson.Write(FailureFolder, new BatchAssetRecord(inputs, Fingerprint, row));
+            }
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+            {
+                // The failure is still in this shard's output; the reduce will then name the asset as missing.
+            }
+        }
+
+        return row;
+    }
+
+    private void ForgetFailure()
+    {
+        if (FailureFolder is not null && Directory.Exists(FailureFolder))
+        {
+            try
+            {
+                Directory.Delete(FailureFolder, recursive: true);
+            }
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+            {
+                // A stale failure record is harmless: the reduce prefers the complete folder.
+            }
         }
     }
 
@@ -112,7 +192,15 @@ internal sealed record BatchAssetJob(
             return null;
         }
 
-        foreach (var name in BacktestResultsWriter.FileNames)
+        // Complete means every file the run listed in run.json is there (a name without implied has no trades files, so
+        // the list, not a fixed set of names, is what to check), and the page too when pages are asked for.
+        if (BacktestResultsWriter.ReadManifest(Folder) is not { } manifest || !manifest.Contains(BatchAssetJson.FileName)
+            || (Reports == BatchReports.Full && !manifest.Contains(ReportPage)))
+        {
+            return null;
+        }
+
+        foreach (var name in manifest)
         {
             if (!File.Exists(Path.Combine(Folder, name)))
             {

@@ -27,4 +27,10 @@ internal sealed record BatchRequest(
 
     /// <summary>Gets the implied files' declared tenor in calendar days, or null when it is the backtest's own.</summary>
     public int? ImpliedTenorDays { get; init; }
+
+    /// <summary>Gets the shard this process computes, or null for every name.</summary>
+    public BatchShard? Shard { get; init; }
+
+    /// <summary>Gets which report pages are drawn.</summary>
+    public BatchReports Reports { get; init; } = BatchReports.Full;
 }

@@ -13,13 +13,12 @@ internal static class BatchRunner
     /// <summary>The folder under the batch's output folder that holds one results folder per asset.</summary>
     public const string AssetsFolder = "assets";
 
-    /// <summary>Runs the batch.</summary>
-    /// <param name="request">What to batch.</param>
-    /// <param name="progress">Receives one report per finished asset, or null.</param>
-    /// <param name="cancellationToken">Stops the batch: no new asset starts, running ones stop between forecasters, finished ones stay.</param>
-    /// <returns>What happened; the summary is written only when every asset finished or failed.</returns>
-    /// <exception cref="UsageException">The prices folder is missing or holds no CSV file.</exception>
-    public static BatchOutcome Run(BatchRequest request, IProgress<BatchProgress>? progress, CancellationToken cancellationToken = default)
+    /// <summary>The folder under the batch's output folder where shards record the names that failed, one <c>NAME/batch.json</c> each.</summary>
+    public const string FailuresFolder = "failures";
+
+    /// <summary>Lists the batch's assets after checking its input folders.</summary>
+    /// <exception cref="UsageException">The prices folder is missing or holds no CSV file, or the implied folder is missing.</exception>
+    public static IReadOnlyList<BatchAsset> FindAssets(BatchRequest request)
     {
         ArgumentNullException.ThrowIfNull(request);
         if (!Directory.Exists(request.PricesFolder))
@@ -38,8 +37,38 @@ internal static class BatchRunner
             throw new UsageException($"{request.PricesFolder}: no .csv price file found; the batch runs one backtest per NAME.csv in this folder.");
         }
 
-        // The batch owns OUT/assets: what killed runs left there is removed before any name is looked at.
-        ResultsFolder.RemoveStaleTemporaries(Path.Combine(request.OutputFolder, AssetsFolder));
+        return assets;
+    }
+
+    /// <summary>Runs the batch, or the request's shard of it (which writes no summary).</summary>
+    /// <param name="request">What to batch.</param>
+    /// <param name="progress">Receives one report per finished asset, or null.</param>
+    /// <param name="cancellationToken">Stops the batch: no new asset starts, running ones stop between forecasters, finished ones stay.</param>
+    /// <returns>What happened; the summary is written only when every asset finished or failed, and never by a shard.</returns>
+    /// <exception cref="UsageException">The prices folder is missing or holds no CSV file.</exception>
+    public static BatchOutcome Run(BatchRequest request, IProgress<BatchProgress>? progress, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(request);
+        var all = FindAssets(request);
+        var assetsFolder = Path.Combine(request.OutputFolder, AssetsFolder);
+        List<BatchAsset> assets;
+        if (request.Shard is { } shard)
+        {
+            // A shard owns only its names: it removes what killed runs of those names left, whichever process or machine
+            // they ran on (one shard index runs once at a time), and never touches the other shards' temporaries.
+            assets = [.. all.Where(a => shard.Owns(a.Name))];
+            foreach (var asset in assets)
+            {
+                ResultsFolder.RemoveTemporariesOf(assetsFolder, asset.Name);
+            }
+        }
+        else
+        {
+            // The batch owns OUT/assets: what killed runs left there is removed before any name is looked at.
+            assets = [.. all];
+            ResultsFolder.RemoveStaleTemporaries(assetsFolder);
+        }
+
         var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays);
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
         var rows = new BatchAssetRow?[assets.Count];
@@ -67,6 +96,8 @@ internal static class BatchRunner
                             ConfigSha256 = configSha256,
                             Format = request.Format,
                             ImpliedTenorDays = request.ImpliedTenorDays,
+                            Reports = request.Reports,
+                            FailureFolder = request.Shard is null ? null : Path.Combine(request.OutputFolder, FailuresFolder, asset.Name),
                         }.Run(cancellationToken);
                     BatchProgress report;
                     lock (gate)
@@ -111,7 +142,7 @@ internal static class BatchRunner
         }
 
         var finished = rows.Where(r => r is not null).Select(r => r!).ToList();
-        if (!cancelled)
+        if (!cancelled && request.Shard is null)
         {
             BatchSummaryWriter.Write(request, finished);
         }

@@ -7,16 +7,29 @@ using VolCast.Reports.Model;
 
 namespace VolCast.Cli.Batch;
 
-/// <summary>Writes summary.csv, beats-implied.csv and summary.html into the batch's folder, each atomically (temporary file, then a move).</summary>
+/// <summary>
+/// Writes summary.csv, beats-implied.csv and summary.html into the batch's folder, each atomically (temporary file, then a
+/// move). The files depend only on the rows and the request's inputs and settings (not on how many jobs or shards ran),
+/// so a single-process batch and shards followed by the reduce write the same bytes.
+/// </summary>
 internal static class BatchSummaryWriter
 {
-    public static void Write(BatchRequest request, IReadOnlyList<BatchAssetRow> rows)
+    /// <summary>Writes the summary files.</summary>
+    /// <param name="request">The batch's request.</param>
+    /// <param name="rows">One row per name, in name order.</param>
+    /// <param name="missing">The names left out of a partial summary (the reduce's --allow-missing), or none.</param>
+    public static void Write(BatchRequest request, IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<string>? missing = null)
     {
         Directory.CreateDirectory(request.OutputFolder);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
+        if (request.Reports == BatchReports.None)
+        {
+            return;
+        }
+
         var s = request.Settings;
-        Setting[] settings =
+        List<Setting> settings =
         [
             new("Tool version", "volcast " + BacktestPipeline.ToolVersion()),
             new("Prices folder", request.PricesFolder),
@@ -24,9 +37,15 @@ internal static class BatchSummaryWriter
             new("Configuration", request.Config ?? "defaults"),
             new("Horizon", s.Horizon.TradingDays is int h ? h.ToString(CultureInfo.InvariantCulture) + " trading days" : s.Horizon.ToString()),
             new("Names", rows.Count.ToString(CultureInfo.InvariantCulture)),
-            new("Parallel jobs", request.Jobs.ToString(CultureInfo.InvariantCulture)),
         ];
-        var html = BatchSummaryHtml.Render(rows, settings);
+        if (missing is { Count: > 0 })
+        {
+            settings.Add(new("Partial summary", string.Create(CultureInfo.InvariantCulture,
+                $"{missing.Count} names had no finished results and are marked as not finished: {string.Join(", ", missing)}")));
+        }
+
+        // Without per-name pages, each name links to its folder of data files.
+        var html = BatchSummaryHtml.Render(rows, settings, request.Reports == BatchReports.Full ? BatchAssetJob.ReportPage : string.Empty);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.html"), w => w.Write(html), overwrite: true);
     }
 }

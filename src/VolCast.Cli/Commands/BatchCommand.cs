@@ -24,9 +24,15 @@ internal static class BatchCommand
         var jobs = new Option<int?>("--jobs") { Description = $"How many names run at the same time, {SettingLimits.Jobs} (default: the number of processor cores)." };
         var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor every implied file quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
         var force = new Option<bool>("--force") { Description = "Recompute every name, even those whose results are complete and whose inputs and configuration are unchanged." };
+        var shard = new Option<string?>("--shard") { Description = "Compute only shard K of N (0-based, --shard K/N): the names whose stable hash of the name (64-bit FNV-1a of its UTF-8 bytes) modulo N is K, so adding a name never moves the others. Shards may write into one shared --out at the same time; a shard writes no summary (see --reduce). --shard auto takes K and N from a Kubernetes indexed job (JOB_COMPLETION_INDEX, with --shards N) or a Slurm job array (SLURM_ARRAY_TASK_ID, SLURM_ARRAY_TASK_COUNT)." };
+        var shards = new Option<int?>("--shards") { Description = "With --shard auto in a Kubernetes indexed job: the number of shards, equal to the job's completions." };
+        var reduce = new Option<bool>("--reduce") { Description = "Compute nothing: read the names' finished folders in --out (written by shards with the same options) and write summary.csv, beats-implied.csv and summary.html, byte for byte as one batch would. Names with no finished results are listed and the exit code is 3." };
+        var allowMissing = new Option<bool>("--allow-missing") { Description = "With --reduce: write a partial summary even when names are not finished; they are marked as not finished in it." };
+        var reports = new Option<string>("--reports") { Description = "Which report pages to draw: full (one page with charts per name, and the summary page; the default), summary (data files per name, charts only on the summary page) or none (data files and summary.csv only). A name's page can be drawn later with volcast backtest on the same inputs.", DefaultValueFactory = _ => "full" };
+        reports.AcceptOnlyFromAmong("full", "summary", "none");
         var command = new Command("batch", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted batch resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
-            pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force,
+            pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force, reports, shard, shards, reduce, allowMissing,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -40,6 +46,11 @@ internal static class BatchCommand
             parse.GetValue(jobs),
             parse.GetValue(force),
             parse.GetValue(impliedTenor),
+            parse.GetValue(reports)!,
+            parse.GetValue(shard),
+            parse.GetValue(shards),
+            parse.GetValue(reduce),
+            parse.GetValue(allowMissing),
             parse,
             formatOptions))));
         return command;
@@ -63,12 +74,76 @@ internal static class BatchCommand
         {
             Format = a.FormatOptions.Resolve(a.Parse, configFormat),
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
+            Shard = Shard(a),
+            Reports = a.Reports switch { "summary" => BatchReports.Summary, "none" => BatchReports.None, _ => BatchReports.Full },
         };
+    }
+
+    private static BatchShard? Shard(Arguments a)
+    {
+        if (a.Shards is int n && (n < 1 || n > BatchShard.MaxCount))
+        {
+            throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--shards {n}: the number of shards must be 1 to {BatchShard.MaxCount}, the job's completions."));
+        }
+
+        if (a.Reduce && a.Shard is not null)
+        {
+            throw new UsageException("--reduce and --shard cannot be combined: run the shards first, each with --shard, then one reduce with the same options and --reduce instead of --shard.");
+        }
+
+        if (a.AllowMissing && !a.Reduce)
+        {
+            throw new UsageException("--allow-missing applies only to --reduce, which writes the summary after the shards.");
+        }
+
+        if (a.Shard is null)
+        {
+            return a.Shards is null ? null : throw new UsageException("--shards goes with --shard auto in a Kubernetes indexed job; give --shard auto --shards N, or --shard K/N.");
+        }
+
+        if (string.Equals(a.Shard, "auto", StringComparison.Ordinal))
+        {
+            return BatchShard.FromEnvironment(Environment.GetEnvironmentVariable, a.Shards);
+        }
+
+        return a.Shards is null ? BatchShard.Parse(a.Shard) : throw new UsageException("--shards goes only with --shard auto; with --shard K/N the count is N.");
+    }
+
+    private static int Reduce(CliConsole console, BatchRequest request, bool allowMissing)
+    {
+        var outcome = BatchReducer.Reduce(request, allowMissing);
+        foreach (var row in outcome.Rows.Where(r => !r.Succeeded && !outcome.Missing.Any(m => m.StartsWith(r.Name + " (", StringComparison.Ordinal))))
+        {
+            console.Error.WriteLine($"error: {row.Name}: {row.Error}");
+        }
+
+        if (outcome.Missing.Count > 0)
+        {
+            console.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"error: {outcome.Missing.Count} of {outcome.Rows.Count} names have no finished results in {request.OutputFolder}: {string.Join("; ", outcome.Missing)}."));
+            console.Error.WriteLine(outcome.Written
+                ? "warning: --allow-missing: the summary is partial; those names are marked as not finished in it."
+                : "error: no summary written; rerun the shards that own those names (a rerun computes only what is missing), or pass --allow-missing for a partial summary.");
+        }
+
+        if (outcome.Written)
+        {
+            console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"{outcome.Rows.Count} names reduced: {outcome.Rows.Count - outcome.Failed - outcome.Missing.Count} finished, {outcome.Failed} failed, {outcome.Missing.Count} not finished."));
+            console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (summary.csv, beats-implied.csv{(request.Reports == BatchReports.None ? string.Empty : ", summary.html")})");
+        }
+
+        return outcome.Failed > 0 || (outcome.Missing.Count > 0 && !allowMissing) ? ExitCodes.BadInput : ExitCodes.Success;
     }
 
     private static int Run(CliConsole console, Arguments a)
     {
         var request = Request(a);
+        if (a.Reduce)
+        {
+            return Reduce(console, request, a.AllowMissing);
+        }
+
         using var stop = new CancellationTokenSource();
         ConsoleCancelEventHandler onCancel = (_, e) =>
         {
@@ -102,12 +177,18 @@ internal static class BatchCommand
         }
 
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"{outcome.Rows.Count} names: {outcome.Computed - outcome.Failed} computed, {outcome.Reused} kept from an earlier run, {outcome.Failed} failed."));
+            $"{(request.Shard is { } sh ? $"shard {sh}: " : string.Empty)}{outcome.Rows.Count} names: {outcome.Computed - outcome.Failed} computed, {outcome.Reused} kept from an earlier run, {outcome.Failed} failed."));
+        if (request.Shard is not null)
+        {
+            console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar}assets/ (no summary from a shard: when every shard has finished, run the same command with --reduce instead of --shard)");
+            return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
+        }
+
         console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, beats-implied.csv, summary.html)");
         return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
     }
 
     private sealed record Arguments(
         string PricesDir, string? ImpliedDir, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Out, int? Jobs, bool Force,
-        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions);
+        string? ImpliedTenor, string Reports, string? Shard, int? Shards, bool Reduce, bool AllowMissing, ParseResult Parse, InputFormatOptions FormatOptions);
 }

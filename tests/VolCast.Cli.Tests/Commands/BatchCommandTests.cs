@@ -151,7 +151,7 @@ public sealed class BatchCommandTests : IDisposable
         var help = CliRunner.Run("batch", "--help");
 
         Assert.Equal(0, help.ExitCode);
-        foreach (var option in new[] { "--prices-dir", "--implied-dir", "--iv-unit", "--config", "--horizon", "--tenor", "--out", "--jobs", "--force" })
+        foreach (var option in new[] { "--prices-dir", "--implied-dir", "--iv-unit", "--config", "--horizon", "--tenor", "--out", "--jobs", "--force", "--reports", "--shard", "--shards", "--reduce", "--allow-missing" })
         {
             Assert.Contains(option, help.Stdout, StringComparison.Ordinal);
         }

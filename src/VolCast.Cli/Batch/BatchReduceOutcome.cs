@@ -1,0 +1,10 @@
+using VolCast.IO.Results;
+
+namespace VolCast.Cli.Batch;
+
+/// <summary>What the reduce found and wrote.</summary>
+/// <param name="Rows">One row per name in name order (a missing name is a row marked not finished), as written to the summary.</param>
+/// <param name="Missing">Names with no complete, up-to-date results and no recorded failure, each with why.</param>
+/// <param name="Failed">Names that failed (their recorded failure, or a name that cannot be used).</param>
+/// <param name="Written">Whether the summary was written (every name finished, or --allow-missing).</param>
+internal sealed record BatchReduceOutcome(IReadOnlyList<BatchAssetRow> Rows, IReadOnlyList<string> Missing, int Failed, bool Written);
