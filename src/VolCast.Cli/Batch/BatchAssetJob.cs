@@ -33,6 +33,9 @@ internal sealed record BatchAssetJob(
     /// <summary>Gets the implied file's declared tenor in calendar days, or null when it is the backtest's own.</summary>
     public int? ImpliedTenorDays { get; init; }
 
+    /// <summary>Gets how the asset's bad and suspect rows are treated.</summary>
+    public DataChecks Checks { get; init; } = DataChecks.Default;
+
     /// <summary>Gets the configuration file's SHA-256, hashed once for the whole batch, or null to hash it here.</summary>
     public string? ConfigSha256 { get; init; }
 
@@ -73,6 +76,7 @@ internal sealed record BatchAssetJob(
                 ConfigSha256 = Config is null ? null : inputs["config"],
                 Format = Format,
                 ImpliedTenorDays = ImpliedTenorDays,
+                Checks = Checks,
             };
             BatchAssetRow? row = null;
             BacktestPipeline.Run(job, static _ => { }, null, writeMore: (staging, run) =>

@@ -27,4 +27,7 @@ internal sealed record BatchRequest(
 
     /// <summary>Gets the implied files' declared tenor in calendar days, or null when it is the backtest's own.</summary>
     public int? ImpliedTenorDays { get; init; }
+
+    /// <summary>Gets how each name's bad and suspect rows are treated (default: refuse bad rows, warn about suspect ones).</summary>
+    public DataChecks Checks { get; init; } = DataChecks.Default;
 }

@@ -40,7 +40,7 @@ internal static class BatchRunner
 
         // The batch owns OUT/assets: what killed runs left there is removed before any name is looked at.
         ResultsFolder.RemoveStaleTemporaries(Path.Combine(request.OutputFolder, AssetsFolder));
-        var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays);
+        var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays, request.Checks);
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
         var rows = new BatchAssetRow?[assets.Count];
         var gate = new Lock();
@@ -67,6 +67,7 @@ internal static class BatchRunner
                             ConfigSha256 = configSha256,
                             Format = request.Format,
                             ImpliedTenorDays = request.ImpliedTenorDays,
+                            Checks = request.Checks,
                         }.Run(cancellationToken);
                     BatchProgress report;
                     lock (gate)

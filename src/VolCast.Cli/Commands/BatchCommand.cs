@@ -24,9 +24,12 @@ internal static class BatchCommand
         var jobs = new Option<int?>("--jobs") { Description = $"How many names run at the same time, {SettingLimits.Jobs} (default: the number of processor cores)." };
         var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor every implied file quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
         var force = new Option<bool>("--force") { Description = "Recompute every name, even those whose results are complete and whose inputs and configuration are unchanged." };
+        var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp + " Applies to each name on its own: a name stopped by its suspect rows fails alone and the summary lists it." };
+        suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
+        var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp + " Each name lists its own in OUT/assets/NAME/rejected-rows.csv." };
         var command = new Command("batch", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted batch resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
-            pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force,
+            pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force, suspect, skipBadRows,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -41,7 +44,9 @@ internal static class BatchCommand
             parse.GetValue(force),
             parse.GetValue(impliedTenor),
             parse,
-            formatOptions))));
+            formatOptions,
+            parse.GetValue(suspect),
+            parse.GetValue(skipBadRows)))));
         return command;
     }
 
@@ -63,6 +68,7 @@ internal static class BatchCommand
         {
             Format = a.FormatOptions.Resolve(a.Parse, configFormat),
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
+            Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
         };
     }
 
@@ -109,5 +115,5 @@ internal static class BatchCommand
 
     private sealed record Arguments(
         string PricesDir, string? ImpliedDir, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Out, int? Jobs, bool Force,
-        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions);
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows);
 }
