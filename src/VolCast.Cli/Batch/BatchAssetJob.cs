@@ -116,7 +116,15 @@ internal sealed record BatchAssetJob(
             return null;
         }
 
-        foreach (var name in BacktestResultsWriter.FileNames)
+        // Complete means every file the run listed in its manifest is there: which files a run writes depends on its
+        // inputs (no trades.csv or rule-pnl.csv without implied, rejected-rows.csv only when rows were left out).
+        if (BacktestResultsWriter.ReadManifest(Folder) is not { } manifest
+            || !manifest.Contains(BacktestResultsWriter.RunFileName) || !manifest.Contains(BatchAssetJson.FileName))
+        {
+            return null;
+        }
+
+        foreach (var name in manifest)
         {
             if (!File.Exists(Path.Combine(Folder, name)))
             {

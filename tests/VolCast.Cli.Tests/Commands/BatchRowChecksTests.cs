@@ -72,6 +72,30 @@ public sealed class BatchRowChecksTests : IDisposable
     }
 
     [Fact]
+    public void Rerun_KeepsNamesWhoseRunWroteOtherFiles_NoImpliedOrRowsLeftOut()
+    {
+        // Without implied a run writes no trades.csv or rule-pnl.csv, and with dropped rows it adds rejected-rows.csv:
+        // a name is complete when every file of its own manifest is there, so both are kept on the rerun.
+        var output = _temp.Combine("rerun");
+        var first = CliRunner.Run("batch", "--prices-dir", _prices, "--config", _fast, "--suspect", "drop", "--out", output, "--jobs", "1");
+        Assert.True(first.ExitCode == 0, first.Stderr);
+        var report = Path.Combine(output, "assets", "clean", "report.html");
+        var written = File.GetLastWriteTimeUtc(report);
+
+        var second = CliRunner.Run("batch", "--prices-dir", _prices, "--config", _fast, "--suspect", "drop", "--out", output, "--jobs", "1");
+
+        Assert.True(second.ExitCode == 0, second.Stderr);
+        Assert.Contains("0 computed, 2 kept from an earlier run", second.Stdout, StringComparison.Ordinal);
+        Assert.Equal(written, File.GetLastWriteTimeUtc(report));
+
+        // A name whose manifest lists a file that has gone is run again.
+        File.Delete(Path.Combine(output, "assets", "trial", "rejected-rows.csv"));
+        var third = CliRunner.Run("batch", "--prices-dir", _prices, "--config", _fast, "--suspect", "drop", "--out", output, "--jobs", "1");
+        Assert.Contains("1 computed, 1 kept from an earlier run", third.Stdout, StringComparison.Ordinal);
+        Assert.True(File.Exists(Path.Combine(output, "assets", "trial", "rejected-rows.csv")));
+    }
+
+    [Fact]
     public void BadRows_FailTheirNameAlone_AndSkipBadRowsLeavesThemOutOfThatName()
     {
         var rows = CleanPrices(12).Split('\n').ToList();
