@@ -87,13 +87,20 @@ internal static class RunJson
         json.WriteNumber("annualizationFactor", s.AnnualizationFactor);
         json.WriteString("target", Config.BacktestConfigFile.TargetNames[(int)s.Target]);
         var form = run.InputFormat;
-        json.WriteStartObject("inputFormat");
-        json.WriteBoolean("declared", !form.IsDefault);
-        json.WriteString("dateFormat", form.DateFormatOrIso);
-        json.WriteString("delimiter", form.Delimiter.ToString());
-        json.WriteString("decimal", form.DecimalSeparator.ToString());
-        Strings(json, "missing", new[] { string.Empty }.Concat(CsvFormat.MissingMarks));
-        json.WriteEndObject();
+        if (form.IsDefault)
+        {
+            // No form declared: the strict ISO form of docs/files.md.
+            json.WriteNull("inputFormat");
+        }
+        else
+        {
+            json.WriteStartObject("inputFormat");
+            json.WriteString("dateFormat", form.DateFormatOrIso);
+            json.WriteString("delimiter", form.Delimiter.ToString());
+            json.WriteString("decimal", form.DecimalSeparator.ToString());
+            Strings(json, "missing", new[] { string.Empty }.Concat(CsvFormat.MissingMarks));
+            json.WriteEndObject();
+        }
         json.WriteEndObject();
         Strings(json, "input_warnings", run.InputWarnings);
         Strings(json, "input_notes", run.InputNotes);

@@ -88,7 +88,6 @@ public sealed class RegionalFormatCommandTests : IDisposable
         Assert.True(result.ExitCode == 0, result.Stderr);
         using var run = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(output, "run.json")));
         var form = run.RootElement.GetProperty("settings").GetProperty("inputFormat");
-        Assert.True(form.GetProperty("declared").GetBoolean());
         Assert.Equal("dd.MM.yyyy", form.GetProperty("dateFormat").GetString());
         Assert.Equal(";", form.GetProperty("delimiter").GetString());
         Assert.Equal(",", form.GetProperty("decimal").GetString());
@@ -98,11 +97,11 @@ public sealed class RegionalFormatCommandTests : IDisposable
         Assert.Contains("dates dd.MM.yyyy", report, StringComparison.Ordinal);
         Assert.Contains("missing values: an empty cell, null, NA", report, StringComparison.Ordinal);
 
-        // An ISO file declares nothing: run.json records the default form, and the report has no such line.
+        // An ISO file declares nothing: run.json's inputFormat is null, and the report has no such line.
         var iso = _temp.Write("iso.csv", Prices("yyyy-MM-dd", ',', '.'));
         var plain = CliRunner.Run("backtest", "--prices", iso, "--config", config, "--out", _temp.Combine("iso"));
         Assert.True(plain.ExitCode == 0, plain.Stderr);
-        Assert.Contains("\"declared\": false", File.ReadAllText(_temp.Combine("iso", "run.json")), StringComparison.Ordinal);
+        Assert.Contains("\"inputFormat\": null", File.ReadAllText(_temp.Combine("iso", "run.json")), StringComparison.Ordinal);
         Assert.DoesNotContain("Input CSV format", File.ReadAllText(_temp.Combine("iso", "report.html")), StringComparison.Ordinal);
     }
 
