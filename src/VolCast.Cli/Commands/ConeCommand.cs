@@ -1,8 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
+using VolCast.Core.Backtest;
 using VolCast.Core.Cone;
 using VolCast.Core.Data;
-using VolCast.Core.Backtest;
 using VolCast.IO;
 using VolCast.IO.Config;
 using VolCast.IO.Csv;
