@@ -83,6 +83,7 @@ internal static class BacktestPipeline
             InputNotes = notes,
             Suspect = job.Checks.Suspect.ToString().ToLowerInvariant(),
             RowsLeftOut = rejected.Count,
+            InputFormat = job.Format,
         };
         var run = new BacktestRun(result, calibration, info, prices.History, prices.RowsRead)
         {

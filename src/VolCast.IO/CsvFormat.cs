@@ -24,6 +24,9 @@ public sealed record CsvFormat(string? DateFormat, char Delimiter, char DecimalS
     /// <summary>Gets the default form: ISO dates, comma-separated cells, '.' decimal point.</summary>
     public static CsvFormat Default { get; } = new(null, ',', '.');
 
+    /// <summary>Gets the cells that every reader takes as a missing value besides an empty cell, compared without regard to capitals.</summary>
+    public static IReadOnlyList<string> MissingMarks => Reading.CellParser.MissingTokens;
+
     /// <summary>Gets whether this is the default form.</summary>
     public bool IsDefault => DateFormat is null && Delimiter == ',' && DecimalSeparator == '.';
 
@@ -34,6 +37,10 @@ public sealed record CsvFormat(string? DateFormat, char Delimiter, char DecimalS
     /// <returns>The description.</returns>
     public override string ToString() =>
         "dates " + DateFormatOrIso + ", delimiter " + Name(Delimiter) + ", decimal '" + DecimalSeparator + "'";
+
+    /// <summary>Describes the form with the missing-value marks, for the report's settings: "dates dd.MM.yyyy, delimiter ';', decimal ','; missing values: empty, null, NA, ...".</summary>
+    /// <returns>The description.</returns>
+    public string Describe() => this + "; missing values: an empty cell, " + string.Join(", ", MissingMarks);
 
     /// <summary>Builds a form from the user's words, checking each part and that they fit together.</summary>
     /// <param name="dateFormat">The date format, or null for ISO.</param>

@@ -229,6 +229,11 @@ public static class ReportWriter
         }
 
         settings.Add(new("Implied unit", run.ImpliedUnit ?? "no implied file"));
+        if (!run.InputFormat.IsDefault)
+        {
+            settings.Add(new("Input CSV format", run.InputFormat.Describe()));
+        }
+
         return settings;
     }
 

@@ -36,6 +36,9 @@ internal sealed record BatchAssetJob(
     /// <summary>Gets the implied file's declared tenor in calendar days, or null when it is the backtest's own.</summary>
     public int? ImpliedTenorDays { get; init; }
 
+    /// <summary>Gets how the asset's bad and suspect rows are treated.</summary>
+    public DataChecks Checks { get; init; } = DataChecks.Default;
+
     /// <summary>Gets the configuration file's SHA-256, hashed once for the whole batch, or null to hash it here.</summary>
     public string? ConfigSha256 { get; init; }
 
@@ -76,6 +79,7 @@ internal sealed record BatchAssetJob(
                 Format = Format,
                 ImpliedTenorDays = ImpliedTenorDays,
                 WriteReport = Reports == BatchReports.Full,
+                Checks = Checks,
             };
             BatchAssetRow? row = null;
             var hashes = inputs;
@@ -192,9 +196,11 @@ internal sealed record BatchAssetJob(
             return null;
         }
 
-        // Complete means every file the run listed in run.json is there (a name without implied has no trades files, so
-        // the list, not a fixed set of names, is what to check), and the page too when pages are asked for.
-        if (BacktestResultsWriter.ReadManifest(Folder) is not { } manifest || !manifest.Contains(BatchAssetJson.FileName)
+        // Complete means every file the run listed in its manifest is there: which files a run writes depends on its
+        // inputs (no trades.csv or rule-pnl.csv without implied, rejected-rows.csv only when rows were left out), and the
+        // page too when pages are asked for.
+        if (BacktestResultsWriter.ReadManifest(Folder) is not { } manifest
+            || !manifest.Contains(BacktestResultsWriter.RunFileName) || !manifest.Contains(BatchAssetJson.FileName)
             || (Reports == BatchReports.Full && !manifest.Contains(ReportPage)))
         {
             return null;

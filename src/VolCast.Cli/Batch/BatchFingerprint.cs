@@ -13,7 +13,7 @@ namespace VolCast.Cli.Batch;
 /// </summary>
 internal static class BatchFingerprint
 {
-    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null)
+    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null, DataChecks? checks = null)
     {
         var text = new StringBuilder();
         void Line(string name, object? value) => text.Append(name).Append('=').Append(Convert.ToString(value, CultureInfo.InvariantCulture) ?? "null").Append('\n');
@@ -48,6 +48,13 @@ internal static class BatchFingerprint
         if (impliedTenorDays is int days)
         {
             Line("impliedTenorDays", days);
+        }
+
+        if (checks is not null && checks != DataChecks.Default)
+        {
+            // Dropped rows change the results, so another treatment of bad or suspect rows recomputes the name; the default leaves fingerprints as they were.
+            Line("suspect", checks.Suspect);
+            Line("skipBadRows", checks.SkipBadRows);
         }
 
         return Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text.ToString())));

@@ -33,4 +33,7 @@ internal sealed record BatchRequest(
 
     /// <summary>Gets which report pages are drawn.</summary>
     public BatchReports Reports { get; init; } = BatchReports.Full;
+
+    /// <summary>Gets how each name's bad and suspect rows are treated (default: refuse bad rows, warn about suspect ones).</summary>
+    public DataChecks Checks { get; init; } = DataChecks.Default;
 }

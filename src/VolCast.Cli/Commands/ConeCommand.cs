@@ -1,8 +1,10 @@
 using System.CommandLine;
 using System.Globalization;
+using VolCast.Core.Backtest;
 using VolCast.Core.Cone;
 using VolCast.Core.Data;
 using VolCast.IO;
+using VolCast.IO.Config;
 using VolCast.IO.Csv;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Html;
@@ -21,7 +23,7 @@ internal static class ConeCommand
             "cone",
             "Draw the volatility cone: percentiles (min, 10, 25, 50, 75, 90, max) of zero-mean close-to-close realized volatility over every window of 5 to 252 trading days, adjusted for overlapping windows (Hodges-Tompkins).")
         {
-            options.Prices, options.Implied, options.ImpliedHorizon, options.Output, options.Force,
+            options.Prices, options.Implied, options.ImpliedHorizon, options.ImpliedTenor, options.Output, options.Force,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
 
@@ -121,7 +123,7 @@ internal static class ConeCommand
     }
 
     /// <summary>The command's options.</summary>
-    private sealed record ConeOptions(Option<FileInfo> Prices, Option<FileInfo?> Implied, Option<int> ImpliedHorizon, Option<DirectoryInfo> Output, Option<bool> Force)
+    private sealed record ConeOptions(Option<FileInfo> Prices, Option<FileInfo?> Implied, Option<int?> ImpliedHorizon, Option<string?> ImpliedTenor, Option<DirectoryInfo> Output, Option<bool> Force)
     {
         public static ConeOptions Define() => new(
             new Option<FileInfo>("--prices")
@@ -130,10 +132,13 @@ internal static class ConeCommand
                 Required = true,
             },
             new Option<FileInfo?>("--implied") { Description = "Implied volatility CSV (date,iv); its latest value is drawn on the cone." },
-            new Option<int>("--implied-horizon")
+            new Option<int?>("--implied-horizon")
             {
-                Description = "Trading days the implied volatility covers, where it is drawn on the cone (21 for a 30-day tenor).",
-                DefaultValueFactory = _ => 21,
+                Description = $"Trading days the implied volatility covers, where it is drawn on the cone, {SettingLimits.Horizon} (default 21, a 30-day tenor).",
+            },
+            new Option<string?>("--implied-tenor")
+            {
+                Description = $"The same as a calendar tenor such as 30d ({SettingLimits.TenorDays}), drawn at round(days × 252 / 365) trading days; give this or --implied-horizon, not both.",
             },
             new Option<DirectoryInfo>("--out")
             {
@@ -149,11 +154,7 @@ internal static class ConeCommand
     {
         public static ConeRequest Read(ParseResult parse, ConeOptions options)
         {
-            var horizon = parse.GetValue(options.ImpliedHorizon);
-            if (horizon < 1)
-            {
-                throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--implied-horizon must be at least 1 trading day (was {horizon})."));
-            }
+            var horizon = ImpliedHorizonDays(parse.GetValue(options.ImpliedHorizon), parse.GetValue(options.ImpliedTenor));
 
             var pricesPath = parse.GetValue(options.Prices)!.ToString();
             var impliedFile = parse.GetValue(options.Implied);
@@ -166,6 +167,32 @@ internal static class ConeCommand
             var folder = parse.GetValue(options.Output)!.ToString();
             return new ConeRequest(
                 pricesPath, impliedFile, horizon, inputs, Path.Combine(folder, "cone.png"), Path.Combine(folder, "cone.csv"), parse.GetValue(options.Force));
+        }
+
+        /// <summary>The implied horizon in trading days from --implied-horizon or --implied-tenor (21 when neither is given), checked against its range.</summary>
+        private static int ImpliedHorizonDays(int? days, string? tenor)
+        {
+            if (days is not null && tenor is not null)
+            {
+                throw new UsageException("give either --implied-horizon (trading days) or --implied-tenor (calendar days such as 30d), not both.");
+            }
+
+            if (tenor is null)
+            {
+                SettingLimits.Horizon.Check(days ?? 21, "--implied-horizon");
+                return days ?? 21;
+            }
+
+            var t = tenor.Trim().ToLowerInvariant();
+            if (t.Length < 2 || !t.EndsWith('d') || !t[..^1].All(char.IsAsciiDigit))
+            {
+                throw new UsageException($"--implied-tenor must be a number of calendar days followed by d, such as 30d, {SettingLimits.TenorDays} (was {BacktestOptions.Shown(tenor)}).");
+            }
+
+            // Any run of digits is a tenor; one too long for a number is simply out of range.
+            var calendarDays = double.Parse(t[..^1], NumberStyles.None, CultureInfo.InvariantCulture);
+            SettingLimits.TenorDays.Check(calendarDays, "--implied-tenor");
+            return BacktestHorizon.Tenor((int)calendarDays).NominalDays;
         }
     }
 }

@@ -126,15 +126,37 @@ internal static class DemoCommand
 
         var config = Shown(Path.Combine(folder, DemoFiles.Config));
         var settings = BacktestConfigFile.Read(config);
-        var job = new BacktestJob(Shown(Path.Combine(folder, DemoFiles.Index)), Shown(Path.Combine(folder, DemoFiles.Implied)), ImpliedUnit.Decimal, settings, config, Shown(outFolder), replace);
+
+        // The demo's configuration is read as backtest --config reads it: its input form, implied tenor and row checks hold too.
+        var (format, impliedTenor) = InputFormatOptions.FromConfig(config);
+        var job = new BacktestJob(Shown(Path.Combine(folder, DemoFiles.Index)), Shown(Path.Combine(folder, DemoFiles.Implied)), ImpliedUnit.Decimal, settings, config, Shown(outFolder), replace)
+        {
+            Format = format ?? CsvFormat.Default,
+            ImpliedTenorDays = impliedTenor,
+            Checks = BacktestOptions.Checks(config, null, skipBadRows: false),
+        };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestResult result;
+        using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
+        ConsoleCancelEventHandler onCtrlC = (_, e) =>
+        {
+            // As in backtest: the first Ctrl-C stops the run at its next check and nothing is moved into place; a second ends the process.
+            e.Cancel = !interrupted.IsCancellationRequested;
+            interrupted.Cancel();
+        };
+        Console.CancelKeyPress += onCtrlC;
         try
         {
-            result = BacktestPipeline.Run(job, console.Warn, progress).Result;
+            result = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token).Result;
+        }
+        catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
+        {
+            console.Error.WriteLine($"interrupted: the demo was stopped before it finished; no results were written to {Shown(outFolder)}.");
+            return ExitCodes.Interrupted;
         }
         finally
         {
+            Console.CancelKeyPress -= onCtrlC;
             progress.Finish();
         }
 

@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using VolCast.Core.Options;
 using VolCast.IO;
+using VolCast.IO.Config;
 using VolCast.IO.Csv;
 using VolCast.IO.Quotes;
 
@@ -25,11 +26,11 @@ internal static class ImpliedCommand
         };
         var rate = new Option<double?>("--rate")
         {
-            Description = "Continuously compounded risk-free rate as a decimal (0.05 = 5%) for rows without a rate; required when the file has no rate column.",
+            Description = $"Continuously compounded risk-free rate as a decimal (0.05 = 5%), {SettingLimits.Rate}, for rows without a rate; required when the file has no rate column.",
         };
         var dividendYield = new Option<double>("--dividend-yield")
         {
-            Description = "Continuous dividend yield as a decimal for rows without one (default 0).",
+            Description = $"Continuous dividend yield as a decimal (0.02 = 2%), {SettingLimits.DividendYield}, for rows without one (default 0).",
             DefaultValueFactory = _ => 0.0,
         };
         var extrapolation = new Option<string>("--extrapolation")
@@ -64,8 +65,12 @@ internal static class ImpliedCommand
     private static int Run(CliConsole console, string quotesPath, string tenorText, double? rate, double dividendYield, TenorExtrapolation extrapolation, string? outPath, bool force, CsvFormat format)
     {
         var tenorDays = ParseTenor(tenorText);
-        CheckDecimalRate(rate, "--rate");
-        CheckDecimalRate(dividendYield, "--dividend-yield");
+        if (rate is double r)
+        {
+            SettingLimits.Rate.Check(r, "--rate");
+        }
+
+        SettingLimits.DividendYield.Check(dividendYield, "--dividend-yield");
         var output = outPath ?? $"implied-{DayCount.FormatTenor(tenorDays)}.csv";
         var diagnosticsPath = DiagnosticsPath(output);
         OutputGuard.RefuseInputs([output, diagnosticsPath], [quotesPath]);
@@ -114,14 +119,5 @@ internal static class ImpliedCommand
         return int.TryParse(digits, NumberStyles.None, CultureInfo.InvariantCulture, out var days) && days is >= 1 and <= 3650
             ? days
             : throw new UsageException($"--tenor '{text}' is not a tenor; expected calendar days written Nd between 1d and 3650d, for example 30d.");
-    }
-
-    private static void CheckDecimalRate(double? value, string option)
-    {
-        if (value is double v && !(v is >= -1 and <= 1))
-        {
-            throw new UsageException(string.Create(CultureInfo.InvariantCulture,
-                $"{option} {v} is outside [-1, 1]; give a continuously compounded decimal (0.05 = 5%), not a percent."));
-        }
     }
 }

@@ -147,12 +147,13 @@ public static class BacktestConfigFile
 
         if (doc.Horizon is int h)
         {
-            s = s with { Horizon = h >= 1 ? BacktestHorizon.Days(h) : throw Bad(file, "horizon", $"must be at least 1 trading day (was {h})") };
+            SettingLimits.Horizon.Check(h, SettingLimits.Horizon.Name, file);
+            s = s with { Horizon = BacktestHorizon.Days(h) };
         }
 
         if (doc.Tenor is string tenor)
         {
-            s = s with { Horizon = ParseTenor(tenor) ?? throw Bad(file, "tenor", $"must be a number of calendar days followed by d, such as \"30d\" (was \"{Cut(tenor)}\")") };
+            s = s with { Horizon = TenorSetting(tenor, file) };
         }
 
         s = s with
@@ -306,6 +307,23 @@ public static class BacktestConfigFile
             && int.TryParse(t.AsSpan(0, t.Length - 1), NumberStyles.None, CultureInfo.InvariantCulture, out var days) && days >= 1
             ? BacktestHorizon.Tenor(days)
             : null;
+    }
+
+    /// <summary>
+    /// Reads the configuration's <c>tenor</c>: any run of digits followed by d is a tenor, and one outside
+    /// <see cref="SettingLimits.TenorDays"/> (however many digits it has) is refused with the range, like every other setting.
+    /// </summary>
+    private static BacktestHorizon TenorSetting(string text, string file)
+    {
+        var t = text.Trim().ToLowerInvariant();
+        if (t.Length > 1 && t.EndsWith('d') && t[..^1].All(char.IsAsciiDigit))
+        {
+            var days = double.Parse(t[..^1], NumberStyles.None, CultureInfo.InvariantCulture);
+            SettingLimits.TenorDays.Check(days, SettingLimits.TenorDays.Name, file);
+            return BacktestHorizon.Tenor((int)days);
+        }
+
+        throw Bad(file, "tenor", $"must be a number of calendar days followed by d, such as \"30d\", {SettingLimits.TenorDays} (was \"{Cut(text)}\")");
     }
 
     private static DateOnly ParseDate(string text, string file, string property) =>

@@ -25,4 +25,7 @@ public sealed record BacktestRunInfo(
 
     /// <summary>Gets how many rows were left out (bad rows with --skip-bad-rows, suspect rows with --suspect drop); they are listed in rejected-rows.csv.</summary>
     public int RowsLeftOut { get; init; }
+
+    /// <summary>Gets how the price and implied files are written (date format, delimiter, decimal separator), the default ISO form unless one was declared.</summary>
+    public CsvFormat InputFormat { get; init; } = CsvFormat.Default;
 }

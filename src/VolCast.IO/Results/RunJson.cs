@@ -86,6 +86,21 @@ internal static class RunJson
         Numbers.Write(json, "candidate", s.Candidate);
         json.WriteNumber("annualizationFactor", s.AnnualizationFactor);
         json.WriteString("target", Config.BacktestConfigFile.TargetNames[(int)s.Target]);
+        var form = run.InputFormat;
+        if (form.IsDefault)
+        {
+            // No form declared: the strict ISO form of docs/files.md.
+            json.WriteNull("inputFormat");
+        }
+        else
+        {
+            json.WriteStartObject("inputFormat");
+            json.WriteString("dateFormat", form.DateFormatOrIso);
+            json.WriteString("delimiter", form.Delimiter.ToString());
+            json.WriteString("decimal", form.DecimalSeparator.ToString());
+            Strings(json, "missing", new[] { string.Empty }.Concat(CsvFormat.MissingMarks));
+            json.WriteEndObject();
+        }
         json.WriteEndObject();
         Strings(json, "input_warnings", run.InputWarnings);
         Strings(json, "input_notes", run.InputNotes);

@@ -118,4 +118,47 @@ public sealed class ConeCommandTests : IDisposable
         Assert.Equal(0, result.ExitCode);
         Assert.True(File.Exists(_temp.Combine("out", "cone.png")));
     }
+
+    [Fact]
+    public void Cone_ImpliedTenor30d_DrawsImpliedWhereImpliedHorizon21Does()
+    {
+        // 30 calendar days = round(30 × 252 / 365) = 21 trading days (the trading-year convention of docs/conventions.md).
+        var (prices, _) = WriteCloses("prices.csv", 400, 5);
+        var impliedPath = _temp.Combine("implied.csv");
+        File.WriteAllText(impliedPath, "date,iv\n2015-01-05,0.2\n2015-01-06,0.25\n");
+
+        var byDays = CliRunner.Run("cone", "--prices", prices, "--implied", impliedPath, "--implied-horizon", "21", "--out", _temp.Combine("days"));
+        var byTenor = CliRunner.Run("cone", "--prices", prices, "--implied", impliedPath, "--implied-tenor", "30d", "--out", _temp.Combine("tenor"));
+
+        Assert.True(byDays.ExitCode == 0, byDays.Stderr);
+        Assert.True(byTenor.ExitCode == 0, byTenor.Stderr);
+        Assert.Equal(File.ReadAllBytes(_temp.Combine("days", "cone.png")), File.ReadAllBytes(_temp.Combine("tenor", "cone.png")));
+    }
+
+    [Theory]
+    [InlineData("--implied-horizon", "0", "--implied-horizon must be from 1 to 2,520 trading days")]
+    [InlineData("--implied-horizon", "2521", "--implied-horizon must be from 1 to 2,520 trading days")]
+    [InlineData("--implied-tenor", "0d", "--implied-tenor must be from 1 to 3,650 calendar days")]
+    [InlineData("--implied-tenor", "99999999999999999999d", "--implied-tenor must be from 1 to 3,650 calendar days")]
+    [InlineData("--implied-tenor", "thirty", "--implied-tenor must be a number of calendar days followed by d")]
+    public void Cone_ImpliedHorizonOrTenorOutOfRange_ExitsTwoBeforeReadingSayingTheRangeAndUnit(string option, string value, string message)
+    {
+        var output = _temp.Combine("out");
+
+        // The prices file does not exist: the setting is refused before any file is read.
+        var result = CliRunner.Run("cone", "--prices", _temp.Combine("absent.csv"), option, value, "--out", output);
+
+        Assert.Equal(2, result.ExitCode);
+        Assert.Contains(message, result.Stderr, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(output));
+    }
+
+    [Fact]
+    public void Cone_ImpliedHorizonAndTenorBoth_ExitsTwo()
+    {
+        var result = CliRunner.Run("cone", "--prices", _temp.Combine("absent.csv"), "--implied-horizon", "21", "--implied-tenor", "30d", "--out", _temp.Combine("out"));
+
+        Assert.Equal(2, result.ExitCode);
+        Assert.Contains("not both", result.Stderr, StringComparison.Ordinal);
+    }
 }

@@ -144,6 +144,28 @@ public sealed class ImpliedCommandTests : IDisposable
         Assert.Equal(2, result.ExitCode);
     }
 
+    [Theory]
+    [InlineData("--rate", "5")]
+    [InlineData("--rate", "-1.5")]
+    [InlineData("--dividend-yield", "3")]
+    [InlineData("--dividend-yield", "NaN")]
+    public void Implied_RateOrYieldOutOfRange_ExitsTwoSayingTheRangeAndTheUnit(string option, string value)
+    {
+        var quotes = WriteQuotes("quotes.csv", GoodChain());
+        var output = _temp.Combine("iv.csv");
+        List<string> args = ["implied", "--quotes", quotes, "--tenor", "30d", "--out", output, option, value];
+        if (option != "--rate")
+        {
+            args.AddRange(["--rate", "0.05"]);
+        }
+
+        var result = CliRunner.Run([.. args]);
+
+        Assert.Equal(2, result.ExitCode);
+        Assert.Contains(option + " must be from -1 to 1 (continuous decimal a year)", result.Stderr, StringComparison.Ordinal);
+        Assert.False(File.Exists(output));
+    }
+
     [Fact]
     public void Implied_MissingRequiredOption_ExitsTwo()
     {

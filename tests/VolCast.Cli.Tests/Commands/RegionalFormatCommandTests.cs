@@ -77,6 +77,59 @@ public sealed class RegionalFormatCommandTests : IDisposable
     }
 
     [Fact]
+    public void Backtest_DeclaredForm_IsStatedInRunJsonSettingsAndTheReportSettings()
+    {
+        var prices = _temp.Write("de.csv", Prices("dd.MM.yyyy", ';', ','));
+        var config = _temp.Write("c.json", "{ \"sweep\": false, \"forecasters\": [\"ewma:0.94\", \"close-to-close:21\"] }");
+        var output = _temp.Combine("declared");
+
+        var result = CliRunner.Run("backtest", "--prices", prices, "--config", config, "--date-format", "dd.MM.yyyy", "--delimiter", ";", "--decimal", ",", "--out", output);
+
+        Assert.True(result.ExitCode == 0, result.Stderr);
+        using var run = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(output, "run.json")));
+        var form = run.RootElement.GetProperty("settings").GetProperty("inputFormat");
+        Assert.Equal("dd.MM.yyyy", form.GetProperty("dateFormat").GetString());
+        Assert.Equal(";", form.GetProperty("delimiter").GetString());
+        Assert.Equal(",", form.GetProperty("decimal").GetString());
+        Assert.Contains("NA", form.GetProperty("missing").EnumerateArray().Select(e => e.GetString()));
+        var report = File.ReadAllText(Path.Combine(output, "report.html"));
+        Assert.Contains("Input CSV format", report, StringComparison.Ordinal);
+        Assert.Contains("dates dd.MM.yyyy", report, StringComparison.Ordinal);
+        Assert.Contains("missing values: an empty cell, null, NA", report, StringComparison.Ordinal);
+
+        // An ISO file declares nothing: run.json's inputFormat is null, and the report has no such line.
+        var iso = _temp.Write("iso.csv", Prices("yyyy-MM-dd", ',', '.'));
+        var plain = CliRunner.Run("backtest", "--prices", iso, "--config", config, "--out", _temp.Combine("iso"));
+        Assert.True(plain.ExitCode == 0, plain.Stderr);
+        Assert.Contains("\"inputFormat\": null", File.ReadAllText(_temp.Combine("iso", "run.json")), StringComparison.Ordinal);
+        Assert.DoesNotContain("Input CSV format", File.ReadAllText(_temp.Combine("iso", "report.html")), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Demo_DataFolderWhoseConfigurationDeclaresARegionalForm_IsReadInThatForm()
+    {
+        // A demo data folder of regional files: the demo reads its configuration's form keys as backtest --config does.
+        var data = _temp.Combine("data");
+        Directory.CreateDirectory(data);
+        File.WriteAllText(Path.Combine(data, "alder-ridge.csv"), Prices("dd.MM.yyyy", ';', ','));
+        var implied = new StringBuilder("date;iv\n");
+        for (var i = 0; i < _history.Count; i++)
+        {
+            implied.Append(_history.Dates[i].ToString("dd.MM.yyyy", CultureInfo.InvariantCulture)).Append(";0,2").Append((i % 10).ToString(CultureInfo.InvariantCulture)).Append('\n');
+        }
+
+        File.WriteAllText(Path.Combine(data, "alder-ridge-implied-30d.csv"), implied.ToString());
+        File.WriteAllText(Path.Combine(data, "demo-config.json"), "{ \"sweep\": false, \"forecasters\": [\"ewma:0.94\", \"close-to-close:21\"], \"dateFormat\": \"dd.MM.yyyy\", \"delimiter\": \";\", \"decimal\": \",\", \"impliedTenor\": \"91d\" }");
+        var output = _temp.Combine("demo-out");
+
+        var result = CliRunner.Run("demo", "--data", data, "--out", output);
+
+        Assert.True(result.ExitCode == 0, result.Stderr);
+        Assert.Contains("declared as a 91-calendar-day tenor", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("\"dateFormat\": \"dd.MM.yyyy\"", File.ReadAllText(Path.Combine(output, "run.json")), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Backtest_BadImpliedTenor_ExitsTwo()
     {
         var prices = _temp.Write("iso.csv", Prices("yyyy-MM-dd", ',', '.'));
