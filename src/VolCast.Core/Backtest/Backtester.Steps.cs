@@ -244,7 +244,10 @@ public static partial class Backtester
         CancellationToken cancellationToken)
     {
         // One input for every session, so that per-history work (the estimators' bar terms) is done once.
-        var input = new ForecastInput(prices, implied, settings.Horizon.NominalDays, settings.AnnualizationFactor);
+        var input = new ForecastInput(prices, implied, settings.Horizon.NominalDays, settings.AnnualizationFactor)
+        {
+            SelectionWindowDays = settings.SelectionWindowDays,
+        };
 
         // Start every session first, on this thread, so that a forecaster that cannot run says so before any work.
         var sessions = new IForecastSession[forecasters.Length];
