@@ -38,7 +38,13 @@ internal sealed record BacktestJob(
     /// <summary>Gets the configuration file's SHA-256 when already known, or null to hash the file.</summary>
     public string? ConfigSha256 { get; init; }
 
+    /// <summary>Gets the file of the user's own forecasts (date, NAME1, NAME2, …), or null.</summary>
+    public string? Forecasts { get; init; }
+
+    /// <summary>Gets the unit of the forecasts file's values.</summary>
+    public ImpliedUnit ForecastsUnit { get; init; } = ImpliedUnit.Infer;
+
     /// <summary>Gets every input file of the job.</summary>
     public IEnumerable<string> Inputs =>
-        new[] { Prices, Implied, Config }.OfType<string>();
+        new[] { Prices, Implied, Config, Forecasts }.OfType<string>();
 }

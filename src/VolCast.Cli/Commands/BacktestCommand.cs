@@ -25,12 +25,15 @@ internal static class BacktestCommand
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>). Written in a hidden temporary folder and moved into place when complete." };
         var force = new Option<bool>("--force") { Description = "Use an existing output folder: replace the earlier run's files (those listed in its run.json) as one set, keeping any other file; a file of an output name that volcast did not write is never replaced." };
         var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor the implied series quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
+        var forecasts = new Option<string?>("--forecasts") { Description = "Your own volatility forecasts, CSV (date, NAME1, NAME2, …): each column is scored as the forecaster user:NAME and may be the baseline, candidate or rule forecaster. The value dated t must be made from data known at t's close: the tool cannot check this. Overrides the configuration's forecastsFile." };
+        var forecastsUnit = new Option<string?>("--forecasts-unit") { Description = "Unit of the forecasts file: percent (20 = 20%) or decimal (0.20); inferred with a warning when left out. Overrides the configuration's forecastsUnit." };
+        forecastsUnit.AcceptOnlyFromAmong("percent", "decimal");
         var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
         suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
         var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
-            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows,
+            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows, forecasts, forecastsUnit,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -48,7 +51,11 @@ internal static class BacktestCommand
             parse,
             formatOptions,
             parse.GetValue(suspect),
-            parse.GetValue(skipBadRows)))));
+            parse.GetValue(skipBadRows))
+        {
+            Forecasts = parse.GetValue(forecasts),
+            ForecastsUnit = parse.GetValue(forecastsUnit),
+        })));
         return command;
     }
 
@@ -64,6 +71,12 @@ internal static class BacktestCommand
             Format = a.FormatOptions.Resolve(a.Parse, configFormat),
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
             Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
+        };
+        var (configForecasts, configForecastsUnit) = a.Config is null ? (null, ImpliedUnit.Infer) : BacktestConfigFile.ReadForecasts(a.Config);
+        job = job with
+        {
+            Forecasts = a.Forecasts ?? configForecasts,
+            ForecastsUnit = a.ForecastsUnit is null ? configForecastsUnit : BacktestOptions.Unit(a.ForecastsUnit),
         };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestRun run;
@@ -108,5 +121,10 @@ internal static class BacktestCommand
 
     private sealed record Arguments(
         string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force,
-        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows);
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows)
+    {
+        public string? Forecasts { get; init; }
+
+        public string? ForecastsUnit { get; init; }
+    }
 }

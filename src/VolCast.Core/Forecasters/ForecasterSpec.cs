@@ -91,6 +91,8 @@ public static class ForecasterSpec
                 }
 
                 throw Invalid(spec, $"a historical-window forecaster is written {name}:WINDOW with WINDOW a whole number of trading days, at least 2 (was '{parameter ?? "missing"}')");
+            case "user":
+                throw Invalid(spec, "a user:NAME forecaster is a column of the forecasts file (--forecasts FILE), not a built-in spec");
             default:
                 throw Invalid(spec, $"'{name}' is not a known forecaster");
         }
