@@ -44,7 +44,13 @@ internal sealed record BacktestJob(
     /// <summary>Gets whether the report page and its charts are drawn (the batch may leave them to the summary page).</summary>
     public bool WriteReport { get; init; } = true;
 
+    /// <summary>Gets the file of the user's own forecasts (date, NAME1, NAME2, …), or null.</summary>
+    public string? Forecasts { get; init; }
+
+    /// <summary>Gets the unit of the forecasts file's values.</summary>
+    public ImpliedUnit ForecastsUnit { get; init; } = ImpliedUnit.Infer;
+
     /// <summary>Gets every input file of the job.</summary>
     public IEnumerable<string> Inputs =>
-        new[] { Prices, Implied, Config }.OfType<string>();
+        new[] { Prices, Implied, Config, Forecasts }.OfType<string>();
 }

@@ -52,6 +52,7 @@ internal static class BacktestPipeline
         var started = DateTimeOffset.UtcNow;
         progress?.Report(new BacktestProgress("reading inputs", 0, 1));
         var (prices, implied, warnings, notes, rejected) = Load(job, warn);
+        var userForecasts = LoadUserForecasts(job, prices, warn, ref warnings);
         if (prices.AdjustedCloseApplied && job.Settings.Trading.DividendYield != 0)
         {
             // The adjusted closes already hold the dividends: a dividend yield in the pricing would count them twice.
@@ -63,7 +64,7 @@ internal static class BacktestPipeline
         cancellationToken.ThrowIfCancellationRequested();
 
         stage?.Invoke(BacktestStage.Forecast);
-        var result = Forecast(job, prices, implied, progress, cancellationToken);
+        var result = Forecast(job, prices, implied, userForecasts, progress, cancellationToken);
 
         // Do the odds hold? N(d2) probabilities at the default strikes and the expected-move ranges, on the same dates and prices.
         stage?.Invoke(BacktestStage.Calibrate);
@@ -78,7 +79,7 @@ internal static class BacktestPipeline
         var (rulePnl, absence) = RulePnlEvaluator.Evaluate(result, prices.History, cancellationToken);
         progress?.Report(new BacktestProgress("trading the rule", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
-        var info = Info(job, prices, implied, warnings, started) with
+        var info = Info(job, prices, implied, userForecasts, warnings, started) with
         {
             InputNotes = notes,
             Suspect = job.Checks.Suspect.ToString().ToLowerInvariant(),
@@ -169,11 +170,31 @@ internal static class BacktestPipeline
         return (checkedInputs.Prices, checkedInputs.Implied, warnings.ToImmutable(), notes, checkedInputs.Rejected);
     }
 
-    private static BacktestResult Forecast(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken)
+    /// <summary>Reads the user's forecasts file, when given, and checks it against the price dates; its warnings join the run's.</summary>
+    private static UserForecastsLoad? LoadUserForecasts(BacktestJob job, PriceLoad prices, Action<string> warn, ref ImmutableArray<string> warnings)
+    {
+        if (job.Forecasts is null)
+        {
+            return null;
+        }
+
+        var load = UserForecastsFileReader.Read(InputBytes.Read(job.Forecasts), job.ForecastsUnit, job.Format);
+        var more = load.Warnings.Concat(UserForecastsFileReader.CheckAgainstPrices(load, job.Forecasts, prices.History.Dates)).Select(w => w.ToString()).ToList();
+        foreach (var w in more)
+        {
+            warn(w);
+        }
+
+        warnings = warnings.AddRange(more);
+        return load;
+    }
+
+    private static BacktestResult Forecast(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, UserForecastsLoad? userForecasts, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken)
     {
         try
         {
-            return Backtester.Run(prices.History, implied?.Series, job.Settings, progress: progress, cancellationToken: cancellationToken);
+            var additional = userForecasts is null ? null : (IReadOnlyList<Core.Forecasters.IVolatilityForecaster>)[.. userForecasts.Forecasters];
+            return Backtester.Run(prices.History, implied?.Series, job.Settings, additional, progress, cancellationToken);
         }
         catch (BacktestDataException ex)
         {
@@ -185,13 +206,18 @@ internal static class BacktestPipeline
         }
     }
 
-    private static BacktestRunInfo Info(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, ImmutableArray<string> warnings, DateTimeOffset started)
+    private static BacktestRunInfo Info(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, UserForecastsLoad? userForecasts, ImmutableArray<string> warnings, DateTimeOffset started)
     {
         var inputs = ImmutableArray.CreateBuilder<InputFileInfo>();
         inputs.Add(new InputFileInfo("prices", job.Prices, prices.Sha256));
         if (implied is not null)
         {
             inputs.Add(new InputFileInfo(ImpliedSeries.Name, job.Implied!, implied.Sha256));
+        }
+
+        if (userForecasts is not null)
+        {
+            inputs.Add(new InputFileInfo("forecasts", job.Forecasts!, userForecasts.Sha256));
         }
 
         if (job.Config is not null)

@@ -97,6 +97,7 @@ public static class ReportWriter
         {
             Odds = odds,
             Pnl = pnl,
+            Now = ReportNow.Build(Core.Now.NowReading.From(result, run.Prices)),
         };
     }
 

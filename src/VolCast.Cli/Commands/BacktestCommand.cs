@@ -25,13 +25,16 @@ internal static class BacktestCommand
         var output = new Option<string?>("--out") { Description = "Output folder, which must not exist (default reports/backtest-<prices file name without extension>). Written in a hidden temporary folder and moved into place when complete." };
         var force = new Option<bool>("--force") { Description = "Use an existing output folder: replace the earlier run's files (those listed in its run.json) as one set, keeping any other file; a file of an output name that volcast did not write is never replaced." };
         var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor the implied series quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
+        var forecasts = new Option<string?>("--forecasts") { Description = "Your own volatility forecasts, CSV (date, NAME1, NAME2, …): each column is scored as the forecaster user:NAME and may be the baseline, candidate or rule forecaster. The value dated t must be made from data known at t's close: the tool cannot check this. Overrides the configuration's forecastsFile." };
+        var forecastsUnit = new Option<string?>("--forecasts-unit") { Description = "Unit of the forecasts file: percent (20 = 20%) or decimal (0.20); inferred with a warning when left out. Overrides the configuration's forecastsUnit." };
+        forecastsUnit.AcceptOnlyFromAmong("percent", "decimal");
         var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
         suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
         var workbook = new Option<bool>("--workbook") { Description = BacktestOptions.WorkbookHelp };
         var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
-            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows, workbook,
+            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows, workbook, forecasts, forecastsUnit,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -50,7 +53,11 @@ internal static class BacktestCommand
             formatOptions,
             parse.GetValue(suspect),
             parse.GetValue(skipBadRows),
-            parse.GetValue(workbook)))));
+            parse.GetValue(workbook))
+        {
+            Forecasts = parse.GetValue(forecasts),
+            ForecastsUnit = parse.GetValue(forecastsUnit),
+        })));
         return command;
     }
 
@@ -67,6 +74,12 @@ internal static class BacktestCommand
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
             Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
             Workbook = BacktestOptions.Workbook(a.Config, a.Workbook),
+        };
+        var (configForecasts, configForecastsUnit) = a.Config is null ? (null, ImpliedUnit.Infer) : BacktestConfigFile.ReadForecasts(a.Config);
+        job = job with
+        {
+            Forecasts = a.Forecasts ?? configForecasts,
+            ForecastsUnit = a.ForecastsUnit is null ? configForecastsUnit : BacktestOptions.Unit(a.ForecastsUnit),
         };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestRun run;
@@ -103,7 +116,7 @@ internal static class BacktestCommand
         console.Out.WriteLine(run.RulePnl is null
             ? $"rule's trades not run: {run.RulePnlAbsence}"
             : "would the rule have paid? " + RulePnlAnswer.Sentence(run.RulePnl));
-        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt{(run.RulePnl is null ? string.Empty : ", trades.csv, rule-pnl.csv")})");
+        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt, now.json{(run.RulePnl is null ? string.Empty : ", trades.csv, rule-pnl.csv")})");
         return ExitCodes.Success;
     }
 
@@ -111,5 +124,10 @@ internal static class BacktestCommand
 
     private sealed record Arguments(
         string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force,
-        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, bool Workbook);
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, bool Workbook)
+    {
+        public string? Forecasts { get; init; }
+
+        public string? ForecastsUnit { get; init; }
+    }
 }

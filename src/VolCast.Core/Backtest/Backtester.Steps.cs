@@ -176,6 +176,18 @@ public static partial class Backtester
         var list = new List<IVolatilityForecaster>();
         foreach (var spec in specs)
         {
+            if (UserForecaster.IsUserSpec(spec))
+            {
+                // A user's column runs as an additional forecaster; listing it only says it is wanted.
+                var canonical = UserForecaster.Canonical(spec);
+                if (additional is null || !additional.Any(a => a.Spec == canonical))
+                {
+                    throw new ArgumentException(Text($"The forecaster '{spec}' is in the configuration but no forecasts file has a column '{canonical[UserForecaster.Prefix.Length..]}'; give it with --forecasts FILE or remove it."));
+                }
+
+                continue;
+            }
+
             var f = ForecasterSpec.Parse(spec);
             if (f.Spec == ImpliedSpec)
             {
@@ -244,7 +256,10 @@ public static partial class Backtester
         CancellationToken cancellationToken)
     {
         // One input for every session, so that per-history work (the estimators' bar terms) is done once.
-        var input = new ForecastInput(prices, implied, settings.Horizon.NominalDays, settings.AnnualizationFactor);
+        var input = new ForecastInput(prices, implied, settings.Horizon.NominalDays, settings.AnnualizationFactor)
+        {
+            SelectionWindowDays = settings.SelectionWindowDays,
+        };
 
         // Start every session first, on this thread, so that a forecaster that cannot run says so before any work.
         var sessions = new IForecastSession[forecasters.Length];
@@ -389,7 +404,7 @@ public static partial class Backtester
         var trimmed = spec.Trim();
         var canonical = trimmed.Equals(ImpliedSpec, StringComparison.OrdinalIgnoreCase) || trimmed.StartsWith("adaptive:", StringComparison.OrdinalIgnoreCase)
             ? trimmed.ToLowerInvariant()
-            : ForecasterSpec.Parse(trimmed).Spec;
+            : UserForecaster.IsUserSpec(trimmed) ? UserForecaster.Canonical(trimmed) : ForecasterSpec.Parse(trimmed).Spec;
         if (!available.Contains(canonical))
         {
             throw new ArgumentException(Text(

@@ -45,6 +45,9 @@ public sealed record ForecastInput
     /// <summary>Gets the trading days per year used to annualize.</summary>
     public double AnnualizationFactor { get; }
 
+    /// <summary>Gets the trailing window, in forecast dates, of the forecasters that learn from their own past errors when no window is given in their spec (504 by default, the run's selection window).</summary>
+    public int SelectionWindowDays { get; init; } = 504;
+
     /// <summary>Gets the estimators' per-bar terms of <see cref="Prices"/>, built on first use and shared by every session of this input.</summary>
     internal EstimatorTerms Terms => _terms.Value;
 }

@@ -20,6 +20,7 @@ public static class ForecasterSpec
         "gjr-garch[:zero-mean]  (GJR-GARCH(1,1))",
         "har[:garman-klass]  (HAR on squared returns, or on the Garman-Klass range term)",
         "implied  (the implied-volatility series itself)",
+        "implied-debiased[:N]  (implied times the root mean of RV²/IV² over the last N closed windows, default the selection window; e.g. implied-debiased:252)",
         "ESTIMATOR:WINDOW  (historical window, flat at today's rolling estimate; ESTIMATOR one of close-to-close, parkinson, garman-klass, rogers-satchell, yang-zhang; WINDOW at least 2 trading days; e.g. yang-zhang:21)",
     ];
 
@@ -68,6 +69,18 @@ public static class ForecasterSpec
                 };
             case ImpliedSeries.Name:
                 return parameter is null ? new ImpliedForecaster() : throw Invalid(spec, "implied takes no parameter");
+            case ImpliedDebiasedForecaster.Name:
+                if (parameter is null)
+                {
+                    return new ImpliedDebiasedForecaster();
+                }
+
+                if (int.TryParse(parameter, NumberStyles.None, CultureInfo.InvariantCulture, out var windows) && windows >= 1)
+                {
+                    return new ImpliedDebiasedForecaster(windows);
+                }
+
+                throw Invalid(spec, $"implied-debiased is written implied-debiased:N with N a whole number of past forecast dates, at least 1 (was '{parameter}')");
             case "close-to-close" or "parkinson" or "garman-klass" or "rogers-satchell" or "yang-zhang":
                 if (parameter is not null
                     && int.TryParse(parameter, NumberStyles.None, CultureInfo.InvariantCulture, out var window)
@@ -78,6 +91,8 @@ public static class ForecasterSpec
                 }
 
                 throw Invalid(spec, $"a historical-window forecaster is written {name}:WINDOW with WINDOW a whole number of trading days, at least 2 (was '{parameter ?? "missing"}')");
+            case "user":
+                throw Invalid(spec, "a user:NAME forecaster is a column of the forecasts file (--forecasts FILE), not a built-in spec");
             default:
                 throw Invalid(spec, $"'{name}' is not a known forecaster");
         }

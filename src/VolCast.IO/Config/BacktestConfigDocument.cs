@@ -47,6 +47,10 @@ internal sealed class BacktestConfigDocument
 
     public string? ImpliedTenor { get; set; }
 
+    public string? ForecastsFile { get; set; }
+
+    public string? ForecastsUnit { get; set; }
+
     public string? Suspect { get; set; }
 
     public bool? SkipBadRows { get; set; }

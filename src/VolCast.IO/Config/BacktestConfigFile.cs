@@ -23,7 +23,7 @@ namespace VolCast.IO.Config;
 /// files are written and what the implied series covers; they are read with <see cref="ReadInputForm"/>.
 /// Unknown properties are errors (a misspelt setting must not be silently ignored). Comments and trailing commas are allowed.
 /// </remarks>
-public static class BacktestConfigFile
+public static partial class BacktestConfigFile
 {
     private static readonly JsonSerializerOptions Options = new()
     {
@@ -168,7 +168,10 @@ public static class BacktestConfigFile
             {
                 try
                 {
-                    ForecasterSpec.Parse(spec ?? string.Empty);
+                    if (!UserForecaster.IsUserSpec(spec))
+                    {
+                        ForecasterSpec.Parse(spec ?? string.Empty);
+                    }
                 }
                 catch (ArgumentException ex)
                 {
@@ -226,7 +229,7 @@ public static class BacktestConfigFile
 
         foreach (var (property, spec) in new[] { ("ruleHistorical", s.RuleHistorical), ("ruleForecaster", s.RuleForecaster), ("baseline", s.Baseline), ("candidate", s.Candidate) })
         {
-            if (spec is not null && !spec.Trim().Equals(ImpliedSeries.Name, StringComparison.OrdinalIgnoreCase) && !spec.Trim().StartsWith("adaptive:", StringComparison.OrdinalIgnoreCase))
+            if (spec is not null && !spec.Trim().Equals(ImpliedSeries.Name, StringComparison.OrdinalIgnoreCase) && !spec.Trim().StartsWith("adaptive:", StringComparison.OrdinalIgnoreCase) && !UserForecaster.IsUserSpec(spec))
             {
                 try
                 {

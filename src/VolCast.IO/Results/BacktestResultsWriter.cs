@@ -35,7 +35,7 @@ public static class BacktestResultsWriter
 
     /// <summary>Gets the names of the data files this writer can produce, run.json included (trades.csv and rule-pnl.csv only with the rule's trades).</summary>
     public static IReadOnlyList<string> FileNames { get; } =
-        ["forecasts.csv", ForecastsLongCsv.FileName, "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName];
+        ["forecasts.csv", ForecastsLongCsv.FileName, "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName, NowJson.FileName];
 
     /// <summary>Writes every data file except run.json into <paramref name="folder"/>, checking for cancellation between files.</summary>
     /// <param name="folder">An existing folder (the caller's staging folder); no file of these names may exist in it.</param>
@@ -59,6 +59,7 @@ public static class BacktestResultsWriter
             ("summary.txt", path => AtomicFile.WriteText(path, w => SummaryText.Write(w, result, run.Info, calibration, run.RulePnl, run.RulePnlAbsence))),
             (CalibrationFileName, path => CalibrationCsv.WriteFile(path, [.. calibration.Forecasters.Select(f => f.Calibration)])),
             (CoverageFileName, path => CoverageCsv.WriteFile(path, calibration.Forecasters)),
+            (NowJson.FileName, path => AtomicFile.WriteText(path, w => NowJson.Write(w, Core.Now.NowReading.From(result, run.Prices)))),
         }.ToList();
         if (run.RulePnl is { } rulePnl)
         {

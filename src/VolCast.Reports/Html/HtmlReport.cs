@@ -10,7 +10,7 @@ namespace VolCast.Reports.Html;
 /// scripts, and a Content-Security-Policy that forbids loading anything from elsewhere.
 /// </summary>
 /// <remarks>
-/// Sections, in order: verdict, "Would the rule have paid?" (the rule as delta-hedged straddles, or why it was not
+/// Sections, in order: now (today's reading), verdict, "Would the rule have paid?" (the rule as delta-hedged straddles, or why it was not
 /// run), metrics, charts, "Do the odds hold?" (probability calibration and range coverage),
 /// data quality, run details, cautions. Every string from the model is
 /// HTML-escaped; numbers are formatted with the invariant culture, so the same model gives the same bytes.
@@ -21,7 +21,7 @@ internal static class HtmlReport
     public const string ContentSecurityPolicy = "default-src 'none'; img-src data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'";
 
     /// <summary>The section ids, in the order they appear.</summary>
-    public static IReadOnlyList<string> SectionIds { get; } = ["verdict", "pnl", "metrics", "charts", "odds", "data-quality", "run", "cautions"];
+    public static IReadOnlyList<string> SectionIds { get; } = ["now", "verdict", "pnl", "metrics", "charts", "odds", "data-quality", "run", "cautions"];
 
     private const string Css = """
         body{font-family:"DejaVu Sans",Arial,Helvetica,sans-serif;color:#111;background:#fff;max-width:1240px;margin:0 auto;padding:16px 24px;line-height:1.45}
@@ -59,6 +59,7 @@ internal static class HtmlReport
         html.Append("<title>").Append(E(model.Title)).Append("</title>\n<style>\n").Append(Css).Append("\n</style>\n</head>\n<body>\n");
         html.Append("<h1>").Append(E(model.Title)).Append("</h1>\n");
 
+        Now(html, model.Now);
         Verdict(html, model.Verdict);
         Pnl(html, model.Pnl);
         Metrics(html, model.Tables);
@@ -100,6 +101,30 @@ internal static class HtmlReport
         }
 
         html.Append("</ul>\n</div>\n</section>\n");
+    }
+
+    private static void Now(StringBuilder html, NowSection? now)
+    {
+        html.Append("<section id=\"now\">\n<h2>Now: today's reading</h2>\n");
+        if (now is null)
+        {
+            html.Append("<p class=\"note\">Today's reading was not built for this report.</p>\n</section>\n");
+            return;
+        }
+
+        html.Append("<p class=\"cautions\">").Append(E(now.Caution)).Append("</p>\n<ul>\n");
+        foreach (var point in now.Points)
+        {
+            html.Append("<li>").Append(E(point)).Append("</li>\n");
+        }
+
+        html.Append("</ul>\n");
+        foreach (var table in now.Tables)
+        {
+            TextTable(html, table);
+        }
+
+        html.Append("</section>\n");
     }
 
     private static void Pnl(StringBuilder html, PnlSection? pnl)

@@ -21,6 +21,9 @@ internal sealed record ReportModel(
     /// <summary>The probability-calibration and range-coverage section, or null when the checks were not run.</summary>
     public OddsSection? Odds { get; init; }
 
+    /// <summary>The "Now" section, today's reading of the data, or null when the report was built without it.</summary>
+    public NowSection? Now { get; init; }
+
     /// <summary>The "Would the rule have paid?" section, or null when the report was built without it (the page then says it was not run).</summary>
     public PnlSection? Pnl { get; init; }
 }

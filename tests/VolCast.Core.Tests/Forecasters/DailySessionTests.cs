@@ -8,7 +8,7 @@ public sealed class DailySessionTests
     private const int Days = 420;
     private const int Horizon = 5;
 
-    public static TheoryData<string> AllSpecs => ["ewma:0.94", "ewma:0.97", "garch", "garch:zero-mean", "gjr-garch", "har", "har:garman-klass", "implied",
+    public static TheoryData<string> AllSpecs => ["ewma:0.94", "ewma:0.97", "garch", "garch:zero-mean", "gjr-garch", "har", "har:garman-klass", "implied", "implied-debiased", "implied-debiased:40",
         "close-to-close:21", "parkinson:10", "garman-klass:63", "rogers-satchell:5", "yang-zhang:21", "yang-zhang:252"];
 
     [Theory]

@@ -17,6 +17,8 @@ public sealed class ForecasterSpecTests
     [InlineData("har", "har")]
     [InlineData("har:garman-klass", "har:garman-klass")]
     [InlineData("implied", "implied")]
+    [InlineData("Implied-Debiased", "implied-debiased")]
+    [InlineData("implied-debiased:252", "implied-debiased:252")]
     // Historical windows: estimator names of docs/files.md#names-of-estimators-and-forecasters, window in trading days.
     [InlineData("yang-zhang:21", "yang-zhang:21")]
     [InlineData(" Close-To-Close:63 ", "close-to-close:63")]
@@ -35,6 +37,8 @@ public sealed class ForecasterSpecTests
     // Unknown option.
     [InlineData("garch:t")]
     [InlineData("implied:30")]
+    [InlineData("implied-debiased:0")]
+    [InlineData("implied-debiased:x")]
     [InlineData("")]
     public void Parse_InvalidSpec_ThrowsListingValidSpecs(string spec)
     {
