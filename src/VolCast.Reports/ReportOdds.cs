@@ -43,11 +43,11 @@ internal static class ReportOdds
             [
                 new MetricCell(one.NonOverlappingCount, "0"),
                 new MetricCell(one.ShareWithin, "0.0%"),
-                new MetricCell(one.Kupiec?.PValue, "0.000"),
-                new MetricCell(one.ConditionalCoverage?.PValue, "0.000"),
+                new MetricCell(one.Kupiec?.PValue, MetricCell.PValue),
+                new MetricCell(one.ConditionalCoverage?.PValue, MetricCell.PValue),
                 new MetricCell(two.ShareWithin, "0.0%"),
-                new MetricCell(two.Kupiec?.PValue, "0.000"),
-                new MetricCell(two.ConditionalCoverage?.PValue, "0.000"),
+                new MetricCell(two.Kupiec?.PValue, MetricCell.PValue),
+                new MetricCell(two.ConditionalCoverage?.PValue, MetricCell.PValue),
                 new MetricCell(cov.MaxAbsZ, "0.00"),
                 new MetricCell(cov.ShareAboveThree, "0.00%"),
                 new MetricCell(cov.MissingCount, "0"),
@@ -56,7 +56,7 @@ internal static class ReportOdds
 
         var horizon = calibration.Forecasters.Length > 0 ? calibration.Forecasters[0].Coverage.HorizonDays : result.Settings.Horizon.NominalDays;
         var table = new MetricTable(
-            "Coverage of expected-move ranges",
+            "Coverage of the forecast move bands (±1σ, ±2σ)",
             [
                 new MetricColumn("Non-overlapping dates", "count, for the tests"),
                 new MetricColumn("|z| ≤ 1", "share; 68.3% if calibrated"),

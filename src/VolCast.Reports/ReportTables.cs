@@ -91,7 +91,7 @@ internal static class ReportTables
                 new MetricCell(V("mz_b"), "0.000", Stars(V("mz_wald_p"))),
                 new MetricCell(V("mz_r2"), "0.000"),
                 new MetricCell(V("enc_forecast_c"), "0.000", Stars(V("enc_forecast_c_p"))),
-                new MetricCell(V("mcs_p"), "0.000"),
+                new MetricCell(V("mcs_p"), MetricCell.PValue),
             ]));
         }
 
@@ -205,7 +205,7 @@ internal static class ReportTables
     ]);
 
     private static string Stat(DieboldMarianoResult? dm) => dm is { Statistic: double t, PValue: double p }
-        ? string.Create(CultureInfo.InvariantCulture, $"{t:0.00}, p = {p:0.0000}")
+        ? string.Create(CultureInfo.InvariantCulture, $"{t:0.00}, {PValueText.Clause(p)}")
         : "not computable";
 
     private static double TwoSidedNormalP(double z) => 2 * MathNet.Numerics.Distributions.Normal.CDF(0, 1, -Math.Abs(z));

@@ -82,7 +82,7 @@ internal static class ReportVerdict
             return first + "; its comparison with implied could not be computed.";
         }
 
-        var test = string.Create(C, $"Diebold-Mariano {t:0.00}, p = {P(p)}");
+        var test = string.Create(C, $"Diebold-Mariano {t:0.00}, {PValueText.Clause(p)}");
         return dm.MeanDifferential < 0
             ? p < 0.05
                 ? $"{first} and beats implied volatility significantly ({test})."
@@ -113,10 +113,10 @@ internal static class ReportVerdict
         var better = h.FirstLosses.Qlike < h.SecondLosses.Qlike ? $"candidate {result.Candidate}" : $"baseline {result.Baseline}";
         var word = p < 0.05 ? "significantly" : "but not significantly";
         var mse = h.MseVariance is { Statistic: double mt, PValue: double mp }
-            ? string.Create(C, $"; on MSE of variance DM {mt:0.00}, p = {P(mp)}")
+            ? string.Create(C, $"; on MSE of variance DM {mt:0.00}, {PValueText.Clause(mp)}")
             : string.Empty;
         return string.Create(C,
-            $"Head to head, candidate {result.Candidate} against baseline {result.Baseline} ({h.Count} common dates): QLIKE {h.FirstLosses.Qlike:0.0000} vs {h.SecondLosses.Qlike:0.0000}, lower for the {better}, {word} (DM {t:0.00}, p = {P(p)}){mse}.");
+            $"Head to head, candidate {result.Candidate} against baseline {result.Baseline} ({h.Count} common dates): QLIKE {h.FirstLosses.Qlike:0.0000} vs {h.SecondLosses.Qlike:0.0000}, lower for the {better}, {word} (DM {t:0.00}, {PValueText.Clause(p)}){mse}.");
     }
 
     private static string Mcs(McsSummary mcs)
@@ -178,8 +178,6 @@ internal static class ReportVerdict
         return string.Create(C,
             $"Rule test (not a trading P&L): \"sell volatility when implied exceeds {rule.ForecastSpec} by more than {rule.ThresholdVolatility * 100:0.0} points\" fired on {sell.Count} of {all.Count} dates; {sellText}, against {allGap * 100:0.0} on all dates.");
     }
-
-    internal static string P(double p) => p < 0.0001 ? "< 0.0001" : p.ToString("0.0000", C);
 
     private static string Signed(double value, string format) => (value >= 0 ? "+" : "−") + Math.Abs(value).ToString(format, C);
 }

@@ -7,13 +7,14 @@ using VolCast.Reports.Model;
 
 namespace VolCast.Cli.Batch;
 
-/// <summary>Writes summary.csv, beats-implied.csv and summary.html into the batch's folder, each atomically (temporary file, then a move).</summary>
+/// <summary>Writes summary.csv, lookbacks.csv, beats-implied.csv and summary.html into the batch's folder, each atomically (temporary file, then a move).</summary>
 internal static class BatchSummaryWriter
 {
     public static void Write(BatchRequest request, IReadOnlyList<BatchAssetRow> rows)
     {
         Directory.CreateDirectory(request.OutputFolder);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
+        AtomicFile.WriteText(Path.Combine(request.OutputFolder, BatchLookbacksCsv.FileName), w => BatchLookbacksCsv.Write(w, rows), overwrite: true);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
         var s = request.Settings;
         Setting[] settings =

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using VolCast.Core.Backtest;
+using VolCast.Core.Scoring;
 using VolCast.IO;
 using VolCast.IO.Config;
 using VolCast.IO.Results;
@@ -96,13 +97,15 @@ internal static class BacktestCommand
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{result.Dates.Length} forecast dates ({result.DataQuality.DatesWithTarget} with a realized target), {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}."));
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {Show(head.Qlike?.Statistic)} (p {Show(head.Qlike?.PValue)}), DM MSE {Show(head.MseVariance?.Statistic)} (p {Show(head.MseVariance?.PValue)}); negative favours the candidate."));
+            $"candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {Show(head.Qlike?.Statistic)} ({ShowP(head.Qlike?.PValue)}), DM MSE {Show(head.MseVariance?.Statistic)} ({ShowP(head.MseVariance?.PValue)}); negative favours the candidate."));
         console.Out.WriteLine(run.RulePnl is null
             ? $"rule's trades not run: {run.RulePnlAbsence}"
             : "would the rule have paid? " + RulePnlAnswer.Sentence(run.RulePnl));
         console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt{(run.RulePnl is null ? string.Empty : ", trades.csv, rule-pnl.csv")})");
         return ExitCodes.Success;
     }
+
+    private static string ShowP(double? p) => p is double v && double.IsFinite(v) ? PValueText.Clause(v) : "p n/a";
 
     private static string Show(double? value) => value is double v && double.IsFinite(v) ? v.ToString("F4", CultureInfo.InvariantCulture) : "n/a";
 

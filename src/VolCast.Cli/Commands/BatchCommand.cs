@@ -24,7 +24,7 @@ internal static class BatchCommand
         var jobs = new Option<int?>("--jobs") { Description = $"How many names run at the same time, {SettingLimits.Jobs} (default: the number of processor cores)." };
         var impliedTenor = new Option<string?>("--implied-tenor") { Description = "The tenor every implied file quotes, such as 30d (default: the backtest's own horizon). A tenor that does not match the horizon is warned about." };
         var force = new Option<bool>("--force") { Description = "Recompute every name, even those whose results are complete and whose inputs and configuration are unchanged." };
-        var command = new Command("batch", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted batch resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
+        var command = new Command("batch", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted batch resumes; one bad file fails only its name. Writes summary.csv, lookbacks.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
             pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force,
         };
@@ -103,7 +103,7 @@ internal static class BatchCommand
 
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{outcome.Rows.Count} names: {outcome.Computed - outcome.Failed} computed, {outcome.Reused} kept from an earlier run, {outcome.Failed} failed."));
-        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, beats-implied.csv, summary.html)");
+        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, lookbacks.csv, beats-implied.csv, summary.html)");
         return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
     }
 

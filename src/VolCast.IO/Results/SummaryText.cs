@@ -51,7 +51,7 @@ internal static class SummaryText
         foreach (var m in r.Metrics)
         {
             w.Write(string.Create(c,
-                $"  {m.Spec,-26} {m.Losses?.Count ?? 0,6} {F(m.Losses?.Bias, "F4"),9} {F(m.Losses?.RmseVolatility, "F4"),9} {F(m.Losses?.Qlike, "F4"),9} {F(m.MincerZarnowitz?.Slope, "F3"),7} {F(m.MincerZarnowitz?.WaldPValue, "F3"),7} {F(m.VersusImplied?.Qlike?.Statistic, "F2"),9} {F(m.VersusImplied?.Qlike?.PValue, "F3"),7} {F(m.McsPValue, "F3"),7}{(m.InMcs == true ? " *" : string.Empty)}\n"));
+                $"  {m.Spec,-26} {m.Losses?.Count ?? 0,6} {F(m.Losses?.Bias, "F4"),9} {F(m.Losses?.RmseVolatility, "F4"),9} {F(m.Losses?.Qlike, "F4"),9} {F(m.MincerZarnowitz?.Slope, "F3"),7} {PValueText.Value(m.MincerZarnowitz?.WaldPValue),7} {F(m.VersusImplied?.Qlike?.Statistic, "F2"),9} {PValueText.Value(m.VersusImplied?.Qlike?.PValue),7} {PValueText.Value(m.McsPValue),7}{(m.InMcs == true ? " *" : string.Empty)}\n"));
         }
 
         var mcs = r.ModelConfidenceSet;
@@ -106,7 +106,7 @@ internal static class SummaryText
             var one = cov.Levels[0];
             var two = cov.Levels[1];
             w.Write(string.Create(c,
-                $"  {cov.Spec,-26} {cov.Count,6} {cov.MissingCount,7} {F(one.ShareWithin, "0.0%"),7} {F(one.Kupiec?.PValue, "F3"),7} {F(two.ShareWithin, "0.0%"),7} {F(two.Kupiec?.PValue, "F3"),7} {F(cov.MaxAbsZ, "F2"),7}\n"));
+                $"  {cov.Spec,-26} {cov.Count,6} {cov.MissingCount,7} {F(one.ShareWithin, "0.0%"),7} {PValueText.Value(one.Kupiec?.PValue),7} {F(two.ShareWithin, "0.0%"),7} {PValueText.Value(two.Kupiec?.PValue),7} {F(cov.MaxAbsZ, "F2"),7}\n"));
             w.Write("    " + odds.Verdict + "\n");
         }
 
@@ -115,7 +115,7 @@ internal static class SummaryText
 
     private static string Dm(double? first, double? second, DieboldMarianoResult? dm) =>
         string.Create(CultureInfo.InvariantCulture,
-            $"candidate {F(first, "G6")} vs baseline {F(second, "G6")}, DM {F(dm?.Statistic, "F3")}, p = {F(dm?.PValue, "F4")}");
+            $"candidate {F(first, "G6")} vs baseline {F(second, "G6")}, DM {F(dm?.Statistic, "F3")}, {(dm?.PValue is double p ? PValueText.Clause(p) : "p -")}");
 
     private static string F(double? value, string format) =>
         value is double v && double.IsFinite(v) ? v.ToString(format, CultureInfo.InvariantCulture) : "-";

@@ -52,15 +52,18 @@ public static class BatchSummaryHtml
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
         html.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"").Append(HtmlReport.ContentSecurityPolicy).Append("\">\n");
         html.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
-        html.Append("<title>Volatility forecast batch</title>\n<style>\n").Append(Css).Append("\n</style>\n</head>\n<body>\n");
-        html.Append("<h1>Volatility forecast batch: ").Append(rows.Count.ToString(CultureInfo.InvariantCulture)).Append(" names</h1>\n");
+        var title = Title(rows.Count);
+        html.Append("<title>").Append(HtmlReport.E(title)).Append("</title>\n<style>\n").Append(Css).Append("\n</style>\n</head>\n<body>\n");
+        html.Append("<h1>").Append(HtmlReport.E(title)).Append("</h1>\n");
 
         var done = rows.Count(r => r.Succeeded);
         var failed = rows.Count - done;
         var withoutImplied = rows.Count(r => r.Succeeded && !r.HasImplied);
         html.Append("<section id=\"overview\">\n<h2>Overview</h2>\n<ul>\n");
-        Li(html, I($"{done} names backtested, {failed} failed (their error is in the table below and in summary.csv)."));
-        Li(html, I($"{withoutImplied} names had no implied file: their forecasters are ranked among themselves and they take no part in the comparison with implied."));
+        Li(html, Outcome(rows.Count, done, failed));
+        Li(html, withoutImplied == 0
+            ? (done == 0 ? "No name was backtested, so none was compared with implied." : "Every name backtested had an implied file.")
+            : I($"{Names(withoutImplied)} had no implied file: {(withoutImplied == 1 ? "its" : "their")} forecasters are ranked among themselves and take no part in the comparison with implied."));
         Li(html, "Every name was run with the same configuration; each name's own report holds its full results.");
         html.Append("</ul>\n</section>\n");
 
@@ -142,7 +145,7 @@ public static class BatchSummaryHtml
                 .Append("<td>").Append(r.Dates is int n ? I($"{n}") : "—").Append("</td>")
                 .Append("<td class=\"text\">").Append(HtmlReport.E(r.BestQlike ?? "—")).Append("</td>")
                 .Append("<td>").Append(Num(r.BestDmStatistic, "0.00")).Append("</td>")
-                .Append("<td>").Append(Num(r.BestDmPValue, "0.000")).Append("</td>")
+                .Append("<td>").Append(r.BestDmPValue is double p && double.IsFinite(p) ? HtmlReport.E(PValueText.Value(p)) : "—").Append("</td>")
                 .Append("<td>").Append(Num(r.MeanPremium * 100.0, "0.00")).Append("</td>")
                 .Append("<td class=\"text\">").Append(HtmlReport.E(string.Join(", ", r.McsMembers))).Append("</td>")
                 .Append("<td class=\"text\">").Append(HtmlReport.E(string.Join("; ", r.Lookbacks.Select(BatchSummaryCsv.Lookback)))).Append("</td></tr>\n");
@@ -155,6 +158,21 @@ public static class BatchSummaryHtml
         html.Append("<figure>\n<img src=\"data:image/png;base64,").Append(Convert.ToBase64String(chart.Png.Span))
             .Append("\" width=\"1200\" height=\"600\" alt=\"").Append(HtmlReport.E(chart.Description)).Append("\">\n<figcaption><strong>")
             .Append(HtmlReport.E(chart.Title)).Append("</strong>").Append(HtmlReport.E(chart.Description)).Append("</figcaption>\n</figure>\n");
+
+    /// <summary>The page's title: "Volatility forecast backtest across N names".</summary>
+    /// <param name="names">How many names the batch holds.</param>
+    /// <returns>The title.</returns>
+    public static string Title(int names) => "Volatility forecast backtest across " + Names(names);
+
+    private static string Outcome(int names, int done, int failed) => (names, done, failed) switch
+    {
+        (0, _, _) => "The prices folder held no name to backtest.",
+        (_, _, 0) => names == 1 ? "The one name was backtested." : I($"All {names} names were backtested."),
+        (_, 0, _) => I($"No name could be backtested: {(failed == 1 ? "it" : I($"all {failed}"))} failed (the error is in the table below and in summary.csv)."),
+        _ => I($"{Names(done)} backtested, {failed} failed (the {(failed == 1 ? "error is" : "errors are")} in the table below and in summary.csv)."),
+    };
+
+    private static string Names(int count) => count == 1 ? "1 name" : I($"{count} names");
 
     private static void Li(StringBuilder html, string text) => html.Append("<li>").Append(HtmlReport.E(text)).Append("</li>\n");
 

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Net;
 using System.Text;
+using VolCast.Core.Scoring;
 using VolCast.Reports.Model;
 
 namespace VolCast.Reports.Html;
@@ -79,7 +80,9 @@ internal static class HtmlReport
     /// <summary>Formats a cell: the value with its format in the invariant culture, a dash when null, stars for significance.</summary>
     internal static string Cell(MetricCell cell)
     {
-        var text = cell.Value is double v ? v.ToString(cell.Format, CultureInfo.InvariantCulture) : "—";
+        var text = cell.Value is not double v ? "—"
+            : cell.Format == MetricCell.PValue ? PValueText.Value(v)
+            : v.ToString(cell.Format, CultureInfo.InvariantCulture);
         var stars = cell.Significance switch
         {
             Significance.OnePercent => "***",
