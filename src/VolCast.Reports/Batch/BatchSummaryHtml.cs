@@ -25,7 +25,7 @@ public static class BatchSummaryHtml
         h2{font-size:1.3em;border-bottom:2px solid #0072B2;padding-bottom:4px;margin-top:1.6em}
         table{border-collapse:collapse;margin:.4em 0 .8em;font-size:.95em}
         th,td{border:1px solid #bbb;padding:4px 10px;text-align:right;vertical-align:top}
-        th:first-child,td:first-child{text-align:left}
+        th:first-child,td:first-child{text-align:left;white-space:nowrap}
         td.text,th.text{text-align:left}
         thead th{background:#f0f0f0}
         tr.failed td{background:#fdf0e8}
