@@ -77,26 +77,26 @@ internal static class ReportVerdict
 
     private static string Headline(BacktestResult result, ForecasterMetrics leader)
     {
+        var first = $"{leader.Spec} ranks first on QLIKE among the forecasters";
         if (!result.HasImplied)
         {
             return string.Create(C,
-                $"No implied series was given, so the forecasters are ranked among themselves: {leader.Spec} scores the lowest QLIKE ({leader.Losses!.Qlike:0.0000} on {leader.Losses.Count} dates).");
+                $"{first} ({leader.Losses!.Qlike:0.0000} on {leader.Losses.Count} dates); no implied series was given, so the forecasters are ranked among themselves.");
         }
 
         if (leader.VersusImplied is not { FirstLosses: LossSummary own, SecondLosses: LossSummary implied } pair
             || pair.Qlike is not { Statistic: double t, PValue: double p })
         {
-            return $"The best forecaster, {leader.Spec}, could not be compared with implied: too few dates with both.";
+            return first + "; its comparison with implied could not be computed (too few dates with both).";
         }
 
         var test = string.Create(C, $"DM {t:0.00}, {PValueText.Clause(p)}");
-        var significance = p < 0.05 ? "significant" : "not significant";
-        var numbers = string.Create(C, $"on the {pair.Count} dates both have");
+        var significance = p < 0.05 ? "significant at 5%" : "not significant at 5%";
         return implied.Qlike <= own.Qlike
             ? string.Create(C,
-                $"Implied volatility scores {Lower(implied.Qlike, own.Qlike)} than the best forecaster, {leader.Spec}, {numbers} (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} at 5% ({test}).")
+                $"{first}, but implied volatility scores {Lower(implied.Qlike, own.Qlike)} on the {pair.Count} dates both have (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} ({test}).")
             : string.Create(C,
-                $"The best forecaster, {leader.Spec}, scores {Lower(own.Qlike, implied.Qlike)} than implied volatility {numbers} (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} at 5% ({test}).");
+                $"{first} and scores {Lower(own.Qlike, implied.Qlike)} than implied volatility on the {pair.Count} dates both have (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} ({test}).");
     }
 
     private static string HeadToHead(BacktestResult result)

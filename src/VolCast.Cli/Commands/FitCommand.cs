@@ -28,7 +28,7 @@ internal static class FitCommand
         var zeroMean = new Option<bool>("--zero-mean") { Description = "Fix the mean daily return at zero instead of estimating it." };
         var annualization = new Option<double>("--annualization")
         {
-            Description = $"Trading days per year for the long-run annualized volatility, {SettingLimits.AnnualizationFactor} (default 252).",
+            Description = $"Trading days per year for the long-run annualized volatility, {SettingLimits.AnnualizationFactor}.",
             DefaultValueFactory = _ => 252.0,
         };
         var output = new Option<string?>("--out") { Description = "Output JSON file (default fit-<model>.json in the current folder)." };

@@ -29,12 +29,12 @@ internal static class ImpliedCommand
         };
         var dividendYield = new Option<double>("--dividend-yield")
         {
-            Description = "Continuous dividend yield as a decimal for rows without one (default 0).",
+            Description = "Continuous dividend yield as a decimal for rows without one.",
             DefaultValueFactory = _ => 0.0,
         };
         var extrapolation = new Option<string>("--extrapolation")
         {
-            Description = "When the tenor lies outside a date's quoted expiries: 'refuse' leaves the date out and reports it (default); 'flat' uses the nearest expiry's volatility and flags it.",
+            Description = "When the tenor lies outside a date's quoted expiries: 'refuse' leaves the date out and reports it; 'flat' uses the nearest expiry's volatility and flags it.",
             DefaultValueFactory = _ => "refuse",
         };
         extrapolation.AcceptOnlyFromAmong("refuse", "flat");

@@ -101,6 +101,13 @@ public static class BatchSummaryHtml
         html.Append("<p class=\"note\">").Append(HtmlReport.E(I(
             $"Diebold-Mariano test on QLIKE against implied, one per name (two-sided, Newey-West variance). Testing many names at once makes some wins appear by chance, so the p-values of each forecaster are corrected across names with the Benjamini-Hochberg procedure, which keeps the expected share of false wins among the wins (the false discovery rate) at {VersusImpliedFdr.DefaultLevel:0%}. A win is a negative statistic (the forecaster's loss is lower) with an adjusted p-value of at most {VersusImpliedFdr.DefaultLevel:0.00}.")))
             .Append("</p>\n");
+        if (table.Count == 0)
+        {
+            html.Append("<p class=\"note\">No name had both an implied file and a usable test, so nothing could be compared with implied.</p>\n");
+            html.Append("</section>\n");
+            return;
+        }
+
         html.Append("<table>\n<thead><tr><th>Forecaster</th><th>Names tested</th><th>Beats implied, uncorrected p ≤ 0.05</th><th>Beats implied, BH-adjusted (FDR 5%)</th><th>Share of names, BH-adjusted</th><th>Implied better, BH-adjusted</th></tr></thead>\n<tbody>\n");
         foreach (var r in table)
         {
@@ -109,13 +116,7 @@ public static class BatchSummaryHtml
                 .Append("</td><td>").Append(I($"{r.LosesAfterFdr}")).Append("</td></tr>\n");
         }
 
-        html.Append("</tbody>\n</table>\n");
-        if (table.Count == 0)
-        {
-            html.Append("<p class=\"note\">No name had both an implied file and a usable test, so nothing could be compared with implied.</p>\n");
-        }
-
-        html.Append("</section>\n");
+        html.Append("</tbody>\n</table>\n</section>\n");
     }
 
     private static void AssetsSection(StringBuilder html, IReadOnlyList<BatchAssetRow> rows, string reportFileName)
