@@ -27,6 +27,10 @@ internal static class Program
         root.Subcommands.Add(FitCommand.Create(console));
         root.Subcommands.Add(ImpliedCommand.Create(console));
         root.Subcommands.Add(DemoCommand.Create(console));
+        foreach (var option in root.Options.OfType<VersionOption>())
+        {
+            option.Action = new ToolVersionAction();
+        }
 
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)
