@@ -17,8 +17,10 @@ public sealed partial class WordsAndHelpTests : IDisposable
     [Fact]
     public void Scan_IsAnUnknownCommand_AndBatchHelpWorks()
     {
-        var scan = CliRunner.Run("scan", "--help");
+        // The many-names command was renamed from scan to batch with no alias kept.
+        var scan = CliRunner.Run("scan", "--prices", "p");
         Assert.Equal(2, scan.ExitCode);
+        Assert.Contains("Unrecognized command or argument 'scan'", scan.Stderr, StringComparison.Ordinal);
 
         var batch = CliRunner.Run("batch", "--help");
         Assert.Equal(0, batch.ExitCode);
