@@ -99,7 +99,7 @@ internal static class ReportTables
 
         var alpha = result.ModelConfidenceSet.Result?.Options.Alpha ?? result.Settings.McsAlpha;
         var note = string.Create(CultureInfo.InvariantCulture,
-            $"Each forecaster on its own scored dates (the count is in the first column). DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better; stars = better or worse than implied. MZ slope b of RV² = a + b F²; its Wald p tests unbiasedness (a = 0, b = 1), a low p rejects it. Encompassing c: weight on the forecast in RV² = a + b IV² + c F²; a low p says the forecast adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). All tests use Newey-West errors with lag {result.HacLag} (the nominal horizon in trading days).");
+            $"Each forecaster on its own scored dates (the count is in the first column). DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better; stars = better or worse than implied. MZ slope b of RV² = a + b F²; its Wald p tests unbiasedness (a = 0, b = 1), a low p rejects it. Encompassing c: weight on the forecast in RV² = a + b IV² + c F²; a low p says the forecast adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). The regressions use Newey-West errors with lag {result.HacLag} (the nominal horizon in trading days); Diebold-Mariano uses the rectangular long-run variance (autocovariances to lag {result.HacLag}, equal weights, Harvey-Leybourne-Newbold correction), Bartlett weights where that is not positive.");
         if (result.Metrics.Any(m => LeavesOutOvernight(m.Spec)))
         {
             note += " " + OvernightNote;

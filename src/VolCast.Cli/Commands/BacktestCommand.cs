@@ -29,9 +29,10 @@ internal static class BacktestCommand
         var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
         suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
+        var workbook = new Option<bool>("--workbook") { Description = BacktestOptions.WorkbookHelp };
         var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
-            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows,
+            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows, workbook,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -49,7 +50,8 @@ internal static class BacktestCommand
             parse,
             formatOptions,
             parse.GetValue(suspect),
-            parse.GetValue(skipBadRows)))));
+            parse.GetValue(skipBadRows),
+            parse.GetValue(workbook)))));
         return command;
     }
 
@@ -65,6 +67,7 @@ internal static class BacktestCommand
             Format = a.FormatOptions.Resolve(a.Parse, configFormat),
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
             Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
+            Workbook = BacktestOptions.Workbook(a.Config, a.Workbook),
         };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestRun run;
@@ -111,5 +114,5 @@ internal static class BacktestCommand
 
     private sealed record Arguments(
         string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force,
-        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows);
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, bool Workbook);
 }

@@ -366,6 +366,18 @@ public static class BacktestConfigFile
         text[0] is '{' or '[' or '/' or '"' or '-' or (>= '0' and <= '9')
         || text.StartsWith("true", StringComparison.Ordinal) || text.StartsWith("false", StringComparison.Ordinal) || text.StartsWith("null", StringComparison.Ordinal);
 
+    /// <summary>Reads the configuration's <c>workbook</c> key (true: write results.xlsx); false when it is missing.</summary>
+    /// <param name="path">The configuration file.</param>
+    /// <returns>Whether the workbook is asked for.</returns>
+    /// <exception cref="InputDataException">The file cannot be read or is not a valid configuration.</exception>
+    public static bool ReadWorkbook(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        var json = Reading.InputText.Decode(InputFiles.ReadCapped(path, "a JSON configuration file", InputFiles.MaxConfigBytes), path);
+        Parse(json, path);
+        return JsonSerializer.Deserialize<BacktestConfigDocument>(json, Options)!.Workbook ?? false;
+    }
+
     private static InputDataException Bad(string file, string property, FormattableString problem) =>
         InputDataException.Setting(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");
 
