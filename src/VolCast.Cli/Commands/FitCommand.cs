@@ -33,7 +33,7 @@ internal static class FitCommand
         };
         var start = new Option<string>("--variance-start")
         {
-            Description = "How the variance recursion starts: backcast (default: the day before the first return gets the mean squared residual as both its variance and its squared return, the start of the Fiorentini-Calzolari-Panattoni GARCH benchmark and of R's fGarch) or sample-variance (the first day's variance is the mean squared residual, the start used before).",
+            Description = "How the variance recursion starts: backcast (the day before the first return gets the mean squared residual as both its variance and its squared return, the start of the Fiorentini-Calzolari-Panattoni GARCH benchmark and of R's fGarch) or sample-variance (the first day's variance is the mean squared residual, the start used before).",
             DefaultValueFactory = _ => "backcast",
         };
         start.AcceptOnlyFromAmong("backcast", "sample-variance");
