@@ -66,7 +66,7 @@ internal static class BacktestPipeline
         stage?.Invoke(BacktestStage.Forecast);
         var result = Forecast(job, prices, implied, userForecasts, progress, cancellationToken);
 
-        // Do the odds hold? N(d2) probabilities at the default strikes and the expected-move ranges, on the same dates and prices.
+        // Do the odds hold? N(d2) probabilities at the default strikes and the forecast move bands, on the same dates and prices.
         stage?.Invoke(BacktestStage.Calibrate);
         progress?.Report(new BacktestProgress("checking the odds", 0, 1));
         var calibration = BacktestCalibrator.Evaluate(result, prices.History, cancellationToken: cancellationToken);

@@ -19,13 +19,14 @@ internal static class Program
         var console = new CliConsole(stdout, stderr);
         var root = new RootCommand(
             "VolCast: backtest volatility forecasts against the realized volatility that followed and the implied volatility quoted at the time.");
-        root.Subcommands.Add(DemoCommand.Create(console));
-        root.Subcommands.Add(EstimateCommand.Create(console));
-        root.Subcommands.Add(ImpliedCommand.Create(console));
-        root.Subcommands.Add(FitCommand.Create(console));
-        root.Subcommands.Add(ConeCommand.Create(console));
+        // The main job first, then the tools it is built from, then the demo.
         root.Subcommands.Add(BacktestCommand.Create(console));
         root.Subcommands.Add(BatchCommand.Create(console));
+        root.Subcommands.Add(ConeCommand.Create(console));
+        root.Subcommands.Add(EstimateCommand.Create(console));
+        root.Subcommands.Add(FitCommand.Create(console));
+        root.Subcommands.Add(ImpliedCommand.Create(console));
+        root.Subcommands.Add(DemoCommand.Create(console));
         foreach (var option in root.Options.OfType<VersionOption>())
         {
             option.Action = new ToolVersionAction();

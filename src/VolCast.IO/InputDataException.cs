@@ -7,7 +7,7 @@ namespace VolCast.IO;
 /// Bad user data: names the file, and where they apply the line and column, and says what was expected.
 /// The command line maps it to exit code 3.
 /// </summary>
-public sealed class InputDataException : Exception
+public sealed partial class InputDataException : Exception
 {
     /// <summary>Creates an input-data error.</summary>
     /// <param name="file">The file the data came from, as the user gave it.</param>
@@ -15,13 +15,22 @@ public sealed class InputDataException : Exception
     /// <param name="column">The column name, or null when the error concerns a whole row or file.</param>
     /// <param name="problem">What was wrong and what was expected, as a sentence.</param>
     public InputDataException(string file, int? line, string? column, string problem)
-        : base(Format(file, line, column, problem))
+        : this(file, line, column, problem, setting: false)
+    {
+    }
+
+    private InputDataException(string file, int? line, string? name, string problem, bool setting)
+        : base(Format(file, line, name, Plain(problem), setting))
     {
         File = file;
         Line = line;
-        Column = column;
-        Problem = problem;
+        Column = name;
+        Problem = Plain(problem);
+        IsSetting = setting;
     }
+
+    /// <summary>Gets a value indicating whether <see cref="Column"/> names a setting of a configuration file rather than a column of a table.</summary>
+    public bool IsSetting { get; }
 
     /// <summary>Gets the file the data came from.</summary>
     public string File { get; }
@@ -35,7 +44,21 @@ public sealed class InputDataException : Exception
     /// <summary>Gets what was wrong and what was expected.</summary>
     public string Problem { get; }
 
-    private static string Format(string file, int? line, string? column, string problem)
+    /// <summary>Creates the error of a configuration file: it names the setting ("setting 'forecasters'"), not a column.</summary>
+    /// <param name="file">The configuration file, as the user gave it.</param>
+    /// <param name="line">The 1-based line number, or null when not known.</param>
+    /// <param name="setting">The setting's name as written in the file (for example <c>forecasters</c> or <c>mcs.alpha</c>), or null for the whole file.</param>
+    /// <param name="problem">What was wrong and what was expected, as a sentence.</param>
+    /// <returns>The exception.</returns>
+    public static InputDataException Setting(string file, int? line, string? setting, string problem) => new(file, line, setting, problem, setting: true);
+
+    /// <summary>Drops the parameter name .NET appends to argument errors ("(Parameter 'spec')"): users never see it.</summary>
+    private static string Plain(string problem) => ParameterSuffix().Replace(problem, string.Empty);
+
+    [System.Text.RegularExpressions.GeneratedRegex(@"\s*\(Parameter '[^']*'\)", System.Text.RegularExpressions.RegexOptions.CultureInvariant)]
+    private static partial System.Text.RegularExpressions.Regex ParameterSuffix();
+
+    private static string Format(string file, int? line, string? column, string problem, bool setting)
     {
         var sb = new StringBuilder(file);
         if (line is int l)
@@ -46,7 +69,7 @@ public sealed class InputDataException : Exception
         if (column is not null)
         {
             // A column is named by its header text, which can be anything: shown cut to 40 characters.
-            sb.Append(", column ").Append(Reading.ValueText.Quote(column));
+            sb.Append(setting ? ", setting " : ", column ").Append(Reading.ValueText.Quote(column));
         }
 
         return sb.Append(": ").Append(problem).ToString();

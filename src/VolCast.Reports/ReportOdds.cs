@@ -43,11 +43,11 @@ internal static class ReportOdds
             [
                 new MetricCell(one.NonOverlappingCount, "0"),
                 new MetricCell(one.ShareWithin, "0.0%"),
-                new MetricCell(one.Kupiec?.PValue, "0.000"),
-                new MetricCell(one.ConditionalCoverage?.PValue, "0.000"),
+                new MetricCell(one.Kupiec?.PValue, MetricCell.PValue),
+                new MetricCell(one.ConditionalCoverage?.PValue, MetricCell.PValue),
                 new MetricCell(two.ShareWithin, "0.0%"),
-                new MetricCell(two.Kupiec?.PValue, "0.000"),
-                new MetricCell(two.ConditionalCoverage?.PValue, "0.000"),
+                new MetricCell(two.Kupiec?.PValue, MetricCell.PValue),
+                new MetricCell(two.ConditionalCoverage?.PValue, MetricCell.PValue),
                 new MetricCell(cov.MaxAbsZ, "0.00"),
                 new MetricCell(cov.ShareAboveThree, "0.00%"),
                 new MetricCell(cov.MissingCount, "0"),
@@ -56,7 +56,7 @@ internal static class ReportOdds
 
         var horizon = calibration.Forecasters.Length > 0 ? calibration.Forecasters[0].Coverage.HorizonDays : result.Settings.Horizon.NominalDays;
         var table = new MetricTable(
-            "Coverage of expected-move ranges",
+            "Coverage of the forecast move bands (±1σ, ±2σ)",
             [
                 new MetricColumn("Non-overlapping dates", "count, for the tests"),
                 new MetricColumn("|z| ≤ 1", "share; 68.3% if calibrated"),
@@ -71,12 +71,12 @@ internal static class ReportOdds
             ],
             rows,
             string.Create(c,
-                $"z = ln(S(t+h)/S(t)) / (σ √(h/A)), the move over the horizon in units of the forecaster's own range. Shares use every date; the Kupiec (proportion of failures) and Christoffersen (conditional coverage: right share and no clustering) tests use only non-overlapping dates (each one horizon, {horizon} trading days, after the last), so that the windows do not overlap; low p-values reject calibrated ranges. A dash means fewer than {needed} non-overlapping dates had a value, too few for the tests. A forecaster missing on some dates keeps its row; the count is in the last column."));
+                $"z = ln(S(t+h)/S(t)) / (σ √(h/A)), the move over the horizon in units of the forecaster's own range. Shares use every date; the Kupiec (proportion of failures) and Christoffersen (conditional coverage: right share and no clustering) tests use only non-overlapping dates (each one longest window, {horizon} trading days, after the last), so that the windows do not overlap; low p-values reject calibrated ranges. A dash means fewer than {needed} non-overlapping dates had a value, too few for the tests. A forecaster missing on some dates keeps its row; the count is in the last column."));
 
         var verdicts = shown.Select(i => Capitalize(calibration.Forecasters[i].Verdict) + ".").ToList();
         var notes = new List<string>
         {
-            string.Create(c, $"Probabilities are N(d2), the lognormal chance that the close {horizon} trading days later ends above each strike (0.90 to 1.10 times the close), from the forecaster's volatility with no rate or dividend (r = q = 0): a risk-neutral-style probability with drift −σ²/2 in the log price, not a forecast of the drift."),
+            string.Create(c, $"Probabilities are N(d2), the lognormal chance that the close at the end of each date's own window ({ReportWriter.HorizonStatement(result)}) ends above each strike (0.90 to 1.10 times the close), from the forecaster's volatility with no rate or dividend (r = q = 0): a risk-neutral-style probability with drift −σ²/2 in the log price, not a forecast of the drift."),
             "The reliability diagram pools the strikes (at the money alone, every probability is near 50% and the diagram would show one point); each forecaster's Brier score, its decomposition and the log score per strike are in calibration.csv and metrics.json.",
             "Verdicts are shown for implied, the leading forecasters, the baseline and the candidate; every forecaster's verdict is in coverage.csv. Regimes are thirds of the realized volatility that followed, known only in hindsight.",
         };

@@ -1,5 +1,6 @@
 using System.Globalization;
 using VolCast.Core.Backtest;
+using VolCast.Core.Scoring;
 using VolCast.Core.Trading;
 using VolCast.Core.Trading.Snooping;
 using VolCast.Reports.Charts;
@@ -64,7 +65,7 @@ internal static class ReportPnl
         var best = Label(close, report.Means, report.Means.BestRule);
         var survives = report.Means.Spa.Consistent < 0.05 ? "survives" : "does not survive";
         return string.Create(C,
-            $"Switching from the current rule to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:0.00} vol points; the best rule's edge over always-sell ({best}) {survives} the data-snooping test (SPA p = {P(report.Means.Spa.Consistent)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
+            $"Switching from the current rule to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:0.00} vol points; the best rule's edge over always-sell ({best}) {survives} the data-snooping test (SPA {PValueText.Clause(report.Means.Spa.Consistent)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
     }
 
     internal static string BreakEvenWords(BreakEvenSpread breakEven, double configured)
@@ -115,7 +116,7 @@ internal static class ReportPnl
             ? "StepM names no rule that beats always-sell"
             : "StepM names " + Winners(close, test) + " as beating always-sell";
         return string.Create(C,
-            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {Label(close, test, test.BestRule)}, is {Signed(test.Estimates[test.BestRule] * annualize)} {unit} ahead of always-sell; Reality Check p = {P(test.RealityCheckPValue)}, SPA p = {P(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
+            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {Label(close, test, test.BestRule)}, is {Signed(test.Estimates[test.BestRule] * annualize)} {unit} ahead of always-sell; Reality Check {PValueText.Clause(test.RealityCheckPValue)}, SPA {PValueText.Clause(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
     }
 
     private static TextTable Rules(RuleBacktestResult close)
@@ -372,11 +373,11 @@ internal static class ReportPnl
         string.Join(", ", test.StepM.Rejected.Select(i => Label(close, test, i)));
 
     private static string Test(NeweyWestMeanTest test) =>
-        test is { TStatistic: double t, PValue: double p } ? string.Create(C, $"t = {t:0.00}, p = {P(p)}") : "no test: too few days or no variation";
+        test is { TStatistic: double t, PValue: double p } ? string.Create(C, $"t = {t:0.00}, {PValueText.Clause(p)}") : "no test: too few days or no variation";
 
     private static string F(double? value, string format) => value is double v ? v.ToString(format, C) : "—";
 
-    private static string P(double p) => ReportVerdict.P(p);
+    private static string P(double p) => PValueText.Value(p);
 
     private static string Signed(double value) => (value >= 0 ? "+" : "−") + Math.Abs(value).ToString("0.00", C);
 }

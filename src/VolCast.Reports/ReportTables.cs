@@ -26,7 +26,7 @@ internal static class ReportTables
 
         if (result.RuleTest is RuleTestResult rule)
         {
-            tables.Add(Rule(rule));
+            tables.Add(Rule(rule, result.HacLag));
         }
 
         return tables;
@@ -88,23 +88,25 @@ internal static class ReportTables
                 new MetricCell(V("rmse_vol") * 100, "0.00"),
                 new MetricCell(V("bias") * 100, "0.00"),
                 new MetricCell(V("dm_qlike_stat"), "0.00", Stars(V("dm_qlike_p"))),
-                new MetricCell(V("mz_b"), "0.000", Stars(V("mz_wald_p"))),
+                new MetricCell(V("mz_b"), "0.000"),
+                new MetricCell(V("mz_wald_p"), MetricCell.PValue),
                 new MetricCell(V("mz_r2"), "0.000"),
-                new MetricCell(V("enc_forecast_c"), "0.000", Stars(V("enc_forecast_c_p"))),
-                new MetricCell(V("mcs_p"), "0.000"),
+                new MetricCell(V("enc_forecast_c"), "0.000"),
+                new MetricCell(V("enc_forecast_c_p"), MetricCell.PValue),
+                new MetricCell(V("mcs_p"), MetricCell.PValue),
             ]));
         }
 
         var alpha = result.ModelConfidenceSet.Result?.Options.Alpha ?? result.Settings.McsAlpha;
         var note = string.Create(CultureInfo.InvariantCulture,
-            $"Each forecaster on its own scored dates. DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better, stars = differs from implied. MZ slope b of RV² = a + b F², stars = unbiasedness (a = 0, b = 1) rejected by the Wald test. Encompassing c: weight on the forecast in RV² = a + b IV² + c F², stars = it adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). The regressions use Newey-West errors with lag {result.HacLag}; Diebold-Mariano uses the rectangular long-run variance (autocovariances to lag {result.HacLag}, equal weights, Harvey-Leybourne-Newbold correction), Bartlett weights where that is not positive.");
+            $"Each forecaster on its own scored dates (the count is in the first column). DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better; stars = better or worse than implied. MZ slope b of RV² = a + b F²; its Wald p tests unbiasedness (a = 0, b = 1), a low p rejects it. Encompassing c: weight on the forecast in RV² = a + b IV² + c F²; a low p says the forecast adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). The regressions use Newey-West errors with lag {result.HacLag} (the nominal horizon in trading days); Diebold-Mariano uses the rectangular long-run variance (autocovariances to lag {result.HacLag}, equal weights, Harvey-Leybourne-Newbold correction), Bartlett weights where that is not positive.");
         if (result.Metrics.Any(m => LeavesOutOvernight(m.Spec)))
         {
             note += " " + OvernightNote;
         }
 
         return new MetricTable("Forecast losses, ranked on QLIKE",
-            [Dates, Qlike, Mse, Rmse, Bias, new("DM vs implied", "t-statistic"), new("MZ slope b", "1 = unbiased"), new("MZ R²", "0 to 1"), new("Encompassing c", "weight on forecast"), new("MCS p", "probability")],
+            [Dates, Qlike, Mse, Rmse, Bias, new("DM vs implied", "t-statistic"), new("MZ slope b", "1 = unbiased"), new("MZ Wald p", "a = 0, b = 1"), new("MZ R²", "0 to 1"), new("Encompassing c", "weight on forecast"), new("Encompassing p", "c = 0"), new("MCS p", "probability")],
             rows, note);
     }
 
@@ -129,59 +131,66 @@ internal static class ReportTables
             var best = result.Sweep.FirstOrDefault(s => s.Family == adaptive.Family && s.IsBestInSample);
             var metrics = result.Metrics.FirstOrDefault(m => m.Spec == adaptive.Spec);
             var counts = new Dictionary<string, int>(StringComparer.Ordinal);
+            string? last = null;
             foreach (var choice in adaptive.Choices)
             {
                 if (choice is not null)
                 {
                     counts[choice] = counts.GetValueOrDefault(choice) + 1;
+                    last = choice;
                 }
             }
 
-            (string? Key, int Value) top = counts.Count == 0 ? (null, 0) : counts.OrderByDescending(p => p.Value).Select(p => ((string?)p.Key, p.Value)).First();
+            (string? Key, int Value) top = counts.Count == 0 ? (null, 0) : counts.OrderByDescending(p => p.Value).ThenBy(p => adaptive.Candidates.IndexOf(p.Key)).Select(p => ((string?)p.Key, p.Value)).First();
             rows.Add(new MetricRow(adaptive.Spec,
             [
                 new MetricCell(Parameter(best?.Spec), "0.##"),
                 new MetricCell(best?.Qlike, "0.0000"),
                 new MetricCell(Parameter(top.Key), "0.##"),
                 new MetricCell(adaptive.DatesWithChoice == 0 ? null : top.Value * 100.0 / adaptive.DatesWithChoice, "0"),
+                new MetricCell(Parameter(last), "0.##"),
+                new MetricCell(adaptive.DatesWithChoice, "0"),
                 new MetricCell(adaptive.ChangeCount, "0"),
                 new MetricCell(metrics?.Losses?.Qlike, "0.0000"),
             ]));
         }
 
         return new MetricTable("Lookback: in-sample best against the out-of-sample adaptive choice",
-            [new("Best in sample", "days, or EWMA decay"), new("Its QLIKE", "in-sample, hindsight"), new("Chosen most often", "days, or EWMA decay"), new("Share of dates", "%"), new("Changes", "count"), new("Adaptive QLIKE", "out of sample")],
+            [new("Best in sample", "days, or EWMA decay"), new("Its QLIKE", "in-sample, hindsight"), new("Chosen most often", "days, or EWMA decay"), new("Share of dates", "%"), new("Chosen at the end", "days, or EWMA decay"), new("Dates with a choice", "count"), new("Changes", "count"), new("Adaptive QLIKE", "out of sample")],
             rows,
             string.Create(CultureInfo.InvariantCulture,
                 $"The in-sample best is picked with hindsight over the whole sample (look-ahead, for reference only); the adaptive forecaster picks, each date, the lookback with the lowest QLIKE over the previous {result.Settings.SelectionWindowDays} trading days whose targets were known."));
     }
 
-    private static MetricTable Rule(RuleTestResult rule)
+    private static MetricTable Rule(RuleTestResult rule, int lag)
     {
         var rows = new List<MetricRow>();
         foreach (var row in rule.Rows)
         {
+            var against = row.Signal == RuleSignal.AllDates ? null : SignalledAgainstAll.Compute(rule, row.Source != rule.ForecastSpec, row.Signal, lag);
             var signal = row.Signal switch
             {
                 RuleSignal.SellVolatility => "sell signals",
                 RuleSignal.BuyVolatility => "buy signals",
                 _ => "all dates",
             };
-            var t = row.MeanVolatilityGap is double g && row.MeanVolatilityGapStandardError is double se && se > 0 ? g / se : (double?)null;
             rows.Add(new MetricRow($"{row.Source}: {signal}",
             [
                 new MetricCell(row.Count, "0"),
                 new MetricCell(row.HitRate * 100, "0.0"),
-                new MetricCell(row.MeanVolatilityGap * 100, "0.00", t is double tv ? Stars(TwoSidedNormalP(tv)) : Significance.None),
+                new MetricCell(row.MeanVolatilityGap * 100, "0.00"),
                 new MetricCell(row.MeanVolatilityGapStandardError * 100, "0.00"),
+                new MetricCell(against?.Difference * 100, "0.00"),
+                new MetricCell(against?.PValue, MetricCell.PValue),
             ]));
         }
 
         return new MetricTable(
             string.Create(CultureInfo.InvariantCulture, $"Rule test: sell volatility when implied exceeds the forecast by more than {rule.ThresholdVolatility * 100:0.0} points (buy for the mirror)"),
-            [Dates, new("Hit rate", "% of dates the side was right"), new("Mean IV − RV", "vol points"), new("Standard error", "vol points, HAC")],
+            [Dates, new("Hit rate", "% of dates the side was right"), new("Mean IV − RV", "vol points"), new("Standard error", "vol points, HAC"), new("Signalled − all dates", "vol points"), new("p", "signalled against all dates")],
             rows,
-            RuleTestResult.Caution + " Stars: mean IV − RV differs from zero (normal approximation to the HAC t-statistic).");
+            string.Create(CultureInfo.InvariantCulture,
+                $"{RuleTestResult.Caution} The test is the question the rule asks: was implied − realized different on the signalled dates from all dates? p is the Newey-West t-test (lag {lag}, the nominal horizon in trading days) of b in IV − RV = a + b·signalled over all dates."));
     }
 
     private static double? Parameter(string? spec)
@@ -205,8 +214,6 @@ internal static class ReportTables
     ]);
 
     private static string Stat(DieboldMarianoResult? dm) => dm is { Statistic: double t, PValue: double p }
-        ? string.Create(CultureInfo.InvariantCulture, $"{t:0.00}, p = {p:0.0000}")
+        ? string.Create(CultureInfo.InvariantCulture, $"{t:0.00}, {PValueText.Clause(p)}")
         : "not computable";
-
-    private static double TwoSidedNormalP(double z) => 2 * MathNet.Numerics.Distributions.Normal.CDF(0, 1, -Math.Abs(z));
 }

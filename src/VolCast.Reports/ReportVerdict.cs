@@ -15,108 +15,119 @@ internal static class ReportVerdict
 {
     private static readonly CultureInfo C = CultureInfo.InvariantCulture;
 
-    /// <summary>Builds the verdict; with the rule's option P&amp;L, its one answer leads and the forecast headline follows as the first point.</summary>
+    /// <summary>Builds the verdict; with the rule's option P&amp;L, its answer closes the rule's point.</summary>
     public static Verdict Build(BacktestResult result, RulePnlReport? pnl)
     {
         var verdict = Build(result);
-        return pnl is null ? verdict : new Verdict(ReportPnl.Headline(pnl), [verdict.Headline, .. verdict.Points]);
-    }
-
-    /// <summary>Builds the verdict.</summary>
-    public static Verdict Build(BacktestResult result)
-    {
-        var ranked = ReportSeries.Ranked(result);
-        var points = new List<string> { HeadToHead(result) };
-        string headline;
-        if (ranked.Count == 0)
+        if (pnl is null)
         {
-            headline = "No forecaster could be scored: no date had both a forecast and a positive realized target.";
+            return verdict;
+        }
+
+        var points = verdict.Points.ToList();
+        var rule = points.FindIndex(p => p.StartsWith(RulePrefix, StringComparison.Ordinal));
+        var answer = "In option trades after costs: " + ReportPnl.Headline(pnl);
+        if (rule < 0)
+        {
+            points.Add(answer);
         }
         else
         {
-            var leader = ranked[0];
-            headline = Headline(result, leader);
-            if (leader.VersusImplied is { FirstLosses: not null, SecondLosses: not null } pair)
-            {
-                points.Add(Margin(pair));
-            }
-
-            var impliedRow = result.Metrics.FirstOrDefault(m => m.Kind == ForecastKind.Implied);
-            if (impliedRow?.Losses is LossSummary implied && implied.Qlike < leader.Losses!.Qlike)
-            {
-                points.Add(string.Create(C,
-                    $"Implied volatility itself scores a lower QLIKE ({implied.Qlike:0.0000} over {implied.Count} dates) than every forecaster."));
-            }
+            points[rule] += " " + answer;
         }
 
-        points.Add(Mcs(result.ModelConfidenceSet));
-        foreach (var adaptive in result.Adaptive)
-        {
-            points.Add(Adaptive(adaptive));
-        }
+        return new Verdict(verdict.Headline, points);
+    }
 
+    /// <summary>
+    /// Builds the verdict: the answer about implied, then, in this order, the head-to-head of candidate against baseline
+    /// (the winner named on each loss), the model confidence set, the premium and the rule. The adaptive lookback choices
+    /// are in the lookback table, not here.
+    /// </summary>
+    public static Verdict Build(BacktestResult result)
+    {
+        var ranked = ReportSeries.Ranked(result);
+        var headline = ranked.Count == 0
+            ? "No forecaster could be scored: no date had both a forecast and a positive realized target."
+            : Headline(result, ranked[0]);
+        var points = new List<string> { HeadToHead(result), Mcs(result.ModelConfidenceSet) };
         if (result.HasImplied && ReportSeries.Premium(result).Values is { Count: > 0 } premium)
         {
             points.Add(string.Create(C,
-                $"Implied was above the realized volatility that followed by {premium.Average() * 100:0.0} vol points on average ({premium.Count(v => v > 0) * 100.0 / premium.Count:0}% of {premium.Count} dates)."));
+                $"Implied was above the realized volatility that followed by {premium.Average() * 100:0.00} vol points on average, on {premium.Count(v => v > 0) * 100.0 / premium.Count:0}% of the {premium.Count} dates with both (implied's bias in the loss table, on the same dates)."));
         }
 
         if (result.RuleTest is RuleTestResult rule)
         {
-            points.Add(Rule(rule));
+            points.Add(Rule(rule, result.HacLag));
         }
 
         return new Verdict(headline, points);
     }
 
-    private static string Headline(BacktestResult result, ForecasterMetrics leader)
+    private const string RulePrefix = "Rule test";
+
+    /// <summary>How much lower one loss is than another, in words that grow with the relative gap (common practice, no source: under 3% "slightly", 3% to 10% plain, above 10% "much").</summary>
+    internal static string Lower(double lower, double higher)
     {
-        var first = string.Create(C, $"{leader.Spec} ranks first on QLIKE among the forecasters ({leader.Losses!.Qlike:0.0000})");
-        if (!result.HasImplied)
-        {
-            return first + "; no implied series was given, so the forecasters are ranked among themselves.";
-        }
-
-        if (leader.VersusImplied?.Qlike is not { Statistic: double t, PValue: double p } dm)
-        {
-            return first + "; its comparison with implied could not be computed.";
-        }
-
-        var test = string.Create(C, $"Diebold-Mariano {t:0.00}, p = {P(p)}");
-        return dm.MeanDifferential < 0
-            ? p < 0.05
-                ? $"{first} and beats implied volatility significantly ({test})."
-                : $"{first}; it scores below implied volatility, but not significantly ({test})."
-            : p < 0.05
-                ? $"{first}, but implied volatility does significantly better ({test})."
-                : $"{first}; implied volatility scores a little lower, and the difference is not significant ({test}).";
+        var gap = higher > 0 ? (higher - lower) / higher : 0;
+        var word = gap < 0.03 ? "slightly lower" : gap < 0.10 ? "lower" : "much lower";
+        return string.Create(C, $"{word} ({gap * 100:0}% below)");
     }
 
-    private static string Margin(PairComparison pair)
+    private static string Headline(BacktestResult result, ForecasterMetrics leader)
     {
-        var first = pair.FirstLosses!;
-        var implied = pair.SecondLosses!;
-        var qlike = first.Qlike - implied.Qlike;
-        var rmse = (first.RmseVolatility - implied.RmseVolatility) * 100;
-        return string.Create(C,
-            $"Against implied on the {pair.Count} dates both have: QLIKE {first.Qlike:0.0000} vs {implied.Qlike:0.0000} ({Signed(qlike, "0.0000")}), RMSE {first.RmseVolatility * 100:0.00} vs {implied.RmseVolatility * 100:0.00} vol points ({Signed(rmse, "0.00")} points); negative favours {pair.First}.");
+        var first = $"{leader.Spec} ranks first on QLIKE among the forecasters";
+        if (!result.HasImplied)
+        {
+            return string.Create(C,
+                $"{first} ({leader.Losses!.Qlike:0.0000} on {leader.Losses.Count} dates); no implied series was given, so the forecasters are ranked among themselves.");
+        }
+
+        if (leader.VersusImplied is not { FirstLosses: LossSummary own, SecondLosses: LossSummary implied } pair
+            || pair.Qlike is not { Statistic: double t, PValue: double p })
+        {
+            return first + "; its comparison with implied could not be computed (too few dates with both).";
+        }
+
+        var test = string.Create(C, $"DM {t:0.00}, {PValueText.Clause(p)}");
+        var significance = p < 0.05 ? "significant at 5%" : "not significant at 5%";
+        return implied.Qlike <= own.Qlike
+            ? string.Create(C,
+                $"{first}, but implied volatility scores {Lower(implied.Qlike, own.Qlike)} on the {pair.Count} dates both have (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} ({test}).")
+            : string.Create(C,
+                $"{first} and scores {Lower(own.Qlike, implied.Qlike)} than implied volatility on the {pair.Count} dates both have (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} ({test}).");
     }
 
     private static string HeadToHead(BacktestResult result)
     {
         var h = result.CandidateVersusBaseline;
-        if (h.Qlike is not { Statistic: double t, PValue: double p } || h.FirstLosses is null || h.SecondLosses is null)
+        if (h.FirstLosses is null || h.SecondLosses is null)
         {
             return $"Candidate {result.Candidate} against baseline {result.Baseline}: not enough common dates to compare.";
         }
 
-        var better = h.FirstLosses.Qlike < h.SecondLosses.Qlike ? $"candidate {result.Candidate}" : $"baseline {result.Baseline}";
-        var word = p < 0.05 ? "significantly" : "but not significantly";
-        var mse = h.MseVariance is { Statistic: double mt, PValue: double mp }
-            ? string.Create(C, $"; on MSE of variance DM {mt:0.00}, p = {P(mp)}")
-            : string.Empty;
-        return string.Create(C,
-            $"Head to head, candidate {result.Candidate} against baseline {result.Baseline} ({h.Count} common dates): QLIKE {h.FirstLosses.Qlike:0.0000} vs {h.SecondLosses.Qlike:0.0000}, lower for the {better}, {word} (DM {t:0.00}, p = {P(p)}){mse}.");
+        var candidate = $"the candidate {result.Candidate}";
+        var baseline = $"the baseline {result.Baseline}";
+        var qlike = Loss("QLIKE", h.FirstLosses.Qlike, h.SecondLosses.Qlike, "0.0000", 1, h.Qlike, candidate, baseline);
+        var mse = Loss("MSE of variance", h.FirstLosses.MseVariance, h.SecondLosses.MseVariance, "0.000", 1e3, h.MseVariance, candidate, baseline);
+        return string.Create(C, $"Head to head on {h.Count} common dates: {qlike}; {mse}.");
+    }
+
+    private static string Loss(string loss, double candidate, double baseline, string format, double scale, DieboldMarianoResult? dm, string candidateName, string baselineName)
+    {
+        var (winner, low, high) = candidate <= baseline ? (candidateName, candidate, baseline) : (baselineName, baseline, candidate);
+        var unit = scale == 1 ? string.Empty : " ×10⁻³";
+        var values = string.Create(C, $"{(low * scale).ToString(format, C)} against {(high * scale).ToString(format, C)}{unit}");
+        if (dm is not { Statistic: double t, PValue: double p })
+        {
+            return $"on {loss} {winner} scores lower ({values}), with no test";
+        }
+
+        var test = string.Create(C, $"DM {t:0.00}, {PValueText.Clause(p)}");
+        return p < 0.05
+            ? $"on {loss} {winner} is significantly better ({values}; {test})"
+            : $"on {loss} {winner} scores lower ({values}), not significantly ({test})";
     }
 
     private static string Mcs(McsSummary mcs)
@@ -139,47 +150,27 @@ internal static class ReportVerdict
             $"{(1 - set.Options.Alpha) * 100:0}% model confidence set on QLIKE ({mcs.CommonDates} common dates, {mcs.Members.Length} candidates): {string.Join(", ", members)}.");
     }
 
-    private static string Adaptive(AdaptiveSelection adaptive)
-    {
-        var counts = new Dictionary<string, int>(StringComparer.Ordinal);
-        string? last = null;
-        foreach (var choice in adaptive.Choices)
-        {
-            if (choice is not null)
-            {
-                counts[choice] = counts.GetValueOrDefault(choice) + 1;
-                last = choice;
-            }
-        }
-
-        if (last is null)
-        {
-            return $"{adaptive.Spec}: no out-of-sample choice was possible.";
-        }
-
-        var top = counts.OrderByDescending(p => p.Value).ThenBy(p => adaptive.Candidates.IndexOf(p.Key)).First();
-        var spacing = adaptive.ChangeCount == 0 ? "never changed" : string.Create(C, $"changed {adaptive.ChangeCount} times, about once every {adaptive.DatesWithChoice / (double)adaptive.ChangeCount:0} dates");
-        return string.Create(C,
-            $"Adaptive {adaptive.Family} choice (out of sample): {top.Key} most often ({top.Value * 100.0 / adaptive.DatesWithChoice:0}% of {adaptive.DatesWithChoice} dates), {last} at the end; it {spacing}.");
-    }
-
-    private static string Rule(RuleTestResult rule)
+    private static string Rule(RuleTestResult rule, int lag)
     {
         var all = rule.Rows.FirstOrDefault(r => r.Source == rule.ForecastSpec && r.Signal == RuleSignal.AllDates);
         var sell = rule.Rows.FirstOrDefault(r => r.Source == rule.ForecastSpec && r.Signal == RuleSignal.SellVolatility);
         if (all?.MeanVolatilityGap is not double allGap || sell is null)
         {
-            return "Rule test: no dates to test.";
+            return RulePrefix + ": no dates to test.";
         }
 
-        var sellText = sell.MeanVolatilityGap is double gap
-            ? string.Create(C, $"implied − realized averaged {gap * 100:0.0} vol points there (hit rate {sell.HitRate * 100:0}%)")
-            : "so there is nothing to measure";
-        return string.Create(C,
-            $"Rule test (not a trading P&L): \"sell volatility when implied exceeds {rule.ForecastSpec} by more than {rule.ThresholdVolatility * 100:0.0} points\" fired on {sell.Count} of {all.Count} dates; {sellText}, against {allGap * 100:0.0} on all dates.");
+        var fired = string.Create(C,
+            $"{RulePrefix} (not a trading P&L): \"sell volatility when implied exceeds {rule.ForecastSpec} by more than {rule.ThresholdVolatility * 100:0.0} points\" fired on {sell.Count} of {all.Count} dates");
+        if (sell.MeanVolatilityGap is not double gap)
+        {
+            return fired + ", so there is nothing to measure.";
+        }
+
+        var against = SignalledAgainstAll.Compute(rule, historical: false, RuleSignal.SellVolatility, lag);
+        var test = against.PValue is double p
+            ? (p < 0.05 ? "different at 5%" : "no different at 5%") + string.Create(C, $" ({PValueText.Clause(p)})")
+            : "not testable";
+        return fired + string.Create(C,
+            $"; implied − realized averaged {gap * 100:0.00} vol points on them against {allGap * 100:0.00} on all {all.Count} dates: {test}.");
     }
-
-    internal static string P(double p) => p < 0.0001 ? "< 0.0001" : p.ToString("0.0000", C);
-
-    private static string Signed(double value, string format) => (value >= 0 ? "+" : "−") + Math.Abs(value).ToString(format, C);
 }

@@ -191,19 +191,32 @@ public static class ReportWriter
         var warnings = new List<string>(run.InputWarnings);
         warnings.AddRange(result.Warnings);
         var c = CultureInfo.InvariantCulture;
-        warnings.Add(string.Create(c, $"{q.DatesWithoutTarget} forecast dates at the end have forecasts but no realized target yet (their window had not closed); they are in forecasts.csv but not scored."));
+
+        // Routine notes (what every backtest has: the last windows not yet closed, dates without a quote) are kept apart
+        // from warnings (something in the inputs that needs a look), so the warning count means something.
+        var routine = new List<string>
+        {
+            string.Create(c, $"{q.DatesWithoutTarget} forecast dates at the end have forecasts but no realized target yet (their window had not closed); they are in forecasts.csv but not scored."),
+        };
         if (q.ZeroRealizedDates > 0)
         {
-            warnings.Add(string.Create(c, $"{q.ZeroRealizedDates} dates had zero realized volatility and are not scored (QLIKE is undefined there)."));
+            routine.Add(string.Create(c, $"{q.ZeroRealizedDates} dates had zero realized volatility and are not scored (QLIKE is undefined there)."));
         }
 
         if (result.HasImplied)
         {
-            warnings.Add(string.Create(c, $"{q.ForecastDatesWithoutImplied} forecast dates have no implied quote; {q.ImpliedDatesWithoutPrices} implied quotes fall on dates without prices and are not used."));
+            routine.Add(string.Create(c, $"{q.ForecastDatesWithoutImplied} forecast dates have no implied quote; {q.ImpliedDatesWithoutPrices} implied quotes fall on dates without prices and are not used."));
         }
 
         double? coverage = result.HasImplied && q.ScoredDates > 0 ? q.ScoredDatesWithImplied / (double)q.ScoredDates : null;
-        return new DataQuality(rowsRead, q.ScoredDates, coverage, warnings) { Notes = run.InputNotes, Suspect = run.Suspect, RowsLeftOut = run.RowsLeftOut };
+        return new DataQuality(rowsRead, q.ScoredDates, coverage, warnings)
+        {
+            Notes = run.InputNotes,
+            RoutineNotes = routine,
+            ScoredDatesWithImplied = result.HasImplied ? q.ScoredDatesWithImplied : null,
+            Suspect = run.Suspect,
+            RowsLeftOut = run.RowsLeftOut,
+        };
     }
 
     private static List<Setting> Settings(BacktestResult result, BacktestRunInfo run)
@@ -212,7 +225,7 @@ public static class ReportWriter
         var c = CultureInfo.InvariantCulture;
         var settings = new List<Setting>
         {
-            new("Horizon", HorizonText(s.Horizon) + string.Create(c, $" (forecasters asked for {s.Horizon.NominalDays} trading days; HAC lag {result.HacLag})")),
+            new("Horizon", HorizonStatement(result) + string.Create(c, $"; forecasters are asked for the nominal {s.Horizon.NominalDays}, the realized target spans each date's own window, Newey-West errors use lag {result.HacLag} (the nominal), and the tests of the forecast move bands space their dates by the longest window")),
             new("Forecast dates", string.Create(c, $"{result.Dates[0]:yyyy-MM-dd} to {result.Dates[^1]:yyyy-MM-dd} ({result.Dates.Length})")),
             new("Realized target", s.Target switch { RealizedTarget.SquaredReturns => "zero-mean squared close-to-close log returns", var t => t.ToString() }),
             new("Annualization", string.Create(c, $"{s.AnnualizationFactor:0.##} trading days a year")),
@@ -236,6 +249,40 @@ public static class ReportWriter
         }
 
         return settings;
+    }
+
+    /// <summary>
+    /// The horizon stated once, with both counts the tests use: "30-calendar-day tenor = 20–22 trading days, 21 nominal",
+    /// or "21-trading-day horizon" when it is fixed in trading days.
+    /// </summary>
+    internal static string HorizonStatement(BacktestResult result)
+    {
+        var horizon = result.Settings.Horizon;
+        if (horizon.TradingDays is not null)
+        {
+            return HorizonText(horizon);
+        }
+
+        var (shortest, longest) = WindowRange(result);
+        var span = shortest == longest ? shortest.ToString(CultureInfo.InvariantCulture) : string.Create(CultureInfo.InvariantCulture, $"{shortest}–{longest}");
+        return string.Create(CultureInfo.InvariantCulture, $"{HorizonText(horizon)} = {span} trading days, {horizon.NominalDays} nominal");
+    }
+
+    /// <summary>The shortest and longest realized window in trading days over the forecast dates (the nominal days when none is known).</summary>
+    internal static (int Shortest, int Longest) WindowRange(BacktestResult result)
+    {
+        int? shortest = null, longest = null;
+        foreach (var days in result.WindowDays)
+        {
+            if (days is int d)
+            {
+                shortest = Math.Min(shortest ?? d, d);
+                longest = Math.Max(longest ?? d, d);
+            }
+        }
+
+        var nominal = result.Settings.Horizon.NominalDays;
+        return (shortest ?? nominal, longest ?? nominal);
     }
 
     private static string HorizonText(BacktestHorizon horizon) => horizon.TradingDays is int h

@@ -89,7 +89,7 @@ public class CalibrationBenchmarks
                 total += ProbabilityCalibration.Decompose(p.AsSpan(0, n), o.AsSpan(0, n), options.BinCount).Brier;
             }
 
-            total += ExpectedMoveCoverage.Evaluate(_outcomes, f, options).ZScale ?? 0;
+            total += MoveBandCoverage.Evaluate(_outcomes, f, options).ZScale ?? 0;
         }
 
         return total;
@@ -114,7 +114,7 @@ public class CalibrationBenchmarks
         var sum = 0;
         foreach (var f in _forecasters)
         {
-            sum += ExpectedMoveCoverage.Evaluate(_outcomes, f).Count;
+            sum += MoveBandCoverage.Evaluate(_outcomes, f).Count;
         }
 
         return sum;

@@ -9,7 +9,7 @@ namespace VolCast.Cli.Batch;
 /// <param name="ImpliedUnit">The unit of every implied file's iv column.</param>
 /// <param name="Settings">The resolved settings, the same for every asset.</param>
 /// <param name="Config">The configuration file the settings came from, if any.</param>
-/// <param name="OutputFolder">The batch's folder: <c>assets/NAME/</c>, summary.csv, beats-implied.csv and summary.html go here.</param>
+/// <param name="OutputFolder">The batch's folder: <c>assets/NAME/</c>, summary.csv, lookbacks.csv, beats-implied.csv and summary.html go here.</param>
 /// <param name="Jobs">How many assets run at the same time (at least 1).</param>
 /// <param name="Force">Recompute every asset even when its results are complete and up to date.</param>
 internal sealed record BatchRequest(

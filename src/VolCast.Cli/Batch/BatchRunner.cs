@@ -6,7 +6,7 @@ namespace VolCast.Cli.Batch;
 
 /// <summary>
 /// Runs a batch: one <see cref="BatchAssetJob"/> per asset on a bounded number of workers, keeping only each asset's
-/// summary row (so memory does not grow with the number of names), then writes summary.csv, beats-implied.csv and summary.html.
+/// summary row (so memory does not grow with the number of names), then writes summary.csv, lookbacks.csv, beats-implied.csv and summary.html.
 /// </summary>
 internal static class BatchRunner
 {

@@ -33,7 +33,7 @@ internal static class BatchCommand
         var allowMissing = new Option<bool>("--allow-missing") { Description = "With --reduce: write a partial summary even when names are not finished; they are marked as not finished in it." };
         var reports = new Option<string>("--reports") { Description = "Which report pages to draw: full (one page with charts per name, and the summary page; the default), summary (data files per name, charts only on the summary page) or none (data files and summary.csv only). A name's page can be drawn later with volcast backtest on the same inputs.", DefaultValueFactory = _ => "full" };
         reports.AcceptOnlyFromAmong("full", "summary", "none");
-        var command = new Command("batch", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted batch resumes; one bad file fails only its name. Writes summary.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
+        var command = new Command("batch", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted batch resumes; one bad file fails only its name. Writes summary.csv, lookbacks.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
             pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force, suspect, skipBadRows, reports, shard, shards, reduce, allowMissing,
         };
@@ -190,7 +190,7 @@ internal static class BatchCommand
             return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
         }
 
-        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, beats-implied.csv, summary.html)");
+        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, lookbacks.csv, beats-implied.csv, summary.html)");
         return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
     }
 

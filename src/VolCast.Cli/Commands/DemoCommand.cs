@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Diagnostics;
 using System.Globalization;
 using VolCast.Core.Backtest;
+using VolCast.Core.Scoring;
 using VolCast.IO;
 using VolCast.IO.Config;
 
@@ -164,7 +165,7 @@ internal static class DemoCommand
         var head = result.CandidateVersusBaseline;
         var c = CultureInfo.InvariantCulture;
         console.Out.WriteLine(string.Create(c,
-            $"{result.Dates.Length} forecast dates, {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}; first on QLIKE: {ranked?.Spec ?? "none"}; candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {head.Qlike?.Statistic:0.00} (p {head.Qlike?.PValue:0.000})."));
+            $"{result.Dates.Length} forecast dates, {result.Forecasts.Length} forecasters, horizon {result.Settings.Horizon}; first on QLIKE: {ranked?.Spec ?? "none"}; candidate {result.Candidate} vs baseline {result.Baseline}: DM QLIKE {head.Qlike?.Statistic:0.00} ({(head.Qlike?.PValue is double p ? PValueText.Clause(p) : "p n/a")})."));
         console.Out.WriteLine(string.Create(c,
             $"wrote {Path.Combine(Shown(outFolder), "report.html")} (open it in a browser) with the charts and results beside it, in {clock.Elapsed.TotalSeconds:0.0} s."));
         return ExitCodes.Success;

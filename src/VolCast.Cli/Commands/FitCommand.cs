@@ -28,12 +28,12 @@ internal static class FitCommand
         var zeroMean = new Option<bool>("--zero-mean") { Description = "Fix the mean daily return at zero instead of estimating it." };
         var annualization = new Option<double>("--annualization")
         {
-            Description = $"Trading days per year for the long-run annualized volatility, {SettingLimits.AnnualizationFactor} (default 252).",
+            Description = $"Trading days per year for the long-run annualized volatility, {SettingLimits.AnnualizationFactor}.",
             DefaultValueFactory = _ => 252.0,
         };
         var start = new Option<string>("--variance-start")
         {
-            Description = "How the variance recursion starts: backcast (default: the day before the first return gets the mean squared residual as both its variance and its squared return, the start of the Fiorentini-Calzolari-Panattoni GARCH benchmark and of R's fGarch) or sample-variance (the first day's variance is the mean squared residual, the start used before).",
+            Description = "How the variance recursion starts: backcast (the day before the first return gets the mean squared residual as both its variance and its squared return, the start of the Fiorentini-Calzolari-Panattoni GARCH benchmark and of R's fGarch) or sample-variance (the first day's variance is the mean squared residual, the start used before).",
             DefaultValueFactory = _ => "backcast",
         };
         start.AcceptOnlyFromAmong("backcast", "sample-variance");

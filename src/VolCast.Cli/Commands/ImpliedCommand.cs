@@ -35,7 +35,7 @@ internal static class ImpliedCommand
         };
         var extrapolation = new Option<string>("--extrapolation")
         {
-            Description = "When the tenor lies outside a date's quoted expiries: 'refuse' leaves the date out and reports it (default); 'flat' uses the nearest expiry's volatility and flags it.",
+            Description = "When the tenor lies outside a date's quoted expiries: 'refuse' leaves the date out and reports it; 'flat' uses the nearest expiry's volatility and flags it.",
             DefaultValueFactory = _ => "refuse",
         };
         extrapolation.AcceptOnlyFromAmong("refuse", "flat");

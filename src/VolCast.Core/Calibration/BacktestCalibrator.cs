@@ -72,7 +72,7 @@ public static class BacktestCalibrator
         ArgumentNullException.ThrowIfNull(options);
         options.Validate();
         var calibration = ProbabilityCalibration.Evaluate(outcomes, forecaster, options);
-        var coverage = ExpectedMoveCoverage.Evaluate(outcomes, forecaster, options);
+        var coverage = MoveBandCoverage.Evaluate(outcomes, forecaster, options);
         var regimes = regimeValues is null ? ImmutableArray<RegimeCoverage>.Empty : CoverageRegimes.ByTerciles(coverage, regimeValues, options.IntervalZ);
         return new ForecasterOdds(
             forecaster.Spec,

@@ -1,7 +1,7 @@
 namespace VolCast.Core.Calibration;
 
 /// <summary>
-/// The backtest of one expected-move range, |z| ≤ bound, whose nominal coverage under a calibrated forecast is
+/// The backtest of one forecast move band, |z| ≤ bound, whose nominal coverage under a calibrated forecast is
 /// 2N(bound) − 1 (68.27% for 1, 95.45% for 2). A failure is |z| &gt; bound.
 /// </summary>
 /// <remarks>

@@ -56,7 +56,7 @@ internal static class CoverageRegimes
 
         var keyArray = keys.ToArray();
         Array.Sort(keyArray, order);
-        var nominal = ExpectedMoveCoverage.NominalCoverage(1.0);
+        var nominal = MoveBandCoverage.NominalCoverage(1.0);
         var rows = ImmutableArray.CreateBuilder<RegimeCoverage>(3);
         for (var g = 0; g < 3; g++)
         {

@@ -2,11 +2,11 @@ using System.Collections.Immutable;
 
 namespace VolCast.Core.Calibration;
 
-/// <summary>How well one forecaster's expected-move ranges held: the standardized moves, their shares and the tests.</summary>
+/// <summary>How well one forecaster's forecast move bands held: the standardized moves, their shares and the tests.</summary>
 /// <remarks>
 /// z_t = ln(S_{t+h}/S_t) / (σ_F √(h/A)); if the forecaster is calibrated, z is close to standard normal. Summary
 /// numbers are over the dates with a forecast and are null when there are none. <see cref="ZScale"/> = √(mean z²)
-/// is the factor by which the ranges should have been wider (above 1) or narrower (below 1).
+/// is the factor by which the bands should have been wider (above 1) or narrower (below 1).
 /// </remarks>
 /// <param name="Spec">The forecaster's spec, as written in a configuration (for example <c>yang-zhang:21</c> or <c>implied</c>).</param>
 /// <param name="HorizonDays">The horizon h in trading days.</param>

@@ -1,12 +1,13 @@
 using System.Globalization;
 using System.Text;
+using VolCast.Core.Scoring;
 
 namespace VolCast.Core.Calibration;
 
-/// <summary>Plain-words verdicts on a forecaster's expected-move ranges, for the report.</summary>
+/// <summary>Plain-words verdicts on a forecaster's forecast move bands (±1σ, ±2σ), for the report.</summary>
 /// <remarks>
 /// <para>
-/// The ranges are called too wide (too narrow) when the Kupiec test of the |z| ≤ 1 range rejects at the chosen
+/// The bands are called too wide (too narrow) when the Kupiec test of the |z| ≤ 1 range rejects at the chosen
 /// significance and the share held is above (below) 68.27%; otherwise they are called consistent with the
 /// forecast. "By about X%" is 1/√(mean z²) − 1 for too wide and √(mean z²) − 1 for too narrow: the change in width
 /// that would have made mean z² equal to 1. When the tests could not be run the sentence says how many
@@ -23,7 +24,7 @@ public static class CoverageVerdict
     /// <param name="coverage">The coverage result.</param>
     /// <param name="regimes">Regime rows from <see cref="CoverageRegimes.ByTerciles"/>, or null.</param>
     /// <param name="significance">Kupiec significance level, 0.05 by default.</param>
-    /// <returns>For example "ranges from implied were too wide by about 25%: |z| ≤ 1 held 78% of the time against 68% expected (Kupiec p = 0.003, 238 non-overlapping dates)".</returns>
+    /// <returns>For example "move bands from implied were too wide by about 25%: |z| ≤ 1 held 78% of the time against 68% expected (Kupiec p = 0.003, 238 non-overlapping dates)".</returns>
     /// <exception cref="ArgumentNullException"><paramref name="coverage"/> is null.</exception>
     public static string Describe(CoverageResult coverage, IReadOnlyList<RegimeCoverage>? regimes = null, double significance = 0.05)
     {
@@ -32,7 +33,7 @@ public static class CoverageVerdict
         var c = CultureInfo.InvariantCulture;
         var one = coverage.Levels[0];
         var text = new StringBuilder();
-        text.Append(c, $"ranges from {coverage.Spec}");
+        text.Append(c, $"move bands from {coverage.Spec}");
         if (coverage.Count == 0 || one.ShareWithin is not { } share || coverage.ZScale is not { } scale)
         {
             text.Append(c, $" could not be checked: the forecaster had no value on any of the {coverage.MissingCount} dates");
@@ -54,11 +55,11 @@ public static class CoverageVerdict
                 text.Append(c, $" by about {by * 100:0}%");
             }
 
-            text.Append(c, $": {held} (Kupiec p {FormatP(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");
+            text.Append(c, $": {held} (Kupiec {PValueText.Clause(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");
         }
         else
         {
-            text.Append(c, $" held as forecast: {held} (Kupiec p {FormatP(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");
+            text.Append(c, $" held as forecast: {held} (Kupiec {PValueText.Clause(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");
         }
 
         if (coverage.MissingCount > 0)
@@ -84,5 +85,4 @@ public static class CoverageVerdict
         return text.ToString();
     }
 
-    private static string FormatP(double p) => p < 0.001 ? "< 0.001" : "= " + p.ToString("0.000", CultureInfo.InvariantCulture);
 }

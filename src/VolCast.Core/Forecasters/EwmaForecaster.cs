@@ -4,7 +4,7 @@ using VolCast.Core.Data;
 namespace VolCast.Core.Forecasters;
 
 /// <summary>
-/// Exponentially weighted moving average of squared returns (RiskMetrics Technical Document, 1996):
+/// EWMA of squared returns, zero mean, λ = 0.94 by default (J.P. Morgan/Reuters 1996; docs/methods.md#ewma):
 /// σ²(t+1|t) = λ σ²(t|t−1) + (1 − λ) r²ₜ, zero mean. The forecast is flat over the horizon.
 /// </summary>
 /// <remarks>
@@ -13,7 +13,7 @@ namespace VolCast.Core.Forecasters;
 /// </remarks>
 internal sealed class EwmaForecaster : IVolatilityForecaster
 {
-    /// <summary>The RiskMetrics decay for daily data.</summary>
+    /// <summary>The default decay for daily data, 0.94 (J.P. Morgan/Reuters 1996).</summary>
     public const double DailyLambda = 0.94;
 
     /// <summary>The default number of returns in the seed variance.</summary>

@@ -15,7 +15,7 @@ public static class ForecasterSpec
     /// <summary>Gets the accepted spec forms, one line each, as shown in error messages.</summary>
     public static IReadOnlyList<string> ValidSpecs { get; } =
     [
-        "ewma[:LAMBDA]  (RiskMetrics EWMA, LAMBDA in (0, 1), default 0.94; e.g. ewma:0.97)",
+        "ewma[:LAMBDA]  (EWMA of squared returns, zero mean, λ = 0.94 by default; LAMBDA in (0, 1), e.g. ewma:0.97)",
         "garch[:zero-mean]  (GARCH(1,1), constant mean unless zero-mean)",
         "gjr-garch[:zero-mean]  (GJR-GARCH(1,1))",
         "har[:garman-klass]  (HAR on squared returns, or on the Garman-Klass range term)",

@@ -85,7 +85,7 @@ public static partial class BacktestConfigFile
         catch (ArgumentException ex)
         {
             var property = ex.Message.StartsWith("dateFormat", StringComparison.Ordinal) ? "dateFormat" : ex.Message.StartsWith("delimiter", StringComparison.Ordinal) ? "delimiter" : "decimal";
-            throw new InputDataException(file, null, property, ex.Message);
+            throw InputDataException.Setting(file, null, property, ex.Message);
         }
 
         int? tenor = null;
@@ -107,29 +107,39 @@ public static partial class BacktestConfigFile
     {
         ArgumentNullException.ThrowIfNull(json);
         ArgumentNullException.ThrowIfNull(file);
+        var text = json.TrimStart('\uFEFF', ' ', '\t', '\r', '\n');
+        if (text.Length == 0)
+        {
+            throw InputDataException.Setting(file, 1, null, "the configuration file is empty; write a JSON object such as { \"horizon\": 21 }, or {} for the defaults.");
+        }
+
         BacktestConfigDocument? doc;
         try
         {
             doc = JsonSerializer.Deserialize<BacktestConfigDocument>(json, Options);
+        }
+        catch (JsonException) when (!StartsLikeJson(text))
+        {
+            throw InputDataException.Setting(file, 1, null, "the configuration file is not JSON; it must be one JSON object in braces, such as { \"horizon\": 21 } (see the README's complete example).");
         }
         catch (JsonException ex)
         {
             // LineNumber is zero-based; Path names the property ($.mcs.alpha).
             var line = ex.LineNumber is long l ? (int)l + 1 : (int?)null;
             var property = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? null : ex.Path.TrimStart('$', '.');
-            throw new InputDataException(file, line, property,
+            throw InputDataException.Setting(file, line, property,
                 "the configuration is not valid: " + Plain(FirstSentence(ex.Message), property) + " Fix the JSON; every setting is optional, see 'volcast backtest --help'.");
         }
 
         catch (ArgumentException ex) when (ex.InnerException is System.Text.EncoderFallbackException)
         {
             // A lone surrogate in the text cannot be transcoded for the JSON reader: bad input, not a crash.
-            throw new InputDataException(file, null, null, "the configuration holds characters that are not valid Unicode text; save it as UTF-8.");
+            throw InputDataException.Setting(file, null, null, "the configuration holds characters that are not valid Unicode text; save it as UTF-8.");
         }
 
         if (doc is null)
         {
-            throw new InputDataException(file, 1, null, "the configuration is 'null'; write an object such as { \"horizon\": 21 } or {} for the defaults.");
+            throw InputDataException.Setting(file, 1, null, "the configuration is 'null'; write an object such as { \"horizon\": 21 } or {} for the defaults.");
         }
 
         return ToSettings(doc, file);
@@ -175,7 +185,7 @@ public static partial class BacktestConfigFile
                 }
                 catch (ArgumentException ex)
                 {
-                    throw new InputDataException(file, null, "forecasters", ex.Message);
+                    throw InputDataException.Setting(file, null, "forecasters", ex.Message);
                 }
             }
 
@@ -237,7 +247,7 @@ public static partial class BacktestConfigFile
                 }
                 catch (ArgumentException ex)
                 {
-                    throw new InputDataException(file, null, property, ex.Message);
+                    throw InputDataException.Setting(file, null, property, ex.Message);
                 }
             }
         }
@@ -249,7 +259,7 @@ public static partial class BacktestConfigFile
         }
         catch (ArgumentException ex)
         {
-            throw new InputDataException(file, null, null, ex.Message);
+            throw InputDataException.Setting(file, null, null, ex.Message);
         }
 
         return s;
@@ -372,6 +382,11 @@ public static partial class BacktestConfigFile
         return ParseDataChecks(Reading.InputText.Decode(bytes, path), path);
     }
 
+    /// <summary>Whether text starts as a JSON value (or a comment) would: otherwise it is not JSON at all and the reader's message would only confuse.</summary>
+    private static bool StartsLikeJson(string text) =>
+        text[0] is '{' or '[' or '/' or '"' or '-' or (>= '0' and <= '9')
+        || text.StartsWith("true", StringComparison.Ordinal) || text.StartsWith("false", StringComparison.Ordinal) || text.StartsWith("null", StringComparison.Ordinal);
+
     /// <summary>Reads the configuration's <c>workbook</c> key (true: write results.xlsx); false when it is missing.</summary>
     /// <param name="path">The configuration file.</param>
     /// <returns>Whether the workbook is asked for.</returns>
@@ -385,7 +400,7 @@ public static partial class BacktestConfigFile
     }
 
     private static InputDataException Bad(string file, string property, FormattableString problem) =>
-        new(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");
+        InputDataException.Setting(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");
 
     /// <summary>Rephrases the serializer's messages that name .NET types (users never see type names).</summary>
     private static string Plain(string message, string? property)

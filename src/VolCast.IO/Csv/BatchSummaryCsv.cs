@@ -3,14 +3,17 @@ using VolCast.IO.Results;
 
 namespace VolCast.IO.Csv;
 
-/// <summary>Writes a batch's summary.csv: one row per asset, in name order, invariant culture, empty cells where undefined.</summary>
+/// <summary>
+/// Writes a batch's summary.csv: one row per asset, in name order, invariant culture, empty cells where undefined; data
+/// only (<c>implied</c> is yes or no), the lookback choices are in <see cref="BatchLookbacksCsv"/>.
+/// </summary>
 public static class BatchSummaryCsv
 {
     /// <summary>Gets the column names.</summary>
     public static IReadOnlyList<string> Columns { get; } =
     [
         "asset", "status", "implied", "n", "best_qlike", "best_qlike_value", "best_dm_qlike_stat", "best_dm_qlike_p",
-        "mcs", "lookbacks", "mean_iv_minus_rv_vol", "error",
+        "mcs", "mean_iv_minus_rv_vol", "error",
     ];
 
     /// <summary>Writes the CSV.</summary>
@@ -29,14 +32,13 @@ public static class BatchSummaryCsv
             [
                 CsvText.Text(r.Name),
                 r.Succeeded ? "done" : "failed",
-                r.HasImplied ? "yes" : "no (forecasters ranked among themselves)",
+                r.HasImplied ? "yes" : "no",
                 CsvText.Integer(r.Dates),
                 CsvText.Text(r.BestQlike ?? string.Empty),
                 CsvText.Number(r.BestQlikeValue),
                 CsvText.Number(r.BestDmStatistic),
                 CsvText.Number(r.BestDmPValue),
                 CsvText.Text(string.Join(';', r.McsMembers)),
-                CsvText.Text(string.Join(';', r.Lookbacks.Select(Lookback))),
                 CsvText.Number(r.MeanPremium),
                 CsvText.Text(r.Error ?? string.Empty),
             ];
@@ -45,7 +47,7 @@ public static class BatchSummaryCsv
         }
     }
 
-    /// <summary>Formats one lookback choice as <c>spec (share% of dates, N changes)</c>.</summary>
+    /// <summary>Formats one lookback choice as <c>spec (share% of dates, N changes)</c>, as the summary page shows it.</summary>
     /// <param name="lookback">The choice.</param>
     /// <returns>The text.</returns>
     public static string Lookback(BatchLookback lookback)

@@ -3,7 +3,7 @@ using VolCast.Core.Calibration;
 
 namespace VolCast.IO.Csv;
 
-/// <summary>Writes <c>coverage.csv</c>: one row per forecaster with the expected-move range checks.</summary>
+/// <summary>Writes <c>coverage.csv</c>: one row per forecaster with the checks of the forecast move bands (±1σ, ±2σ).</summary>
 /// <remarks>
 /// Columns: <c>forecaster, horizon_days, dates_scored, dates_missing, z_scale, max_abs_z, share_abs_z_above_3</c>,
 /// then for the ranges |z| ≤ 1 (prefix <c>within1_</c>) and |z| ≤ 2 (prefix <c>within2_</c>): <c>share, expected,

@@ -102,7 +102,7 @@ public static class BatchAssetJson
     private static string Serialize(BatchAssetRecord record)
     {
         using var stream = new MemoryStream();
-        using (var json = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true }))
+        using (var json = new Utf8JsonWriter(stream, JsonText.Options))
         {
             json.WriteStartObject();
             json.WriteString("configuration_sha256", record.ConfigurationFingerprint);

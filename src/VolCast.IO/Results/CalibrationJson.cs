@@ -104,7 +104,7 @@ internal static class CalibrationJson
             Numbers.Write(json, "z_scale", c.ZScale);
             Numbers.Write(json, "max_abs_z", c.MaxAbsZ);
             Numbers.Write(json, "share_abs_z_above_3", c.ShareAboveThree);
-            json.WriteNumber("expected_share_abs_z_above_3", 1 - ExpectedMoveCoverage.NominalCoverage(3.0));
+            json.WriteNumber("expected_share_abs_z_above_3", 1 - MoveBandCoverage.NominalCoverage(3.0));
             foreach (var l in c.Levels)
             {
                 Level(json, l);

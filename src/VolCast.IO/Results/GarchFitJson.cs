@@ -18,7 +18,7 @@ namespace VolCast.IO.Results;
 /// </remarks>
 public static class GarchFitJson
 {
-    private static readonly JsonWriterOptions Options = new() { Indented = true };
+    private static readonly JsonWriterOptions Options = JsonText.Options;
 
     /// <summary>Returns the JSON document for <paramref name="fit"/> (LF line ends, final newline).</summary>
     /// <param name="fit">The fit to write.</param>

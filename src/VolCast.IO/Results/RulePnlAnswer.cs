@@ -1,4 +1,5 @@
 using System.Globalization;
+using VolCast.Core.Scoring;
 using VolCast.Core.Trading;
 
 namespace VolCast.IO.Results;
@@ -26,7 +27,7 @@ public static class RulePnlAnswer
         var walk = r[TradingRule.WalkForwardThreshold];
         var difference = versus.DifferencePerYear;
         var test = versus.Test.TStatistic is double t && versus.Test.PValue is double p
-            ? string.Create(c, $"t = {t:F2}, p = {p:F3}")
+            ? string.Create(c, $"t = {t:F2}, {PValueText.Clause(p)}")
             : "no test: the two rules' paths do not differ";
         var spa = report.Means.Spa.Consistent;
         var survives = spa <= Level ? "survives" : "does not survive";
@@ -34,6 +35,6 @@ public static class RulePnlAnswer
             ? string.Create(c, $"the edge over always-sell is zero at a half-spread of {w:F2} vol points")
             : "no half-spread between zero and any width makes the edge over always-sell zero";
         return string.Create(c,
-            $"Switching from the current rule to the proposed one would have earned {Math.Abs(difference):F2} vol points per year {(difference >= 0 ? "more" : "less")} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:F2} vol points; the best rule's edge over always-sell {survives} the data-snooping test (SPA p = {spa:F3}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:F2} vol points per year; {breakEven}.");
+            $"Switching from the current rule to the proposed one would have earned {Math.Abs(difference):F2} vol points per year {(difference >= 0 ? "more" : "less")} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:F2} vol points; the best rule's edge over always-sell {survives} the data-snooping test (SPA {PValueText.Clause(spa)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:F2} vol points per year; {breakEven}.");
     }
 }

@@ -16,8 +16,8 @@ internal static class RunJson
         json.WriteStartObject();
         json.WriteString("tool", "volcast");
         json.WriteString("version", run.ToolVersion);
-        json.WriteString("started_utc", run.StartedUtc.ToUniversalTime().ToString("O", CultureInfo.InvariantCulture));
-        json.WriteString("finished_utc", run.FinishedUtc.ToUniversalTime().ToString("O", CultureInfo.InvariantCulture));
+        json.WriteString("started_utc", JsonText.Utc(run.StartedUtc));
+        json.WriteString("finished_utc", JsonText.Utc(run.FinishedUtc));
         json.WriteStartArray("inputs");
         foreach (var input in run.Inputs)
         {

@@ -25,7 +25,7 @@ public static class BatchSummaryHtml
         h2{font-size:1.3em;border-bottom:2px solid #0072B2;padding-bottom:4px;margin-top:1.6em}
         table{border-collapse:collapse;margin:.4em 0 .8em;font-size:.95em}
         th,td{border:1px solid #bbb;padding:4px 10px;text-align:right;vertical-align:top}
-        th:first-child,td:first-child{text-align:left}
+        th:first-child,td:first-child{text-align:left;white-space:nowrap}
         td.text,th.text{text-align:left}
         thead th{background:#f0f0f0}
         tr.failed td{background:#fdf0e8}
@@ -52,15 +52,18 @@ public static class BatchSummaryHtml
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
         html.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"").Append(HtmlReport.ContentSecurityPolicy).Append("\">\n");
         html.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
-        html.Append("<title>Volatility forecast batch</title>\n<style>\n").Append(Css).Append("\n</style>\n</head>\n<body>\n");
-        html.Append("<h1>Volatility forecast batch: ").Append(rows.Count.ToString(CultureInfo.InvariantCulture)).Append(" names</h1>\n");
+        var title = Title(rows.Count);
+        html.Append("<title>").Append(HtmlReport.E(title)).Append("</title>\n<style>\n").Append(Css).Append("\n</style>\n</head>\n<body>\n");
+        html.Append("<h1>").Append(HtmlReport.E(title)).Append("</h1>\n");
 
         var done = rows.Count(r => r.Succeeded);
         var failed = rows.Count - done;
         var withoutImplied = rows.Count(r => r.Succeeded && !r.HasImplied);
         html.Append("<section id=\"overview\">\n<h2>Overview</h2>\n<ul>\n");
-        Li(html, I($"{done} names backtested, {failed} failed (their error is in the table below and in summary.csv)."));
-        Li(html, I($"{withoutImplied} names had no implied file: their forecasters are ranked among themselves and they take no part in the comparison with implied."));
+        Li(html, Outcome(rows.Count, done, failed));
+        Li(html, withoutImplied == 0
+            ? (done == 0 ? "No name was backtested, so none was compared with implied." : "Every name backtested had an implied file.")
+            : I($"{Names(withoutImplied)} had no implied file: {(withoutImplied == 1 ? "its" : "their")} forecasters are ranked among themselves and take no part in the comparison with implied."));
         Li(html, "Every name was run with the same configuration; each name's own report holds its full results.");
         html.Append("</ul>\n</section>\n");
 
@@ -98,6 +101,13 @@ public static class BatchSummaryHtml
         html.Append("<p class=\"note\">").Append(HtmlReport.E(I(
             $"Diebold-Mariano test on QLIKE against implied, one per name (two-sided, Newey-West variance). Testing many names at once makes some wins appear by chance, so the p-values of each forecaster are corrected across names with the Benjamini-Hochberg procedure, which keeps the expected share of false wins among the wins (the false discovery rate) at {VersusImpliedFdr.DefaultLevel:0%}. A win is a negative statistic (the forecaster's loss is lower) with an adjusted p-value of at most {VersusImpliedFdr.DefaultLevel:0.00}.")))
             .Append("</p>\n");
+        if (table.Count == 0)
+        {
+            html.Append("<p class=\"note\">No name had both an implied file and a usable test, so nothing could be compared with implied.</p>\n");
+            html.Append("</section>\n");
+            return;
+        }
+
         html.Append("<table>\n<thead><tr><th>Forecaster</th><th>Names tested</th><th>Beats implied, uncorrected p ≤ 0.05</th><th>Beats implied, BH-adjusted (FDR 5%)</th><th>Share of names, BH-adjusted</th><th>Implied better, BH-adjusted</th></tr></thead>\n<tbody>\n");
         foreach (var r in table)
         {
@@ -106,13 +116,7 @@ public static class BatchSummaryHtml
                 .Append("</td><td>").Append(I($"{r.LosesAfterFdr}")).Append("</td></tr>\n");
         }
 
-        html.Append("</tbody>\n</table>\n");
-        if (table.Count == 0)
-        {
-            html.Append("<p class=\"note\">No name had both an implied file and a usable test, so nothing could be compared with implied.</p>\n");
-        }
-
-        html.Append("</section>\n");
+        html.Append("</tbody>\n</table>\n</section>\n");
     }
 
     private static void AssetsSection(StringBuilder html, IReadOnlyList<BatchAssetRow> rows, string reportFileName)
@@ -142,7 +146,7 @@ public static class BatchSummaryHtml
                 .Append("<td>").Append(r.Dates is int n ? I($"{n}") : "—").Append("</td>")
                 .Append("<td class=\"text\">").Append(HtmlReport.E(r.BestQlike ?? "—")).Append("</td>")
                 .Append("<td>").Append(Num(r.BestDmStatistic, "0.00")).Append("</td>")
-                .Append("<td>").Append(Num(r.BestDmPValue, "0.000")).Append("</td>")
+                .Append("<td>").Append(r.BestDmPValue is double p && double.IsFinite(p) ? HtmlReport.E(PValueText.Value(p)) : "—").Append("</td>")
                 .Append("<td>").Append(Num(r.MeanPremium * 100.0, "0.00")).Append("</td>")
                 .Append("<td class=\"text\">").Append(HtmlReport.E(string.Join(", ", r.McsMembers))).Append("</td>")
                 .Append("<td class=\"text\">").Append(HtmlReport.E(string.Join("; ", r.Lookbacks.Select(BatchSummaryCsv.Lookback)))).Append("</td></tr>\n");
@@ -158,6 +162,21 @@ public static class BatchSummaryHtml
 
     /// <summary>A PNG's height from its header (bytes 20–23 of the IHDR chunk, big-endian): a chart may be taller than 600 pixels.</summary>
     private static int PngHeight(ReadOnlySpan<byte> png) => System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(png.Slice(20, 4));
+
+    /// <summary>The page's title: "Volatility forecast backtest across N names".</summary>
+    /// <param name="names">How many names the batch holds.</param>
+    /// <returns>The title.</returns>
+    public static string Title(int names) => "Volatility forecast backtest across " + Names(names);
+
+    private static string Outcome(int names, int done, int failed) => (names, done, failed) switch
+    {
+        (0, _, _) => "The prices folder held no name to backtest.",
+        (_, _, 0) => names == 1 ? "The one name was backtested." : I($"All {names} names were backtested."),
+        (_, 0, _) => I($"No name could be backtested: {(failed == 1 ? "it" : I($"all {failed}"))} failed (the error is in the table below and in summary.csv)."),
+        _ => I($"{Names(done)} backtested, {failed} failed (the {(failed == 1 ? "error is" : "errors are")} in the table below and in summary.csv)."),
+    };
+
+    private static string Names(int count) => count == 1 ? "1 name" : I($"{count} names");
 
     private static void Li(StringBuilder html, string text) => html.Append("<li>").Append(HtmlReport.E(text)).Append("</li>\n");
 

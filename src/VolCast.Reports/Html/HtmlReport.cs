@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Net;
 using System.Text;
+using VolCast.Core.Scoring;
 using VolCast.Reports.Model;
 
 namespace VolCast.Reports.Html;
@@ -32,7 +33,7 @@ internal static class HtmlReport
         .verdict .headline{font-size:1.25em;font-weight:bold;margin:0 0 .4em}
         table{border-collapse:collapse;margin:.4em 0 .8em;font-size:.95em}
         th,td{border:1px solid #bbb;padding:4px 10px;text-align:right;vertical-align:top}
-        th:first-child,td:first-child{text-align:left}
+        th:first-child,td:first-child{text-align:left;white-space:nowrap}
         table.text th,table.text td{text-align:left}
         thead th{background:#f0f0f0}
         th .unit{display:block;font-weight:normal;font-size:.85em;color:#444}
@@ -80,7 +81,9 @@ internal static class HtmlReport
     /// <summary>Formats a cell: the value with its format in the invariant culture, a dash when null, stars for significance.</summary>
     internal static string Cell(MetricCell cell)
     {
-        var text = cell.Value is double v ? v.ToString(cell.Format, CultureInfo.InvariantCulture) : "—";
+        var text = cell.Value is not double v ? "—"
+            : cell.Format == MetricCell.PValue ? PValueText.Value(v)
+            : v.ToString(cell.Format, CultureInfo.InvariantCulture);
         var stars = cell.Significance switch
         {
             Significance.OnePercent => "***",
@@ -203,7 +206,7 @@ internal static class HtmlReport
             Table(html, table);
         }
 
-        html.Append("<p class=\"note\">Significance: * p &lt; 0.10, ** p &lt; 0.05, *** p &lt; 0.01, from tests with Newey-West (HAC) standard errors.</p>\n</section>\n");
+        html.Append("<p class=\"note\">Stars mark only better or worse than implied or than the baseline (Diebold-Mariano, Newey-West errors): * p &lt; 0.10, ** p &lt; 0.05, *** p &lt; 0.01. Every other test shows its p-value.</p>\n</section>\n");
     }
 
     private static void Odds(StringBuilder html, OddsSection? odds)
@@ -289,14 +292,17 @@ internal static class HtmlReport
         html.Append("<section id=\"data-quality\">\n<h2>Data quality</h2>\n<table class=\"text\">\n<tbody>\n");
         Row(html, "Price rows read", quality.RowsRead.ToString(CultureInfo.InvariantCulture));
         Row(html, "Dates scored", quality.ScoredDates.ToString(CultureInfo.InvariantCulture));
-        Row(html, "Implied coverage of scored dates", quality.ImpliedCoverage is double c ? c.ToString("0.0%", CultureInfo.InvariantCulture) : "no implied file");
+        Row(html, "Implied coverage of scored dates", quality.ImpliedCoverage is double c
+            ? c.ToString("0.0%", CultureInfo.InvariantCulture) + (quality.ScoredDatesWithImplied is int withImplied ? string.Create(CultureInfo.InvariantCulture, $" ({withImplied} of the {quality.ScoredDates} scored dates have an implied quote)") : string.Empty)
+            : "no implied file");
         Row(html, "Suspect rows", quality.Suspect switch { "drop" => "dropped (--suspect drop)", "stop" => "refused (--suspect stop)", _ => "kept and listed below (--suspect warn)" });
         if (quality.RowsLeftOut > 0)
         {
             Row(html, "Rows left out", quality.RowsLeftOut.ToString(CultureInfo.InvariantCulture) + " (listed in rejected-rows.csv)");
         }
 
-        Row(html, "Warnings", quality.Warnings.Count.ToString(CultureInfo.InvariantCulture));
+        Row(html, "Warnings", quality.Warnings.Count == 0 ? "none" : quality.Warnings.Count.ToString(CultureInfo.InvariantCulture) + " (listed below)");
+        Row(html, "Routine notes", quality.RoutineNotes.Count.ToString(CultureInfo.InvariantCulture) + " (listed below)");
         html.Append("</tbody>\n</table>\n");
         if (quality.Notes.Count > 0)
         {
@@ -311,10 +317,21 @@ internal static class HtmlReport
 
         if (quality.Warnings.Count > 0)
         {
-            html.Append("<ul>\n");
+            html.Append("<p>Warnings:</p>\n<ul>\n");
             foreach (var warning in quality.Warnings)
             {
                 html.Append("<li>").Append(E(warning)).Append("</li>\n");
+            }
+
+            html.Append("</ul>\n");
+        }
+
+        if (quality.RoutineNotes.Count > 0)
+        {
+            html.Append("<p>Routine notes:</p>\n<ul>\n");
+            foreach (var note in quality.RoutineNotes)
+            {
+                html.Append("<li>").Append(E(note)).Append("</li>\n");
             }
 
             html.Append("</ul>\n");

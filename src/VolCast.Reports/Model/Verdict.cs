@@ -1,6 +1,6 @@
 namespace VolCast.Reports.Model;
 
 /// <summary>The verdict in plain words: a headline and the points behind it.</summary>
-/// <param name="Headline">One sentence a reader can act on, e.g. which forecaster ranks first and whether it beats implied.</param>
-/// <param name="Points">Short sentences: the margin and its significance, the model confidence set, the lookback choice and its stability, the baseline-vs-candidate result.</param>
+/// <param name="Headline">The answer about implied: whether the best forecaster scores lower or higher than implied, by how much in words that grow with the gap, and whether that is significant.</param>
+/// <param name="Points">In order: the head-to-head of candidate against baseline naming the winner on each loss, the model confidence set, the premium, the rule (with its option P&amp;L when run).</param>
 internal sealed record Verdict(string Headline, IReadOnlyList<string> Points);

@@ -71,7 +71,10 @@ public sealed class BatchCommandTests : IDisposable
         Assert.Equal(4, summary.Length);
         Assert.StartsWith("asset,status,implied,n,best_qlike", summary[0], StringComparison.Ordinal);
         Assert.StartsWith("alpha,done,yes,", summary[1], StringComparison.Ordinal);
-        Assert.StartsWith("gamma,done,no ", summary[3], StringComparison.Ordinal);
+        Assert.StartsWith("gamma,done,no,", summary[3], StringComparison.Ordinal);
+        var lookbacks = File.ReadAllLines(Path.Combine(output, BatchLookbacksCsv.FileName));
+        Assert.Equal("asset,family,most_chosen,share_of_dates,changes", lookbacks[0]);
+        Assert.Contains(lookbacks, l => l.StartsWith("alpha,", StringComparison.Ordinal));
         var html = File.ReadAllText(Path.Combine(output, "summary.html"));
         Assert.Contains("Content-Security-Policy", html, StringComparison.Ordinal);
         Assert.Contains("Benjamini-Hochberg", html, StringComparison.Ordinal);
@@ -138,7 +141,7 @@ public sealed class BatchCommandTests : IDisposable
         var summary = File.ReadAllLines(Path.Combine(output, "summary.csv"));
         Assert.Equal(4, summary.Length);
         var broken = summary.Single(l => l.StartsWith("broken,", StringComparison.Ordinal));
-        Assert.StartsWith("broken,failed,no ", broken, StringComparison.Ordinal);
+        Assert.StartsWith("broken,failed,no,", broken, StringComparison.Ordinal);
         Assert.Contains("broken.csv", broken, StringComparison.Ordinal);
         Assert.StartsWith("good1,done,yes,", summary.Single(l => l.StartsWith("good1,", StringComparison.Ordinal)), StringComparison.Ordinal);
         Assert.StartsWith("good2,done,yes,", summary.Single(l => l.StartsWith("good2,", StringComparison.Ordinal)), StringComparison.Ordinal);

@@ -84,7 +84,7 @@ public sealed class DemoCommandTests(DemoCommandTests.DemoRun demo) : IClassFixt
         Assert.InRange(Cell(implied, "z_scale"), 0.78, 0.92);
         Assert.True(Cell(implied, "within1_kupiec_p") < 0.05, "Kupiec should reject implied's |z| <= 1 coverage");
         Assert.True(Cell(implied, "within1_nonoverlapping_dates") >= 230, "about 5,000 dates / 21-22 days");
-        Assert.Contains("ranges from implied were too wide", lines.Single(l => l.StartsWith("implied,", StringComparison.Ordinal)), StringComparison.Ordinal);
+        Assert.Contains("move bands from implied were too wide", lines.Single(l => l.StartsWith("implied,", StringComparison.Ordinal)), StringComparison.Ordinal);
 
         var garch = Row("garch");
         Assert.InRange(Cell(garch, "z_scale"), 0.9, 1.1);

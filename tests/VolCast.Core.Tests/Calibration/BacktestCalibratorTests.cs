@@ -39,7 +39,7 @@ public sealed class BacktestCalibratorTests
         Assert.Equal(close[j + 21], calibration.Aligned.Outcomes.EndClose[^1]);
 
         // Same numbers as the aligned-array call on the same columns.
-        var direct = ExpectedMoveCoverage.Evaluate(calibration.Aligned.Outcomes, calibration.Aligned.Select("ewma:0.94", result.Forecasts[1].Values));
+        var direct = MoveBandCoverage.Evaluate(calibration.Aligned.Outcomes, calibration.Aligned.Select("ewma:0.94", result.Forecasts[1].Values));
         Assert.Equal(direct.ZScale, calibration.Forecasters[2].Coverage.ZScale);
         Assert.Equal(direct.Levels[0], calibration.Forecasters[2].Coverage.Levels[0]);
 
@@ -69,7 +69,7 @@ public sealed class BacktestCalibratorTests
         Assert.True(missingImplied > 0, "the gaps should fall on closed windows");
         Assert.Equal(missingImplied, calibration.Forecasters[0].Calibration.MissingCount);
         Assert.Equal(missingImplied, calibration.Forecasters[0].Coverage.MissingCount);
-        Assert.StartsWith("ranges from implied ", calibration.Forecasters[0].Verdict, StringComparison.Ordinal);
+        Assert.StartsWith("move bands from implied ", calibration.Forecasters[0].Verdict, StringComparison.Ordinal);
         Assert.Contains($"{missingImplied} dates had no forecast", calibration.Forecasters[0].Verdict, StringComparison.Ordinal);
 
         // A forecaster's missing dates are only its own (its warm-up), not implied's; every forecaster is scored at

@@ -9,11 +9,11 @@ public sealed class CoverageVerdictTests
     {
         // σ_F = 0.3 against a true 0.2: z scale ≈ 0.2/0.3, so the ranges were about 1/0.667 − 1 = 50% too wide [D].
         var outcomes = CalibrationData.Outcomes(CalibrationData.Closes(11, 5000, 0.2), 21);
-        var coverage = ExpectedMoveCoverage.Evaluate(outcomes, CalibrationData.Constant("implied", outcomes.Count, 0.3));
+        var coverage = MoveBandCoverage.Evaluate(outcomes, CalibrationData.Constant("implied", outcomes.Count, 0.3));
 
         var text = CoverageVerdict.Describe(coverage);
 
-        Assert.StartsWith("ranges from implied were too wide by about", text, StringComparison.Ordinal);
+        Assert.StartsWith("move bands from implied were too wide by about", text, StringComparison.Ordinal);
         Assert.Contains("against 68% expected", text, StringComparison.Ordinal);
         Assert.Contains("238 non-overlapping dates", text, StringComparison.Ordinal);
         Assert.InRange(1 / coverage.ZScale!.Value - 1, 0.35, 0.65);
@@ -23,19 +23,19 @@ public sealed class CoverageVerdictTests
     public void Describe_ExactVolatilityNotRejected_SaysHeldAsForecast()
     {
         var outcomes = CalibrationData.Outcomes(CalibrationData.Closes(1, 5000, 0.2), 21);
-        var coverage = ExpectedMoveCoverage.Evaluate(outcomes, CalibrationData.Constant("garch", outcomes.Count, 0.2));
+        var coverage = MoveBandCoverage.Evaluate(outcomes, CalibrationData.Constant("garch", outcomes.Count, 0.2));
         Assert.True(coverage.Levels[0].Kupiec!.PValue >= 0.05, "seed 1 should not be rejected");
 
-        Assert.StartsWith("ranges from garch held as forecast: |z| ≤ 1 held", CoverageVerdict.Describe(coverage), StringComparison.Ordinal);
+        Assert.StartsWith("move bands from garch held as forecast: |z| ≤ 1 held", CoverageVerdict.Describe(coverage), StringComparison.Ordinal);
     }
 
     [Fact]
     public void Describe_NoForecastAtAll_SaysItCouldNotBeChecked()
     {
         var outcomes = new HorizonOutcomes(1, [100, 100], [101, 99]);
-        var coverage = ExpectedMoveCoverage.Evaluate(outcomes, new ForecasterVolatility("har", new double?[2]));
+        var coverage = MoveBandCoverage.Evaluate(outcomes, new ForecasterVolatility("har", new double?[2]));
 
-        Assert.Equal("ranges from har could not be checked: the forecaster had no value on any of the 2 dates", CoverageVerdict.Describe(coverage));
+        Assert.Equal("move bands from har could not be checked: the forecaster had no value on any of the 2 dates", CoverageVerdict.Describe(coverage));
     }
 
     [Fact]
@@ -46,7 +46,7 @@ public sealed class CoverageVerdictTests
         var n = 60;
         var start = Enumerable.Repeat(100.0, n).ToArray();
         var end = Enumerable.Range(0, n).Select(t => t < 40 ? 100.0 : 105.0).ToArray();
-        var coverage = ExpectedMoveCoverage.Evaluate(new HorizonOutcomes(1, start, end), CalibrationData.Constant("yang-zhang:21", n, 0.2));
+        var coverage = MoveBandCoverage.Evaluate(new HorizonOutcomes(1, start, end), CalibrationData.Constant("yang-zhang:21", n, 0.2));
         var regimes = CoverageRegimes.ByTerciles(coverage, Enumerable.Range(0, n).Select(t => (double)t).ToArray());
 
         Assert.Equal(["calm", "middle", "stressed"], regimes.Select(r => r.Label).ToArray());
@@ -61,7 +61,7 @@ public sealed class CoverageVerdictTests
     [Fact]
     public void ByTerciles_RegimeValuesNotAligned_Throws()
     {
-        var coverage = ExpectedMoveCoverage.Evaluate(new HorizonOutcomes(1, [100, 100], [101, 99]), CalibrationData.Constant("x", 2, 0.2));
+        var coverage = MoveBandCoverage.Evaluate(new HorizonOutcomes(1, [100, 100], [101, 99]), CalibrationData.Constant("x", 2, 0.2));
 
         Assert.Throws<ArgumentException>(() => CoverageRegimes.ByTerciles(coverage, [1.0]));
     }

@@ -18,7 +18,7 @@ public sealed class ForecasterOddsTests
         Assert.Equal(["a", "b"], odds.Select(o => o.Calibration.Spec).ToArray());
         Assert.Equal(["a", "b"], odds.Select(o => o.Coverage.Spec).ToArray());
         Assert.Equal(ProbabilityCalibration.Evaluate(outcomes, b).Strikes[0].Decomposition, odds[1].Calibration.Strikes[0].Decomposition);
-        Assert.Equal(ExpectedMoveCoverage.Evaluate(outcomes, a).Levels[0], odds[0].Coverage.Levels[0]);
+        Assert.Equal(MoveBandCoverage.Evaluate(outcomes, a).Levels[0], odds[0].Coverage.Levels[0]);
         Assert.Equal(CoverageVerdict.Describe(odds[0].Coverage), odds[0].Verdict);
         Assert.Empty(odds[0].Regimes);
     }

@@ -50,7 +50,7 @@ public sealed class OutcomeAlignmentTests
         int[] windows = [1, 2, 4, 1, 1, 2];
         var outcomes = new HorizonOutcomes(windows, start, end);
 
-        var result = ExpectedMoveCoverage.Evaluate(outcomes, CalibrationData.Constant("x", 6, 0.2), new CalibrationOptions { MinimumNonOverlappingSamples = 2 });
+        var result = MoveBandCoverage.Evaluate(outcomes, CalibrationData.Constant("x", 6, 0.2), new CalibrationOptions { MinimumNonOverlappingSamples = 2 });
 
         for (var t = 0; t < 6; t++)
         {

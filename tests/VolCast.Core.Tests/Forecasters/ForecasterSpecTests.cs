@@ -7,7 +7,7 @@ public sealed class ForecasterSpecTests
     [Theory]
     // Canonical forms come back unchanged.
     [InlineData("ewma:0.94", "ewma:0.94")]
-    // The default decay is RiskMetrics' 0.94 for daily data (docs/methods.md#ewma [C2]).
+    // The default decay is J.P. Morgan/Reuters (1996) technical document's 0.94 for daily data (docs/methods.md#ewma [C2]).
     [InlineData("ewma", "ewma:0.94")]
     [InlineData(" EWMA:0.97 ", "ewma:0.97")]
     [InlineData("garch", "garch")]

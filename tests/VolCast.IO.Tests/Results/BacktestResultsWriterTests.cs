@@ -289,6 +289,6 @@ public sealed class BacktestResultsWriterTests
 
         var summary = File.ReadAllText(Path.Combine(folder, "summary.txt"));
         Assert.Contains("Do the odds hold?", summary, StringComparison.Ordinal);
-        Assert.Contains("ranges from implied", summary, StringComparison.Ordinal);
+        Assert.Contains("move bands from implied", summary, StringComparison.Ordinal);
     }
 }

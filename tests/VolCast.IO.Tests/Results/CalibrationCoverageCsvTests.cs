@@ -15,8 +15,8 @@ public sealed class CoverageCsvTests
         var shortRun = CalibrationCsvTests.Outcomes(60, 5, 4);
         var coverages = new[]
         {
-            ExpectedMoveCoverage.Evaluate(longRun, new ForecasterVolatility("implied", Enumerable.Range(0, 2000).Select(t => t == 7 ? (double?)null : 0.2).ToArray())),
-            ExpectedMoveCoverage.Evaluate(shortRun, new ForecasterVolatility("har", Enumerable.Repeat((double?)0.2, 60).ToArray())),
+            MoveBandCoverage.Evaluate(longRun, new ForecasterVolatility("implied", Enumerable.Range(0, 2000).Select(t => t == 7 ? (double?)null : 0.2).ToArray())),
+            MoveBandCoverage.Evaluate(shortRun, new ForecasterVolatility("har", Enumerable.Repeat((double?)0.2, 60).ToArray())),
         };
         var writer = new StringWriter(CultureInfo.InvariantCulture);
 

@@ -44,6 +44,40 @@ public sealed class BatchSummaryHtmlTests
     }
 
     [Fact]
+    public void Render_TitleSaysWhatThePageIs()
+    {
+        var html = BatchSummaryHtml.Render(Rows, []);
+
+        Assert.Contains("<title>Volatility forecast backtest across 4 names</title>", html, StringComparison.Ordinal);
+        Assert.Contains("<h1>Volatility forecast backtest across 4 names</h1>", html, StringComparison.Ordinal);
+        Assert.Contains("<td>0.400</td>", html, StringComparison.Ordinal);
+        Assert.Contains("<td>0.001</td>", html, StringComparison.Ordinal);
+        Assert.Contains("th:first-child,td:first-child{text-align:left;white-space:nowrap}", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Render_ZeroCounts_ReadAsSentences()
+    {
+        // Every name done and every name with implied: no "0 failed", no "0 names had no implied file", no empty table.
+        var allDone = BatchSummaryHtml.Render([Row("AAA", -3.1, 0.001, 0.031), Row("BBB", 0.8, 0.40, -0.012)], []);
+        Assert.Contains("All 2 names were backtested.", allDone, StringComparison.Ordinal);
+        Assert.Contains("Every name backtested had an implied file.", allDone, StringComparison.Ordinal);
+        Assert.DoesNotContain("0 failed", allDone, StringComparison.Ordinal);
+        Assert.DoesNotContain("0 names", allDone, StringComparison.Ordinal);
+
+        var one = BatchSummaryHtml.Render([new BatchAssetRow { Name = "CCC", Succeeded = true, HasImplied = false, Dates = 500 }], []);
+        Assert.Contains("Volatility forecast backtest across 1 name<", one, StringComparison.Ordinal);
+        Assert.Contains("The one name was backtested.", one, StringComparison.Ordinal);
+        Assert.Contains("1 name had no implied file: its forecasters", one, StringComparison.Ordinal);
+        Assert.Contains("nothing could be compared with implied", one, StringComparison.Ordinal);
+        Assert.DoesNotContain("<th>Names tested</th>", one, StringComparison.Ordinal);
+
+        var none = BatchSummaryHtml.Render([], []);
+        Assert.Contains("The prices folder held no name to backtest.", none, StringComparison.Ordinal);
+        Assert.Contains("No name was backtested, so none was compared with implied.", none, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Table_FourNames_CountsWinsBeforeAndAfterBenjaminiHochberg()
     {
         // Hand-worked, common practice, no source: p = 0.01, 0.04, 0.03, 0.20 with m = 4 sorted 0.01, 0.03, 0.04, 0.20

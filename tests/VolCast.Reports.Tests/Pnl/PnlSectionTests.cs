@@ -3,6 +3,7 @@ using System.Net;
 using VolCast.Core.Backtest;
 using VolCast.Core.Calibration;
 using VolCast.Core.Demo;
+using VolCast.Core.Scoring;
 using VolCast.Core.Trading;
 using VolCast.Core.Trading.Snooping;
 using VolCast.IO.Results;
@@ -93,7 +94,7 @@ public sealed class PnlSectionTests : IDisposable
     }
 
     [Fact]
-    public void Verdict_LeadsWithTheSwitchPerYear_NumbersFromTheDailyPaths()
+    public void Verdict_RulePointEndsWithTheSwitchPerYear_NumbersFromTheDailyPaths()
     {
         var model = ReportWriter.Build(With(Report));
         var close = Report.AtClose;
@@ -122,19 +123,22 @@ public sealed class PnlSectionTests : IDisposable
         }
 
         var c = CultureInfo.InvariantCulture;
-        var headline = model.Verdict.Headline;
+        // The rule's P&L answer closes the verdict's rule point.
+        var headline = model.Verdict.Points.Single(p => p.Contains("Switching from", StringComparison.Ordinal));
         var test = close.ProposedVersusCurrent.Test;
-        Assert.StartsWith("Switching from the current rule to the proposed one would have earned " + Math.Abs(gain).ToString("0.00", c) + " vol points per year " + (gain >= 0 ? "more" : "less"), headline, StringComparison.Ordinal);
-        Assert.Contains($"t = {test.TStatistic!.Value.ToString("0.00", c)}, p = {ReportVerdict.P(test.PValue!.Value)}", headline, StringComparison.Ordinal);
+        Assert.Contains("Switching from the current rule to the proposed one would have earned " + Math.Abs(gain).ToString("0.00", c) + " vol points per year " + (gain >= 0 ? "more" : "less"), headline, StringComparison.Ordinal);
+        Assert.Contains($"t = {test.TStatistic!.Value.ToString("0.00", c)}, {PValueText.Clause(test.PValue!.Value)}", headline, StringComparison.Ordinal);
         Assert.Contains($"worst drawdown of {fall.ToString("0.00", c)} vol points", headline, StringComparison.Ordinal);
-        Assert.Contains($"SPA p = {ReportVerdict.P(Report.Means.Spa.Consistent)}", headline, StringComparison.Ordinal);
+        Assert.Contains($"SPA {PValueText.Clause(Report.Means.Spa.Consistent)}", headline, StringComparison.Ordinal);
         Assert.Contains(Report.Means.Spa.Consistent < 0.05 ? " survives the data-snooping test" : " does not survive the data-snooping test", headline, StringComparison.Ordinal);
         Assert.Contains($"the walk-forward threshold earned {close[TradingRule.WalkForwardThreshold].PathNet.PnlPerYear.ToString("0.00", c)} vol points per year", headline, StringComparison.Ordinal);
         Assert.Contains("half-spread", headline, StringComparison.Ordinal);
         Assert.DoesNotContain("per trade", headline, StringComparison.Ordinal);
 
-        // The forecast headline follows as the first point.
-        Assert.Contains("ranks first on QLIKE", model.Verdict.Points[0], StringComparison.Ordinal);
+        // The answer about implied leads; the P&L closes the rule's point, the last one.
+        Assert.Contains("implied", model.Verdict.Headline, StringComparison.OrdinalIgnoreCase);
+        Assert.StartsWith("Rule test", model.Verdict.Points[^1], StringComparison.Ordinal);
+        Assert.Contains("In option trades after costs: Switching from", model.Verdict.Points[^1], StringComparison.Ordinal);
     }
 
     [Fact]
@@ -175,8 +179,8 @@ public sealed class PnlSectionTests : IDisposable
         // The sweep lists every row searched, and the snooping table names the best by its label.
         Assert.Equal(close.Sweep.Length, section.Tables[2].Rows.Count);
         Assert.Equal(close.Sweep[Report.Means.BestRule].Label, section.Tables[3].Rows[0][1]);
-        Assert.Equal(ReportVerdict.P(Report.Means.RealityCheckPValue), section.Tables[3].Rows[0][3]);
-        Assert.Equal(ReportVerdict.P(Report.Sharpe.Spa.Consistent), section.Tables[3].Rows[1][4]);
+        Assert.Equal(PValueText.Value(Report.Means.RealityCheckPValue), section.Tables[3].Rows[0][3]);
+        Assert.Equal(PValueText.Value(Report.Sharpe.Spa.Consistent), section.Tables[3].Rows[1][4]);
         var tradedRows = close.Sweep.Where(r => r.Trades > 0).ToArray();
         Assert.Equal(tradedRows[Report.Sharpe.BestRule].Label, section.Tables[3].Rows[1][1]);
 

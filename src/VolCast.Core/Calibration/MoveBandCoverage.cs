@@ -4,7 +4,7 @@ using VolCast.Core.Options;
 namespace VolCast.Core.Calibration;
 
 /// <summary>
-/// Backtests the expected-move ranges a volatility forecast implies: the standardized move
+/// Backtests the forecast move bands (±1σ, ±2σ) a volatility forecast implies: the standardized move
 /// z = ln(S_{t+h}/S_t) / (σ_F √(h_t/A)), the shares of |z| ≤ 1 and |z| ≤ 2 against 68.27% and 95.45%, the Kupiec and
 /// Christoffersen tests on non-overlapping dates, and the tails.
 /// </summary>
@@ -13,7 +13,7 @@ namespace VolCast.Core.Calibration;
 /// −σ√τ/2, a few hundredths, against ranges of ±1 and ±2. See <see cref="CoverageLevelResult"/> for how the
 /// non-overlapping dates are taken.
 /// </remarks>
-public static class ExpectedMoveCoverage
+public static class MoveBandCoverage
 {
     private static readonly double[] Bounds = [1.0, 2.0];
 

@@ -3,7 +3,7 @@ using Xunit.Abstractions;
 
 namespace VolCast.Core.Tests.Calibration;
 
-public sealed class ExpectedMoveCoverageTests(ITestOutputHelper output)
+public sealed class MoveBandCoverageTests(ITestOutputHelper output)
 {
     private const int Days = 5000;
     private const int Horizon = 21;
@@ -17,7 +17,7 @@ public sealed class ExpectedMoveCoverageTests(ITestOutputHelper output)
         var sd = 0.2521 * Math.Sqrt(1 / 252.0);
         var outcomes = new HorizonOutcomes(1, [100, 100, 100], [101, 96, 100]);
 
-        var result = ExpectedMoveCoverage.Evaluate(outcomes, CalibrationData.Constant("x", 3, 0.2521), new CalibrationOptions { MinimumNonOverlappingSamples = 2 });
+        var result = MoveBandCoverage.Evaluate(outcomes, CalibrationData.Constant("x", 3, 0.2521), new CalibrationOptions { MinimumNonOverlappingSamples = 2 });
 
         Assert.Equal(Math.Log(1.01) / sd, result.Z[0]!.Value, 12);
         Assert.Equal(Math.Log(0.96) / sd, result.Z[1]!.Value, 12);
@@ -37,7 +37,7 @@ public sealed class ExpectedMoveCoverageTests(ITestOutputHelper output)
         // 300 dates at h = 21 give 15 non-overlapping dates (0, 21, …, 294), below the default 20.
         var outcomes = CalibrationData.Outcomes(CalibrationData.Closes(5, 300 + Horizon, TrueVolatility), Horizon);
 
-        var result = ExpectedMoveCoverage.Evaluate(outcomes, CalibrationData.Constant("short", outcomes.Count, TrueVolatility));
+        var result = MoveBandCoverage.Evaluate(outcomes, CalibrationData.Constant("short", outcomes.Count, TrueVolatility));
 
         Assert.All(result.Levels, level =>
         {
@@ -60,7 +60,7 @@ public sealed class ExpectedMoveCoverageTests(ITestOutputHelper output)
         var outcomes = new HorizonOutcomes(1, Enumerable.Repeat(100.0, 6).ToArray(), [100.0, 105.0, 100.0, 100.0, 105.0, 100.0]);
         var forecaster = new ForecasterVolatility("gappy", [0.2, 0.2, null, 0.2, 0.2, 0.2]);
 
-        var result = ExpectedMoveCoverage.Evaluate(outcomes, forecaster, new CalibrationOptions { MinimumNonOverlappingSamples = 2 });
+        var result = MoveBandCoverage.Evaluate(outcomes, forecaster, new CalibrationOptions { MinimumNonOverlappingSamples = 2 });
 
         Assert.Equal(1, result.MissingCount);
         Assert.Equal([2], result.MissingDateIndices.ToArray());
@@ -84,7 +84,7 @@ public sealed class ExpectedMoveCoverageTests(ITestOutputHelper output)
         for (var seed = 1; seed <= 100; seed++)
         {
             var outcomes = CalibrationData.Outcomes(CalibrationData.Closes(seed, Days, TrueVolatility), Horizon);
-            var result = ExpectedMoveCoverage.Evaluate(outcomes, CalibrationData.Constant("exact", outcomes.Count, TrueVolatility));
+            var result = MoveBandCoverage.Evaluate(outcomes, CalibrationData.Constant("exact", outcomes.Count, TrueVolatility));
             keep1 += result.Levels[0].Kupiec!.PValue >= 0.05 ? 1 : 0;
             keep2 += result.Levels[1].Kupiec!.PValue >= 0.05 ? 1 : 0;
             keepCc1 += result.Levels[0].ConditionalCoverage!.PValue >= 0.05 ? 1 : 0;
@@ -104,12 +104,12 @@ public sealed class ExpectedMoveCoverageTests(ITestOutputHelper output)
         for (var seed = 1; seed <= 20; seed++)
         {
             var outcomes = CalibrationData.Outcomes(CalibrationData.Closes(seed, Days, TrueVolatility), Horizon);
-            var result = ExpectedMoveCoverage.Evaluate(outcomes, CalibrationData.Constant("low", outcomes.Count, 0.7 * TrueVolatility));
+            var result = MoveBandCoverage.Evaluate(outcomes, CalibrationData.Constant("low", outcomes.Count, 0.7 * TrueVolatility));
 
             Assert.All(result.Levels, level => Assert.True(level.Kupiec!.PValue < 0.05, $"seed {seed}, bound {level.Bound}: p = {level.Kupiec.PValue}"));
             Assert.True(result.Levels[0].ShareWithin < result.Levels[0].NominalCoverage);
             Assert.InRange(result.ZScale!.Value, 1.2, 1.7);
-            Assert.StartsWith("ranges from low were too narrow by about", CoverageVerdict.Describe(result), StringComparison.Ordinal);
+            Assert.StartsWith("move bands from low were too narrow by about", CoverageVerdict.Describe(result), StringComparison.Ordinal);
         }
     }
 }
