@@ -38,7 +38,10 @@ internal sealed record BacktestJob(
     /// <summary>Gets the configuration file's SHA-256 when already known, or null to hash the file.</summary>
     public string? ConfigSha256 { get; init; }
 
+    /// <summary>Gets the events file (dates whose forecast windows are scored apart), or null.</summary>
+    public string? Events { get; init; }
+
     /// <summary>Gets every input file of the job.</summary>
     public IEnumerable<string> Inputs =>
-        new[] { Prices, Implied, Config }.OfType<string>();
+        new[] { Prices, Implied, Config, Events }.OfType<string>();
 }

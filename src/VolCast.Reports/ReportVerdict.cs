@@ -41,18 +41,22 @@ internal static class ReportVerdict
                 points.Add(Margin(pair));
             }
 
-            var impliedRow = result.Metrics.FirstOrDefault(m => m.Kind == ForecastKind.Implied);
-            if (impliedRow?.Losses is LossSummary implied && implied.Qlike < leader.Losses!.Qlike)
+            if (ReportSeries.ImpliedLosses(result) is LossSummary implied && implied.Qlike < leader.Losses!.Qlike)
             {
                 points.Add(string.Create(C,
                     $"Implied volatility itself scores a lower QLIKE ({implied.Qlike:0.0000} over {implied.Count} dates) than every forecaster."));
             }
         }
 
+        if (ReportAnswers.CommonDates(result) is { } common)
+        {
+            points.Insert(0, common);
+        }
+
         points.Add(Mcs(result.ModelConfidenceSet));
         foreach (var adaptive in result.Adaptive)
         {
-            points.Add(Adaptive(adaptive));
+            points.Add(ReportAnswers.Lookback(result, adaptive.Family) ?? Adaptive(adaptive));
         }
 
         if (result.HasImplied && ReportSeries.Premium(result).Values is { Count: > 0 } premium)

@@ -28,9 +28,10 @@ internal static class BacktestCommand
         var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
         suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
+        var events = new Option<string?>("--events") { Description = "Events CSV (date[, kind][, scheduled]): forecast windows that contain an event are scored apart, scheduled events apart from dates added after the fact. Optional." };
         var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
-            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows,
+            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows, events,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -48,7 +49,8 @@ internal static class BacktestCommand
             parse,
             formatOptions,
             parse.GetValue(suspect),
-            parse.GetValue(skipBadRows)))));
+            parse.GetValue(skipBadRows),
+            parse.GetValue(events)))));
         return command;
     }
 
@@ -64,6 +66,7 @@ internal static class BacktestCommand
             Format = a.FormatOptions.Resolve(a.Parse, configFormat),
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
             Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
+            Events = a.Events,
         };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestRun run;
@@ -108,5 +111,5 @@ internal static class BacktestCommand
 
     private sealed record Arguments(
         string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force,
-        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows);
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, string? Events);
 }
