@@ -97,7 +97,7 @@ internal static class ReportTables
 
         var alpha = result.ModelConfidenceSet.Result?.Options.Alpha ?? result.Settings.McsAlpha;
         var note = string.Create(CultureInfo.InvariantCulture,
-            $"Each forecaster on its own scored dates. DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better, stars = differs from implied. MZ slope b of RV² = a + b F², stars = unbiasedness (a = 0, b = 1) rejected by the Wald test. Encompassing c: weight on the forecast in RV² = a + b IV² + c F², stars = it adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). All tests use Newey-West errors with lag {result.HacLag}.");
+            $"Each forecaster on its own scored dates. DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better, stars = differs from implied. MZ slope b of RV² = a + b F², stars = unbiasedness (a = 0, b = 1) rejected by the Wald test. Encompassing c: weight on the forecast in RV² = a + b IV² + c F², stars = it adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). The regressions use Newey-West errors with lag {result.HacLag}; Diebold-Mariano uses the rectangular long-run variance (autocovariances to lag {result.HacLag}, equal weights, Harvey-Leybourne-Newbold correction), Bartlett weights where that is not positive.");
         if (result.Metrics.Any(m => LeavesOutOvernight(m.Spec)))
         {
             note += " " + OvernightNote;

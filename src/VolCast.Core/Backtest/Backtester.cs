@@ -21,7 +21,8 @@ namespace VolCast.Core.Backtest;
 /// Scored dates are the forecast dates whose realized window closed inside the history and whose target is above zero.
 /// Each forecaster is scored on the scored dates where it has a forecast above zero; every comparison of two uses the
 /// dates both have. HAC and Diebold-Mariano lags are h − 1 (the longest h_t − 1 for a calendar tenor, see
-/// <see cref="BacktestHorizon"/>), with Bartlett weights and no prewhitening.
+/// <see cref="BacktestHorizon"/>), with no prewhitening; HAC errors use Bartlett weights, Diebold-Mariano the
+/// rectangular window (Bartlett where that estimate is not positive, marked in the result).
 /// </para>
 /// </remarks>
 public static partial class Backtester

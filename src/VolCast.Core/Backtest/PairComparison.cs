@@ -6,7 +6,7 @@ namespace VolCast.Core.Backtest;
 /// A head-to-head Diebold-Mariano comparison of two forecasters on the dates where both have a forecast and a
 /// positive realized target: d_t = L(first) − L(second), so a negative statistic means the first has the lower loss.
 /// </summary>
-/// <remarks>Long-run variance with Bartlett weights and lag h − 1, the Harvey-Leybourne-Newbold correction, p-value from Student's t with n − 1 degrees of freedom.</remarks>
+/// <remarks>Long-run variance with the rectangular window at lag h − 1 (Bartlett weights where that is not positive, see <see cref="DieboldMarianoResult.FellBackToBartlett"/>), the Harvey-Leybourne-Newbold correction, p-value from Student's t with n − 1 degrees of freedom.</remarks>
 /// <param name="First">Spec of the first forecaster.</param>
 /// <param name="Second">Spec of the second forecaster.</param>
 /// <param name="Count">Number of common dates scored.</param>

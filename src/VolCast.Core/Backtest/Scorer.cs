@@ -106,7 +106,7 @@ internal sealed class Scorer(double?[] realized, List<int> scored, int lag, int 
             la[i] -= lb[i];
         }
 
-        return DieboldMariano.TestWithLag(la, horizonDays, lag, LongRunVarianceWindow.Bartlett);
+        return DieboldMariano.TestWithLag(la, horizonDays, lag, LongRunVarianceWindow.Rectangular);
     }
 
     private (double[] Realized, double[] Forecast) Aligned(double?[] forecast, double?[]? also)

@@ -11,13 +11,20 @@ namespace VolCast.Core.Forecasters;
 /// </summary>
 /// <remarks>
 /// Defaults: refit every 5 days; rolling window of 2,520 returns once that many exist, expanding before; first fit
-/// once 250 returns exist (no forecast before). A fit that throws, does not converge or is not stationary is
+/// once 250 returns exist (no forecast before); the variance recursion started by backcasting as in a single fit
+/// (<see cref="VarianceStart.Backcast"/>), the optimizer stopped at a gradient of 1e-6. A fit that throws, does not converge or is not stationary is
 /// counted and the previous good parameters are kept (with none yet, there is still no forecast).
 /// </remarks>
 internal sealed class GarchForecaster : IVolatilityForecaster
 {
     /// <summary>The default number of returns before the first fit.</summary>
     public const int DefaultMinimumReturns = 250;
+
+    /// <summary>
+    /// The gradient test of a walk-forward refit: looser than a single fit's (1e-8), since a forecast needs far fewer
+    /// digits of the parameters than a benchmark comparison, and a refit runs every few days.
+    /// </summary>
+    public const double RefitGradientTolerance = 1e-6;
 
     private readonly GarchFitOptions _options;
     private readonly int _refitEveryDays;
@@ -45,7 +52,13 @@ internal sealed class GarchForecaster : IVolatilityForecaster
             Preconditions.AtLeast(window, minimumReturns, "returns", nameof(rollingWindowDays));
         }
 
-        _options = new GarchFitOptions { Variant = variant, IncludeMean = includeMean, ComputeStandardErrors = false };
+        _options = new GarchFitOptions
+        {
+            Variant = variant,
+            IncludeMean = includeMean,
+            ComputeStandardErrors = false,
+            GradientTolerance = RefitGradientTolerance,
+        };
         _refitEveryDays = refitEveryDays;
         _rollingWindowDays = rollingWindowDays;
         _minimumReturns = minimumReturns;

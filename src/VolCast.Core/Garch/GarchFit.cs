@@ -19,6 +19,9 @@ public sealed record GarchFit
     /// <summary>Gets the fitted parameters.</summary>
     public required GarchParameters Parameters { get; init; }
 
+    /// <summary>Gets how the variance recursion was started.</summary>
+    public VarianceStart Start { get; init; } = VarianceStart.Backcast;
+
     /// <summary>Gets the number of returns fitted.</summary>
     public required int ObservationCount { get; init; }
 

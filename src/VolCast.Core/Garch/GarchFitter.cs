@@ -12,8 +12,9 @@ namespace VolCast.Core.Garch;
 /// s = logistic(θ_a); for GJR (α, γ/2, β) = φ·softmax(θ_a, θ_g, 0). This keeps ω &gt; 0, α, β, γ ≥ 0 and
 /// α + β + γ/2 &lt; 1 at every trial point. A maximum on a constraint is approached as an unconstrained coordinate
 /// runs off towards infinity; such an end is reported in <see cref="GarchFit.ParametersOnBound"/>.</para>
-/// <para>Start of the variance recursion: σ²₁ = the sample variance of the window's residuals, (1/n) Σ (rₜ − μ)².
-/// The likelihood sums over all n returns.</para>
+/// <para>Start of the variance recursion (<see cref="GarchFitOptions.Start"/>): by default backcast, σ²₀ = ε²₀ = m with
+/// m = (1/n) Σ (rₜ − μ)² at the μ being tried, so σ²₁ = ω + (α + β + γ/2)·m, as in the Fiorentini, Calzolari and
+/// Panattoni (1996) benchmark; σ²₁ = m is the alternative. The likelihood sums over all n returns.</para>
 /// </remarks>
 public static class GarchFitter
 {
@@ -163,6 +164,7 @@ public static class GarchFitter
         {
             Variant = options.Variant,
             IncludeMean = options.IncludeMean,
+            Start = options.Start,
             Parameters = parameters,
             ObservationCount = n,
             Converged = result.Converged,

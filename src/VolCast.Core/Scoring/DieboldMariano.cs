@@ -14,12 +14,13 @@ namespace VolCast.Core.Scoring;
 /// two-sided from Student's t with T − 1 degrees of freedom.
 /// </para>
 /// <para>
-/// The default window is Bartlett (w_j = 1 − j/(L+1)), as the scoring layer's specification asks; it is never
-/// negative but, at lag h − 1, it under-weights the MA(h − 1) autocovariances of overlapping targets, so the test
-/// rejects somewhat more often than its nominal size there. The rectangular window (w_j = 1) of the original paper is
-/// available; when its estimate is not positive the Bartlett estimate at the same lag is used instead and
-/// <see cref="DieboldMarianoResult.WindowUsed"/> says so. (A widely used R implementation instead falls back to
-/// h = 1 in that case.)
+/// The default window is rectangular (w_j = 1 for j ≤ h − 1), as in Diebold and Mariano (1995) and in R's
+/// forecast::dm.test (<c>varestimator = "acf"</c>): the autocovariances of a loss differential on overlapping h-day
+/// targets are those of an MA(h − 1), which this window counts in full. In small samples its estimate can be zero or
+/// negative; then the Bartlett estimate at the same lag (w_j = 1 − j/(L+1), never negative) is used instead and
+/// <see cref="DieboldMarianoResult.WindowUsed"/> says so (forecast::dm.test instead falls back to h = 1). Bartlett
+/// weights can be asked for; at lag h − 1 they under-weight those autocovariances, so the test rejects more often
+/// than its nominal size.
 /// </para>
 /// <para>Sign convention: a negative statistic means the first forecaster's loss is lower.</para>
 /// </remarks>
@@ -28,11 +29,11 @@ internal static class DieboldMariano
     /// <summary>Tests equal accuracy on a loss differential with lag h − 1.</summary>
     /// <param name="lossDifferential">d_t = L1_t − L2_t, finite, at least 2 observations.</param>
     /// <param name="horizonDays">The forecast horizon h in trading days, at least 1.</param>
-    /// <param name="window">The lag window; Bartlett by default.</param>
+    /// <param name="window">The lag window; rectangular by default.</param>
     /// <returns>The statistic (negative: the first forecaster's loss is lower) and p-value.</returns>
     /// <exception cref="ArgumentException">Too few observations for the horizon.</exception>
     /// <exception cref="ArgumentOutOfRangeException">A value is not finite, or the horizon is below 1.</exception>
-    public static DieboldMarianoResult Test(ReadOnlySpan<double> lossDifferential, int horizonDays, LongRunVarianceWindow window = LongRunVarianceWindow.Bartlett)
+    public static DieboldMarianoResult Test(ReadOnlySpan<double> lossDifferential, int horizonDays, LongRunVarianceWindow window = LongRunVarianceWindow.Rectangular)
     {
         Preconditions.AtLeast(horizonDays, 1, "trading day");
         return TestWithLag(lossDifferential, horizonDays, horizonDays - 1, window);
@@ -42,11 +43,11 @@ internal static class DieboldMariano
     /// <param name="firstLoss">Losses of the first forecaster, L1_t.</param>
     /// <param name="secondLoss">Losses of the second forecaster, L2_t, aligned with the first.</param>
     /// <param name="horizonDays">The forecast horizon h in trading days, at least 1.</param>
-    /// <param name="window">The lag window; Bartlett by default.</param>
+    /// <param name="window">The lag window; rectangular by default.</param>
     /// <returns>The statistic (negative: the first forecaster's loss is lower) and p-value.</returns>
     /// <exception cref="ArgumentException">The lengths differ, or too few observations for the horizon.</exception>
     /// <exception cref="ArgumentOutOfRangeException">A value is not finite, or the horizon is below 1.</exception>
-    public static DieboldMarianoResult Test(ReadOnlySpan<double> firstLoss, ReadOnlySpan<double> secondLoss, int horizonDays, LongRunVarianceWindow window = LongRunVarianceWindow.Bartlett)
+    public static DieboldMarianoResult Test(ReadOnlySpan<double> firstLoss, ReadOnlySpan<double> secondLoss, int horizonDays, LongRunVarianceWindow window = LongRunVarianceWindow.Rectangular)
     {
         Preconditions.SameLength(secondLoss.Length, firstLoss.Length, nameof(firstLoss), nameof(secondLoss));
         var n = firstLoss.Length;

@@ -32,4 +32,13 @@ public sealed record DieboldMarianoResult(
     double HlnFactor,
     double? UncorrectedStatistic,
     double? Statistic,
-    double? PValue);
+    double? PValue)
+{
+    /// <summary>Gets a value indicating whether the rectangular estimate was not positive and Bartlett weights were used instead.</summary>
+    public bool FellBackToBartlett => WindowUsed != RequestedWindow;
+
+    /// <summary>Gets the long-run variance estimator used, in words for output files: <c>rectangular</c>, <c>bartlett</c>, or <c>bartlett (rectangular not positive)</c>.</summary>
+    public string VarianceEstimator => FellBackToBartlett
+        ? "bartlett (rectangular not positive)"
+        : WindowUsed == LongRunVarianceWindow.Rectangular ? "rectangular" : "bartlett";
+}

@@ -6,10 +6,13 @@ namespace VolCast.IO.Results;
 
 /// <summary>Writes a GARCH fit as the JSON document of <c>volcast fit</c>.</summary>
 /// <remarks>
-/// Field names are snake_case: <c>model, include_mean, mu, omega, alpha, beta, gamma, log_likelihood, persistence,
-/// half_life_days, long_run_vol, n, converged, iterations, parameters_on_bound, standard_errors,
-/// robust_standard_errors, message</c>. Parameters are in units of the returns fitted (decimal daily log returns
-/// when the fit came from prices); <c>long_run_vol</c> is annualized and decimal. <c>gamma</c> is present only for
+/// Field names are snake_case: <c>model, include_mean, variance_start, mu, omega, alpha, beta, gamma, log_likelihood,
+/// log_likelihood_units, log_likelihood_percent, persistence, half_life_days, long_run_vol, n, converged, iterations,
+/// parameters_on_bound, standard_errors, robust_standard_errors, message</c>. Parameters are in units of the returns
+/// fitted (decimal daily log returns when the fit came from prices); <c>log_likelihood</c> is of those returns and
+/// <c>log_likelihood_percent</c> of the same returns times 100 (lower by n·ln 100, the units of published GARCH
+/// benchmarks); <c>variance_start</c> is <c>backcast</c> or <c>sample-variance</c> (or <c>fixed</c>);
+/// <c>long_run_vol</c> is annualized and decimal. <c>gamma</c> is present only for
 /// GJR-GARCH. Values that do not exist (half-life of a non-stationary fit, errors not computed) are null, never NaN.
 /// Numbers are written in the invariant culture in their shortest round-trip form.
 /// </remarks>
@@ -41,6 +44,18 @@ public static class GarchFitJson
         writer.Write(ToJson(fit));
     }
 
+    /// <summary>
+    /// Returns the fit's log-likelihood with the returns expressed in percent: the density of 100·r is that of r
+    /// divided by 100, so it is <see cref="GarchFit.LogLikelihood"/> − n·ln 100 (the parameters scale with the returns).
+    /// </summary>
+    /// <param name="fit">A fit to decimal returns.</param>
+    /// <returns>The log-likelihood in percent units.</returns>
+    public static double PercentLogLikelihood(GarchFit fit)
+    {
+        ArgumentNullException.ThrowIfNull(fit);
+        return fit.LogLikelihood - (fit.ObservationCount * Math.Log(100));
+    }
+
     private static void Write(Utf8JsonWriter json, GarchFit fit)
     {
         var p = fit.Parameters;
@@ -48,6 +63,12 @@ public static class GarchFitJson
         json.WriteStartObject();
         json.WriteString("model", gjr ? "gjr-garch" : "garch");
         json.WriteBoolean("include_mean", fit.IncludeMean);
+        json.WriteString("variance_start", fit.Start switch
+        {
+            VarianceStart.SampleVariance => "sample-variance",
+            VarianceStart.Fixed => "fixed",
+            _ => "backcast",
+        });
         json.WriteNumber("mu", p.Mu);
         json.WriteNumber("omega", p.Omega);
         json.WriteNumber("alpha", p.Alpha);
@@ -58,6 +79,8 @@ public static class GarchFitJson
         }
 
         json.WriteNumber("log_likelihood", fit.LogLikelihood);
+        json.WriteString("log_likelihood_units", "decimal daily log returns");
+        json.WriteNumber("log_likelihood_percent", PercentLogLikelihood(fit));
         json.WriteNumber("persistence", fit.Persistence);
         Numbers.Write(json, "half_life_days", fit.HalfLifeDays);
         Numbers.Write(json, "long_run_vol", fit.LongRunVolatility);

@@ -14,6 +14,9 @@ namespace VolCast.IO.Results;
 /// </summary>
 internal static class MetricsJson
 {
+    /// <summary>The long-run variance every Diebold-Mariano test of a backtest uses, in words.</summary>
+    public const string DmVarianceEstimator = "rectangular: autocovariances to lag h-1 with equal weights (Diebold-Mariano 1995, as R forecast::dm.test varestimator = \"acf\"), with the Harvey-Leybourne-Newbold correction; Bartlett weights at the same lag where that estimate is not positive, marked \"bartlett (rectangular not positive)\" in the test's variance_estimator";
+
     public static void Write(TextWriter writer, BacktestResult result, BacktestCalibration calibration, RulePnlReport? rulePnl = null, string? rulePnlAbsence = null) =>
         writer.Write(JsonText.Build(json => Metrics(json, result, calibration, rulePnl, rulePnlAbsence)));
 
@@ -28,6 +31,7 @@ internal static class MetricsJson
         Pair(json, r.CandidateVersusBaseline);
         json.WriteEndObject();
         json.WriteNumber("hac_lag", r.HacLag);
+        json.WriteString("dm_variance_estimator", DmVarianceEstimator);
 
         json.WriteStartArray("forecasters");
         foreach (var row in ForecasterTable.Rows(r))
@@ -180,6 +184,7 @@ internal static class MetricsJson
         json.WriteStartObject(name);
         json.WriteNumber("n", dm.Count);
         json.WriteNumber("lag", dm.Lag);
+        json.WriteString("variance_estimator", dm.VarianceEstimator);
         Numbers.Write(json, "mean_differential", dm.MeanDifferential);
         Numbers.Write(json, "statistic", dm.Statistic);
         Numbers.Write(json, "p_value", dm.PValue);

@@ -38,6 +38,7 @@ public static class ForecasterTable
         Number("dm_qlike_p", PValue, r => r.Metrics.VersusImplied?.Qlike?.PValue),
         Number("dm_mse_stat", "Diebold-Mariano statistic, negative = lower loss than implied", r => r.Metrics.VersusImplied?.MseVariance?.Statistic),
         Number("dm_mse_p", PValue, r => r.Metrics.VersusImplied?.MseVariance?.PValue),
+        Flag("dm_bartlett_fallback", "true when a Diebold-Mariano test against implied used Bartlett weights because the rectangular long-run variance was not positive", r => DmFallback(r.Metrics.VersusImplied)),
         Number("enc_implied_b", "unitless, weight on implied variance", r => r.Metrics.Encompassing?.ImpliedSlope),
         Number("enc_forecast_c", "unitless, weight on the forecast variance", r => r.Metrics.Encompassing?.ForecastSlope),
         Number("enc_forecast_c_se", "unitless, standard error (Newey-West)", r => r.Metrics.Encompassing?.ForecastStandardError),
@@ -55,6 +56,11 @@ public static class ForecasterTable
     /// <returns>One row per forecaster.</returns>
     public static IEnumerable<ForecasterRow> Rows(BacktestResult result) =>
         result.Metrics.Select(m => new ForecasterRow(m, result.Forecasts.FirstOrDefault(f => f.Spec == m.Spec)));
+
+    private static bool? DmFallback(PairComparison? pair) =>
+        pair?.Qlike is null && pair?.MseVariance is null
+            ? null
+            : (pair.Qlike?.FellBackToBartlett ?? false) || (pair.MseVariance?.FellBackToBartlett ?? false);
 
     /// <summary>The kind as written in the files.</summary>
     /// <param name="kind">The kind.</param>

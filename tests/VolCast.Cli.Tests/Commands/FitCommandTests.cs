@@ -63,6 +63,7 @@ public sealed class FitCommandTests : IDisposable
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("at least 100 daily returns (101 prices)", result.Stderr, StringComparison.Ordinal);
         Assert.Contains("short.csv", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("variance start backcast", result.Stderr, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -74,6 +75,56 @@ public sealed class FitCommandTests : IDisposable
         Assert.Equal(3, result.ExitCode);
         Assert.Contains("constant prices", result.Stderr, StringComparison.Ordinal);
         Assert.False(File.Exists(output));
+        var other = CliRunner.Run("fit", "--prices", prices, "--model", "garch", "--out", output, "--variance-start", "sample-variance");
+        Assert.Equal(3, other.ExitCode);
+        Assert.Contains("variance start sample-variance", other.Stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Fit_Dem2GbpPrices_ReportsTheBenchmarkLogLikelihoodInPercentUnits()
+    {
+        // The Fiorentini, Calzolari and Panattoni (1996) benchmark series (committed from R's fGarch as
+        // tests/VolCast.Core.Tests/Fixtures/Garch/dem2gbp.csv, percent log returns) turned into closes: the fit of their
+        // log returns, which are the series in decimals, must report the certified log-likelihood −1106.608 [C] in
+        // percent units, the benchmark's α = 0.153134 and β = 0.805974 [C], and name its units and start.
+        var percent = File.ReadAllLines(RepositoryRoot.Combine("tests", "VolCast.Core.Tests", "Fixtures", "Garch", "dem2gbp.csv"))
+            .Where(line => line.Length > 0 && !line.StartsWith('#')).Skip(1)
+            .Select(line => double.Parse(line, CultureInfo.InvariantCulture)).ToArray();
+        var closes = new double[percent.Length + 1];
+        closes[0] = 100;
+        for (var i = 0; i < percent.Length; i++)
+        {
+            closes[i + 1] = closes[i] * Math.Exp(percent[i] / 100);
+        }
+
+        var output = _temp.Combine("dem2gbp.json");
+        var result = CliRunner.Run("fit", "--prices", WritePrices("dem2gbp-prices.csv", closes), "--model", "garch", "--out", output);
+
+        Assert.Equal(0, result.ExitCode);
+        Assert.Contains("with returns in percent", result.Stdout, StringComparison.Ordinal);
+        Assert.Contains("variance start backcast", result.Stdout, StringComparison.Ordinal);
+        using var doc = JsonDocument.Parse(File.ReadAllText(output));
+        var root = doc.RootElement;
+        Assert.Equal("backcast", root.GetProperty("variance_start").GetString());
+        Assert.Equal("decimal daily log returns", root.GetProperty("log_likelihood_units").GetString());
+        Assert.Equal(-1106.608, Math.Round(root.GetProperty("log_likelihood_percent").GetDouble(), 3));
+        Assert.Equal(0.153134, Math.Round(root.GetProperty("alpha").GetDouble(), 6));
+        Assert.Equal(0.805974, Math.Round(root.GetProperty("beta").GetDouble(), 6));
+    }
+
+    [Fact]
+    public void Fit_SampleVarianceStart_WritesTheCoreFitWithThatStart()
+    {
+        var closes = SimulatedCloses(800, seed: 7);
+        var output = _temp.Combine("fit-sv.json");
+        var result = CliRunner.Run("fit", "--prices", WritePrices("prices.csv", closes), "--model", "garch", "--variance-start", "sample-variance", "--out", output);
+
+        Assert.Equal(0, result.ExitCode);
+        var expected = GarchFitter.Fit(Returns.LogReturns(closes), new GarchFitOptions { Start = VarianceStart.SampleVariance });
+        using var doc = JsonDocument.Parse(File.ReadAllText(output));
+        Assert.Equal("sample-variance", doc.RootElement.GetProperty("variance_start").GetString());
+        Assert.Equal(expected.Parameters.Alpha, doc.RootElement.GetProperty("alpha").GetDouble());
+        Assert.Equal(expected.LogLikelihood, doc.RootElement.GetProperty("log_likelihood").GetDouble());
     }
 
     [Fact]

@@ -25,6 +25,7 @@ public sealed class FitMessageTests : IDisposable
         Assert.Contains("flat.csv", result.Stderr, StringComparison.Ordinal);
         Assert.Contains("zero variance", result.Stderr, StringComparison.Ordinal);
         Assert.Contains("at least 100 finite daily returns", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("variance start backcast", result.Stderr, StringComparison.Ordinal);
         Assert.DoesNotContain("(Parameter", result.Stderr, StringComparison.Ordinal);
         Assert.DoesNotContain("   at ", result.Stderr, StringComparison.Ordinal);
         Assert.False(File.Exists(output));

@@ -3,6 +3,7 @@ using VolCast.Core.Backtest;
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
 using VolCast.Core.Forecasters;
+using VolCast.Core.Scoring;
 using VolCast.Core.Tests.Forecasters;
 using Xunit.Abstractions;
 
@@ -209,6 +210,16 @@ public sealed class BacktesterTests(ITestOutputHelper output)
         Assert.Equal("close-to-close:21", result.CandidateVersusBaseline.First);
         Assert.NotNull(result.RuleTest);
         Assert.Equal(6, result.RuleTest!.Rows.Length);
+
+        // Every Diebold-Mariano test of the run (head to head, against implied, between forecasters) asks for the
+        // rectangular window at lag h − 1, the standard test (Diebold and Mariano 1995; forecast::dm.test's default).
+        var tests = new[] { result.CandidateVersusBaseline.Qlike, result.CandidateVersusBaseline.MseVariance, vsImplied.Qlike, vsImplied.MseVariance }
+            .Concat(result.Pairs.SelectMany(p => new[] { p.Qlike, p.MseVariance }))
+            .Where(t => t is not null)
+            .ToList();
+        Assert.NotEmpty(tests);
+        Assert.All(tests, t => Assert.Equal(LongRunVarianceWindow.Rectangular, t!.RequestedWindow));
+        Assert.All(tests, t => Assert.Equal(4, t!.Lag));
     }
 
     [Fact]

@@ -28,7 +28,7 @@ public sealed class GarchForecasterTests
         // No forecast before 250 returns (day 250 is the first with 250 returns).
         Assert.All(actual[..250], Assert.Null);
         var realized = Returns.LogReturns(prices.Close);
-        var fit = GarchFitter.Fit(realized.AsSpan(0, 250), new GarchFitOptions { ComputeStandardErrors = false });
+        var fit = GarchFitter.Fit(realized.AsSpan(0, 250), new GarchFitOptions { ComputeStandardErrors = false, GradientTolerance = GarchForecaster.RefitGradientTolerance });
         var p = fit.Parameters;
         Assert.Equal(Expected(p, fit.NextVariance), actual[250]!.Value, 14);
 

@@ -28,7 +28,7 @@ public sealed class GarchFitterReferenceTests
     {
         // Source: R fGarch 4022.89 on EuStockMarkets DAX (Fixtures/Garch/dax-fits.csv), Debian package fit [C].
         var reference = DaxReference.Fit("fGarch", "garch", includeMean);
-        var fit = GarchFitter.Fit(Dax, new GarchFitOptions { IncludeMean = includeMean, Start = VarianceStart.Backcast });
+        var fit = GarchFitter.Fit(Dax, new GarchFitOptions { IncludeMean = includeMean });
 
         Assert.True(fit.Converged, fit.Message);
         var p = fit.Parameters;
@@ -56,7 +56,7 @@ public sealed class GarchFitterReferenceTests
         // of the same likelihood at the same optimum, differing in step and in differencing the gradient (ours) or
         // the value (fGarch): agreement within 5% is what two numeric Hessians support.
         var reference = DaxReference.Fit("fGarch", "garch", true);
-        var fit = GarchFitter.Fit(Dax, new GarchFitOptions { Start = VarianceStart.Backcast });
+        var fit = GarchFitter.Fit(Dax);
 
         var se = fit.StandardErrors!;
         AssertRelative(reference.SeMu!.Value, se.Mu!.Value, 0.05, "se mu");
@@ -99,7 +99,7 @@ public sealed class GarchFitterReferenceTests
         // Source: tseries::garch(x, order = c(1, 1)) 0.10.53, no mean; its logLik sums t = 2..n with h1 = mean(x²),
         // established by the loop in make-dax-fits.R [C].
         var reference = DaxReference.Fit("tseries", "garch", false);
-        var fit = GarchFitter.Fit(Dax, new GarchFitOptions { IncludeMean = false, ConditionOnFirstReturn = true });
+        var fit = GarchFitter.Fit(Dax, new GarchFitOptions { IncludeMean = false, Start = VarianceStart.SampleVariance, ConditionOnFirstReturn = true });
 
         Assert.True(fit.Converged, fit.Message);
         AssertWithin(reference.Omega, fit.Parameters.Omega, SeFraction * reference.SeOmega!.Value, "omega");
@@ -109,13 +109,13 @@ public sealed class GarchFitterReferenceTests
     }
 
     [Fact]
-    public void Fit_DaxDefaultStart_CloseToFGarch()
+    public void Fit_DaxSampleVarianceStart_CloseToFGarch()
     {
-        // Source: fGarch as above [C]. Our default start (σ²₁ = sample variance of residuals) differs from fGarch's
-        // (ω + φ·mean ε²) only in the first day's variance, which moves the estimates by far less than 10% of a
-        // standard error on 1,859 returns.
+        // Source: fGarch as above [C]. The optional start σ²₁ = mean squared residual differs from fGarch's
+        // (ω + φ·mean ε², our default) only in the first day's variance, which moves the estimates by far less than
+        // 10% of a standard error on 1,859 returns.
         var reference = DaxReference.Fit("fGarch", "garch", true);
-        var fit = GarchFitter.Fit(Dax);
+        var fit = GarchFitter.Fit(Dax, new GarchFitOptions { Start = VarianceStart.SampleVariance });
 
         AssertWithin(reference.Alpha, fit.Parameters.Alpha, 0.1 * reference.SeAlpha!.Value, "alpha");
         AssertWithin(reference.Beta, fit.Parameters.Beta, 0.1 * reference.SeBeta!.Value, "beta");

@@ -9,7 +9,7 @@ public sealed class GarchFitterTests(ITestOutputHelper output)
     private static readonly GarchParameters GjrTruth = new(0.0003, 2e-6, 0.03, 0.88, 0.1);
 
     [Theory]
-    // Start kinds 0 = sample variance, 1 = backcast, 2 = fixed; each start and likelihood sum has its own gradient terms for the start value.
+    // Start kinds 0 = backcast, 1 = sample variance, 2 = fixed; each start and likelihood sum has its own gradient terms for the start value.
     [InlineData(GarchVariant.Garch, 0, false)]
     [InlineData(GarchVariant.Garch, 1, false)]
     [InlineData(GarchVariant.GjrGarch, 0, false)]

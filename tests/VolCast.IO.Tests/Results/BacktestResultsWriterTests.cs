@@ -11,7 +11,7 @@ namespace VolCast.IO.Tests.Results;
 
 public sealed class BacktestResultsWriterTests
 {
-    private static (BacktestResult Result, PriceHistory Prices) SmallRun()
+    internal static (BacktestResult Result, PriceHistory Prices) SmallRun()
     {
         // Invented random-walk closes (not reference data), enough for every statistic.
         var random = new Random(3);
@@ -47,12 +47,48 @@ public sealed class BacktestResultsWriterTests
     private static BacktestRunInfo Run() => new("0.1.0-test", [new InputFileInfo("prices", "p.csv", "ab12")], DateTimeOffset.UnixEpoch, DateTimeOffset.UnixEpoch, "decimal", []);
 
     // Writes a whole results folder as the command line does: the data files, then run.json with the manifest.
-    private static ImmutableArray<string> Write(string folder, BacktestResult result, PriceHistory prices)
+    internal static ImmutableArray<string> Write(string folder, BacktestResult result, PriceHistory prices)
     {
         Directory.CreateDirectory(folder);
         var run = new BacktestRun(result, BacktestCalibrator.Evaluate(result, prices), Run(), prices, prices.Count);
         var names = BacktestResultsWriter.WriteData(folder, run);
         return BacktestResultsWriter.WriteRunRecord(folder, run, names);
+    }
+
+    [Fact]
+    public void Write_ForecastsLong_PivotsBackToTheWideFileCellForCell()
+    {
+        // The tidy form (Wickham 2014, "Tidy data", J. Stat. Softw. 59(10)): one row per observation. Pivoting it back
+        // by forecaster, as pandas' pivot or R's reshape would, must give the wide file's every non-empty cell.
+        using var temp = new TempFolder();
+        var (result, prices) = SmallRun();
+        var folder = Path.Combine(temp.Path, "report");
+        Write(folder, result, prices);
+
+        var wide = File.ReadAllLines(Path.Combine(folder, "forecasts.csv"));
+        var header = wide[0].Split(',');
+        var wideCells = new Dictionary<(string Date, string Forecaster), (string Forecast, string Realized, string Implied)>();
+        foreach (var line in wide.Skip(1))
+        {
+            var cells = line.Split(',');
+            for (var k = 3; k < header.Length; k++)
+            {
+                if (cells[k].Length > 0)
+                {
+                    wideCells[(cells[0], header[k])] = (cells[k], cells[1], cells[2]);
+                }
+            }
+        }
+
+        var tidy = File.ReadAllLines(Path.Combine(folder, "forecasts-long.csv"));
+        Assert.Equal("date,forecaster,forecast,realized,implied", tidy[0]);
+        Assert.Equal(wideCells.Count, tidy.Length - 1);
+        foreach (var line in tidy.Skip(1))
+        {
+            var cells = line.Split(',');
+            Assert.True(wideCells.TryGetValue((cells[0], cells[1]), out var expected), line);
+            Assert.Equal(expected, (cells[2], cells[3], cells[4]));
+        }
     }
 
     [Fact]
@@ -85,6 +121,10 @@ public sealed class BacktestResultsWriterTests
         Assert.Equal(result.Metrics.Length, rows.GetArrayLength());
         Assert.Equal(JsonValueKind.Null, rows[0].GetProperty("dm_qlike_stat").ValueKind); // implied vs itself: null, not NaN
         Assert.Equal(result.Metrics[1].Losses!.Qlike, rows[1].GetProperty("qlike").GetDouble());
+        // The Diebold-Mariano variance estimator is named for the run and for each test (rectangular unless it fell back).
+        Assert.StartsWith("rectangular: autocovariances to lag h-1", json.RootElement.GetProperty("dm_variance_estimator").GetString(), StringComparison.Ordinal);
+        var headToHead = json.RootElement.GetProperty("baseline_vs_candidate").GetProperty("comparison").GetProperty("dm_qlike");
+        Assert.Equal(result.CandidateVersusBaseline.Qlike!.VarianceEstimator, headToHead.GetProperty("variance_estimator").GetString());
         var metricsCsv = File.ReadAllLines(Path.Combine(folder, "metrics.csv"));
         Assert.Equal(result.Metrics.Length + 1, metricsCsv.Length);
     }
@@ -103,7 +143,7 @@ public sealed class BacktestResultsWriterTests
         Assert.Equal(
             ["forecaster", "kind", "n", "missing", "bias", "mae_vol", "rmse_vol", "mse_var", "qlike",
              "mz_a", "mz_b", "mz_a_se", "mz_b_se", "mz_r2", "mz_wald", "mz_wald_p",
-             "dm_n", "dm_qlike_stat", "dm_qlike_p", "dm_mse_stat", "dm_mse_p",
+             "dm_n", "dm_qlike_stat", "dm_qlike_p", "dm_mse_stat", "dm_mse_p", "dm_bartlett_fallback",
              "enc_implied_b", "enc_forecast_c", "enc_forecast_c_se", "enc_forecast_c_p",
              "mcs_p", "in_mcs", "refits", "failed_fits", "nonstationary_fits", "variance_fallbacks"],
             header);

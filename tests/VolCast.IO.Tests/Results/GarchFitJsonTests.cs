@@ -38,6 +38,10 @@ public sealed class GarchFitJsonTests
         Assert.Equal(fit.Parameters.Beta, root.GetProperty("beta").GetDouble());
         Assert.False(root.TryGetProperty("gamma", out _));
         Assert.Equal(fit.LogLikelihood, root.GetProperty("log_likelihood").GetDouble());
+        Assert.Equal("decimal daily log returns", root.GetProperty("log_likelihood_units").GetString());
+        // Returns in percent are 100 times the decimals, so their density is 1/100 of it: n·ln 100 lower (change of variables).
+        Assert.Equal(fit.LogLikelihood - (1859 * Math.Log(100)), root.GetProperty("log_likelihood_percent").GetDouble(), 9);
+        Assert.Equal("backcast", root.GetProperty("variance_start").GetString());
         Assert.Equal(fit.Persistence, root.GetProperty("persistence").GetDouble());
         Assert.Equal(fit.HalfLifeDays!.Value, root.GetProperty("half_life_days").GetDouble());
         Assert.Equal(0.1234, root.GetProperty("long_run_vol").GetDouble());
@@ -47,6 +51,14 @@ public sealed class GarchFitJsonTests
         Assert.Equal(0.0148, root.GetProperty("standard_errors").GetProperty("alpha").GetDouble());
         Assert.Equal(JsonValueKind.Null, root.GetProperty("robust_standard_errors").ValueKind);
         Assert.Equal(0, root.GetProperty("parameters_on_bound").GetArrayLength());
+    }
+
+    [Fact]
+    public void ToJson_SampleVarianceStart_NamesIt()
+    {
+        var fit = Fit(GarchVariant.Garch, null) with { Start = VarianceStart.SampleVariance };
+        using var doc = JsonDocument.Parse(GarchFitJson.ToJson(fit));
+        Assert.Equal("sample-variance", doc.RootElement.GetProperty("variance_start").GetString());
     }
 
     [Fact]
