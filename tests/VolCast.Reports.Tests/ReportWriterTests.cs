@@ -18,6 +18,7 @@ public sealed class ReportWriterTests
     private static readonly BacktestSettings Settings = new()
     {
         Forecasters = ["close-to-close:5", "close-to-close:21", "ewma:0.94", "garch"],
+        FullSweep = true,
         SweepEstimators = [Core.Estimators.Estimator.CloseToClose, Core.Estimators.Estimator.YangZhang],
         SweepLookbacks = [10, 21, 63],
         EwmaLambdas = [0.94, 0.97],
