@@ -50,7 +50,10 @@ internal sealed record BacktestJob(
     /// <summary>Gets the unit of the forecasts file's values.</summary>
     public ImpliedUnit ForecastsUnit { get; init; } = ImpliedUnit.Infer;
 
+    /// <summary>Gets the events file (dates whose forecast windows are scored apart), or null.</summary>
+    public string? Events { get; init; }
+
     /// <summary>Gets every input file of the job.</summary>
     public IEnumerable<string> Inputs =>
-        new[] { Prices, Implied, Config, Forecasts }.OfType<string>();
+        new[] { Prices, Implied, Config, Forecasts, Events }.OfType<string>();
 }

@@ -63,8 +63,12 @@ internal static class BacktestPipeline
         progress?.Report(new BacktestProgress("reading inputs", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
 
+        var events = job.Events is null ? (InputBytes?)null : InputBytes.Read(job.Events);
+        IReadOnlyList<MarketEvent>? eventList = events is null ? null : EventsFileReader.Read(events);
+
         stage?.Invoke(BacktestStage.Forecast);
         var result = Forecast(job, prices, implied, userForecasts, progress, cancellationToken);
+        var groups = GroupedScores.Compute(result, prices.History, eventList);
 
         // Do the odds hold? N(d2) probabilities at the default strikes and the forecast move bands, on the same dates and prices.
         stage?.Invoke(BacktestStage.Calibrate);
@@ -79,7 +83,7 @@ internal static class BacktestPipeline
         var (rulePnl, absence) = RulePnlEvaluator.Evaluate(result, prices.History, cancellationToken);
         progress?.Report(new BacktestProgress("trading the rule", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
-        var info = Info(job, prices, implied, userForecasts, warnings, started) with
+        var info = Info(job, prices, implied, userForecasts, warnings, started, events) with
         {
             InputNotes = notes,
             Suspect = job.Checks.Suspect.ToString().ToLowerInvariant(),
@@ -91,6 +95,7 @@ internal static class BacktestPipeline
             RejectedRows = rejected,
             RulePnl = rulePnl,
             RulePnlAbsence = absence,
+            Groups = groups,
         };
 
         stage?.Invoke(BacktestStage.WriteData);
@@ -206,7 +211,7 @@ internal static class BacktestPipeline
         }
     }
 
-    private static BacktestRunInfo Info(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, UserForecastsLoad? userForecasts, ImmutableArray<string> warnings, DateTimeOffset started)
+    private static BacktestRunInfo Info(BacktestJob job, PriceLoad prices, ImpliedLoad? implied, UserForecastsLoad? userForecasts, ImmutableArray<string> warnings, DateTimeOffset started, InputBytes? events)
     {
         var inputs = ImmutableArray.CreateBuilder<InputFileInfo>();
         inputs.Add(new InputFileInfo("prices", job.Prices, prices.Sha256));
@@ -218,6 +223,11 @@ internal static class BacktestPipeline
         if (userForecasts is not null)
         {
             inputs.Add(new InputFileInfo("forecasts", job.Forecasts!, userForecasts.Sha256));
+        }
+
+        if (events is not null)
+        {
+            inputs.Add(new InputFileInfo("events", events.Path, events.Sha256));
         }
 
         if (job.Config is not null)

@@ -15,8 +15,30 @@ internal static class ReportSeries
     /// <summary>How many forecasters the time-series charts draw, so 20 years of daily lines stay readable.</summary>
     public const int LeadingCount = 3;
 
-    /// <summary>The forecasters (implied excluded) with a QLIKE score, best (lowest) first; ties keep configuration order.</summary>
+    /// <summary>
+    /// The forecasters (implied excluded) with a QLIKE score, best (lowest) first; ties keep configuration order. With
+    /// common dates, the members come first, ranked on those dates and carrying their common-date losses and tests against
+    /// implied, then the forecasters left out of the common set (too few dates), on their own dates.
+    /// </summary>
     public static IReadOnlyList<ForecasterMetrics> Ranked(BacktestResult result)
+    {
+        if (result.Common is { Count: > 0, Rows.Length: > 0 } common)
+        {
+            var members = common.Rows.Where(r => r.Kind != ForecastKind.Implied)
+                .Select(r => result.Metrics.First(m => m.Spec == r.Spec) with { Losses = r.Losses, VersusImplied = r.VersusImplied });
+            var late = OwnDates(result).Where(m => !common.Rows.Any(r => r.Spec == m.Spec));
+            return [.. members, .. late];
+        }
+
+        return OwnDates(result);
+    }
+
+    /// <summary>Implied's losses on the dates the ranking uses: the common dates when there are any, else its own.</summary>
+    public static LossSummary? ImpliedLosses(BacktestResult result) =>
+        result.Common?.Rows.FirstOrDefault(r => r.Kind == ForecastKind.Implied)?.Losses
+        ?? result.Metrics.FirstOrDefault(m => m.Kind == ForecastKind.Implied)?.Losses;
+
+    private static List<ForecasterMetrics> OwnDates(BacktestResult result)
     {
         var rows = new List<ForecasterMetrics>();
         foreach (var m in result.Metrics)
@@ -51,9 +73,10 @@ internal static class ReportSeries
         return Collect(result, spec, i => series.Values[i]);
     }
 
-    /// <summary>Implied minus realized volatility on the dates with both.</summary>
+    /// <summary>Implied minus realized volatility on the dates with both; with common dates, on those only, so the page has one premium figure.</summary>
     public static TimeSeries Premium(BacktestResult result) =>
-        Collect(result, "implied − realized", i => result.Implied[i] is double iv && result.Realized[i] is double rv ? iv - rv : null);
+        Collect(result, "implied − realized", i =>
+            result.Implied[i] is double iv && result.Realized[i] is double rv && (result.Common is not { Count: > 0 } c || c.OnCommonDates[i]) ? iv - rv : null);
 
     /// <summary>QLIKE(forecaster) − QLIKE(implied) on the dates where the forecaster, implied and a positive realized target exist.</summary>
     public static TimeSeries QlikeDifferential(BacktestResult result, string spec)

@@ -87,17 +87,19 @@ public static class ReportWriter
         cancellationToken.ThrowIfCancellationRequested();
         var odds = ReportOdds.Build(result, run.Calibration);
         var pnl = ReportPnl.Build(run.RulePnl, run.RulePnlAbsence, result.Settings.Horizon, cancellationToken);
+        var quality = Quality(result, info, run.PriceRowsRead);
         return new ReportModel(
             title,
             ReportVerdict.Build(result, run.RulePnl),
             ReportTables.Build(result),
             charts,
-            Quality(result, info, run.PriceRowsRead),
+            quality with { Notes = [.. quality.Notes, .. ReportAnswers.EventLines(run.Groups)] },
             new RunInfo(info.ToolVersion, info.StartedUtc, info.FinishedUtc - info.StartedUtc, Settings(result, info), [.. info.Inputs.Select(i => new InputFile(i.Role, i.Path, i.Sha256))]))
         {
             Odds = odds,
             Pnl = pnl,
             Now = ReportNow.Build(Core.Now.NowReading.From(result, run.Prices)),
+            Answers = ReportAnswers.Tables(result, run.Groups),
         };
     }
 

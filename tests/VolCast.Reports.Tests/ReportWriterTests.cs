@@ -18,6 +18,7 @@ public sealed class ReportWriterTests
     private static readonly BacktestSettings Settings = new()
     {
         Forecasters = ["close-to-close:5", "close-to-close:21", "ewma:0.94", "garch"],
+        FullSweep = true,
         SweepEstimators = [Core.Estimators.Estimator.CloseToClose, Core.Estimators.Estimator.YangZhang],
         SweepLookbacks = [10, 21, 63],
         EwmaLambdas = [0.94, 0.97],
@@ -43,13 +44,15 @@ public sealed class ReportWriterTests
     [Fact]
     public void Build_Verdict_NamesTheLowestQlikeForecasterFirst()
     {
-        var lowest = WithImplied.Metrics.Where(m => m.Kind != ForecastKind.Implied && m.Losses is not null).MinBy(m => m.Losses!.Qlike)!;
+        // Ranked on the dates every compared forecaster and implied share, so the leader is the lowest there.
+        var lowest = WithImplied.Common!.Rows.Where(r => r.Kind != ForecastKind.Implied).MinBy(r => r.Losses.Qlike)!;
 
         var model = ReportWriter.Build(Of(WithImplied, Run));
 
         Assert.StartsWith($"{lowest.Spec} ranks first on QLIKE", model.Verdict.Headline, StringComparison.Ordinal);
         Assert.Contains("DM ", model.Verdict.Headline, StringComparison.Ordinal);
-        Assert.StartsWith("Head to head on ", model.Verdict.Points[0], StringComparison.Ordinal);
+        Assert.StartsWith(string.Create(System.Globalization.CultureInfo.InvariantCulture, $"The ranking, the verdict, the head-to-head and the premium use the {WithImplied.Common.Count} dates"), model.Verdict.Points[0], StringComparison.Ordinal);
+        Assert.StartsWith("Head to head on ", model.Verdict.Points[1], StringComparison.Ordinal);
         Assert.Contains(model.Verdict.Points, p => p.Contains("model confidence set", StringComparison.Ordinal));
         Assert.DoesNotContain(model.Verdict.Points, p => p.StartsWith("Adaptive", StringComparison.Ordinal));
         Assert.Equal("Head to head: candidate garch against baseline close-to-close:21", model.Tables[0].Title);
@@ -82,6 +85,22 @@ public sealed class ReportWriterTests
     }
 
     [Fact]
+    public void Lookback_SeveralTied_SaysTheyAreTiedInsteadOfNamingTheInSampleBestAsTheWinner()
+    {
+        // The answer the report must give when 42 to 252 days are all in the confidence set (invented numbers).
+        var answer = new LookbackAnswer(
+            "yang-zhang", ["yang-zhang:21", "yang-zhang:42", "yang-zhang:63", "yang-zhang:252"], 2000, "yang-zhang:252", "yang-zhang:63",
+            ["yang-zhang:42", "yang-zhang:63", "yang-zhang:252"], [0.01, 0.4, 0.7, 1.0], 0.9, 21, "yang-zhang:63", 0.55, 12, 1500, null);
+        var sentence = ReportAnswers.Lookback(WithImplied with { Lookbacks = [answer] }, "yang-zhang")!;
+
+        Assert.Equal(
+            "Which yang-zhang lookback: yang-zhang:252 has the lowest loss in-sample, the walk-forward choice on the last date is yang-zhang:63; 42 to 252 days (yang-zhang:42, yang-zhang:63, yang-zhang:252) are all statistically tied with the best (90% model confidence set), so the data do not single one out; out of sample it chose yang-zhang:63 on 55% of 1500 dates and changed 12 times.",
+            sentence);
+        var row = ReportAnswers.Tables(WithImplied with { Lookbacks = [answer] }, GroupedResults.Empty).Single(t => t.Title == "Which lookback").Rows.Single();
+        Assert.Equal(["yang-zhang", "yang-zhang:252 (in-sample)", "yang-zhang:63", "yang-zhang:42, yang-zhang:63, yang-zhang:252", "yang-zhang:63 (55%)", "12", "2000"], row);
+    }
+
+    [Fact]
     public void Premium_IsImpliedMinusRealizedOnDatesWithBoth()
     {
         var premium = ReportSeries.Premium(WithImplied);
@@ -89,7 +108,8 @@ public sealed class ReportWriterTests
         var expected = new List<(DateOnly, double)>();
         for (var i = 0; i < WithImplied.Dates.Length; i++)
         {
-            if (WithImplied.Implied[i] is double iv && WithImplied.Realized[i] is double rv)
+            // The premium is measured on the common dates, the same as the verdict's.
+            if (WithImplied.Implied[i] is double iv && WithImplied.Realized[i] is double rv && WithImplied.Common!.OnCommonDates[i])
             {
                 expected.Add((WithImplied.Dates[i], iv - rv));
             }

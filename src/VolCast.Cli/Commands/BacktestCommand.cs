@@ -32,10 +32,11 @@ internal static class BacktestCommand
         var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
         suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
+        var events = new Option<string?>("--events") { Description = "Events CSV (date[, kind][, scheduled]): forecast windows that contain an event are scored apart, scheduled events apart from dates added after the fact. Optional." };
         var workbook = new Option<bool>("--workbook") { Description = BacktestOptions.WorkbookHelp };
         var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
-            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows, workbook, forecasts, forecastsUnit,
+            prices, implied, ivUnit, impliedTenor, config, horizon, tenor, start, end, output, force, suspect, skipBadRows, workbook, events, forecasts, forecastsUnit,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -54,7 +55,8 @@ internal static class BacktestCommand
             formatOptions,
             parse.GetValue(suspect),
             parse.GetValue(skipBadRows),
-            parse.GetValue(workbook))
+            parse.GetValue(workbook),
+            parse.GetValue(events))
         {
             Forecasts = parse.GetValue(forecasts),
             ForecastsUnit = parse.GetValue(forecastsUnit),
@@ -75,6 +77,7 @@ internal static class BacktestCommand
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
             Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
             Workbook = BacktestOptions.Workbook(a.Config, a.Workbook),
+            Events = a.Events,
         };
         var (configForecasts, configForecastsUnit) = a.Config is null ? (null, ImpliedUnit.Infer) : BacktestConfigFile.ReadForecasts(a.Config);
         job = job with
@@ -127,7 +130,7 @@ internal static class BacktestCommand
 
     private sealed record Arguments(
         string Prices, string? Implied, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Start, string? End, string? Out, bool Force,
-        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, bool Workbook)
+        string? ImpliedTenor, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, bool Workbook, string? Events)
     {
         public string? Forecasts { get; init; }
 

@@ -69,4 +69,10 @@ public sealed record BacktestResult
 
     /// <summary>Gets warnings raised while running (a statistic that could not be computed, and why).</summary>
     public required ImmutableArray<string> Warnings { get; init; }
+
+    /// <summary>Gets every compared forecaster and implied on the dates all of them share: the ranking, the verdict and the head-to-head use these dates; null when the result was built without it.</summary>
+    public CommonDateRanking? Common { get; init; }
+
+    /// <summary>Gets the answer to "which lookback?", one per swept family (empty when the sweep is off).</summary>
+    public ImmutableArray<LookbackAnswer> Lookbacks { get; init; } = [];
 }

@@ -41,6 +41,14 @@ public sealed record BacktestSettings
     /// <summary>Gets a value indicating whether the lookback sweep and the adaptive forecasters run (true by default).</summary>
     public bool Sweep { get; init; } = true;
 
+    /// <summary>
+    /// Gets a value indicating whether every family of <see cref="SweepEstimators"/> (and EWMA) is swept. False (the
+    /// default) sweeps only the families of the listed forecasters: an estimator window such as <c>yang-zhang:21</c>
+    /// sweeps its estimator, an <c>ewma</c> spec sweeps the EWMA decays; a configuration that names sweepEstimators asks
+    /// for them in full.
+    /// </summary>
+    public bool FullSweep { get; init; }
+
     /// <summary>Gets the estimator families swept; by default all five (range-based ones are skipped on a close-only history).</summary>
     public ImmutableArray<Estimator> SweepEstimators { get; init; } =
         [Estimator.CloseToClose, Estimator.Parkinson, Estimator.GarmanKlass, Estimator.RogersSatchell, Estimator.YangZhang];

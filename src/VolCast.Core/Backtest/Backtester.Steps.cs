@@ -106,7 +106,7 @@ public static partial class Backtester
             all.TryAdd(f.Spec, f);
         }
 
-        var families = SweepFamilies(settings, hasRange);
+        var families = SweepFamilies(settings, hasRange, configured);
         foreach (var (_, candidates) in families)
         {
             foreach (var c in candidates)
@@ -216,7 +216,8 @@ public static partial class Backtester
         return list;
     }
 
-    private static List<(string Family, IVolatilityForecaster[] Candidates)> SweepFamilies(BacktestSettings settings, bool hasRange)
+    private static List<(string Family, IVolatilityForecaster[] Candidates)> SweepFamilies(
+        BacktestSettings settings, bool hasRange, List<IVolatilityForecaster> configured)
     {
         var families = new List<(string, IVolatilityForecaster[])>();
         if (!settings.Sweep)
@@ -224,9 +225,11 @@ public static partial class Backtester
             return families;
         }
 
+        // Unless the full sweep is asked for, only the families the user listed are swept.
+        var listed = configured.OfType<HistoricalWindowForecaster>().Select(f => f.Estimator).ToHashSet();
         foreach (var estimator in settings.SweepEstimators.Distinct())
         {
-            if (EstimatorNames.NeedsRange(estimator) && !hasRange)
+            if ((EstimatorNames.NeedsRange(estimator) && !hasRange) || (!settings.FullSweep && !listed.Contains(estimator)))
             {
                 continue;
             }
@@ -238,7 +241,7 @@ public static partial class Backtester
             }
         }
 
-        if (!settings.EwmaLambdas.IsDefaultOrEmpty)
+        if (!settings.EwmaLambdas.IsDefaultOrEmpty && (settings.FullSweep || configured.OfType<EwmaForecaster>().Any()))
         {
             families.Add(("ewma", settings.EwmaLambdas.Distinct().Select(l => (IVolatilityForecaster)new EwmaForecaster(l)).ToArray()));
         }

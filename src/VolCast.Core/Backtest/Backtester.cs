@@ -65,9 +65,12 @@ public static partial class Backtester
         var named = SeriesToScore(join, plan.Configured, sessions, adaptive);
         var warnings = new List<string>();
         var scores = ScoresAndTests(frame, scored, named, join, settings, plan.Configured, warnings, cancellationToken);
+        var common = CommonDates(frame, scored, named, join, scores.ConfidenceSet, scores.Baseline, scores.Candidate);
+        scores = scores with { CandidateVersusBaseline = common.HeadToHead ?? scores.CandidateVersusBaseline };
         var sweep = Sweep(plan.Families, sessions.Series, scored.Dates, frame.Windows.Realized);
+        var lookbacks = LookbackAnswers(frame, scored, plan.Families, sessions.Series, adaptive, settings, cancellationToken);
         var rule = RuleStep(frame, scored, named, join, settings, scores, plan, sessions.Series);
         progress?.Report(new BacktestProgress("scoring", 1, 1));
-        return Assemble(settings, frame, join, plan, scored, named, adaptive, scores, sweep, rule, warnings);
+        return Assemble(settings, frame, join, plan, scored, named, adaptive, scores, sweep, rule, warnings) with { Common = common.Ranking, Lookbacks = lookbacks };
     }
 }

@@ -15,6 +15,8 @@ internal sealed class BacktestConfigDocument
 
     public bool? Sweep { get; set; }
 
+    public bool? FullSweep { get; set; }
+
     public string[]? SweepEstimators { get; set; }
 
     public int[]? SweepLookbacks { get; set; }

@@ -208,6 +208,9 @@ public static partial class BacktestConfigFile
         s = s with
         {
             Sweep = doc.Sweep ?? s.Sweep,
+
+            // Naming the estimators to sweep asks for them in full; otherwise the listed forecasters' families are swept.
+            FullSweep = doc.FullSweep ?? (doc.SweepEstimators is not null || s.FullSweep),
             SweepLookbacks = doc.SweepLookbacks is null ? s.SweepLookbacks : [.. doc.SweepLookbacks],
             EwmaLambdas = doc.EwmaLambdas is null ? s.EwmaLambdas : [.. doc.EwmaLambdas],
             SelectionWindowDays = doc.SelectionWindowDays ?? s.SelectionWindowDays,

@@ -35,7 +35,7 @@ public static class BacktestResultsWriter
 
     /// <summary>Gets the names of the data files this writer can produce, run.json included (trades.csv and rule-pnl.csv only with the rule's trades).</summary>
     public static IReadOnlyList<string> FileNames { get; } =
-        ["forecasts.csv", ForecastsLongCsv.FileName, "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName, NowJson.FileName];
+        ["forecasts.csv", ForecastsLongCsv.FileName, "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName, NowJson.FileName, GroupsCsv.FileName];
 
     /// <summary>Writes every data file except run.json into <paramref name="folder"/>, checking for cancellation between files.</summary>
     /// <param name="folder">An existing folder (the caller's staging folder); no file of these names may exist in it.</param>
@@ -65,6 +65,11 @@ public static class BacktestResultsWriter
         {
             steps.Add((TradesFileName, path => AtomicFile.WriteText(path, w => TradesCsv.Write(w, rulePnl))));
             steps.Add((RulePnlFileName, path => AtomicFile.WriteText(path, w => RulePnlCsv.Write(w, rulePnl))));
+        }
+
+        if (!run.Groups.Rows.IsEmpty)
+        {
+            steps.Add((GroupsCsv.FileName, path => AtomicFile.WriteText(path, w => GroupsCsv.Write(w, run.Groups))));
         }
 
         var written = new List<string>(steps.Count);

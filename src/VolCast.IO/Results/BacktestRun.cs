@@ -29,4 +29,7 @@ public sealed record BacktestRun(
 
     /// <summary>Gets why <see cref="RulePnl"/> is null (for example: no implied series was given), or null when it was run.</summary>
     public string? RulePnlAbsence { get; init; }
+
+    /// <summary>Gets the results by calendar year, by volatility regime and by event windows (<see cref="GroupedScores.Compute"/>).</summary>
+    public GroupedResults Groups { get; init; } = GroupedResults.Empty;
 }

@@ -57,6 +57,7 @@ internal static class RunJson
         json.WriteString("last_forecast_date", r.Dates[^1].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
         Strings(json, "forecasters", s.Forecasters);
         json.WriteBoolean("sweep", s.Sweep);
+        json.WriteBoolean("full_sweep", s.FullSweep);
         Strings(json, "sweepEstimators", s.SweepEstimators.Select(Core.Estimators.EstimatorNames.Name));
         json.WriteStartArray("sweepLookbacks");
         foreach (var w in s.SweepLookbacks)

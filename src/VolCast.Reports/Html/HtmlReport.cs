@@ -12,7 +12,7 @@ namespace VolCast.Reports.Html;
 /// </summary>
 /// <remarks>
 /// Sections, in order: now (today's reading), verdict, "Would the rule have paid?" (the rule as delta-hedged straddles, or why it was not
-/// run), metrics, charts, "Do the odds hold?" (probability calibration and range coverage),
+/// run), answers (common-date ranking, which lookback, by year, regime and events), metrics, charts, "Do the odds hold?" (probability calibration and range coverage),
 /// data quality, run details, cautions. Every string from the model is
 /// HTML-escaped; numbers are formatted with the invariant culture, so the same model gives the same bytes.
 /// </remarks>
@@ -22,7 +22,7 @@ internal static class HtmlReport
     public const string ContentSecurityPolicy = "default-src 'none'; img-src data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'";
 
     /// <summary>The section ids, in the order they appear.</summary>
-    public static IReadOnlyList<string> SectionIds { get; } = ["now", "verdict", "pnl", "metrics", "charts", "odds", "data-quality", "run", "cautions"];
+    public static IReadOnlyList<string> SectionIds { get; } = ["now", "verdict", "pnl", "answers", "metrics", "charts", "odds", "data-quality", "run", "cautions"];
 
     private const string Css = """
         body{font-family:"DejaVu Sans",Arial,Helvetica,sans-serif;color:#111;background:#fff;max-width:1240px;margin:0 auto;padding:16px 24px;line-height:1.45}
@@ -63,6 +63,7 @@ internal static class HtmlReport
         Now(html, model.Now);
         Verdict(html, model.Verdict);
         Pnl(html, model.Pnl);
+        Answers(html, model.Answers);
         Metrics(html, model.Tables);
         Charts(html, model.Charts);
         Odds(html, model.Odds);
@@ -169,6 +170,22 @@ internal static class HtmlReport
         }
 
         html.Append("</tbody>\n</table>\n</section>\n");
+    }
+
+    private static void Answers(StringBuilder html, IReadOnlyList<TextTable> tables)
+    {
+        html.Append("<section id=\"answers\">\n<h2>Which forecaster, which lookback, and when</h2>\n");
+        if (tables.Count == 0)
+        {
+            html.Append("<p>No common dates to rank on.</p>\n");
+        }
+
+        foreach (var table in tables)
+        {
+            TextTable(html, table);
+        }
+
+        html.Append("</section>\n");
     }
 
     private static void TextTable(StringBuilder html, TextTable table)

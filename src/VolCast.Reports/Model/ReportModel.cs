@@ -26,4 +26,7 @@ internal sealed record ReportModel(
 
     /// <summary>The "Would the rule have paid?" section, or null when the report was built without it (the page then says it was not run).</summary>
     public PnlSection? Pnl { get; init; }
+
+    /// <summary>The tables of the "Which forecaster, which lookback, and when" section; empty leaves the section out.</summary>
+    public IReadOnlyList<TextTable> Answers { get; init; } = [];
 }

@@ -71,6 +71,37 @@ public sealed class BacktestCommandTests : IDisposable
     }
 
     [Fact]
+    public void Backtest_EventsFileWithUnparseableDate_Exit3NamingFileLineAndColumnAndWritesNothing()
+    {
+        var events = _temp.Combine("events.csv");
+        File.WriteAllText(events, "date,kind\n2021-03-17,central-bank\nMarch 18,earnings\n");
+        var result = CliRunner.Run("backtest", "--prices", _prices, "--events", events, "--out", _temp.Combine("x"));
+        Assert.Equal(3, result.ExitCode);
+        Assert.Contains("events.csv", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("line 3", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("date", result.Stderr, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(_temp.Combine("x")));
+    }
+
+    [Fact]
+    public void Backtest_EventsFile_WritesGroupsCsvWithEventRowsAndListsTheEventsInTheReport()
+    {
+        var events = _temp.Combine("events.csv");
+        File.WriteAllText(events, "date,kind,scheduled\n2006-03-15,central-bank,yes\n2006-06-14,central-bank,yes\n2007-02-27,selloff,no\n");
+        var output = _temp.Combine("ev");
+        var result = CliRunner.Run("backtest", "--prices", _prices, "--implied", _implied, "--iv-unit", "decimal", "--events", events, "--out", output,
+            "--config", WriteConfig("ev.json", "{ \"sweep\": false, \"forecasters\": [\"ewma:0.94\", \"close-to-close:21\"] }"));
+        Assert.True(result.ExitCode == 0, result.Stderr);
+        var groups = File.ReadAllLines(Path.Combine(output, "groups.csv"));
+        Assert.Equal("grouping,group,forecaster,n,qlike,implied_qlike,dm_qlike_stat,dm_qlike_p", groups[0]);
+        Assert.Contains(groups, l => l.StartsWith("year,", StringComparison.Ordinal));
+        Assert.Contains(groups, l => l.StartsWith("events,without events,", StringComparison.Ordinal));
+        var report = File.ReadAllText(Path.Combine(output, "report.html"));
+        Assert.Contains("2007-02-27 selloff, added after the fact", report, StringComparison.Ordinal);
+        Assert.Contains("hindsight", report, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Backtest_NoSharedImpliedDates_Exit3()
     {
         var implied = CsvFiles.WriteImplied(_temp.Combine("old.csv"), new ImpliedSeries([new DateOnly(1990, 1, 2), new DateOnly(1990, 1, 3)], [0.2, 0.2]));

@@ -259,10 +259,23 @@ public sealed class BacktesterTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void Run_WithoutFullSweep_SweepsOnlyTheFamiliesOfTheListedForecasters()
+    {
+        // Listed: close-to-close and yang-zhang windows, EWMA, GARCH and HAR; GARCH and HAR have no lookback to sweep.
+        var prices = ForecastData.Bars(520, seed: 13);
+        var result = Backtester.Run(prices, null, Small(5));
+        Assert.Equal(["close-to-close", "yang-zhang", "ewma"], result.Adaptive.Select(a => a.Family).ToArray());
+        Assert.Equal(["close-to-close", "yang-zhang", "ewma"], result.Lookbacks.Select(a => a.Family).ToArray());
+
+        var noWindows = Backtester.Run(prices, null, Small(5) with { Forecasters = ["garch", "har"] });
+        Assert.Empty(noWindows.Adaptive);
+    }
+
+    [Fact]
     public void Run_AdaptiveChoice_UsesOnlyCandidatesAndReportsChanges()
     {
         var prices = ForecastData.Bars(520, seed: 13);
-        var result = Backtester.Run(prices, null, Small(5));
+        var result = Backtester.Run(prices, null, Small(5) with { FullSweep = true });
         Assert.Equal(["close-to-close", "parkinson", "garman-klass", "rogers-satchell", "yang-zhang", "ewma"], result.Adaptive.Select(a => a.Family).ToArray());
         foreach (var adaptive in result.Adaptive)
         {

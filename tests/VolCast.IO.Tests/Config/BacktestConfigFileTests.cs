@@ -7,6 +7,14 @@ namespace VolCast.IO.Tests.Config;
 public sealed class BacktestConfigFileTests
 {
     [Fact]
+    public void Parse_FullSweep_IsOffByDefaultAndOnWhenAsked()
+    {
+        Assert.False(BacktestConfigFile.Parse("{}", "c.json").FullSweep);
+        Assert.True(BacktestConfigFile.Parse("{ \"fullSweep\": true }", "c.json").FullSweep);
+        Assert.False(BacktestConfigFile.Parse("{ \"fullSweep\": false, \"sweepEstimators\": [\"parkinson\"] }", "c.json").FullSweep);
+    }
+
+    [Fact]
     public void Parse_EmptyObject_GivesEveryDefault()
     {
         var s = BacktestConfigFile.Parse("{}", "c.json");
@@ -44,6 +52,7 @@ public sealed class BacktestConfigFileTests
         Assert.Equal(new DateOnly(2015, 1, 2), s.Start);
         Assert.Equal(new DateOnly(2020, 12, 31), s.End);
         Assert.Equal([Estimator.Parkinson], s.SweepEstimators.ToArray());
+        Assert.True(s.FullSweep); // naming the estimators to sweep asks for them in full
         Assert.Equal([5, 10], s.SweepLookbacks.ToArray());
         Assert.Equal([0.95], s.EwmaLambdas.ToArray());
         Assert.Equal(252, s.SelectionWindowDays);
