@@ -83,7 +83,7 @@ public static class RulePnlEvaluator
             var nextDay = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading with { EntryTiming = EntryTiming.NextClose });
             cancellationToken.ThrowIfCancellationRequested();
 
-            var options = new DataSnoopingOptions(settings.SnoopingBlockLength ?? atClose.HorizonDays, settings.SnoopingSeed, settings.SnoopingReplications);
+            var options = new DataSnoopingOptions(settings.SnoopingBlockLength ?? AutomaticBlockLength.Of(atClose.SnoopingDifferences, atClose.HorizonDays), settings.SnoopingSeed, settings.SnoopingReplications);
             var days = atClose.Dates.Length;
             var draws = DataSnooping.Draw(days, options);
             var means = DataSnooping.TestMeans(atClose.SnoopingDifferences, draws, options.Level);
