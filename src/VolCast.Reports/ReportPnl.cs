@@ -64,8 +64,9 @@ internal static class ReportPnl
         var test = Test(switching.Test);
         var best = Label(close, report.Means, report.Means.BestRule);
         var survives = report.Means.Spa.Consistent < 0.05 ? "survives" : "does not survive";
+        var currentNote = report.CurrentRuleNote is string note ? " (" + note + ")" : string.Empty;
         return string.Create(C,
-            $"Switching from the current rule to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:0.00} vol points; the best rule's edge over always-sell ({best}) {survives} the data-snooping test (SPA p = {P(report.Means.Spa.Consistent)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
+            $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:0.00} vol points; the best rule's edge over always-sell ({best}) {survives} the data-snooping test (SPA p = {P(report.Means.Spa.Consistent)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
     }
 
     internal static string BreakEvenWords(BreakEvenSpread breakEven, double configured)
@@ -376,6 +377,7 @@ internal static class ReportPnl
             new("Rate and dividend", string.Create(C, $"r = {s.Rate:0.####}, q = {s.DividendYield:0.####} (continuous, decimal per year)")),
             new("Stress shock", string.Create(C, $"spot {s.StressSpotMove:+0%;−0%} and implied {s.StressVolatilityShift * 100:+0.#;−0.#} vol points at entry, repriced with Black-Scholes-Merton")),
             new("Rules", string.Create(C, $"sell when implied − forecast > {s.Threshold * 100:0.0} vol points{(s.Sides == RuleSides.Both ? ", buy when forecast − implied > the same" : string.Empty)}; proposed {proposed.ForecastSpec}, current {current.ForecastSpec}, plain historical {historical.ForecastSpec}; walk-forward threshold chosen among {string.Join(", ", s.SweepThresholds.Select(t => (t * 100).ToString("0.0", C)))} vol points on the trades closed by each date")),
+            new("Current rule", report.CurrentRuleNote is string note ? char.ToUpperInvariant(note[0]) + note[1..] : string.Create(C, $"the rule on the baseline forecaster, {current.ForecastSpec}")),
             new("Firing dates", string.Create(C, $"{close.FiringDates} dates with implied, all three forecasts and a full trade window; paths {close.Dates[0]:yyyy-MM-dd} to {close.Dates[^1]:yyyy-MM-dd}")),
             new("Annualization", string.Create(C, $"{s.AnnualizationDays:0.##} trading days a year")),
             new("Data-snooping bootstrap", string.Create(C, $"stationary bootstrap, {m.Replications} replications, mean block length {m.MeanBlockLength:0.#} days, seed {m.Seed}, StepM level {m.StepM.Level:0%}")),

@@ -74,6 +74,7 @@ public static class RulePnlEvaluator
             return (null, "The rule forecaster is implied itself, so implied minus the forecast is always zero and the rule never fires; set ruleForecaster to a forecaster.");
         }
 
+        var replaced = current is null ? result.Baseline : null;
         current ??= historical;
         var trading = settings.Trading with { Threshold = settings.RuleThreshold, AnnualizationDays = settings.AnnualizationFactor };
         try
@@ -114,7 +115,7 @@ public static class RulePnlEvaluator
             }
 
             var sharpe = DataSnooping.TestSharpeRatios([.. paths], [.. always], draws, options.Level);
-            return (new RulePnlReport(atClose, nextDay, means, sharpe) { SharpeSweepRows = rows.ToImmutable() }, null);
+            return (new RulePnlReport(atClose, nextDay, means, sharpe) { SharpeSweepRows = rows.ToImmutable(), CurrentRuleBaselineReplaced = replaced }, null);
         }
         catch (ArgumentException ex)
         {

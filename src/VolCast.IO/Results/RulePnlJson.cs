@@ -24,6 +24,7 @@ internal static class RulePnlJson
         json.WriteStartObject("rule_pnl");
         json.WriteString("answer", RulePnlAnswer.Sentence(report));
         json.WriteString("cautions", RulePnlAnswer.Cautions);
+        Numbers.Write(json, "current_rule_note", report.CurrentRuleNote);
         Conventions(json, report.AtClose);
         json.WritePropertyName("at_close");
         Result(json, report.AtClose);
