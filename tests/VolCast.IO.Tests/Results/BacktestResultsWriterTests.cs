@@ -142,8 +142,8 @@ public sealed class BacktestResultsWriterTests
 
         // The manifest is exactly what the folder holds, run.json included, in ordinal order.
         Assert.Equal(Directory.GetFiles(folder).Select(Path.GetFileName).Order(StringComparer.Ordinal), manifest);
-        // The run has no rule P&L (no implied), so the two files written only with it are left out.
-        string[] onlyWithRulePnl = [BacktestResultsWriter.TradesFileName, BacktestResultsWriter.RulePnlFileName];
+        // The run has no rule P&L (no implied), so the three files written only with it are left out.
+        string[] onlyWithRulePnl = [BacktestResultsWriter.TradesFileName, BacktestResultsWriter.RulePnlFileName, BacktestResultsWriter.RulePnlNextDayFileName];
         Assert.Equal(BacktestResultsWriter.FileNames.Except(onlyWithRulePnl).Order(StringComparer.Ordinal), manifest);
         Assert.Equal(manifest, BacktestResultsWriter.ReadManifest(folder));
     }
