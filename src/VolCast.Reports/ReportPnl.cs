@@ -45,6 +45,8 @@ internal static class ReportPnl
         cancellationToken.ThrowIfCancellationRequested();
         var charts = new List<ChartImage> { PnlCharts.Cumulative(close.Dates, close.Rules) };
         cancellationToken.ThrowIfCancellationRequested();
+        charts.Add(PnlCharts.Marks(close.Dates, close.Rules));
+        cancellationToken.ThrowIfCancellationRequested();
         charts.Add(PnlCharts.Trades(close.Rules));
         cancellationToken.ThrowIfCancellationRequested();
         charts.Add(PnlCharts.Years(close.Rules));

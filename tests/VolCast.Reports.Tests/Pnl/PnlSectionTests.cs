@@ -208,7 +208,7 @@ public sealed class PnlSectionTests : IDisposable
     {
         var written = ReportWriter.Write(_folder, With(Report));
 
-        foreach (var name in new[] { PnlCharts.CumulativeFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName })
+        foreach (var name in new[] { PnlCharts.CumulativeFileName, PnlCharts.MarksFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName })
         {
             Assert.Contains(name, written);
             Assert.Contains(name, ReportWriter.FileNames);
@@ -253,6 +253,39 @@ public sealed class PnlSectionTests : IDisposable
                 Assert.Equal(colour, years.GetPlottables().OfType<ScottPlot.Plottables.BarPlot>().Single(p => p.LegendText == name).Bars[0].FillColor);
             }
         }
+    }
+
+    [Fact]
+    public void MarksChart_PlotsEachPathsRunningSumInTheRulesColour_SolidQuotedDashedEntry()
+    {
+        // The plot data, against the record: always-sell and the proposed rule, each on both marks; the last point of a
+        // line is the path's total, summed here independently; the solid line is the quoted-implied mark the drawdown
+        // uses, the dashed one the entry-implied (gamma-against-theta) mark.
+        var close = Report.AtClose;
+        using var plot = PnlCharts.BuildMarks(close.Dates, close.Rules);
+        var lines = plot.GetPlottables().OfType<ScottPlot.Plottables.Scatter>().ToArray();
+        Assert.Equal(4, lines.Length);
+        foreach (var rule in close.Rules.Where(r => r.Rule is TradingRule.AlwaysSell or TradingRule.Proposed))
+        {
+            var name = RuleNames.Name(rule.Rule);
+            var quoted = lines.Single(l => l.LegendText == name + ", marked at quoted implied");
+            var entry = lines.Single(l => l.LegendText == name + ", marked at entry implied");
+            Assert.Equal(ChartStyle.Rule(rule.Rule), quoted.Color);
+            Assert.Equal(ChartStyle.Rule(rule.Rule), entry.Color);
+            Assert.Equal(ScottPlot.LinePattern.Solid, quoted.LinePattern);
+            Assert.Equal(ScottPlot.LinePattern.Dashed, entry.LinePattern);
+            var quotedPoints = quoted.Data.GetScatterPoints();
+            var entryPoints = entry.Data.GetScatterPoints();
+            Assert.Equal(close.Dates.Length, quotedPoints.Count);
+            Assert.Equal(rule.DailyPnl.Sum(), quotedPoints[^1].Y, 9);
+            Assert.Equal(rule.DailyPnlEntryVol.Sum(), entryPoints[^1].Y, 9);
+            Assert.Equal(rule.DailyPnl.Take(10).Sum(), quotedPoints[9].Y, 9);
+        }
+
+        // The caption names the file and column that hold the entry-implied paths of every rule.
+        var image = PnlCharts.Marks(close.Dates, close.Rules);
+        Assert.Contains("rule-pnl.csv (column pnl_entry_vol)", image.Description, StringComparison.Ordinal);
+        Assert.Contains("pnl_entry_vol", VolCast.IO.Tables.RulePnlTables.Paths.Names);
     }
 
     [Fact]
