@@ -35,6 +35,9 @@ internal sealed record BacktestJob(
     /// <summary>Gets how rows that fail a row check and suspect rows are treated (default: refuse bad rows, warn about suspect ones).</summary>
     public DataChecks Checks { get; init; } = DataChecks.Default;
 
+    /// <summary>Gets whether results.xlsx is written beside the CSV files.</summary>
+    public bool Workbook { get; init; }
+
     /// <summary>Gets the configuration file's SHA-256 when already known, or null to hash the file.</summary>
     public string? ConfigSha256 { get; init; }
 

@@ -98,6 +98,17 @@ internal static class BacktestOptions
         return skipBadRows ? checks with { SkipBadRows = true } : checks;
     }
 
+    /// <summary>Resolves whether results.xlsx is written: --workbook, or the configuration's <c>workbook</c>.</summary>
+    /// <param name="config">The JSON configuration file, or null.</param>
+    /// <param name="workbook">Whether --workbook was given.</param>
+    /// <returns>True to write the workbook.</returns>
+    /// <exception cref="InputDataException">The configuration file cannot be used.</exception>
+    public static bool Workbook(string? config, bool workbook) =>
+        workbook || (config is not null && BacktestConfigFile.ReadWorkbook(config));
+
+    /// <summary>The help text of --workbook.</summary>
+    public const string WorkbookHelp = "Also write results.xlsx beside the CSV files, for spreadsheets: one sheet per table with numbers stored as numbers (vol in %, p-values to three places), frozen header rows, the settings, and the caution on the first sheet. The configuration's workbook: true does the same.";
+
     /// <summary>The help text of --suspect.</summary>
     public const string SuspectHelp = "What to do with rows that pass the row checks but look wrong (a bar that jumps and reverts, a stale or spiking implied value, one far outside the realized range): warn (default; list each in the console, run.json and the report), drop (leave them out as missing days or quotes and list them in rejected-rows.csv) or stop (refuse with exit code 3 and the full list). Overrides the configuration's suspect.";
 

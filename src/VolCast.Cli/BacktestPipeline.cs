@@ -6,6 +6,7 @@ using VolCast.Core.Data;
 using VolCast.Core.Trading;
 using VolCast.IO;
 using VolCast.IO.Results;
+using VolCast.IO.Workbook;
 using VolCast.Reports;
 
 namespace VolCast.Cli;
@@ -104,7 +105,17 @@ internal static class BacktestPipeline
             files.AddRange(writeMore(staging, run));
         }
 
+        if (job.Workbook)
+        {
+            // The workbook's settings sheet comes from run.json, so run.json (which lists the workbook) is written first.
+            files.Add(ResultsWorkbook.FileName);
+        }
+
         var manifest = BacktestResultsWriter.WriteRunRecord(staging, run, files);
+        if (job.Workbook)
+        {
+            ResultsWorkbook.Write(staging, File.ReadAllText(Path.Combine(staging, BacktestResultsWriter.RunFileName)), cancellationToken);
+        }
 
         stage?.Invoke(BacktestStage.Commit);
         cancellationToken.ThrowIfCancellationRequested();

@@ -26,6 +26,10 @@ internal static class Program
         root.Subcommands.Add(ConeCommand.Create(console));
         root.Subcommands.Add(BacktestCommand.Create(console));
         root.Subcommands.Add(BatchCommand.Create(console));
+        foreach (var option in root.Options.OfType<VersionOption>())
+        {
+            option.Action = new ToolVersionAction();
+        }
 
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)

@@ -51,6 +51,8 @@ internal sealed class BacktestConfigDocument
 
     public bool? SkipBadRows { get; set; }
 
+    public bool? Workbook { get; set; }
+
     public CostsConfigDocument? Costs { get; set; }
 
     public double? Rate { get; set; }

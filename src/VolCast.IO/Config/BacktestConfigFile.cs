@@ -351,6 +351,18 @@ public static class BacktestConfigFile
         return ParseDataChecks(Reading.InputText.Decode(bytes, path), path);
     }
 
+    /// <summary>Reads the configuration's <c>workbook</c> key (true: write results.xlsx); false when it is missing.</summary>
+    /// <param name="path">The configuration file.</param>
+    /// <returns>Whether the workbook is asked for.</returns>
+    /// <exception cref="InputDataException">The file cannot be read or is not a valid configuration.</exception>
+    public static bool ReadWorkbook(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        var json = Reading.InputText.Decode(InputFiles.ReadCapped(path, "a JSON configuration file", InputFiles.MaxConfigBytes), path);
+        Parse(json, path);
+        return JsonSerializer.Deserialize<BacktestConfigDocument>(json, Options)!.Workbook ?? false;
+    }
+
     private static InputDataException Bad(string file, string property, FormattableString problem) =>
         new(file, null, property, problem.ToString(CultureInfo.InvariantCulture) + ".");
 

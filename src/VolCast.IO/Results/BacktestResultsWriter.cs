@@ -5,7 +5,7 @@ using VolCast.IO.Csv;
 namespace VolCast.IO.Results;
 
 /// <summary>
-/// Writes a backtest's data files into a folder it is given: forecasts.csv, metrics.csv, metrics.json, summary.txt,
+/// Writes a backtest's data files into a folder it is given: forecasts.csv and its long form forecasts-long.csv, metrics.csv, metrics.json, summary.txt,
 /// calibration.csv, coverage.csv, and trades.csv, rule-pnl.csv and rule-pnl-next-day.csv when the rule's trades were run (<see cref="WriteData"/>), and last run.json with the manifest of every file of the
 /// run (<see cref="WriteRunRecord"/>).
 /// </summary>
@@ -38,7 +38,7 @@ public static class BacktestResultsWriter
 
     /// <summary>Gets the names of the data files this writer can produce, run.json included (trades.csv and the two rule-pnl files only with the rule's trades).</summary>
     public static IReadOnlyList<string> FileNames { get; } =
-        ["forecasts.csv", "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName, RulePnlNextDayFileName];
+        ["forecasts.csv", ForecastsLongCsv.FileName, "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName, RulePnlNextDayFileName];
 
     /// <summary>Writes every data file except run.json into <paramref name="folder"/>, checking for cancellation between files.</summary>
     /// <param name="folder">An existing folder (the caller's staging folder); no file of these names may exist in it.</param>
@@ -56,6 +56,7 @@ public static class BacktestResultsWriter
         var steps = new (string Name, Action<string> Write)[]
         {
             ("forecasts.csv", path => AtomicFile.WriteText(path, w => ForecastsCsv.Write(w, result))),
+            (ForecastsLongCsv.FileName, path => AtomicFile.WriteText(path, w => ForecastsLongCsv.Write(w, result))),
             ("metrics.csv", path => AtomicFile.WriteText(path, w => MetricsCsv.Write(w, result))),
             ("metrics.json", path => AtomicFile.WriteText(path, w => MetricsJson.Write(w, result, calibration, run.RulePnl, run.RulePnlAbsence))),
             ("summary.txt", path => AtomicFile.WriteText(path, w => SummaryText.Write(w, result, run.Info, calibration, run.RulePnl, run.RulePnlAbsence))),

@@ -9,6 +9,9 @@ namespace VolCast.IO.Results;
 /// <summary>Writes summary.txt, a plain-text digest of the results (until the HTML report exists), leading with baseline vs candidate.</summary>
 internal static class SummaryText
 {
+    /// <summary>The caution that closes summary.txt and opens the results workbook.</summary>
+    public const string Caution = "Results describe the past on the data given; they are not advice. Models can fail out of sample; trading options carries risk of loss.";
+
     public static void Write(TextWriter w, BacktestResult r, BacktestRunInfo run, BacktestCalibration calibration, RulePnlReport? rulePnl = null, string? rulePnlAbsence = null)
     {
         var c = CultureInfo.InvariantCulture;
@@ -92,7 +95,7 @@ internal static class SummaryText
             }
         }
 
-        w.Write("\nResults describe the past on the data given; they are not advice. Models can fail out of sample; trading options carries risk of loss.\n");
+        w.Write("\n" + Caution + "\n");
     }
 
     private static void Odds(TextWriter w, BacktestCalibration calibration)

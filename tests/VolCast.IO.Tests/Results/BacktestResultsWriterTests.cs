@@ -11,7 +11,7 @@ namespace VolCast.IO.Tests.Results;
 
 public sealed class BacktestResultsWriterTests
 {
-    private static (BacktestResult Result, PriceHistory Prices) SmallRun()
+    internal static (BacktestResult Result, PriceHistory Prices) SmallRun()
     {
         // Invented random-walk closes (not reference data), enough for every statistic.
         var random = new Random(3);
@@ -47,12 +47,48 @@ public sealed class BacktestResultsWriterTests
     private static BacktestRunInfo Run() => new("0.1.0-test", [new InputFileInfo("prices", "p.csv", "ab12")], DateTimeOffset.UnixEpoch, DateTimeOffset.UnixEpoch, "decimal", []);
 
     // Writes a whole results folder as the command line does: the data files, then run.json with the manifest.
-    private static ImmutableArray<string> Write(string folder, BacktestResult result, PriceHistory prices)
+    internal static ImmutableArray<string> Write(string folder, BacktestResult result, PriceHistory prices)
     {
         Directory.CreateDirectory(folder);
         var run = new BacktestRun(result, BacktestCalibrator.Evaluate(result, prices), Run(), prices, prices.Count);
         var names = BacktestResultsWriter.WriteData(folder, run);
         return BacktestResultsWriter.WriteRunRecord(folder, run, names);
+    }
+
+    [Fact]
+    public void Write_ForecastsLong_PivotsBackToTheWideFileCellForCell()
+    {
+        // The tidy form (Wickham 2014, "Tidy data", J. Stat. Softw. 59(10)): one row per observation. Pivoting it back
+        // by forecaster, as pandas' pivot or R's reshape would, must give the wide file's every non-empty cell.
+        using var temp = new TempFolder();
+        var (result, prices) = SmallRun();
+        var folder = Path.Combine(temp.Path, "report");
+        Write(folder, result, prices);
+
+        var wide = File.ReadAllLines(Path.Combine(folder, "forecasts.csv"));
+        var header = wide[0].Split(',');
+        var wideCells = new Dictionary<(string Date, string Forecaster), (string Forecast, string Realized, string Implied)>();
+        foreach (var line in wide.Skip(1))
+        {
+            var cells = line.Split(',');
+            for (var k = 3; k < header.Length; k++)
+            {
+                if (cells[k].Length > 0)
+                {
+                    wideCells[(cells[0], header[k])] = (cells[k], cells[1], cells[2]);
+                }
+            }
+        }
+
+        var tidy = File.ReadAllLines(Path.Combine(folder, "forecasts-long.csv"));
+        Assert.Equal("date,forecaster,forecast,realized,implied", tidy[0]);
+        Assert.Equal(wideCells.Count, tidy.Length - 1);
+        foreach (var line in tidy.Skip(1))
+        {
+            var cells = line.Split(',');
+            Assert.True(wideCells.TryGetValue((cells[0], cells[1]), out var expected), line);
+            Assert.Equal(expected, (cells[2], cells[3], cells[4]));
+        }
     }
 
     [Fact]
