@@ -35,6 +35,7 @@ internal static class ReportPnl
         var tables = new List<TextTable>
         {
             Rules(close),
+            StartOffsets(close),
             Tests(close),
             Sweep(close, report.Means),
             Snooping(close, report),
@@ -44,6 +45,8 @@ internal static class ReportPnl
         };
         cancellationToken.ThrowIfCancellationRequested();
         var charts = new List<ChartImage> { PnlCharts.Cumulative(close.Dates, close.Rules) };
+        cancellationToken.ThrowIfCancellationRequested();
+        charts.Add(PnlCharts.Marks(close.Dates, close.Rules));
         cancellationToken.ThrowIfCancellationRequested();
         charts.Add(PnlCharts.Trades(close.Rules));
         cancellationToken.ThrowIfCancellationRequested();
@@ -64,8 +67,9 @@ internal static class ReportPnl
         var test = Test(switching.Test);
         var best = Label(close, report.Means, report.Means.BestRule);
         var survives = report.Means.Spa.Consistent < 0.05 ? "survives" : "does not survive";
+        var currentNote = report.CurrentRuleNote is string note ? " (" + note + ")" : string.Empty;
         return string.Create(C,
-            $"Switching from the current rule to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:0.00} vol points; the best rule's edge over always-sell ({best}) {survives} the data-snooping test (SPA {PValueText.Clause(report.Means.Spa.Consistent)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
+            $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:0.00} vol points; the best rule's edge over always-sell ({best}) {survives} the data-snooping test (SPA {PValueText.Clause(report.Means.Spa.Consistent)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
     }
 
     internal static string BreakEvenWords(BreakEvenSpread breakEven, double configured)
@@ -154,7 +158,6 @@ internal static class ReportPnl
         Row("Mean trade t (Newey-West, lag 2 trades)", (r, n) => F(T(r, n).MeanTest?.TStatistic, "0.00"));
         Row("Mean trade p", (r, n) => T(r, n).MeanTest?.PValue is double p ? P(p) : "—");
         Row("P&L per year, vol points", (r, n) => F(Path(r, n).PnlPerYear, "0.00"));
-        Row("P&L per year, one at a time, over start offsets", (r, n) => n ? string.Create(C, $"{r.OneAtATimePnlPerYearLow:0.00} to {r.OneAtATimePnlPerYearHigh:0.00}") : "—");
         Row("Sharpe ratio (annualized, daily path)", (r, n) => F(Path(r, n).Sharpe, "0.00"));
         Row("Sortino ratio (annualized, daily path)", (r, n) => F(Path(r, n).Sortino, "0.00"));
         Row("Maximum drawdown, vol points", (r, n) => F(Path(r, n).MaxDrawdown, "0.00"));
@@ -171,6 +174,47 @@ internal static class ReportPnl
         return new TextTable("The rules as delta-hedged straddles", headers, rows, string.Create(C,
             $"P&L in vol points: each trade sized to one vol point of entry vega. Per-trade figures use trades one at a time (no overlap, from the first firing date); per-year figures, Sharpe, Sortino, drawdown and worst month use the daily path of a trade on every signal, each sized 1/{close.HorizonDays}, marked daily at the quoted implied volatility, annualized with {s.AnnualizationDays:0.##} trading days. Zero cost leaves out the option half-spread and the hedge costs. Stress: spot {s.StressSpotMove:+0%;−0%} and implied {s.StressVolatilityShift * 100:+0;−0} vol points at entry, repriced with Black-Scholes-Merton; negative is a loss."));
     }
+
+    private static TextTable StartOffsets(RuleBacktestResult close)
+    {
+        var headers = new List<string> { "Measure, lowest to highest" };
+        foreach (var rule in close.Rules)
+        {
+            headers.Add(RuleNames.Name(rule.Rule) + ", net");
+            headers.Add(RuleNames.Name(rule.Rule) + ", zero cost");
+        }
+
+        var rows = new List<IReadOnlyList<string>>();
+        void Row(string label, Func<StartOffsetRange, FigureRange?> figure, string format)
+        {
+            var row = new List<string> { label };
+            foreach (var rule in close.Rules)
+            {
+                row.Add(Range(figure(rule.OneAtATimeRangeNet), format));
+                row.Add(Range(figure(rule.OneAtATimeRangeZeroCost), format));
+            }
+
+            rows.Add(row);
+        }
+
+        Row("Trades", r => r.Trades, "0");
+        Row("P&L per year, vol points (sum of trades)", r => r.PnlPerYear, "0.00");
+        Row("Hit rate (trades above zero)", r => r.HitRate, "0.0%");
+        Row("Mean P&L per trade, vol points", r => r.MeanVolPoints, "0.00");
+        Row("Median P&L per trade, vol points", r => r.MedianVolPoints, "0.00");
+        Row("Mean P&L per trade, % of spot", r => r.MeanPercentOfSpot, "0.000");
+        Row("Median P&L per trade, % of spot", r => r.MedianPercentOfSpot, "0.000");
+        Row("Mean trade t (Newey-West, lag 2 trades)", r => r.MeanTStatistic, "0.00");
+        Row("Worst trade, vol points", r => r.WorstVolPoints, "0.00");
+        Row("Expected shortfall 5% of trades, vol points", r => r.ExpectedShortfall5VolPoints, "0.00");
+        Row("Skewness of trade P&L", r => r.Skewness, "0.00");
+        Row("Mean P&L per unit of stress loss", r => r.PnlPerUnitStressLoss, "0.000");
+        return new TextTable("One at a time: how much the first trade's date matters", headers, rows, string.Create(C,
+            $"Trades one at a time depend on the date of the first one. Each cell is the lowest and the highest value of the figure over the {close.HorizonDays} possible first entries (one per trading day of the horizon); the table above is the first entry's. The daily-path figures (Sharpe, Sortino, drawdown, worst month) use every signal and do not depend on it."));
+    }
+
+    private static string Range(FigureRange? range, string format) =>
+        range is null ? "—" : range.Low.ToString(format, C) + " to " + range.High.ToString(format, C);
 
     private static TextTable Tests(RuleBacktestResult close)
     {
@@ -336,6 +380,7 @@ internal static class ReportPnl
             new("Rate and dividend", string.Create(C, $"r = {s.Rate:0.####}, q = {s.DividendYield:0.####} (continuous, decimal per year)")),
             new("Stress shock", string.Create(C, $"spot {s.StressSpotMove:+0%;−0%} and implied {s.StressVolatilityShift * 100:+0.#;−0.#} vol points at entry, repriced with Black-Scholes-Merton")),
             new("Rules", string.Create(C, $"sell when implied − forecast > {s.Threshold * 100:0.0} vol points{(s.Sides == RuleSides.Both ? ", buy when forecast − implied > the same" : string.Empty)}; proposed {proposed.ForecastSpec}, current {current.ForecastSpec}, plain historical {historical.ForecastSpec}; walk-forward threshold chosen among {string.Join(", ", s.SweepThresholds.Select(t => (t * 100).ToString("0.0", C)))} vol points on the trades closed by each date")),
+            new("Current rule", report.CurrentRuleNote is string note ? char.ToUpperInvariant(note[0]) + note[1..] : string.Create(C, $"the rule on the baseline forecaster, {current.ForecastSpec}")),
             new("Firing dates", string.Create(C, $"{close.FiringDates} dates with implied, all three forecasts and a full trade window; paths {close.Dates[0]:yyyy-MM-dd} to {close.Dates[^1]:yyyy-MM-dd}")),
             new("Annualization", string.Create(C, $"{s.AnnualizationDays:0.##} trading days a year")),
             new("Data-snooping bootstrap", string.Create(C, $"stationary bootstrap, {m.Replications} replications, mean block length {m.MeanBlockLength:0.#} days, seed {m.Seed}, StepM level {m.StepM.Level:0%}")),

@@ -29,7 +29,7 @@ public static class ReportWriter
     [
         ReportFiles.ReportFileName, "forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png",
         "mincer-zarnowitz.png", "cone.png", ConeFileName, "rule-test.png", ReportCharts.ReliabilityFileName,
-        PnlCharts.CumulativeFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName,
+        PnlCharts.CumulativeFileName, PnlCharts.MarksFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName,
     ];
 
     /// <summary>The cone's data file: the percentiles the cone chart draws, in the columns of <see cref="ConeCsv"/>.</summary>

@@ -120,7 +120,7 @@ internal static class BacktestCommand
         console.Out.WriteLine(run.RulePnl is null
             ? $"rule's trades not run: {run.RulePnlAbsence}"
             : "would the rule have paid? " + RulePnlAnswer.Sentence(run.RulePnl));
-        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt, now.json{(run.RulePnl is null ? string.Empty : ", trades.csv, rule-pnl.csv")})");
+        console.Out.WriteLine($"wrote {outFolder}{Path.DirectorySeparatorChar} (report.html and its charts, forecasts.csv, metrics.csv, metrics.json, run.json, summary.txt, now.json{(run.RulePnl is null ? string.Empty : ", trades.csv, rule-pnl.csv, rule-pnl-next-day.csv")})");
         return ExitCodes.Success;
     }
 

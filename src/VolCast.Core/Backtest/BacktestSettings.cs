@@ -105,7 +105,7 @@ public sealed record BacktestSettings
     /// <summary>Gets the bootstrap replications B of the data-snooping tests of the threshold search (1,000 by default).</summary>
     public int SnoopingReplications { get; init; } = 1000;
 
-    /// <summary>Gets the mean block length of the stationary bootstrap of the data-snooping tests, or null (the default) for the horizon.</summary>
+    /// <summary>Gets the mean block length of the stationary bootstrap of the data-snooping tests, or null (the default) for the Politis-White automatic length, at least the horizon (docs/methods.md#data-snooping-reality-check-spa-stepm).</summary>
     public int? SnoopingBlockLength { get; init; }
 
     /// <summary>Gets the seed of the data-snooping bootstrap (20240601 by default), so that a run can be repeated exactly.</summary>

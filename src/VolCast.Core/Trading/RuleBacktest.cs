@@ -383,9 +383,13 @@ internal static class RuleBacktest
             var annual = Settings.AnnualizationDays;
             var years = Length / annual;
 
-            // One at a time, from each of the h start offsets; the trade table is the first start's.
-            double low = double.PositiveInfinity, high = double.NegativeInfinity;
+            // One at a time, from each of the h start offsets; the trade table is the first start's, and every trade
+            // figure is also given as its range over the offsets.
+            var dates = Prices.Dates;
+            var close = Prices.Close;
             List<int> first = [];
+            var byStartNet = new List<(TradeStatistics, double)>(H);
+            var byStartGross = new List<(TradeStatistics, double)>(H);
             for (var o = 0; o < H; o++)
             {
                 var taken = book.OneAtATime(signal, Start + o);
@@ -394,18 +398,11 @@ internal static class RuleBacktest
                     first = Settings.Entries == TradeEntries.EverySignal ? EverySignal(signal) : taken;
                 }
 
-                double total = 0;
-                foreach (var i in taken)
-                {
-                    total += book.NetVolPoints(i, signal[i]);
-                }
-
-                low = Math.Min(low, total / years);
-                high = Math.Max(high, total / years);
+                var (statsNet, statsGross, totalNet, totalGross) = Statistics(book, signal, taken, dates, close);
+                byStartNet.Add((statsNet, totalNet / years));
+                byStartGross.Add((statsGross, totalGross / years));
             }
 
-            var dates = Prices.Dates;
-            var close = Prices.Close;
             var trades = ImmutableArray.CreateBuilder<StraddleTrade>(first.Count);
             var net = new double[first.Count];
             var gross = new double[first.Count];
@@ -445,13 +442,43 @@ internal static class RuleBacktest
                 [.. ladder.Gross],
                 [.. ladder.EntryVolNet],
                 [.. ladder.EntryVolGross],
-                low,
-                high,
+                StartOffsetRange.Over(byStartNet),
+                StartOffsetRange.Over(byStartGross),
                 first.Count > 0 ? meanStress : null,
                 varianceGap,
                 varianceGapPoints,
                 chosen ?? []);
             return (result, ladder);
+        }
+
+        /// <summary>Net and zero-cost trade statistics and total vol-point P&amp;L of the trades at <paramref name="taken"/>.</summary>
+        private static (TradeStatistics Net, TradeStatistics Gross, double TotalNet, double TotalGross) Statistics(
+            TradeBook book, sbyte[] signal, List<int> taken, ReadOnlySpan<DateOnly> dates, ReadOnlySpan<double> close)
+        {
+            var n = taken.Count;
+            var net = new double[n];
+            var gross = new double[n];
+            var netPercent = new double[n];
+            var grossPercent = new double[n];
+            var entryDates = new DateOnly[n];
+            double stress = 0, totalNet = 0, totalGross = 0;
+            for (var j = 0; j < n; j++)
+            {
+                var i = taken[j];
+                var trade = StraddleTrader.ToTrade(book.Trades[i], signal[i], dates, close, null);
+                net[j] = trade.PnlVolPoints;
+                gross[j] = trade.GrossPnlVolPoints;
+                netPercent[j] = trade.PnlPercentOfSpot;
+                grossPercent[j] = trade.GrossPnlPercentOfSpot;
+                entryDates[j] = trade.EntryDate;
+                stress += trade.StressPnlVolPoints;
+                totalNet += net[j];
+                totalGross += gross[j];
+            }
+
+            var meanStress = n > 0 ? stress / n : 0;
+            return (PnlStatisticsCalculator.Trades(net, netPercent, entryDates, -meanStress),
+                PnlStatisticsCalculator.Trades(gross, grossPercent, entryDates, -meanStress), totalNet, totalGross);
         }
     }
 }

@@ -26,8 +26,8 @@ namespace VolCast.Core.Trading;
 /// <param name="DailyPnlZeroCost">The same without costs.</param>
 /// <param name="DailyPnlEntryVol">The net daily path, marked at each trade's entry implied.</param>
 /// <param name="DailyPnlEntryVolZeroCost">The same without costs.</param>
-/// <param name="OneAtATimePnlPerYearLow">The lowest one-at-a-time net P&amp;L per year over the h possible start offsets.</param>
-/// <param name="OneAtATimePnlPerYearHigh">The highest one over the start offsets.</param>
+/// <param name="OneAtATimeRangeNet">Each one-at-a-time trade figure's range over the h possible start offsets, after costs.</param>
+/// <param name="OneAtATimeRangeZeroCost">The same without costs.</param>
 /// <param name="MeanStressPnlVolPoints">Mean stress P&amp;L per trade (spot and implied shocked at entry), vol points; null without trades.</param>
 /// <param name="VarianceGapTotal">Σ s·(RV² − IV²) over the trades, total variance.</param>
 /// <param name="VarianceGapVolPoints">Σ s·(RV² − IV²)/(2·IV) over the trades, vol points.</param>
@@ -48,8 +48,8 @@ public sealed record RulePnl(
     ImmutableArray<double> DailyPnlZeroCost,
     ImmutableArray<double> DailyPnlEntryVol,
     ImmutableArray<double> DailyPnlEntryVolZeroCost,
-    double OneAtATimePnlPerYearLow,
-    double OneAtATimePnlPerYearHigh,
+    StartOffsetRange OneAtATimeRangeNet,
+    StartOffsetRange OneAtATimeRangeZeroCost,
     double? MeanStressPnlVolPoints,
     double VarianceGapTotal,
     double VarianceGapVolPoints,

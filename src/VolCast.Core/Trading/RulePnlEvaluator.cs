@@ -74,6 +74,7 @@ public static class RulePnlEvaluator
             return (null, "The rule forecaster is implied itself, so implied minus the forecast is always zero and the rule never fires; set ruleForecaster to a forecaster.");
         }
 
+        var replaced = current is null ? result.Baseline : null;
         current ??= historical;
         var trading = settings.Trading with { Threshold = settings.RuleThreshold, AnnualizationDays = settings.AnnualizationFactor };
         try
@@ -83,7 +84,7 @@ public static class RulePnlEvaluator
             var nextDay = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading with { EntryTiming = EntryTiming.NextClose });
             cancellationToken.ThrowIfCancellationRequested();
 
-            var options = new DataSnoopingOptions(settings.SnoopingBlockLength ?? atClose.HorizonDays, settings.SnoopingSeed, settings.SnoopingReplications);
+            var options = new DataSnoopingOptions(settings.SnoopingBlockLength ?? AutomaticBlockLength.Of(atClose.SnoopingDifferences, atClose.HorizonDays), settings.SnoopingSeed, settings.SnoopingReplications);
             var days = atClose.Dates.Length;
             var draws = DataSnooping.Draw(days, options);
             var means = DataSnooping.TestMeans(atClose.SnoopingDifferences, draws, options.Level);
@@ -114,7 +115,7 @@ public static class RulePnlEvaluator
             }
 
             var sharpe = DataSnooping.TestSharpeRatios([.. paths], [.. always], draws, options.Level);
-            return (new RulePnlReport(atClose, nextDay, means, sharpe) { SharpeSweepRows = rows.ToImmutable() }, null);
+            return (new RulePnlReport(atClose, nextDay, means, sharpe) { SharpeSweepRows = rows.ToImmutable(), CurrentRuleBaselineReplaced = replaced }, null);
         }
         catch (ArgumentException ex)
         {

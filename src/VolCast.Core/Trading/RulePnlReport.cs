@@ -23,4 +23,16 @@ public sealed record RulePnlReport(
     /// sweep row, in order.
     /// </summary>
     public ImmutableArray<int> SharpeSweepRows { get; init; } = [];
+
+    /// <summary>
+    /// Gets the baseline forecaster that could not drive the current rule, or null when it did. The baseline is implied
+    /// whenever an implied series is given and no other baseline is configured; "implied − implied" never fires, so the
+    /// plain historical rule then stands in for the current rule, and the report says so wherever it names the current rule.
+    /// </summary>
+    public string? CurrentRuleBaselineReplaced { get; init; }
+
+    /// <summary>Gets the sentence that says which forecaster stands in for the current rule, or null when the baseline drives it.</summary>
+    public string? CurrentRuleNote => CurrentRuleBaselineReplaced is string baseline
+        ? $"the baseline forecaster is {baseline}, and implied minus implied never fires, so the current rule is the plain historical rule ({AtClose[TradingRule.Current].ForecastSpec}); set baseline to the forecaster your rule uses today"
+        : null;
 }

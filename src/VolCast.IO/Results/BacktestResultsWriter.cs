@@ -6,7 +6,7 @@ namespace VolCast.IO.Results;
 
 /// <summary>
 /// Writes a backtest's data files into a folder it is given: forecasts.csv and its long form forecasts-long.csv, metrics.csv, metrics.json, summary.txt,
-/// calibration.csv, coverage.csv, and trades.csv and rule-pnl.csv when the rule's trades were run (<see cref="WriteData"/>), and last run.json with the manifest of every file of the
+/// calibration.csv, coverage.csv, and trades.csv, rule-pnl.csv and rule-pnl-next-day.csv when the rule's trades were run (<see cref="WriteData"/>), and last run.json with the manifest of every file of the
 /// run (<see cref="WriteRunRecord"/>).
 /// </summary>
 /// <remarks>
@@ -33,9 +33,12 @@ public static class BacktestResultsWriter
     /// <summary>The name of the rule's daily P&amp;L paths file (written only when the rule's trades were run).</summary>
     public const string RulePnlFileName = "rule-pnl.csv";
 
-    /// <summary>Gets the names of the data files this writer can produce, run.json included (trades.csv and rule-pnl.csv only with the rule's trades).</summary>
+    /// <summary>The name of the rule's daily net P&amp;L paths with entry one trading day later (written only when the rule's trades were run).</summary>
+    public const string RulePnlNextDayFileName = "rule-pnl-next-day.csv";
+
+    /// <summary>Gets the names of the data files this writer can produce, run.json included (trades.csv and the two rule-pnl files only with the rule's trades).</summary>
     public static IReadOnlyList<string> FileNames { get; } =
-        ["forecasts.csv", ForecastsLongCsv.FileName, "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName, NowJson.FileName, GroupsCsv.FileName];
+        ["forecasts.csv", ForecastsLongCsv.FileName, "metrics.csv", "metrics.json", RunFileName, "summary.txt", CalibrationFileName, CoverageFileName, TradesFileName, RulePnlFileName, RulePnlNextDayFileName, NowJson.FileName, GroupsCsv.FileName];
 
     /// <summary>Writes every data file except run.json into <paramref name="folder"/>, checking for cancellation between files.</summary>
     /// <param name="folder">An existing folder (the caller's staging folder); no file of these names may exist in it.</param>
@@ -65,6 +68,7 @@ public static class BacktestResultsWriter
         {
             steps.Add((TradesFileName, path => AtomicFile.WriteText(path, w => TradesCsv.Write(w, rulePnl))));
             steps.Add((RulePnlFileName, path => AtomicFile.WriteText(path, w => RulePnlCsv.Write(w, rulePnl))));
+            steps.Add((RulePnlNextDayFileName, path => AtomicFile.WriteText(path, w => RulePnlCsv.WriteNextDay(w, rulePnl))));
         }
 
         if (!run.Groups.Rows.IsEmpty)

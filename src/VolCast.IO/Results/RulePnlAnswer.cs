@@ -34,7 +34,8 @@ public static class RulePnlAnswer
         var breakEven = r.BreakEven.EdgeHalfSpreadVolPoints is double w
             ? string.Create(c, $"the edge over always-sell is zero at a half-spread of {w:F2} vol points")
             : "no half-spread between zero and any width makes the edge over always-sell zero";
+        var currentNote = report.CurrentRuleNote is string note ? " (" + note + ")" : string.Empty;
         return string.Create(c,
-            $"Switching from the current rule to the proposed one would have earned {Math.Abs(difference):F2} vol points per year {(difference >= 0 ? "more" : "less")} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:F2} vol points; the best rule's edge over always-sell {survives} the data-snooping test (SPA {PValueText.Clause(spa)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:F2} vol points per year; {breakEven}.");
+            $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(difference):F2} vol points per year {(difference >= 0 ? "more" : "less")} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:F2} vol points; the best rule's edge over always-sell {survives} the data-snooping test (SPA {PValueText.Clause(spa)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:F2} vol points per year; {breakEven}.");
     }
 }

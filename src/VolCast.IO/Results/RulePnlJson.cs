@@ -24,6 +24,7 @@ internal static class RulePnlJson
         json.WriteStartObject("rule_pnl");
         json.WriteString("answer", RulePnlAnswer.Sentence(report));
         json.WriteString("cautions", RulePnlAnswer.Cautions);
+        Numbers.Write(json, "current_rule_note", report.CurrentRuleNote);
         Conventions(json, report.AtClose);
         json.WritePropertyName("at_close");
         Result(json, report.AtClose);
@@ -138,14 +139,51 @@ internal static class RulePnlJson
         Trades(json, "trades_zero_cost", rule.TradeStatisticsZeroCost);
         Path(json, "path", rule.PathNet);
         Path(json, "path_zero_cost", rule.PathZeroCost);
-        Numbers.Write(json, "one_at_a_time_pnl_per_year_low", rule.OneAtATimePnlPerYearLow);
-        Numbers.Write(json, "one_at_a_time_pnl_per_year_high", rule.OneAtATimePnlPerYearHigh);
+        Numbers.Write(json, "one_at_a_time_pnl_per_year_low", rule.OneAtATimeRangeNet.PnlPerYear.Low);
+        Numbers.Write(json, "one_at_a_time_pnl_per_year_high", rule.OneAtATimeRangeNet.PnlPerYear.High);
+        json.WriteStartObject("one_at_a_time_over_start_offsets");
+        StartOffsets(json, "net", rule.OneAtATimeRangeNet);
+        StartOffsets(json, "zero_cost", rule.OneAtATimeRangeZeroCost);
+        json.WriteEndObject();
         Numbers.Write(json, "mean_stress_pnl_vol_points", rule.MeanStressPnlVolPoints);
         json.WriteStartObject("variance_swap_view");
         Numbers.Write(json, "total_variance_gap", rule.VarianceGapTotal);
         Numbers.Write(json, "vol_points", rule.VarianceGapVolPoints);
         json.WriteString("note", "ATM implied stands in for the variance strike and understates it when the smile has skew");
         json.WriteEndObject();
+        json.WriteEndObject();
+    }
+
+    private static void StartOffsets(Utf8JsonWriter json, string name, StartOffsetRange r)
+    {
+        json.WriteStartObject(name);
+        Numbers.Write(json, "starts", r.Starts);
+        Range(json, "trades", r.Trades);
+        Range(json, "pnl_per_year", r.PnlPerYear);
+        Range(json, "hit_rate", r.HitRate);
+        Range(json, "mean_vol_points", r.MeanVolPoints);
+        Range(json, "median_vol_points", r.MedianVolPoints);
+        Range(json, "mean_pct_spot", r.MeanPercentOfSpot);
+        Range(json, "median_pct_spot", r.MedianPercentOfSpot);
+        Range(json, "mean_t", r.MeanTStatistic);
+        Range(json, "worst_vol_points", r.WorstVolPoints);
+        Range(json, "expected_shortfall_5_vol_points", r.ExpectedShortfall5VolPoints);
+        Range(json, "skewness", r.Skewness);
+        Range(json, "pnl_per_unit_stress_loss", r.PnlPerUnitStressLoss);
+        json.WriteEndObject();
+    }
+
+    private static void Range(Utf8JsonWriter json, string name, FigureRange? range)
+    {
+        if (range is null)
+        {
+            json.WriteNull(name);
+            return;
+        }
+
+        json.WriteStartObject(name);
+        Numbers.Write(json, "low", range.Low);
+        Numbers.Write(json, "high", range.High);
         json.WriteEndObject();
     }
 

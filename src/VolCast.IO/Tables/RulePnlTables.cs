@@ -56,17 +56,30 @@ public static class RulePnlTables
         new("variance_gap_vol_points", "s*(RV^2 - IV^2)/(2*IV), vol points", r => TableCell.Number(r.Trade.VarianceGapVolPoints)),
     ]);
 
-    /// <summary>Gets the definition of rule-pnl.csv: one row per rule, timing and date of the daily paths.</summary>
+    /// <summary>
+    /// Gets the definition of rule-pnl.csv: one row per rule and date of the daily paths of the trades entered at the
+    /// firing close. The entry-vol path before costs is not written: it is pnl_entry_vol + pnl_zero_cost − pnl, since
+    /// both paths carry the same costs on the same days.
+    /// </summary>
     public static TableDefinition<RulePathRow> Paths { get; } = new(
     [
-        new("timing", "close or next-day", r => TableCell.Text(r.Timing)),
         new("rule", "always-sell, proposed, current, historical or walk-forward-threshold", r => TableCell.Text(RuleName(r.Rule.Rule))),
         new("date", "the date", r => TableCell.Text(Csv.CsvText.Date(r.Date))),
         new("pnl", "net P&L of the day, marked at the quoted implied, vol points", r => TableCell.Number(r.Rule.DailyPnl[r.Day])),
         new("pnl_zero_cost", "the same before costs", r => TableCell.Number(r.Rule.DailyPnlZeroCost[r.Day])),
         new("pnl_entry_vol", "net P&L of the day, marked at each trade's entry implied, vol points", r => TableCell.Number(r.Rule.DailyPnlEntryVol[r.Day])),
-        new("pnl_entry_vol_zero_cost", "the same before costs", r => TableCell.Number(r.Rule.DailyPnlEntryVolZeroCost[r.Day])),
         new("threshold", "walk-forward threshold in force (decimal; empty for the other rules)", r => TableCell.Number(r.Rule.ChosenThresholds.IsDefaultOrEmpty ? null : r.Rule.ChosenThresholds[r.Day])),
+    ]);
+
+    /// <summary>
+    /// Gets the definition of rule-pnl-next-day.csv: the net daily path of each rule with entry one trading day after the
+    /// firing date, the only path the report draws from that timing (its P&amp;L per year, Sharpe ratio and drawdown).
+    /// </summary>
+    public static TableDefinition<RulePathRow> PathsNextDay { get; } = new(
+    [
+        new("rule", "always-sell, proposed, current, historical or walk-forward-threshold", r => TableCell.Text(RuleName(r.Rule.Rule))),
+        new("date", "the date", r => TableCell.Text(Csv.CsvText.Date(r.Date))),
+        new("pnl", "net P&L of the day, marked at the quoted implied, vol points", r => TableCell.Number(r.Rule.DailyPnl[r.Day])),
     ]);
 
     /// <summary>The name of a rule in the files.</summary>
@@ -109,20 +122,19 @@ public static class RulePnlTables
         }
     }
 
-    /// <summary>Every daily path of a report: rule by rule, at the close then a day later.</summary>
+    /// <summary>Every daily path of one entry timing, rule by rule.</summary>
     /// <param name="report">The report.</param>
+    /// <param name="nextDay">True for the trades entered one trading day later, false for those at the firing close.</param>
     /// <returns>The rows.</returns>
-    public static IEnumerable<RulePathRow> PathRows(RulePnlReport report)
+    public static IEnumerable<RulePathRow> PathRows(RulePnlReport report, bool nextDay)
     {
         ArgumentNullException.ThrowIfNull(report);
-        foreach (var (timing, result) in Timings(report))
+        var (timing, result) = Timings(report)[nextDay ? 1 : 0];
+        foreach (var rule in result.Rules)
         {
-            foreach (var rule in result.Rules)
+            for (var t = 0; t < result.Dates.Length; t++)
             {
-                for (var t = 0; t < result.Dates.Length; t++)
-                {
-                    yield return new RulePathRow(timing, rule, result.Dates[t], t);
-                }
+                yield return new RulePathRow(timing, rule, result.Dates[t], t);
             }
         }
     }

@@ -27,7 +27,7 @@ public static class ResultsWorkbook
 
     /// <summary>The tables, in sheet order, when they exist in the folder (the long form of forecasts.csv is left out: it repeats the wide sheet).</summary>
     public static IReadOnlyList<string> Tables { get; } =
-        ["metrics.csv", "trades.csv", "rule-pnl.csv", "calibration.csv", "coverage.csv", "cone.csv", "forecasts.csv", "rejected-rows.csv"];
+        ["metrics.csv", "trades.csv", "rule-pnl.csv", "rule-pnl-next-day.csv", "calibration.csv", "coverage.csv", "cone.csv", "forecasts.csv", "rejected-rows.csv"];
 
     private const int MaxDataRows = 1_048_575;
     private const uint HeaderStyle = 1;

@@ -23,6 +23,9 @@ internal static class PnlCharts
     /// <summary>The P&amp;L-by-year chart's file name.</summary>
     public const string YearsFileName = "rule-pnl-by-year.png";
 
+    /// <summary>The chart of the two daily marks (quoted implied against entry implied).</summary>
+    public const string MarksFileName = "rule-pnl-marks.png";
+
     private const int TopHeight = 370;
 
     private const float LeftPadding = 100;
@@ -56,6 +59,66 @@ internal static class PnlCharts
         return new ChartImage(YearsFileName, "Net P&L by calendar year",
             "Each bar is one rule's daily net P&L summed over a calendar year, in vol points (the first and last years may be partial).",
             ChartStyle.Png(plot));
+    }
+
+    /// <summary>
+    /// Cumulative net P&amp;L of always-sell and the proposed rule on both daily marks: at the quoted implied (solid) and
+    /// at each trade's entry implied, the gamma-against-theta path (dashed).
+    /// </summary>
+    public static ChartImage Marks(ImmutableArray<DateOnly> dates, IReadOnlyList<RulePnl> rules)
+    {
+        using var plot = BuildMarks(dates, rules);
+        return new ChartImage(MarksFileName, "The same trades on two daily marks",
+            "Running sum of the daily net P&L in vol points of always-sell and the proposed rule (trades on every signal, each sized 1/h). Solid: each open trade marked at that day's quoted implied volatility (the path the drawdown, Sharpe and Sortino use). Dashed: marked at the trade's own entry implied, so only the hedged moves of spot count (gamma against theta). Each trade's marks sum to its P&L at expiry on both, so the lines meet wherever no trade is open; the gap shows the losses and gains of implied moving mid-trade. The other rules' paths are in rule-pnl.csv (column pnl_entry_vol).",
+            ChartStyle.Png(plot));
+    }
+
+    /// <summary>The rules the marks chart draws: always-sell and the proposed rule.</summary>
+    internal static IEnumerable<RulePnl> MarkedRules(IReadOnlyList<RulePnl> rules) =>
+        rules.Where(r => r.Rule is TradingRule.AlwaysSell or TradingRule.Proposed);
+
+    internal static Plot BuildMarks(ImmutableArray<DateOnly> dates, IReadOnlyList<RulePnl> rules)
+    {
+        ArgumentNullException.ThrowIfNull(rules);
+        var xs = new double[dates.Length];
+        for (var i = 0; i < xs.Length; i++)
+        {
+            xs[i] = ChartStyle.X(dates[i]);
+        }
+
+        var plot = ChartStyle.NewPlot("Cumulative net P&L: marked at quoted implied and at entry implied", "Date", "Cumulative P&L (vol points)");
+        var zero = plot.Add.HorizontalLine(0);
+        zero.Color = ChartStyle.Reference;
+        zero.LineWidth = 1;
+        foreach (var rule in MarkedRules(rules))
+        {
+            if (rule.DailyPnl.Length != xs.Length || rule.DailyPnlEntryVol.Length != xs.Length)
+            {
+                throw new ArgumentException(string.Create(CultureInfo.InvariantCulture,
+                    $"The {RuleNames.Name(rule.Rule)} rule's daily paths have {rule.DailyPnl.Length} and {rule.DailyPnlEntryVol.Length} values but there are {xs.Length} dates; expected one per date."), nameof(rules));
+            }
+
+            var color = ChartStyle.Rule(rule.Rule);
+            foreach (var (daily, dashed, label) in new[] { (rule.DailyPnl, false, "marked at quoted implied"), (rule.DailyPnlEntryVol, true, "marked at entry implied") })
+            {
+                var (cx, cy) = ChartPoints.Line(xs, CumulativeSum(daily));
+                var line = plot.Add.ScatterLine(cx, cy);
+                line.Color = color;
+                line.LineWidth = 2f;
+                line.LinePattern = dashed ? LinePattern.Dashed : LinePattern.Solid;
+                line.LegendText = RuleNames.Name(rule.Rule) + ", " + label;
+            }
+        }
+
+        ChartStyle.DateAxis(plot, "Date");
+        plot.Axes.Margins(0.01, 0.05);
+        if (xs.Length > 1)
+        {
+            plot.Axes.SetLimitsX(xs[0], xs[^1]);
+        }
+
+        ChartStyle.LegendBelow(plot);
+        return plot;
     }
 
     /// <summary>The running sum of a daily path.</summary>

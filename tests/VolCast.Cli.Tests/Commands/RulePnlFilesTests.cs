@@ -35,10 +35,30 @@ public sealed class RulePnlFilesTests : IDisposable
         Assert.Contains(trades, l => l.StartsWith("next-day,", StringComparison.Ordinal));
 
         var paths = Lines(folder, "rule-pnl.csv");
-        Assert.Equal(["timing", "rule", "date", "pnl", "pnl_zero_cost", "pnl_entry_vol", "pnl_entry_vol_zero_cost", "threshold"], paths[0].Split(','));
-        Assert.All(paths, line => Assert.Equal(8, line.Split(',').Length));
-        var pathRules = paths.Skip(1).Select(l => l.Split(',')[1]).ToHashSet();
+        Assert.Equal(["rule", "date", "pnl", "pnl_zero_cost", "pnl_entry_vol", "threshold"], paths[0].Split(','));
+        Assert.All(paths, line => Assert.Equal(6, line.Split(',').Length));
+        var pathRules = paths.Skip(1).Select(l => l.Split(',')[0]).ToHashSet();
         Assert.Equal(new HashSet<string> { "always-sell", "proposed", "current", "historical", "walk-forward-threshold" }, pathRules);
+        var later = Lines(folder, "rule-pnl-next-day.csv");
+        Assert.Equal(["rule", "date", "pnl"], later[0].Split(','));
+        Assert.Equal(pathRules, later.Skip(1).Select(l => l.Split(',')[0]).ToHashSet());
+
+        // The report's path figures are reproducible from the two files: each rule's path totals in metrics.json (net and
+        // zero cost at the close, net a day later) are the sums of the files' daily values.
+        using var metrics = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "metrics.json")));
+        var rulePnl = metrics.RootElement.GetProperty("rule_pnl");
+        foreach (var (timing, lines, columns) in new[] { ("at_close", paths, new[] { ("path", 2), ("path_zero_cost", 3) }), ("next_day", later, new[] { ("path", 2) }) })
+        {
+            foreach (var rule in rulePnl.GetProperty(timing).GetProperty("rules").EnumerateArray())
+            {
+                var name = rule.GetProperty("rule").GetString();
+                foreach (var (path, column) in columns)
+                {
+                    var sum = lines.Skip(1).Select(l => l.Split(',')).Where(c => c[0] == name).Sum(c => double.Parse(c[column], CultureInfo.InvariantCulture));
+                    Assert.Equal(rule.GetProperty(path).GetProperty("total").GetDouble(), sum, 9);
+                }
+            }
+        }
 
         foreach (var file in Directory.GetFiles(folder).Where(f => f.EndsWith(".csv", StringComparison.Ordinal) || f.EndsWith(".json", StringComparison.Ordinal) || f.EndsWith(".txt", StringComparison.Ordinal)))
         {
@@ -49,6 +69,7 @@ public sealed class RulePnlFilesTests : IDisposable
         var manifest = run.RootElement.GetProperty("files").EnumerateArray().Select(e => e.GetString()).ToList();
         Assert.Contains("trades.csv", manifest);
         Assert.Contains("rule-pnl.csv", manifest);
+        Assert.Contains("rule-pnl-next-day.csv", manifest);
     }
 
     [Fact]

@@ -21,6 +21,56 @@ public sealed class RuleBacktestTests
         }
     }
 
+    [Fact]
+    public void Run_AlwaysSell_StartOffsetRangesMatchEveryHthTradeOfTheSignalTable()
+    {
+        // Always-sell fires on every date, so one trade at a time from the o-th date takes the trades entered on dates
+        // o, o + h, o + 2h, … (a new trade enters at the close where the last one settles). Recomputed here from the
+        // every-signal trade table, not from the range code: each figure's range over the h offsets must match.
+        const int h = 21;
+        var (prices, implied, proposed, current, historical) = Market(11, 700);
+        var settings = new TradingSettings { Entries = TradeEntries.EverySignal };
+        var result = RuleBacktest.Run(prices, implied, BacktestHorizon.Days(h), proposed, current, historical, settings);
+        var always = result.Rules[0];
+        Assert.Equal(TradingRule.AlwaysSell, always.Rule);
+        var trades = always.Trades.OrderBy(t => t.EntryIndex).ToArray();
+        Assert.True(trades.Length > 10 * h);
+        for (var j = 1; j < trades.Length; j++)
+        {
+            Assert.Equal(trades[j - 1].EntryIndex + 1, trades[j].EntryIndex);
+        }
+
+        double countLow = double.MaxValue, countHigh = 0, meanLow = double.MaxValue, meanHigh = double.MinValue;
+        double worstLow = double.MaxValue, worstHigh = double.MinValue, grossMeanLow = double.MaxValue, grossMeanHigh = double.MinValue;
+        for (var o = 0; o < h; o++)
+        {
+            var chosen = trades.Where((_, j) => j >= o && (j - o) % h == 0).ToArray();
+            countLow = Math.Min(countLow, chosen.Length);
+            countHigh = Math.Max(countHigh, chosen.Length);
+            var mean = chosen.Average(t => t.PnlVolPoints);
+            meanLow = Math.Min(meanLow, mean);
+            meanHigh = Math.Max(meanHigh, mean);
+            var worst = chosen.Min(t => t.PnlVolPoints);
+            worstLow = Math.Min(worstLow, worst);
+            worstHigh = Math.Max(worstHigh, worst);
+            var gross = chosen.Average(t => t.GrossPnlVolPoints);
+            grossMeanLow = Math.Min(grossMeanLow, gross);
+            grossMeanHigh = Math.Max(grossMeanHigh, gross);
+        }
+
+        var net = always.OneAtATimeRangeNet;
+        Assert.Equal(h, net.Starts);
+        Assert.Equal(new FigureRange(countLow, countHigh), net.Trades);
+        Assert.Equal(meanLow, net.MeanVolPoints!.Low, 12);
+        Assert.Equal(meanHigh, net.MeanVolPoints.High, 12);
+        Assert.Equal(worstLow, net.WorstVolPoints!.Low, 12);
+        Assert.Equal(worstHigh, net.WorstVolPoints.High, 12);
+        Assert.Equal(grossMeanLow, always.OneAtATimeRangeZeroCost.MeanVolPoints!.Low, 12);
+        Assert.Equal(grossMeanHigh, always.OneAtATimeRangeZeroCost.MeanVolPoints.High, 12);
+        // Costs are charged on every trade, so the net range lies below the zero-cost one.
+        Assert.True(net.PnlPerYear.High < always.OneAtATimeRangeZeroCost.PnlPerYear.High);
+    }
+
     /// <summary>
     /// A simulated market at 20% volatility where implied is quoted 3 vol points high, a forecaster that knows the truth
     /// (20%), a noisier baseline around 21%, and a historical one that forecasts 21%.

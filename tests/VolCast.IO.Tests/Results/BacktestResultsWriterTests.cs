@@ -182,8 +182,8 @@ public sealed class BacktestResultsWriterTests
 
         // The manifest is exactly what the folder holds, run.json included, in ordinal order.
         Assert.Equal(Directory.GetFiles(folder).Select(Path.GetFileName).Order(StringComparer.Ordinal), manifest);
-        // The run has no implied, so the two files written only with the rule's P&L and the groups against implied are left out.
-        string[] onlyWithRulePnl = [BacktestResultsWriter.TradesFileName, BacktestResultsWriter.RulePnlFileName, GroupsCsv.FileName];
+        // The run has no implied, so the files written only with the rule's P&L and the groups against implied are left out.
+        string[] onlyWithRulePnl = [BacktestResultsWriter.TradesFileName, BacktestResultsWriter.RulePnlFileName, BacktestResultsWriter.RulePnlNextDayFileName, GroupsCsv.FileName];
         Assert.Equal(BacktestResultsWriter.FileNames.Except(onlyWithRulePnl).Order(StringComparer.Ordinal), manifest);
         Assert.Equal(manifest, BacktestResultsWriter.ReadManifest(folder));
     }

@@ -69,7 +69,7 @@ public sealed class PnlSectionTests : IDisposable
         Assert.True(verdict < pnl && pnl < metrics, $"verdict {verdict}, pnl {pnl}, metrics {metrics}");
         Assert.Contains("<h2>Would the rule have paid?</h2>", html, StringComparison.Ordinal);
         Assert.Equal(
-            ["The rules as delta-hedged straddles", "The tests that decide: differences of daily net P&L", "Threshold sweep", "Does the best rule survive the search?",
+            ["The rules as delta-hedged straddles", "One at a time: how much the first trade's date matters", "The tests that decide: differences of daily net P&L", "Threshold sweep", "Does the best rule survive the search?",
              "Entry at the signal's close against one trading day later (net of costs)", "Net P&L by calendar year, vol points", "The same bet as a variance swap"],
             model.Pnl.Tables.Select(t => t.Title));
     }
@@ -177,12 +177,30 @@ public sealed class PnlSectionTests : IDisposable
         Assert.All(close.Rules.SelectMany(r => r.Trades), t => Assert.True(t.PnlVolPoints < t.GrossPnlVolPoints));
 
         // The sweep lists every row searched, and the snooping table names the best by its label.
-        Assert.Equal(close.Sweep.Length, section.Tables[2].Rows.Count);
-        Assert.Equal(close.Sweep[Report.Means.BestRule].Label, section.Tables[3].Rows[0][1]);
-        Assert.Equal(PValueText.Value(Report.Means.RealityCheckPValue), section.Tables[3].Rows[0][3]);
-        Assert.Equal(PValueText.Value(Report.Sharpe.Spa.Consistent), section.Tables[3].Rows[1][4]);
+        Assert.Equal(close.Sweep.Length, section.Tables[3].Rows.Count);
+        Assert.Equal(close.Sweep[Report.Means.BestRule].Label, section.Tables[4].Rows[0][1]);
+        Assert.Equal(PValueText.Value(Report.Means.RealityCheckPValue), section.Tables[4].Rows[0][3]);
+        Assert.Equal(PValueText.Value(Report.Sharpe.Spa.Consistent), section.Tables[4].Rows[1][4]);
         var tradedRows = close.Sweep.Where(r => r.Trades > 0).ToArray();
-        Assert.Equal(tradedRows[Report.Sharpe.BestRule].Label, section.Tables[3].Rows[1][1]);
+        Assert.Equal(tradedRows[Report.Sharpe.BestRule].Label, section.Tables[4].Rows[1][1]);
+
+        // The start-offset table gives each figure's lowest and highest value over the h first entries, and the
+        // first entry's own figure (the table above) lies inside it.
+        var ranges = section.Tables[1];
+        Assert.Equal(close.Rules.Length * 2, ranges.Headers.Count - 1);
+        for (var k = 0; k < close.Rules.Length; k++)
+        {
+            var rule = close.Rules[k];
+            var range = rule.OneAtATimeRangeNet;
+            var trades = ranges.Rows.Single(r => r[0] == "Trades")[1 + (2 * k)];
+            Assert.Equal(string.Create(c, $"{range.Trades.Low:0} to {range.Trades.High:0}"), trades);
+            Assert.InRange(rule.TradeStatisticsNet.Count, range.Trades.Low, range.Trades.High);
+            if (rule.TradeStatisticsNet.MeanVolPoints is double mean)
+            {
+                Assert.InRange(mean, range.MeanVolPoints!.Low, range.MeanVolPoints.High);
+                Assert.Equal(string.Create(c, $"{range.MeanVolPoints.Low:0.00} to {range.MeanVolPoints.High:0.00}"), ranges.Rows.Single(r => r[0] == "Mean P&L per trade, vol points")[1 + (2 * k)]);
+            }
+        }
 
         // P&L by year adds up to the path's total.
         var proposed = close[TradingRule.Proposed];
@@ -194,7 +212,7 @@ public sealed class PnlSectionTests : IDisposable
     {
         var written = ReportWriter.Write(_folder, With(Report));
 
-        foreach (var name in new[] { PnlCharts.CumulativeFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName })
+        foreach (var name in new[] { PnlCharts.CumulativeFileName, PnlCharts.MarksFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName })
         {
             Assert.Contains(name, written);
             Assert.Contains(name, ReportWriter.FileNames);
@@ -239,6 +257,39 @@ public sealed class PnlSectionTests : IDisposable
                 Assert.Equal(colour, years.GetPlottables().OfType<ScottPlot.Plottables.BarPlot>().Single(p => p.LegendText == name).Bars[0].FillColor);
             }
         }
+    }
+
+    [Fact]
+    public void MarksChart_PlotsEachPathsRunningSumInTheRulesColour_SolidQuotedDashedEntry()
+    {
+        // The plot data, against the record: always-sell and the proposed rule, each on both marks; the last point of a
+        // line is the path's total, summed here independently; the solid line is the quoted-implied mark the drawdown
+        // uses, the dashed one the entry-implied (gamma-against-theta) mark.
+        var close = Report.AtClose;
+        using var plot = PnlCharts.BuildMarks(close.Dates, close.Rules);
+        var lines = plot.GetPlottables().OfType<ScottPlot.Plottables.Scatter>().ToArray();
+        Assert.Equal(4, lines.Length);
+        foreach (var rule in close.Rules.Where(r => r.Rule is TradingRule.AlwaysSell or TradingRule.Proposed))
+        {
+            var name = RuleNames.Name(rule.Rule);
+            var quoted = lines.Single(l => l.LegendText == name + ", marked at quoted implied");
+            var entry = lines.Single(l => l.LegendText == name + ", marked at entry implied");
+            Assert.Equal(ChartStyle.Rule(rule.Rule), quoted.Color);
+            Assert.Equal(ChartStyle.Rule(rule.Rule), entry.Color);
+            Assert.Equal(ScottPlot.LinePattern.Solid, quoted.LinePattern);
+            Assert.Equal(ScottPlot.LinePattern.Dashed, entry.LinePattern);
+            var quotedPoints = quoted.Data.GetScatterPoints();
+            var entryPoints = entry.Data.GetScatterPoints();
+            Assert.Equal(close.Dates.Length, quotedPoints.Count);
+            Assert.Equal(rule.DailyPnl.Sum(), quotedPoints[^1].Y, 9);
+            Assert.Equal(rule.DailyPnlEntryVol.Sum(), entryPoints[^1].Y, 9);
+            Assert.Equal(rule.DailyPnl.Take(10).Sum(), quotedPoints[9].Y, 9);
+        }
+
+        // The caption names the file and column that hold the entry-implied paths of every rule.
+        var image = PnlCharts.Marks(close.Dates, close.Rules);
+        Assert.Contains("rule-pnl.csv (column pnl_entry_vol)", image.Description, StringComparison.Ordinal);
+        Assert.Contains("pnl_entry_vol", VolCast.IO.Tables.RulePnlTables.Paths.Names);
     }
 
     [Fact]

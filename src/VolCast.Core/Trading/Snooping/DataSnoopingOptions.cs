@@ -10,14 +10,15 @@ namespace VolCast.Core.Trading.Snooping;
 /// The mean block length should cover the serial dependence of the P&amp;L differences. The stationary bootstrap weighs
 /// the lag-i autocovariance by about (1 − 1/L)^i (Politis &amp; Romano 1994), so with L equal to the span of the
 /// dependence the bootstrap variance of a mean falls short of the long-run variance (about 72% of it for the MA(4) of
-/// overlapping 5-day sums at L = 5) and every test here rejects too often; a daily mark-to-market path, whose
-/// dependence is shorter than the trades' horizon, suffers less.
+/// overlapping 5-day sums at L = 5) and every test here rejects too often. The run therefore uses the Politis-White
+/// automatic length, at least the horizon (<see cref="AutomaticBlockLength"/>), unless the configuration sets L; the
+/// sizes measured for L = h, 2h and the automatic length are in docs/methods.md#data-snooping-reality-check-spa-stepm.
 /// </para>
 /// </remarks>
 internal sealed record DataSnoopingOptions
 {
     /// <summary>Creates the settings, checking each one.</summary>
-    /// <param name="meanBlockLength">Mean block length L of the stationary bootstrap in days, at least 1; the horizon of the trades by default (see <see cref="ForHorizon"/>).</param>
+    /// <param name="meanBlockLength">Mean block length L of the stationary bootstrap in days, at least 1; the run passes the Politis-White automatic length, at least the horizon (<see cref="AutomaticBlockLength"/>).</param>
     /// <param name="seed">Seed of the random number generator.</param>
     /// <param name="replications">Bootstrap replications B, at least 1; 1,000 by default.</param>
     /// <param name="level">Familywise error rate of StepM, in (0, 1); 0.05 by default.</param>
