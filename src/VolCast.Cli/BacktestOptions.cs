@@ -115,11 +115,11 @@ internal static class BacktestOptions
     /// <summary>The help text of --config: every key of the configuration file (the README has a complete example) and the numeric ranges.</summary>
     public static string ConfigHelp { get; } =
         "JSON configuration; every setting is optional and the README has a complete example. Keys: forecasters, horizon or tenor, start, end, "
-        + "sweep, sweepEstimators, sweepLookbacks, ewmaLambdas, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, "
+        + "sweep, sweepEstimators, fullSweep (true sweeps every estimator family, not only the listed ones), sweepLookbacks, ewmaLambdas, selectionWindowDays, mcs {replications, alpha, blockLength, seed}, "
         + "ruleThreshold, ruleForecaster, ruleHistorical, baseline, candidate, annualizationFactor, target; "
         + "the rule's trades: costs {optionHalfSpreadVolPoints, hedgeCostBps}, rate, dividendYield, entries (one-at-a-time | every-signal), "
         + "ruleSides (sell-only | both), hedgeVolatility (implied | forecast), ruleThresholds, snooping {replications, blockLength, seed}; "
-        + "the inputs: suspect, skipBadRows, dateFormat, delimiter, decimal, impliedTenor; workbook (true writes results.xlsx). " + SettingLimits.HelpText();
+        + "the inputs: suspect, skipBadRows, dateFormat, delimiter, decimal, impliedTenor, forecastsFile, forecastsUnit; workbook (true writes results.xlsx). " + SettingLimits.HelpText();
 
     /// <summary>The help text of --skip-bad-rows.</summary>
     public const string SkipBadRowsHelp = "Leave out rows that fail a row check (unparseable, low above high, a duplicate date) and list them in rejected-rows.csv, instead of refusing the file with the list of every bad row.";

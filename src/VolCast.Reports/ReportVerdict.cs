@@ -50,12 +50,13 @@ internal static class ReportVerdict
         var headline = ranked.Count == 0
             ? "No forecaster could be scored: no date had both a forecast and a positive realized target."
             : Headline(result, ranked[0]);
-        var points = new List<string> { HeadToHead(result), Mcs(result.ModelConfidenceSet) };
         if (ReportAnswers.CommonDates(result) is { } common)
         {
             // Which dates the ranking, the answer about implied, the head-to-head and the premium rest on.
-            points.Insert(0, common);
+            headline += " " + common;
         }
+
+        var points = new List<string> { HeadToHead(result), Mcs(result.ModelConfidenceSet) };
         if (result.HasImplied && ReportSeries.Premium(result).Values is { Count: > 0 } premium)
         {
             points.Add(string.Create(C,

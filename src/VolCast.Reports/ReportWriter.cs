@@ -160,7 +160,7 @@ public static class ReportWriter
             var (all, sell) = ReportSeries.RuleGaps(result);
             charts.Add(ReportCharts.RuleTest(all, sell, string.Create(CultureInfo.InvariantCulture,
                 $"sell: implied > {rule.ForecastSpec} + {rule.ThresholdVolatility * 100:0.0} pts"), rule.ForecastSpec,
-                rule.SignalledMinusAll(RuleSignal.SellVolatility, result.HacLag).PValue, colors));
+                SignalledAgainstAll.Compute(rule, historical: false, RuleSignal.SellVolatility, result.HacLag).PValue, colors));
         }
 
         progress?.Report(new BacktestProgress("drawing charts", planned, planned));

@@ -39,6 +39,9 @@ internal sealed record BatchAssetJob(
     /// <summary>Gets how the asset's bad and suspect rows are treated.</summary>
     public DataChecks Checks { get; init; } = DataChecks.Default;
 
+    /// <summary>Gets whether the asset's folder also gets results.xlsx.</summary>
+    public bool Workbook { get; init; }
+
     /// <summary>Gets the configuration file's SHA-256, hashed once for the whole batch, or null to hash it here.</summary>
     public string? ConfigSha256 { get; init; }
 
@@ -80,6 +83,7 @@ internal sealed record BatchAssetJob(
                 ImpliedTenorDays = ImpliedTenorDays,
                 WriteReport = Reports == BatchReports.Full,
                 Checks = Checks,
+                Workbook = Workbook,
             };
             BatchAssetRow? row = null;
             var hashes = inputs;

@@ -13,7 +13,7 @@ namespace VolCast.Cli.Batch;
 /// </summary>
 internal static class BatchFingerprint
 {
-    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null, DataChecks? checks = null)
+    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null, DataChecks? checks = null, bool workbook = false)
     {
         var text = new StringBuilder();
         void Line(string name, object? value) => text.Append(name).Append('=').Append(Convert.ToString(value, CultureInfo.InvariantCulture) ?? "null").Append('\n');
@@ -55,6 +55,17 @@ internal static class BatchFingerprint
             // Dropped rows change the results, so another treatment of bad or suspect rows recomputes the name; the default leaves fingerprints as they were.
             Line("suspect", checks.Suspect);
             Line("skipBadRows", checks.SkipBadRows);
+        }
+
+        // Settings added later are written only when they differ from their default, so earlier fingerprints still match.
+        if (s.FullSweep)
+        {
+            Line("fullSweep", true);
+        }
+
+        if (workbook)
+        {
+            Line("workbook", true);
         }
 
         return Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text.ToString())));

@@ -29,7 +29,7 @@ internal static class BatchReducer
         }
 
         var version = BacktestPipeline.ToolVersion();
-        var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, version, request.Format, request.ImpliedTenorDays, request.Checks);
+        var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, version, request.Format, request.ImpliedTenorDays, request.Checks, request.Workbook);
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
         var rows = new BatchAssetRow[assets.Count];
         var missing = new List<string>();

@@ -36,4 +36,7 @@ internal sealed record BatchRequest(
 
     /// <summary>Gets how each name's bad and suspect rows are treated (default: refuse bad rows, warn about suspect ones).</summary>
     public DataChecks Checks { get; init; } = DataChecks.Default;
+
+    /// <summary>Gets whether each name also gets results.xlsx.</summary>
+    public bool Workbook { get; init; }
 }

@@ -69,7 +69,7 @@ internal static class BatchRunner
             ResultsFolder.RemoveStaleTemporaries(assetsFolder);
         }
 
-        var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays, request.Checks);
+        var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays, request.Checks, request.Workbook);
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
         var rows = new BatchAssetRow?[assets.Count];
         var gate = new Lock();
@@ -99,6 +99,7 @@ internal static class BatchRunner
                             Reports = request.Reports,
                             FailureFolder = request.Shard is null ? null : Path.Combine(request.OutputFolder, FailuresFolder, asset.Name),
                             Checks = request.Checks,
+                            Workbook = request.Workbook,
                         }.Run(cancellationToken);
                     BatchProgress report;
                     lock (gate)

@@ -27,6 +27,7 @@ internal static class BatchCommand
         var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp + " Applies to each name on its own: a name stopped by its suspect rows fails alone and the summary lists it." };
         suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp + " Each name lists its own in OUT/assets/NAME/rejected-rows.csv." };
+        var workbook = new Option<bool>("--workbook") { Description = BacktestOptions.WorkbookHelp + " Each name gets its own in OUT/assets/NAME/." };
         var shard = new Option<string?>("--shard") { Description = "Compute only shard K of N (0-based, --shard K/N): the names whose stable hash of the name (64-bit FNV-1a of its UTF-8 bytes) modulo N is K, so adding a name never moves the others. Shards may write into one shared --out at the same time; a shard writes no summary (see --reduce). --shard auto takes K and N from a Kubernetes indexed job (JOB_COMPLETION_INDEX, with --shards N) or a Slurm job array (SLURM_ARRAY_TASK_ID, SLURM_ARRAY_TASK_COUNT)." };
         var shards = new Option<int?>("--shards") { Description = "With --shard auto in a Kubernetes indexed job: the number of shards, equal to the job's completions." };
         var reduce = new Option<bool>("--reduce") { Description = "Compute nothing: read the names' finished folders in --out (written by shards with the same options) and write summary.csv, beats-implied.csv and summary.html, byte for byte as one batch would. Names with no finished results are listed and the exit code is 3." };
@@ -35,7 +36,7 @@ internal static class BatchCommand
         reports.AcceptOnlyFromAmong("full", "summary", "none");
         var command = new Command("batch", "Run the same backtest over every NAME.csv in a folder, in parallel; results per name go to OUT/assets/NAME/. A rerun keeps names whose results are complete and whose inputs (by SHA-256) and configuration are unchanged, so an interrupted batch resumes; one bad file fails only its name. Writes summary.csv, lookbacks.csv, beats-implied.csv and summary.html (share of names where each forecaster beats implied, with a Benjamini-Hochberg false discovery rate correction). Ctrl-C stops cleanly, keeping finished names (exit code 130).")
         {
-            pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force, suspect, skipBadRows, reports, shard, shards, reduce, allowMissing,
+            pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force, suspect, skipBadRows, workbook, reports, shard, shards, reduce, allowMissing,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
@@ -57,7 +58,8 @@ internal static class BatchCommand
             parse,
             formatOptions,
             parse.GetValue(suspect),
-            parse.GetValue(skipBadRows)))));
+            parse.GetValue(skipBadRows),
+            parse.GetValue(workbook)))));
         return command;
     }
 
@@ -82,6 +84,7 @@ internal static class BatchCommand
             Shard = Shard(a),
             Reports = a.Reports switch { "summary" => BatchReports.Summary, "none" => BatchReports.None, _ => BatchReports.Full },
             Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
+            Workbook = BacktestOptions.Workbook(a.Config, a.Workbook),
         };
     }
 
@@ -196,5 +199,5 @@ internal static class BatchCommand
 
     private sealed record Arguments(
         string PricesDir, string? ImpliedDir, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Out, int? Jobs, bool Force,
-        string? ImpliedTenor, string Reports, string? Shard, int? Shards, bool Reduce, bool AllowMissing, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows);
+        string? ImpliedTenor, string Reports, string? Shard, int? Shards, bool Reduce, bool AllowMissing, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, bool Workbook);
 }

@@ -30,7 +30,7 @@ internal static class ImpliedCommand
         };
         var dividendYield = new Option<double>("--dividend-yield")
         {
-            Description = $"Continuous dividend yield as a decimal (0.02 = 2%), {SettingLimits.DividendYield}, for rows without one (default 0).",
+            Description = $"Continuous dividend yield as a decimal (0.02 = 2%), {SettingLimits.DividendYield}, for rows without one.",
             DefaultValueFactory = _ => 0.0,
         };
         var extrapolation = new Option<string>("--extrapolation")

@@ -39,6 +39,26 @@ public sealed class WorkbookOptionTests : IDisposable
     }
 
     [Fact]
+    public void Batch_Workbook_WritesOneWorkbookPerName()
+    {
+        var prices = Path.Combine(_temp.Path, "names");
+        Directory.CreateDirectory(prices);
+        ReliabilityFiles.Prices(prices, "alpha.csv", 400, seed: 5);
+        ReliabilityFiles.Prices(prices, "beta.csv", 400, seed: 6);
+        var output = Path.Combine(_temp.Path, "batch");
+
+        var result = CliRunner.Run("batch", "--prices-dir", prices, "--config", ReliabilityFiles.FastConfig(_temp.Path), "--out", output, "--jobs", "1", "--workbook");
+
+        Assert.True(result.ExitCode == 0, result.Stderr);
+        foreach (var name in new[] { "alpha", "beta" })
+        {
+            var folder = Path.Combine(output, "assets", name);
+            Assert.True(File.Exists(Path.Combine(folder, "results.xlsx")), name);
+            Assert.Contains("results.xlsx", Manifest(folder));
+        }
+    }
+
+    [Fact]
     public void Backtest_WorkbookSettingNotABoolean_IsRefusedNamingTheSetting()
     {
         var prices = ReliabilityFiles.Prices(_temp.Path, "prices.csv", 400, seed: 5);
