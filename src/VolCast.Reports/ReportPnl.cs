@@ -120,7 +120,7 @@ internal static class ReportPnl
             ? "StepM names no rule that beats always-sell"
             : "StepM names " + Winners(close, test) + " as beating always-sell";
         return string.Create(C,
-            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {Label(close, test, test.BestRule)}, is {Signed(test.Estimates[test.BestRule] * annualize)} {unit} ahead of always-sell; Reality Check {PValueText.Clause(test.RealityCheckPValue)}, SPA {PValueText.Clause(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
+            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {Label(close, test, test.BestRule)}, is {Math.Abs(test.Estimates[test.BestRule] * annualize).ToString("0.00", C)} {unit} {(test.Estimates[test.BestRule] >= 0 ? "ahead of" : "behind")} always-sell; Reality Check {PValueText.Clause(test.RealityCheckPValue)}, SPA {PValueText.Clause(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
     }
 
     private static TextTable Rules(RuleBacktestResult close)
@@ -373,7 +373,7 @@ internal static class ReportPnl
             new("Size", "each trade sized to an entry vega of one vol point, so a P&L of 1 is one vol point earned"),
             new("Expiry", expiry),
             new("Hedge", (s.HedgeVolatility == HedgeVolatility.Implied ? "at the entry implied volatility" : "at the forecaster's volatility on the firing date") + ": the straddle's Black-Scholes-Merton delta held from each close to the next, up to the close before expiry"),
-            new("Costs", string.Create(C, $"option half-spread {s.Costs.OptionHalfSpreadVolPoints:0.00} vol points × entry vega, once at entry; hedge trades {s.Costs.HedgeCostBps:0.##} basis points of their notional; every cash flow carried to expiry at r")),
+            new("Costs", string.Create(C, $"option half-spread {s.Costs.OptionHalfSpreadVolPoints:0.00} vol points × entry vega, once at entry; hedge trades {s.Costs.HedgeCostBps:0.##} basis point{(s.Costs.HedgeCostBps == 1 ? string.Empty : "s")} of their notional; every cash flow carried to expiry at r")),
             new("Entries", string.Create(C, $"trade table: one at a time (no overlap) from the first firing date; daily paths, tests and sweep: a trade on every signal, each sized 1/{close.HorizonDays}")),
             new("Entry timing", s.EntryTiming == EntryTiming.FiringClose ? "at the close of the firing date (next-day figures beside)" : "one trading day after the firing date"),
             new("Daily marking", "each open trade marked at that day's quoted implied volatility (the constant-tenor series stands in for the option's own, shorter-dated implied)"),

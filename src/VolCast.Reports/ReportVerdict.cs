@@ -26,7 +26,8 @@ internal static class ReportVerdict
 
         var points = verdict.Points.ToList();
         var rule = points.FindIndex(p => p.StartsWith(RulePrefix, StringComparison.Ordinal));
-        var answer = "In option trades after costs: " + ReportPnl.Headline(pnl);
+        var headline = ReportPnl.Headline(pnl);
+        var answer = "In option trades after costs: " + (headline.Length > 0 ? char.ToLowerInvariant(headline[0]) + headline[1..] : headline);
         if (rule < 0)
         {
             points.Add(answer);

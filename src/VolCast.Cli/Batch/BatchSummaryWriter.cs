@@ -8,7 +8,7 @@ using VolCast.Reports.Model;
 namespace VolCast.Cli.Batch;
 
 /// <summary>
-/// Writes summary.csv, lookbacks.csv, beats-implied.csv and summary.html into the batch's folder, each atomically (temporary file, then a
+/// Writes summary.csv, lookbacks.csv, beats-implied.csv, forecasts-long.csv and summary.html into the batch's folder, each atomically (temporary file, then a
 /// move). The files depend only on the rows and the request's inputs and settings (not on how many jobs or shards ran),
 /// so a single-process batch and shards followed by the reduce write the same bytes.
 /// </summary>
@@ -24,6 +24,9 @@ internal static class BatchSummaryWriter
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, BatchLookbacksCsv.FileName), w => BatchLookbacksCsv.Write(w, rows), overwrite: true);
         AtomicFile.WriteText(Path.Combine(request.OutputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
+        var assets = Path.Combine(request.OutputFolder, BatchRunner.AssetsFolder);
+        AtomicFile.WriteText(Path.Combine(request.OutputFolder, BatchForecastsLongCsv.FileName),
+            w => BatchForecastsLongCsv.Write(w, rows.Where(r => r.Succeeded).Select(r => (r.Name, Path.Combine(assets, r.Name)))), overwrite: true);
         if (request.Reports == BatchReports.None)
         {
             return;

@@ -31,7 +31,7 @@ internal static class HtmlReport
         h3{font-size:1.05em;margin:1.2em 0 .4em}
         .verdict{border:2px solid #0072B2;background:#eef6fb;padding:12px 18px;border-radius:4px}
         .verdict .headline{font-size:1.25em;font-weight:bold;margin:0 0 .4em}
-        table{border-collapse:collapse;margin:.4em 0 .8em;font-size:.95em}
+        table{border-collapse:collapse;margin:.4em 0 .8em;font-size:.95em;display:block;max-width:100%;overflow-x:auto}
         th,td{border:1px solid #bbb;padding:4px 10px;text-align:right;vertical-align:top}
         th:first-child,td:first-child{text-align:left;white-space:nowrap}
         table.text th,table.text td{text-align:left}

@@ -39,7 +39,7 @@ public sealed class WorkbookOptionTests : IDisposable
     }
 
     [Fact]
-    public void Batch_Workbook_WritesOneWorkbookPerName()
+    public void Batch_Workbook_WritesOneWorkbookPerNameAndTheLongTableAcrossNames()
     {
         var prices = Path.Combine(_temp.Path, "names");
         Directory.CreateDirectory(prices);
@@ -56,6 +56,15 @@ public sealed class WorkbookOptionTests : IDisposable
             Assert.True(File.Exists(Path.Combine(folder, "results.xlsx")), name);
             Assert.Contains("results.xlsx", Manifest(folder));
         }
+
+        // The batch's long table is every name's forecasts-long.csv with the name in front, in name order.
+        var expected = new List<string> { "asset,date,forecaster,forecast,realized,implied" };
+        foreach (var name in new[] { "alpha", "beta" })
+        {
+            expected.AddRange(File.ReadAllLines(Path.Combine(output, "assets", name, "forecasts-long.csv")).Skip(1).Select(line => name + "," + line));
+        }
+
+        Assert.Equal(expected, File.ReadAllLines(Path.Combine(output, "forecasts-long.csv")));
     }
 
     [Fact]

@@ -66,7 +66,7 @@ public sealed partial class BrowserTests : IDisposable
         // The Now section is new: the committed demo shows it once reports/demo is regenerated; until then it is not asked of it.
         var committed = File.ReadAllText(report);
         var sections = HtmlReport.SectionIds.Where(id => id != "now" || committed.Contains("<section id=\"now\">", StringComparison.Ordinal)).ToArray();
-        var dom = CheckInChromium(report, "demo-screenshot.png", images: 11, sections);
+        var dom = CheckInChromium(report, "demo-screenshot.png", images: 12, sections);
 
         Assert.Contains("candidate garch against baseline yang-zhang:21", dom, StringComparison.Ordinal);
 

@@ -33,7 +33,7 @@ public sealed class PageInBrowserTests : IDisposable
 
         AssertClean(seen);
         // Eight forecast and odds charts plus the three of "Would the rule have paid?".
-        Assert.Equal(11, seen.Images);
+        Assert.Equal(12, seen.Images);
         foreach (var id in HtmlReport.SectionIds)
         {
             Assert.Contains(id, seen.SectionIds);

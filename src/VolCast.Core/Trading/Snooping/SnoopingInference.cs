@@ -164,9 +164,12 @@ internal static class SnoopingInference
 
             realityCount += rootT * plain > plainMax ? 1 : 0;
             studentizedCount += rootT * upper > studentizedMax ? 1 : 0;
-            upperCount += Math.Max(rootT * upper, 0.0) > spaStatistic ? 1 : 0;
-            lowerCount += Math.Max(rootT * lower, 0.0) > spaStatistic ? 1 : 0;
-            consistentCount += Math.Max(rootT * consistent, 0.0) > spaStatistic ? 1 : 0;
+            // Ties count (T* ≥ T): they occur only at the floor 0, where no rule is ahead of the benchmark and the
+            // p-value is 1. Counting only T* > T there would give SPA_c a spuriously small p when every rule is poor,
+            // because its recentred draws sit at the floor too.
+            upperCount += Math.Max(rootT * upper, 0.0) >= spaStatistic ? 1 : 0;
+            lowerCount += Math.Max(rootT * lower, 0.0) >= spaStatistic ? 1 : 0;
+            consistentCount += Math.Max(rootT * consistent, 0.0) >= spaStatistic ? 1 : 0;
         }
 
         return new Exceedances(spaStatistic, realityCount, studentizedCount, lowerCount, consistentCount, upperCount);
