@@ -90,7 +90,7 @@ public sealed class PnlSectionTests : IDisposable
         Assert.Contains("id=\"pnl\"", html, StringComparison.Ordinal);
         Assert.Contains("no implied series was given", html, StringComparison.Ordinal);
         Assert.DoesNotContain(PnlCharts.CumulativeFileName, model.Charts.Select(c => c.FileName));
-        Assert.DoesNotContain("Switching from the current rule", model.Verdict.Headline, StringComparison.Ordinal);
+        Assert.DoesNotContain("switching from the current rule", model.Verdict.Headline, StringComparison.OrdinalIgnoreCase);
     }
 
     [Fact]
@@ -124,9 +124,9 @@ public sealed class PnlSectionTests : IDisposable
 
         var c = CultureInfo.InvariantCulture;
         // The rule's P&L answer closes the verdict's rule point.
-        var headline = model.Verdict.Points.Single(p => p.Contains("Switching from", StringComparison.Ordinal));
+        var headline = model.Verdict.Points.Single(p => p.Contains("switching from", StringComparison.Ordinal));
         var test = close.ProposedVersusCurrent.Test;
-        Assert.Contains("Switching from the current rule to the proposed one would have earned " + Math.Abs(gain).ToString("0.00", c) + " vol points per year " + (gain >= 0 ? "more" : "less"), headline, StringComparison.Ordinal);
+        Assert.Contains("switching from the current rule to the proposed one would have earned " + Math.Abs(gain).ToString("0.00", c) + " vol points per year " + (gain >= 0 ? "more" : "less"), headline, StringComparison.Ordinal);
         Assert.Contains($"t = {test.TStatistic!.Value.ToString("0.00", c)}, {PValueText.Clause(test.PValue!.Value)}", headline, StringComparison.Ordinal);
         Assert.Contains($"worst drawdown of {fall.ToString("0.00", c)} vol points", headline, StringComparison.Ordinal);
         Assert.Contains($"SPA {PValueText.Clause(Report.Means.Spa.Consistent)}", headline, StringComparison.Ordinal);
@@ -138,7 +138,7 @@ public sealed class PnlSectionTests : IDisposable
         // The answer about implied leads; the P&L closes the rule's point, the last one.
         Assert.Contains("implied", model.Verdict.Headline, StringComparison.OrdinalIgnoreCase);
         Assert.StartsWith("Rule test", model.Verdict.Points[^1], StringComparison.Ordinal);
-        Assert.Contains("In option trades after costs: Switching from", model.Verdict.Points[^1], StringComparison.Ordinal);
+        Assert.Contains("In option trades after costs: switching from", model.Verdict.Points[^1], StringComparison.Ordinal);
     }
 
     [Fact]
@@ -333,7 +333,7 @@ public sealed class PnlSectionTests : IDisposable
         Assert.Contains("10 trading days after entry", settings["Expiry"], StringComparison.Ordinal);
         Assert.Contains("entry implied volatility", settings["Hedge"], StringComparison.Ordinal);
         Assert.Contains("half-spread 0.25 vol points", settings["Costs"], StringComparison.Ordinal);
-        Assert.Contains("1 basis points", settings["Costs"], StringComparison.Ordinal);
+        Assert.Contains("1 basis point of", settings["Costs"], StringComparison.Ordinal);
         Assert.Contains("one at a time", settings["Entries"], StringComparison.Ordinal);
         Assert.Contains("r = 0, q = 0", settings["Rate and dividend"], StringComparison.Ordinal);
         Assert.Contains("spot −10% and implied +10 vol points", settings["Stress shock"], StringComparison.Ordinal);
