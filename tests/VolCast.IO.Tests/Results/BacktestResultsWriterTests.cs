@@ -11,16 +11,15 @@ namespace VolCast.IO.Tests.Results;
 
 public sealed class BacktestResultsWriterTests
 {
-    internal static (BacktestResult Result, PriceHistory Prices) SmallRun()
+    /// <summary>Invented closes, one a calendar day from 2020-01-01, each a uniform ±1% log step from the last (not reference data).</summary>
+    internal static (DateOnly[] Dates, PriceHistory Prices) RandomWalk(int seed, int days)
     {
-        // Invented random-walk closes (not reference data), enough for every statistic.
-        var random = new Random(3);
-        var n = 400;
-        var dates = new DateOnly[n];
-        var close = new double[n];
+        var random = new Random(seed);
+        var dates = new DateOnly[days];
+        var close = new double[days];
         var d = new DateOnly(2020, 1, 1);
         close[0] = 100;
-        for (var i = 0; i < n; i++)
+        for (var i = 0; i < days; i++)
         {
             dates[i] = d;
             d = d.AddDays(1);
@@ -30,7 +29,13 @@ public sealed class BacktestResultsWriterTests
             }
         }
 
-        var prices = PriceHistory.FromCloses(dates, close);
+        return (dates, PriceHistory.FromCloses(dates, close));
+    }
+
+    internal static (BacktestResult Result, PriceHistory Prices) SmallRun()
+    {
+        // Invented random-walk closes (not reference data), enough for every statistic.
+        var (dates, prices) = RandomWalk(seed: 3, days: 400);
         var implied = new ImpliedSeries(dates.AsSpan(0, 300), Enumerable.Repeat(0.1, 300).ToArray());
         var settings = new BacktestSettings
         {

@@ -23,23 +23,8 @@ public sealed class TextFilesForPeopleTests : IDisposable
     private void WriteRun()
     {
         // Invented random-walk closes and a flat 12% implied (not reference data), enough for the rule test to fire both ways.
-        var random = new Random(5);
         var n = 400;
-        var dates = new DateOnly[n];
-        var close = new double[n];
-        var d = new DateOnly(2020, 1, 1);
-        close[0] = 100;
-        for (var i = 0; i < n; i++)
-        {
-            dates[i] = d;
-            d = d.AddDays(1);
-            if (i > 0)
-            {
-                close[i] = close[i - 1] * Math.Exp(0.01 * ((2 * random.NextDouble()) - 1));
-            }
-        }
-
-        var prices = PriceHistory.FromCloses(dates, close);
+        var (dates, prices) = BacktestResultsWriterTests.RandomWalk(seed: 5, days: n);
         var implied = new ImpliedSeries(dates, Enumerable.Repeat(0.12, n).ToArray());
         var settings = new BacktestSettings
         {
