@@ -13,6 +13,18 @@ internal static class Program
             return;
         }
 
+        if (args.Length > 0 && args[0] == "charts-diff")
+        {
+            Reports.ChartTimings.Diff(args[1..]);
+            return;
+        }
+
+        if (args.Length > 0 && args[0] == "charts")
+        {
+            Reports.ChartTimings.Run(args[1..]);
+            return;
+        }
+
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
     }
 }

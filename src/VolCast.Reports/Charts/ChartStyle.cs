@@ -1,4 +1,5 @@
 using ScottPlot;
+using SkiaSharp;
 using VolCast.Core.Trading;
 
 namespace VolCast.Reports.Charts;
@@ -91,11 +92,41 @@ internal static class ChartStyle
         plot.Axes.Bottom.TickLabelStyle.FontName = FontName;
     }
 
+    /// <summary>
+    /// How the charts are compressed: the "up" filter alone at zlib level 3. Measured on the report's charts it encodes
+    /// four to six times faster than the encoder's default (every filter tried per row, level 6) and the files come out
+    /// about as large, because a chart's rows mostly repeat the row above (bench/README.md, "Reports").
+    /// </summary>
+    private static readonly SKPngEncoderOptions PngOptions = new(SKPngEncoderFilterFlags.Up, 3);
+
     /// <summary>Renders a plot at the fixed size as PNG bytes.</summary>
-    public static byte[] Png(Plot plot) => plot.GetImageBytes(Width, Height, ImageFormat.Png);
+    public static byte[] Png(Plot plot) => Png(plot, Height);
 
     /// <summary>Renders a plot at the fixed width and the given height as PNG bytes.</summary>
-    public static byte[] Png(Plot plot, int height) => plot.GetImageBytes(Width, height, ImageFormat.Png);
+    public static byte[] Png(Plot plot, int height)
+    {
+        ArgumentNullException.ThrowIfNull(plot);
+        return Png(height, canvas => plot.Render(canvas, new PixelRect(0, Width, height, 0)));
+    }
+
+    /// <summary>
+    /// Draws onto a white canvas of the fixed width and the given height and encodes it once as PNG, without an alpha
+    /// channel (the white ground makes every pixel opaque, so the alpha bytes would only be compressed away).
+    /// </summary>
+    public static byte[] Png(int height, Action<SKCanvas> draw)
+    {
+        ArgumentNullException.ThrowIfNull(draw);
+        using var surface = SKSurface.Create(new SKImageInfo(Width, height, SKColorType.Rgba8888, SKAlphaType.Premul))
+            ?? throw new InvalidOperationException($"Could not create a {Width}×{height} drawing surface.");
+        surface.Canvas.Clear(SKColors.White);
+        draw(surface.Canvas);
+        using var image = surface.Snapshot();
+        using var pixels = image.PeekPixels();
+        using var opaque = new SKPixmap(pixels.Info.WithAlphaType(SKAlphaType.Opaque), pixels.GetPixels(), pixels.RowBytes);
+        using var data = opaque.Encode(PngOptions)
+            ?? throw new InvalidOperationException($"Could not encode a {Width}×{height} chart as PNG.");
+        return data.ToArray();
+    }
 
     /// <summary>
     /// Turns the bottom axis into a log scale: the caller draws log10 of its x values, and the ticks stand at the given

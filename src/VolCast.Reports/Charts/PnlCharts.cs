@@ -1,7 +1,6 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using ScottPlot;
-using SkiaSharp;
 using VolCast.Core.Trading;
 using VolCast.Reports.Model;
 
@@ -308,21 +307,19 @@ internal static class PnlCharts
         return counts;
     }
 
-    /// <summary>Renders the two panels one above the other into one PNG of the report's size, their data areas aligned.</summary>
-    private static byte[] Stack(Plot top, Plot bottom)
+    /// <summary>Draws the two panels one above the other onto one canvas of the report's size, their data areas aligned, and encodes it once.</summary>
+    private static byte[] Stack(Plot top, Plot bottom) => ChartStyle.Png(ChartStyle.Height, canvas =>
     {
-        using var surface = SKSurface.Create(new SKImageInfo(ChartStyle.Width, ChartStyle.Height));
-        var canvas = surface.Canvas;
-        canvas.Clear(SKColors.White);
-        using (var upper = SKImage.FromEncodedData(top.GetImageBytes(ChartStyle.Width, TopHeight, ImageFormat.Png)))
-        using (var lower = SKImage.FromEncodedData(bottom.GetImageBytes(ChartStyle.Width, ChartStyle.Height - TopHeight, ImageFormat.Png)))
-        {
-            canvas.DrawImage(upper, 0, 0);
-            canvas.DrawImage(lower, 0, TopHeight);
-        }
+        Panel(canvas, top, new PixelRect(0, ChartStyle.Width, TopHeight, 0));
+        Panel(canvas, bottom, new PixelRect(0, ChartStyle.Width, ChartStyle.Height, TopHeight));
+    });
 
-        using var image = surface.Snapshot();
-        using var data = image.Encode(SKEncodedImageFormat.Png, 100);
-        return data.ToArray();
+    /// <summary>Draws a plot into its rectangle only: ScottPlot clears the canvas before it draws, and the clip keeps that clear off the other panel.</summary>
+    private static void Panel(SkiaSharp.SKCanvas canvas, Plot plot, PixelRect rect)
+    {
+        canvas.Save();
+        canvas.ClipRect(new SkiaSharp.SKRect(rect.Left, rect.Top, rect.Right, rect.Bottom));
+        plot.Render(canvas, rect);
+        canvas.Restore();
     }
 }
