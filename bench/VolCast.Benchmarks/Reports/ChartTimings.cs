@@ -32,7 +32,18 @@ internal static class ChartTimings
         var inputs = SuspectRows.Apply(prices, implied, args[1], SuspectAction.Warn);
         var history = inputs.Prices.History;
         var result = Backtester.Run(history, inputs.Implied!.Series, new BacktestSettings());
+        // The first calls in this process, as a single backtest command makes them: JIT and first-tier code included.
+        var (coldImplied, coldProposed, coldCurrent, coldHistorical) = RuleInputs(result, history);
+        var coldTrading = result.Settings.Trading with { Threshold = result.Settings.RuleThreshold, AnnualizationDays = result.Settings.AnnualizationFactor };
+        var c0 = ThreadCpu();
+        RuleBacktest.Run(history, coldImplied, result.Settings.Horizon, coldProposed, coldCurrent, coldHistorical, coldTrading);
+        var c1 = ThreadCpu();
+        RuleBacktest.Run(history, coldImplied, result.Settings.Horizon, coldProposed, coldCurrent, coldHistorical, coldTrading with { EntryTiming = EntryTiming.NextClose });
+        var c2 = ThreadCpu();
         var (pnl, _) = RulePnlEvaluator.Evaluate(result, history);
+        var c3 = ThreadCpu();
+        var cold = string.Create(CultureInfo.InvariantCulture,
+            $"first RuleBacktest.Run (at the close) {(c1 - c0) * 1000:0.0} ms, second (next day) {(c2 - c1) * 1000:0.0} ms, then the first RulePnlEvaluator.Evaluate (two more runs and the first snooping tests) {(c3 - c2) * 1000:0.0} ms");
         var close = pnl!.AtClose;
         var cone = ReportWriter.Cone(result, history);
         var leading = ReportSeries.Leading(result);
@@ -114,13 +125,20 @@ internal static class ChartTimings
 
         Encodings(charts[0].Build, rounds);
         Encodings(charts[10].Build, rounds);
+        Console.WriteLine();
+        Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"First calls in this process (JIT and first-tier code included): {cold}"));
         PnlStage(result, calibration, history, pnl, rounds);
     }
 
     private static void PnlStage(BacktestResult result, BacktestCalibration calibration, VolCast.Core.Data.PriceHistory history, RulePnlReport pnl, int rounds)
     {
+        var (implied, proposed, current, historical) = RuleInputs(result, history);
+        var settings = result.Settings;
+        var trading = settings.Trading with { Threshold = settings.RuleThreshold, AnnualizationDays = settings.AnnualizationFactor };
         var parts = new (string Name, Action Work)[]
         {
+            ("RuleBacktest.Run, entry at the firing close", () => RuleBacktest.Run(history, implied, settings.Horizon, proposed, current, historical, trading)),
+            ("RuleBacktest.Run, entry one trading day later", () => RuleBacktest.Run(history, implied, settings.Horizon, proposed, current, historical, trading with { EntryTiming = EntryTiming.NextClose })),
             ("RulePnlEvaluator.Evaluate (both timings, snooping tests)", () => RulePnlEvaluator.Evaluate(result, history)),
             ("trades.csv", () => TradesCsv.Write(new StringWriter(CultureInfo.InvariantCulture), pnl)),
             ("rule-pnl.csv", () => RulePnlCsv.Write(new StringWriter(CultureInfo.InvariantCulture), pnl)),
@@ -131,11 +149,12 @@ internal static class ChartTimings
         };
 
         Console.WriteLine();
-        Console.WriteLine("| P&L stage part | CPU ms (median) |");
-        Console.WriteLine("| --- | ---: |");
+        Console.WriteLine("| P&L stage part | CPU ms (median) | first call |");
+        Console.WriteLine("| --- | ---: | ---: |");
         foreach (var (name, work) in parts)
         {
             var times = new List<double>();
+            var first = 0.0;
             for (var round = 0; round <= rounds; round++)
             {
                 var t0 = ThreadCpu();
@@ -145,10 +164,56 @@ internal static class ChartTimings
                 {
                     times.Add(t1 - t0);
                 }
+                else
+                {
+                    first = t1 - t0;
+                }
             }
 
-            Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"| {name} | {Ms(times)} |"));
+            Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"| {name} | {Ms(times)} | {first * 1000:0.0} |"));
         }
+    }
+
+    /// <summary>The rule's inputs as <see cref="RulePnlEvaluator"/> maps them onto the price history's dates (the default case: every spec is a forecaster the backtest ran, or the rule test's own series).</summary>
+    private static (double?[] Implied, RuleForecast Proposed, RuleForecast Current, RuleForecast Historical) RuleInputs(BacktestResult result, VolCast.Core.Data.PriceHistory history)
+    {
+        var n = history.Count;
+        var index = new Dictionary<DateOnly, int>(n);
+        for (var i = 0; i < n; i++)
+        {
+            index[history.Dates[i]] = i;
+        }
+
+        double?[] Map(IReadOnlyList<DateOnly> dates, IReadOnlyList<double?> values)
+        {
+            var mapped = new double?[n];
+            for (var i = 0; i < dates.Count; i++)
+            {
+                if (index.TryGetValue(dates[i], out var j))
+                {
+                    mapped[j] = values[i];
+                }
+            }
+
+            return mapped;
+        }
+
+        var rule = result.RuleTest!;
+        RuleForecast Series(string spec)
+        {
+            var series = result.Forecasts.FirstOrDefault(f => string.Equals(f.Spec, spec, StringComparison.OrdinalIgnoreCase));
+            if (series is not null)
+            {
+                return new RuleForecast(series.Spec, Map(result.Dates, series.Values));
+            }
+
+            var values = string.Equals(spec, rule.ForecastSpec, StringComparison.OrdinalIgnoreCase) ? rule.Forecast : rule.Historical;
+            return new RuleForecast(spec, Map(rule.Dates, values.Select(v => (double?)v).ToArray()));
+        }
+
+        var historical = Series(rule.HistoricalSpec);
+        var current = result.Forecasts.Any(f => string.Equals(f.Spec, result.Baseline, StringComparison.OrdinalIgnoreCase) && f.Kind != ForecastKind.Implied) ? Series(result.Baseline) : historical;
+        return (Map(result.Dates, result.Implied), Series(rule.ForecastSpec), current, historical);
     }
 
     /// <summary>
