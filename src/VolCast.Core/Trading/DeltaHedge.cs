@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using VolCast.Core.Options;
 
 namespace VolCast.Core.Trading;
@@ -28,6 +29,7 @@ internal static class DeltaHedge
     /// <param name="entryVolValue">Out: the same marked at the pricing volatility (the gamma-against-theta path).</param>
     /// <param name="notional">Out: the hedge notional traded up to and including each point, carried to expiry.</param>
     /// <returns>The outcome.</returns>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static HedgeOutcome Run(
         HedgedOption option,
         ReadOnlySpan<double> spots,
@@ -117,6 +119,7 @@ internal static class DeltaHedge
     /// Δ = e^{−qτ}(2N(d₁) − 1), the call and put of <see cref="BlackScholesMerton"/> added (a test pins the two
     /// together); one pair of normal distribution calls per hedge date instead of three.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double Straddle(double spot, double strike, double years, double volatility, double rate, double dividendYield, out double delta)
     {
         var stdDev = volatility * Math.Sqrt(years);
@@ -135,6 +138,7 @@ internal static class DeltaHedge
             : Value(option, spot, strike, years, volatility, rate, dividendYield);
 
     /// <summary>The value of the position: a call, or a call plus a put (the put by parity, c − S e^{−qτ} + K e^{−rτ}).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double Value(HedgedOption option, double spot, double strike, double years, double volatility, double rate, double dividendYield)
     {
         var call = BlackScholesMerton.Price(OptionType.Call, spot, strike, years, volatility, rate, dividendYield);
@@ -144,6 +148,7 @@ internal static class DeltaHedge
     }
 
     /// <summary>The delta of the position: the call's, or the straddle's 2Δ_call − e^{−qτ}.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double Delta(HedgedOption option, double spot, double strike, double years, double volatility, double rate, double dividendYield)
     {
         var call = BlackScholesMerton.Delta(OptionType.Call, spot, strike, years, volatility, rate, dividendYield);

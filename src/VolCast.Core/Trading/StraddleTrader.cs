@@ -1,5 +1,6 @@
 using System.Buffers;
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using VolCast.Core.Data;
 using VolCast.Core.Options;
 
@@ -82,6 +83,7 @@ internal static class StraddleTrader
     /// writes the daily increments (entry … expiry, vol points) of the gross value marked at each day's implied
     /// (the last quote carried over a missing one), of the gross value marked at the entry implied, and of the costs.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static LongStraddle EvaluateLong(
         ReadOnlySpan<DateOnly> dates,
         ReadOnlySpan<double> close,
@@ -170,6 +172,7 @@ internal static class StraddleTrader
     }
 
     /// <summary>The trade record of a long straddle taken on <paramref name="side"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static StraddleTrade ToTrade(in LongStraddle trade, int side, ReadOnlySpan<DateOnly> dates, ReadOnlySpan<double> close, double? forecast)
     {
         var o = trade.Outcome;

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace VolCast.Core.Trading;
 
 /// <summary>
@@ -38,6 +40,7 @@ internal sealed class TradeBook
     /// <summary>Gets the daily cost increments.</summary>
     public double[] Cost { get; }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static TradeBook Build(
         ReadOnlySpan<DateOnly> dates, ReadOnlySpan<double> close, int[] entry, int[] expiry, double[] hedgeVolatility, double?[] implied, TradingSettings settings)
     {
@@ -71,6 +74,7 @@ internal sealed class TradeBook
     public double GrossVolPoints(int i, int side) => side * Trades[i].Outcome.GrossPnl / Trades[i].VegaPerVolPoint;
 
     /// <summary>The every-signal ladder: a trade at every position with a side, each weighted <paramref name="weight"/>, over days start … start + length − 1.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public Ladder Ladder(sbyte[] sides, double weight, int start, int length, bool entryVolPaths)
     {
         var net = new double[length];
@@ -127,6 +131,7 @@ internal sealed class TradeBook
     /// One trade at a time: starting at day <paramref name="firstEntry"/>, take a firing position with a side when no
     /// trade is open (a new trade may enter at the close where the previous one settles).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public List<int> OneAtATime(sbyte[] sides, int firstEntry)
     {
         var taken = new List<int>();
