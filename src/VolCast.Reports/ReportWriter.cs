@@ -30,6 +30,7 @@ public static class ReportWriter
         ReportFiles.ReportFileName, "forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png",
         "mincer-zarnowitz.png", "cone.png", ConeFileName, "rule-test.png", ReportCharts.ReliabilityFileName,
         PnlCharts.CumulativeFileName, PnlCharts.MarksFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName,
+        GroupCharts.YearsFileName,
     ];
 
     /// <summary>The cone's data file: the percentiles the cone chart draws, in the columns of <see cref="ConeCsv"/>.</summary>
@@ -100,6 +101,7 @@ public static class ReportWriter
             Pnl = pnl,
             Now = ReportNow.Build(Core.Now.NowReading.From(result, run.Prices)),
             Answers = ReportAnswers.Tables(result, run.Groups),
+            YearChart = GroupCharts.Years(run.Groups.Rows, SeriesColors.For(result)),
         };
     }
 
