@@ -69,4 +69,21 @@ public sealed class ConfigFilePathsTests : IDisposable
         Assert.Equal(3, run.ExitCode);
         Assert.Contains(Path.Combine("cfg3", "events.csv"), run.Stderr, StringComparison.Ordinal);
     }
+
+    [Theory]
+    [InlineData("forecastsFile")]
+    [InlineData("eventsFile")]
+    public void Batch_ConfigurationNamingAFileOfOneInstrument_Exit2InsteadOfIgnoringIt(string key)
+    {
+        var prices = Directory.CreateDirectory(_temp.Combine("prices-" + key)).FullName;
+        File.Copy(_prices, Path.Combine(prices, "alpha.csv"));
+        var config = _temp.Combine(key + ".json");
+        File.WriteAllText(config, "{ \"sweep\": false, \"forecasters\": [\"ewma:0.94\"], \"" + key + "\": \"file.csv\" }");
+
+        var run = CliRunner.Run("batch", "--prices-dir", prices, "--config", config, "--out", _temp.Combine("batch-" + key));
+
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("batch does not read forecastsFile or eventsFile", run.Stderr, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(_temp.Combine("batch-" + key)));
+    }
 }
