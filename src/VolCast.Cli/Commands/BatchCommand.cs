@@ -71,11 +71,6 @@ internal static class BatchCommand
     /// <summary>Turns the command-line values into a batch request, checking them.</summary>
     private static BatchRequest Request(Arguments a)
     {
-        if (a.Jobs is int j)
-        {
-            SettingLimits.Jobs.Check(j, "--jobs");
-        }
-
         var outFolder = a.Out ?? Path.Combine("reports", "batch");
         OutputChecks.Folder(outFolder);
         OutputChecks.Separate(outFolder, a.PricesDir, a.ImpliedDir);
@@ -117,6 +112,11 @@ internal static class BatchCommand
     /// <summary>Refuses option combinations that cannot mean anything, before anything is read.</summary>
     private static void CheckCombinations(Arguments a)
     {
+        if (a.Jobs is int j)
+        {
+            SettingLimits.Jobs.Check(j, "--jobs");
+        }
+
         if (a.Reduce && (a.Shard is not null || a.Shards is not null))
         {
             throw new UsageException("--reduce cannot be combined with --shard or --shards: run the shards first, each with --shard, then one volcast batch --reduce --out DIR.");
