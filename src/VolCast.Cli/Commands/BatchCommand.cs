@@ -40,7 +40,7 @@ internal static class BatchCommand
         };
         var formatOptions = InputFormatOptions.AddTo(command);
         // The options that say what to compute: a reduce takes either all of them from the shards' plan or the shards' own from --prices-dir on.
-        Option[] computing = [impliedDir, ivUnit, impliedTenor, config, horizon, tenor, force, suspect, skipBadRows, workbook, reports, formatOptions.DateFormat, formatOptions.Delimiter, formatOptions.Decimal];
+        Option[] computing = [impliedDir, ivUnit, impliedTenor, config, horizon, tenor, suspect, skipBadRows, workbook, reports, formatOptions.DateFormat, formatOptions.Delimiter, formatOptions.Decimal];
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
             parse.GetValue(pricesDir),
             parse.GetValue(impliedDir),
@@ -122,6 +122,11 @@ internal static class BatchCommand
             throw new UsageException("--reduce cannot be combined with --shard or --shards: run the shards first, each with --shard, then one volcast batch --reduce --out DIR.");
         }
 
+        if (a.Reduce && a.Force)
+        {
+            throw new UsageException("--reduce computes nothing, so --force has nothing to recompute: rerun the shards with --force, then volcast batch --reduce --out DIR.");
+        }
+
         if (a.AllowMissing && !a.Reduce)
         {
             throw new UsageException("--allow-missing applies only to --reduce, which writes the summary after the shards.");
@@ -153,7 +158,7 @@ internal static class BatchCommand
                 $"error: {outcome.Missing.Count} of {outcome.Rows.Count} names have no finished results in {outputFolder}: {string.Join("; ", outcome.Missing)}."));
             console.Error.WriteLine(outcome.Written
                 ? "warning: --allow-missing: the summary is partial; those names are marked as not finished in it."
-                : "error: no summary written; rerun the shards that own those names (a rerun computes only what is missing), or pass --allow-missing for a partial summary.");
+                : "error: no summary written; if shards are still running, reduce again when they have ended; otherwise rerun the shards that own those names (a rerun computes only what is missing), or pass --allow-missing for a partial summary.");
         }
 
         if (outcome.Written)
