@@ -12,6 +12,6 @@ internal sealed record BatchReduceOutcome(IReadOnlyList<BatchAssetRow> Rows, IRe
     /// <summary>Gets which report pages the summary has (from the options given, or else from the shards' plan).</summary>
     public BatchReports Reports { get; init; } = BatchReports.Full;
 
-    /// <summary>Gets what the user should know about how the names were checked, or null.</summary>
-    public string? Warning { get; init; }
+    /// <summary>Gets what the user should know about how the names were checked or which were left out, one sentence each.</summary>
+    public IReadOnlyList<string> Warnings { get; init; } = [];
 }

@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Text.Json;
 using VolCast.Core.Backtest;
 using VolCast.IO;
@@ -34,7 +35,7 @@ internal static class BatchReducer
 
         var version = BacktestPipeline.ToolVersion();
         BatchPlan plan;
-        string? warning = null;
+        var warnings = new List<string>();
         var asRecorded = false;
         IReadOnlyList<string> planDiffers = [];
         if (request is null)
@@ -51,8 +52,19 @@ internal static class BatchReducer
             {
                 // The reduce may run where the inputs are not mounted; each name is then checked against its own records.
                 asRecorded = true;
-                warning = $"the input folders the shards read ({plan.PricesFolder}{(plan.ImpliedFolder is null ? string.Empty : ", " + plan.ImpliedFolder)}) are not reachable from here, "
-                    + "so each name is checked against its own records (batch.json, run.json and the plan), not against the input files' current bytes.";
+                warnings.Add($"the input folders the shards read ({plan.PricesFolder}{(plan.ImpliedFolder is null ? string.Empty : ", " + plan.ImpliedFolder)}) are not reachable from here, "
+                    + "so each name is checked against its own records (batch.json, run.json and the plan), not against the input files' current bytes.");
+            }
+            else
+            {
+                // The summary is of the names the shards set out to compute; a price file added since is named, not run.
+                var planned = plan.Assets.Select(a => a.Name).ToHashSet(StringComparer.Ordinal);
+                var added = BatchAsset.Find(plan.PricesFolder, plan.ImpliedFolder).Select(a => a.Name).Where(n => !planned.Contains(n)).ToList();
+                if (added.Count > 0)
+                {
+                    warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                        $"{added.Count} price files were added to {plan.PricesFolder} after the shards ran and are not in this summary: {string.Join(", ", added.Take(20))}{(added.Count > 20 ? ", …" : string.Empty)}; run the shards again (they compute only what is missing), then the reduce, to include them."));
+                }
             }
         }
         else
@@ -159,7 +171,7 @@ internal static class BatchReducer
             BatchSummaryWriter.Write(outputFolder, plan, rows, missing);
         }
 
-        return new BatchReduceOutcome(rows, missingWhy, failed, written) { Reports = plan.Reports, Warning = warning };
+        return new BatchReduceOutcome(rows, missingWhy, failed, written) { Reports = plan.Reports, Warnings = warnings };
     }
 
     private static string Why(string folder, string name)

@@ -142,9 +142,9 @@ internal static class BatchCommand
     private static int Reduce(CliConsole console, string outputFolder, BatchRequest? request, bool allowMissing)
     {
         var outcome = BatchReducer.Reduce(outputFolder, request, allowMissing);
-        if (outcome.Warning is not null)
+        foreach (var warning in outcome.Warnings)
         {
-            console.Error.WriteLine("warning: " + outcome.Warning);
+            console.Error.WriteLine("warning: " + warning);
         }
 
         foreach (var row in outcome.Rows.Where(r => !r.Succeeded && !outcome.Missing.Any(m => m.StartsWith(r.Name + " (", StringComparison.Ordinal))))

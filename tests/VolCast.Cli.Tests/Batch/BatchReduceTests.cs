@@ -142,7 +142,7 @@ public sealed class BatchReduceTests : IDisposable
     }
 
     [Fact]
-    public void ReduceAlone_InputFoldersNotReachable_ChecksEachNameAgainstItsRecords_SameSummary()
+    public void ReduceAlone_NameAddedLaterOrInputsNotReachable_WarnsAndGivesTheSameSummary()
     {
         var output = _temp.Combine("out");
         Assert.Equal(0, CliRunner.Run([.. Args(output), "--shard", "0/2"]).ExitCode);
@@ -150,6 +150,15 @@ public sealed class BatchReduceTests : IDisposable
         Assert.Equal(0, CliRunner.Run("batch", "--reduce", "--out", output).ExitCode);
         var summary = File.ReadAllBytes(Path.Combine(output, "summary.csv"));
         var page = File.ReadAllBytes(Path.Combine(output, "summary.html"));
+        File.Delete(Path.Combine(output, "summary.csv"));
+
+        // A price file added after the shards ran is named, and left out: the summary is of the names the shards set out to compute.
+        File.Copy(Path.Combine(_prices, "gamma.csv"), Path.Combine(_prices, "zeta.csv"));
+        var later = CliRunner.Run("batch", "--reduce", "--out", output);
+        Assert.True(later.ExitCode == 0, later.Stderr);
+        Assert.Contains("1 price files were added", later.Stderr, StringComparison.Ordinal);
+        Assert.Contains("not in this summary: zeta;", later.Stderr, StringComparison.Ordinal);
+        Assert.Equal(summary, File.ReadAllBytes(Path.Combine(output, "summary.csv")));
         File.Delete(Path.Combine(output, "summary.csv"));
 
         // A reduce on a machine that does not mount the inputs.
