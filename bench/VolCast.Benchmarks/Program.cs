@@ -25,6 +25,12 @@ internal static class Program
             return;
         }
 
+        if (args.Length > 0 && args[0] == "sessions")
+        {
+            Batch.SessionBreakdown.Run(args[1..]);
+            return;
+        }
+
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
     }
 }

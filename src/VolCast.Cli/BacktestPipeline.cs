@@ -199,7 +199,7 @@ internal static class BacktestPipeline
         try
         {
             var additional = userForecasts is null ? null : (IReadOnlyList<Core.Forecasters.IVolatilityForecaster>)[.. userForecasts.Forecasters];
-            return Backtester.Run(prices.History, implied?.Series, job.Settings, additional, progress, cancellationToken);
+            return Backtester.Run(prices.History, implied?.Series, job.Settings, additional, progress, job.SessionsInParallel, cancellationToken);
         }
         catch (BacktestDataException ex)
         {

@@ -80,13 +80,15 @@ internal static class PhaseBreakdown
         phases.Add(("04 scores, tests, MCS, sweep, rule test", afterBacktest - sessionsDone));
         cpu = afterBacktest;
 
+        var groups = GroupedScores.Compute(result, checkedInputs.Prices.History);
+        Mark("04b grouped scores (by year and regime, as the CLI computes them)");
         var calibration = BacktestCalibrator.Evaluate(result, checkedInputs.Prices.History);
         Mark("05 calibration");
         var (rulePnl, absence) = RulePnlEvaluator.Evaluate(result, checkedInputs.Prices.History);
         Mark("06 rule P&L");
 
         var info = new BacktestRunInfo("bench", [new InputFileInfo("prices", pricesPath, pricesBytes.Sha256)], DateTimeOffset.UtcNow, DateTimeOffset.UtcNow, "decimal", []);
-        var run = new BacktestRun(result, calibration, info, checkedInputs.Prices.History, prices.RowsRead) { RulePnl = rulePnl, RulePnlAbsence = absence };
+        var run = new BacktestRun(result, calibration, info, checkedInputs.Prices.History, prices.RowsRead) { RulePnl = rulePnl, RulePnlAbsence = absence, Groups = groups };
         using (var json = new StringWriter(CultureInfo.InvariantCulture))
         {
             MetricsJson.Write(json, result, calibration, rulePnl, absence);
@@ -117,6 +119,9 @@ internal static class PhaseBreakdown
         before = Cpu();
         Backtester.Run(checkedInputs.Prices.History, checkedInputs.Implied!.Series, settings with { McsReplications = 10 });
         var withoutMcs = Cpu() - before;
+        before = Cpu();
+        Backtester.Run(checkedInputs.Prices.History, checkedInputs.Implied!.Series, settings, sessionsInParallel: 1);
+        phases.Add(("02b the whole backtest with the sessions one after another (as a batch runs it)", Cpu() - before));
         var backtest = phases[1].Item2 + phases[2].Item2;
         phases.Add(("03 of which GARCH-family refits (backtest minus backtest without them)", backtest - withoutGarch));
         phases.Add(("04 of which MCS (backtest minus backtest with 10 replications)", backtest - withoutMcs));

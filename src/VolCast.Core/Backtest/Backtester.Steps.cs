@@ -255,6 +255,7 @@ public static partial class Backtester
         BacktestSettings settings,
         IVolatilityForecaster[] forecasters,
         int last,
+        int sessionsInParallel,
         IProgress<BacktestProgress>? progress,
         CancellationToken cancellationToken)
     {
@@ -276,28 +277,40 @@ public static partial class Backtester
         var values = new double?[forecasters.Length][];
         var done = 0;
         progress?.Report(new BacktestProgress("forecasting", 0, forecasters.Length));
-        Parallel.ForEach(
-            Partitioner.Create(Enumerable.Range(0, forecasters.Length), EnumerablePartitionerOptions.NoBuffering),
-            new ParallelOptions { CancellationToken = cancellationToken, MaxDegreeOfParallelism = Environment.ProcessorCount },
-            i =>
+        void Walk(int i)
+        {
+            var session = sessions[i];
+            var v = new double?[last + 1];
+            for (var t = 0; t <= last; t++)
             {
-                var session = sessions[i];
-                var v = new double?[last + 1];
-                for (var t = 0; t <= last; t++)
+                // A model forecaster refits as it walks; checking every 64 dates keeps Ctrl-C prompt at no measurable cost.
+                if ((t & 63) == 0)
                 {
-                    // A model forecaster refits as it walks; checking every 64 dates keeps Ctrl-C prompt at no measurable cost.
-                    if ((t & 63) == 0)
-                    {
-                        cancellationToken.ThrowIfCancellationRequested();
-                    }
-
-                    v[t] = session.Forecast(t);
+                    cancellationToken.ThrowIfCancellationRequested();
                 }
 
-                values[i] = v;
-                var now = Interlocked.Increment(ref done);
-                progress?.Report(new BacktestProgress("forecasting", now, forecasters.Length));
-            });
+                v[t] = session.Forecast(t);
+            }
+
+            values[i] = v;
+            var now = Interlocked.Increment(ref done);
+            progress?.Report(new BacktestProgress("forecasting", now, forecasters.Length));
+        }
+
+        if (sessionsInParallel == 1)
+        {
+            for (var i = 0; i < forecasters.Length; i++)
+            {
+                Walk(i);
+            }
+        }
+        else
+        {
+            Parallel.ForEach(
+                Partitioner.Create(Enumerable.Range(0, forecasters.Length), EnumerablePartitionerOptions.NoBuffering),
+                new ParallelOptions { CancellationToken = cancellationToken, MaxDegreeOfParallelism = sessionsInParallel > 0 ? sessionsInParallel : Environment.ProcessorCount },
+                Walk);
+        }
 
         var output = new SessionOutput(new(StringComparer.Ordinal), new(StringComparer.Ordinal));
         for (var i = 0; i < forecasters.Length; i++)

@@ -1,7 +1,7 @@
 using System.Globalization;
-using MathNet.Numerics.LinearAlgebra;
 using VolCast.Core.Data;
 using VolCast.Core.Estimators;
+using VolCast.Core.Numerics;
 
 namespace VolCast.Core.Forecasters;
 
@@ -77,6 +77,9 @@ internal sealed class HarForecaster : IVolatilityForecaster
         private readonly double[] _daily;
         private readonly double[] _weekly;
         private readonly double[] _monthly;
+        private readonly double[] _targets;
+        private readonly double[] _response;
+        private readonly HouseholderLeastSquares _solver;
         private double[]? _coefficients;
         private double _longRunMean;
         private int? _lastAttempt;
@@ -121,7 +124,21 @@ internal sealed class HarForecaster : IVolatilityForecaster
                 _weekly[d] = Mean(_daily, d - WeekDays + 1, WeekDays);
                 _monthly[d] = Mean(_daily, d - MonthDays + 1, MonthDays);
             }
+
+            // A row's target depends on the row alone, so it is averaged once here and read by every refit.
+            _targets = new double[n];
+            for (var s = MonthDays; s + _horizon < n; s++)
+            {
+                _targets[s] = Mean(_squared, s + 1, _horizon);
+            }
+
+            var maxRows = Math.Max(Columns, owner._rollingWindowRows is int w ? Math.Min(w, n) : n);
+            _response = new double[maxRows];
+            _solver = new HouseholderLeastSquares(maxRows, Columns);
         }
+
+        /// <summary>The columns of the design: a constant, daily, weekly and monthly.</summary>
+        private const int Columns = 4;
 
         protected override void Step(int day)
         {
@@ -139,13 +156,11 @@ internal sealed class HarForecaster : IVolatilityForecaster
             RefitCount++;
 
             // Scale by the mean target so the design is well conditioned whatever the return units.
-            var x = Matrix<double>.Build.Dense(count, 4);
-            var y = Vector<double>.Build.Dense(count);
+            var y = _response.AsSpan(0, count);
             double meanTarget = 0;
             for (var i = 0; i < count; i++)
             {
-                var s = firstRow + i;
-                var target = Mean(_squared, s + 1, _horizon);
+                var target = _targets[firstRow + i];
                 y[i] = target;
                 meanTarget += target;
             }
@@ -157,17 +172,20 @@ internal sealed class HarForecaster : IVolatilityForecaster
                 return;
             }
 
+            // Column-major: column j of the design holds rows 0 .. count − 1 from j · count.
+            var x = _solver.Design(count);
             for (var i = 0; i < count; i++)
             {
                 var s = firstRow + i;
-                x[i, 0] = 1;
-                x[i, 1] = _daily[s] / meanTarget;
-                x[i, 2] = _weekly[s] / meanTarget;
-                x[i, 3] = _monthly[s] / meanTarget;
+                x[i] = 1;
+                x[count + i] = _daily[s] / meanTarget;
+                x[(2 * count) + i] = _weekly[s] / meanTarget;
+                x[(3 * count) + i] = _monthly[s] / meanTarget;
                 y[i] /= meanTarget;
             }
 
-            var b = x.QR().Solve(y);
+            Span<double> b = stackalloc double[Columns];
+            _solver.Solve(count, y, b);
             var coefficients = new[] { b[0] * meanTarget, b[1], b[2], b[3] };
             if (!AllFinite(coefficients))
             {

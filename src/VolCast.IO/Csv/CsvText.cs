@@ -51,6 +51,52 @@ internal static class CsvText
     public static string Number(double? value) =>
         value is double v && double.IsFinite(v) ? v.ToString("R", CultureInfo.InvariantCulture) : string.Empty;
 
+    /// <summary>Writes <see cref="Number(double?)"/>'s cell without making a string (the same characters).</summary>
+    /// <param name="writer">Where to write.</param>
+    /// <param name="value">The value.</param>
+    public static void WriteNumber(TextWriter writer, double? value)
+    {
+        if (value is not double v || !double.IsFinite(v))
+        {
+            return;
+        }
+
+        Span<char> buffer = stackalloc char[32];
+        if (v.TryFormat(buffer, out var written, "R", CultureInfo.InvariantCulture))
+        {
+            writer.Write(buffer[..written]);
+        }
+        else
+        {
+            writer.Write(v.ToString("R", CultureInfo.InvariantCulture));
+        }
+    }
+
+    /// <summary>Writes <see cref="Integer(int?)"/>'s cell without making a string (the same characters).</summary>
+    /// <param name="writer">Where to write.</param>
+    /// <param name="value">The value.</param>
+    public static void WriteInteger(TextWriter writer, int? value)
+    {
+        if (value is not int v)
+        {
+            return;
+        }
+
+        Span<char> buffer = stackalloc char[16];
+        _ = v.TryFormat(buffer, out var written, provider: CultureInfo.InvariantCulture);
+        writer.Write(buffer[..written]);
+    }
+
+    /// <summary>Writes <see cref="Date(DateOnly)"/>'s cell without making a string (the same characters).</summary>
+    /// <param name="writer">Where to write.</param>
+    /// <param name="date">The date.</param>
+    public static void WriteDate(TextWriter writer, DateOnly date)
+    {
+        Span<char> buffer = stackalloc char[10];
+        _ = date.TryFormat(buffer, out var written, "yyyy-MM-dd", CultureInfo.InvariantCulture);
+        writer.Write(buffer[..written]);
+    }
+
     /// <summary>An integer in invariant culture; empty when null.</summary>
     /// <param name="value">The value.</param>
     /// <returns>The cell.</returns>

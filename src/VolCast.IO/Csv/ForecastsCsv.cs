@@ -1,4 +1,3 @@
-using System.Globalization;
 using VolCast.Core.Backtest;
 
 namespace VolCast.IO.Csv;
@@ -18,15 +17,15 @@ internal static class ForecastsCsv
         writer.Write('\n');
         for (var t = 0; t < result.Dates.Length; t++)
         {
-            writer.Write(result.Dates[t].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+            CsvText.WriteDate(writer, result.Dates[t]);
             writer.Write(',');
-            writer.Write(CsvText.Number(result.Realized[t]));
+            CsvText.WriteNumber(writer, result.Realized[t]);
             writer.Write(',');
-            writer.Write(CsvText.Number(result.Implied[t]));
+            CsvText.WriteNumber(writer, result.Implied[t]);
             foreach (var f in result.Forecasts)
             {
                 writer.Write(',');
-                writer.Write(CsvText.Number(f.Values[t]));
+                CsvText.WriteNumber(writer, f.Values[t]);
             }
 
             writer.Write('\n');

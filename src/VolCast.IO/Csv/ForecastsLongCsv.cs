@@ -1,4 +1,3 @@
-using System.Globalization;
 using VolCast.Core.Backtest;
 
 namespace VolCast.IO.Csv;
@@ -20,6 +19,16 @@ internal static class ForecastsLongCsv
     {
         writer.Write(Header);
         writer.Write('\n');
+
+        // The date and the ",realized,implied" end of a row are the same for every forecaster: formatted once per date.
+        var dates = new string[result.Dates.Length];
+        var ends = new string[result.Dates.Length];
+        for (var t = 0; t < result.Dates.Length; t++)
+        {
+            dates[t] = CsvText.Date(result.Dates[t]);
+            ends[t] = "," + CsvText.Number(result.Realized[t]) + "," + CsvText.Number(result.Implied[t]) + "\n";
+        }
+
         foreach (var f in result.Forecasts)
         {
             var name = CsvText.Text(f.Spec);
@@ -30,16 +39,12 @@ internal static class ForecastsLongCsv
                     continue;
                 }
 
-                writer.Write(result.Dates[t].ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+                writer.Write(dates[t]);
                 writer.Write(',');
                 writer.Write(name);
                 writer.Write(',');
-                writer.Write(CsvText.Number(f.Values[t]));
-                writer.Write(',');
-                writer.Write(CsvText.Number(result.Realized[t]));
-                writer.Write(',');
-                writer.Write(CsvText.Number(result.Implied[t]));
-                writer.Write('\n');
+                CsvText.WriteNumber(writer, f.Values[t]);
+                writer.Write(ends[t]);
             }
         }
     }

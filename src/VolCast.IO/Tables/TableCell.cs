@@ -60,6 +60,28 @@ public readonly record struct TableCell
         _ => CsvText.Number(NumberValue),
     };
 
+    /// <summary>Writes <see cref="ToCsv"/>'s cell to <paramref name="writer"/>, numbers without making a string (the same characters).</summary>
+    /// <param name="writer">Where to write.</param>
+    internal void WriteCsv(TextWriter writer)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        switch (Kind)
+        {
+            case TableCellKind.Text:
+                writer.Write(CsvText.Text(TextValue!));
+                break;
+            case TableCellKind.Count:
+                CsvText.WriteInteger(writer, NumberValue is double v ? (int)v : null);
+                break;
+            case TableCellKind.Flag:
+                writer.Write(CsvText.Boolean(FlagValue));
+                break;
+            default:
+                CsvText.WriteNumber(writer, NumberValue);
+                break;
+        }
+    }
+
     /// <summary>Writes the cell as a JSON property.</summary>
     /// <param name="json">The writer, inside an object.</param>
     /// <param name="name">The property name.</param>

@@ -98,6 +98,29 @@ public sealed class BacktesterTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void Run_SessionsOneAfterAnother_GiveTheSameForecastsAndScoresBitForBit()
+    {
+        // Common practice, no source: each forecaster session is sequential and independent, so running them on one
+        // thread (as a batch does) or one per core must give the same bits.
+        var prices = ForecastData.Bars(520, seed: 13);
+        var implied = ForecastData.Implied(prices);
+        var parallel = Backtester.Run(prices, implied, Small(5));
+        var sequential = Backtester.Run(prices, implied, Small(5), sessionsInParallel: 1);
+        Assert.Equal(parallel.Forecasts.Length, sequential.Forecasts.Length);
+        for (var f = 0; f < parallel.Forecasts.Length; f++)
+        {
+            Assert.Equal(parallel.Forecasts[f].Spec, sequential.Forecasts[f].Spec);
+            for (var t = 0; t < parallel.Forecasts[f].Values.Length; t++)
+            {
+                Assert.True(parallel.Forecasts[f].Values[t] == sequential.Forecasts[f].Values[t], $"{parallel.Forecasts[f].Spec} at {t}: {parallel.Forecasts[f].Values[t]:R} against {sequential.Forecasts[f].Values[t]:R}");
+            }
+        }
+
+        Assert.Equal(parallel.Metrics.Select(m => m.Losses?.Qlike), sequential.Metrics.Select(m => m.Losses?.Qlike));
+        Assert.Throws<ArgumentOutOfRangeException>(() => Backtester.Run(prices, implied, Small(5), sessionsInParallel: -1));
+    }
+
+    [Fact]
     public void Run_AlteringDataAfterD_LeavesEveryForecastOnOrBeforeDUnchangedBitForBit()
     {
         var prices = ForecastData.Bars(520, seed: 11);
