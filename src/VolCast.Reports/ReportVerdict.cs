@@ -98,12 +98,13 @@ internal static class ReportVerdict
         }
 
         var test = string.Create(C, $"DM {t:0.00}, {PValueText.Clause(p)}");
+        var dates = result.Common is { Count: > 0 } common && common.Rows.Any(r => r.Spec == leader.Spec) ? "common dates" : "dates both have";
         var significance = p < 0.05 ? "significant at 5%" : "not significant at 5%";
         return implied.Qlike <= own.Qlike
             ? string.Create(C,
-                $"{first}, but implied volatility scores {Lower(implied.Qlike, own.Qlike)} on the {pair.Count} dates both have (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} ({test}).")
+                $"{first}, but implied volatility scores {Lower(implied.Qlike, own.Qlike)} on the {pair.Count} {dates} (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} ({test}).")
             : string.Create(C,
-                $"{first} and scores {Lower(own.Qlike, implied.Qlike)} than implied volatility on the {pair.Count} dates both have (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} ({test}).");
+                $"{first} and scores {Lower(own.Qlike, implied.Qlike)} than implied volatility on the {pair.Count} {dates} (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} ({test}).");
     }
 
     private static string HeadToHead(BacktestResult result)
@@ -118,7 +119,8 @@ internal static class ReportVerdict
         var baseline = $"the baseline {result.Baseline}";
         var qlike = Loss("QLIKE", h.FirstLosses.Qlike, h.SecondLosses.Qlike, "0.0000", 1, h.Qlike, candidate, baseline);
         var mse = Loss("MSE of variance", h.FirstLosses.MseVariance, h.SecondLosses.MseVariance, "0.000", 1e3, h.MseVariance, candidate, baseline);
-        return string.Create(C, $"Head to head on {h.Count} common dates: {qlike}; {mse}.");
+        var dates = ReportAnswers.HeadToHeadOnCommonDates(result) ? "common dates" : "dates both forecast";
+        return string.Create(C, $"Head to head on {h.Count} {dates}: {qlike}; {mse}.");
     }
 
     private static string Loss(string loss, double candidate, double baseline, string format, double scale, DieboldMarianoResult? dm, string candidateName, string baselineName)

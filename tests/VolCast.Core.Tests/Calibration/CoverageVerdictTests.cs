@@ -39,7 +39,7 @@ public sealed class CoverageVerdictTests
     }
 
     [Fact]
-    public void Describe_WithRegimes_NamesTheStressedPeriodsWhereRangesWereTooNarrow()
+    public void Describe_WithRegimes_NamesTheHighThirdOfRealizedVolatilityInHindsightWhereRangesWereTooNarrow()
     {
         // h = 1, σ_F = 0.2: the first 40 dates do not move (z = 0), the last 20 move by 5% (z ≈ 3.97), and the regime
         // variable is the date index, so the top third (stressed) holds exactly the big moves.
@@ -55,7 +55,7 @@ public sealed class CoverageVerdictTests
         Assert.Equal(0.0, regimes[2].ShareWithinOne);
         Assert.Equal(40.0, regimes[2].Lower);
         Assert.Equal(59.0, regimes[2].Upper);
-        Assert.Contains("too narrow in stressed periods (|z| ≤ 1 held 0%)", CoverageVerdict.Describe(coverage, regimes), StringComparison.Ordinal);
+        Assert.Contains("too narrow in the high third of realized volatility, known in hindsight (|z| ≤ 1 held 0%)", CoverageVerdict.Describe(coverage, regimes), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -142,6 +142,23 @@ public sealed class PnlSectionTests : IDisposable
     }
 
     [Fact]
+    public void PnlPerYear_BothFigures_AreLabelledByTheirPositionAndTheirDifferenceIsSaidWhereBothShow()
+    {
+        // The daily path (a ladder: a trade on every signal sized 1/h) and the trades one at a time are different
+        // positions, so their P&L per year differ; a reader who sees both must be told which is which, and why.
+        var section = ReportWriter.Build(With(Report)).Pnl!;
+        var rules = section.Tables[0];
+        var offsets = section.Tables[1];
+
+        Assert.Contains(rules.Rows, r => r[0] == "P&L per year, vol points (daily path, every signal)");
+        Assert.DoesNotContain(rules.Rows, r => r[0] == "P&L per year, vol points");
+        Assert.Contains(offsets.Rows, r => r[0] == "P&L per year, vol points (sum of trades one at a time)");
+        var h = Report.AtClose.HorizonDays.ToString(CultureInfo.InvariantCulture);
+        Assert.Contains("The two P&L per year differ because they hold different positions: the daily path is a ladder of a trade on every signal, each sized 1/" + h, offsets.Note, StringComparison.Ordinal);
+        Assert.Contains("one at a time holds one full-size trade from each entry to its expiry", offsets.Note, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void RulesTable_Cells_MatchTheTradesByTheirDefinitions()
     {
         var section = ReportWriter.Build(With(Report)).Pnl!;
@@ -168,9 +185,9 @@ public sealed class PnlSectionTests : IDisposable
 
             // P&L per year of the daily path: its sum over its length in years of trading days.
             var perYear = rule.DailyPnl.Sum() / (rule.DailyPnl.Length / close.Settings.AnnualizationDays);
-            Assert.Equal(perYear.ToString("0.00", c), Cell("P&L per year, vol points", rule.Rule, true));
+            Assert.Equal(perYear.ToString("0.00", c), Cell("P&L per year, vol points (daily path, every signal)", rule.Rule, true));
             var perYearGross = rule.DailyPnlZeroCost.Sum() / (rule.DailyPnlZeroCost.Length / close.Settings.AnnualizationDays);
-            Assert.Equal(perYearGross.ToString("0.00", c), Cell("P&L per year, vol points", rule.Rule, false));
+            Assert.Equal(perYearGross.ToString("0.00", c), Cell("P&L per year, vol points (daily path, every signal)", rule.Rule, false));
         }
 
         // Costs only take away: with a half-spread and hedge costs every trade nets less than gross.
