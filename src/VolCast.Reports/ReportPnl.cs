@@ -81,8 +81,9 @@ internal static class ReportPnl
                 : string.Create(C, $"the proposed rule has no edge over always-sell at any half-spread ({breakEven.EdgePerYear:0.00} vol points per year at {configured:0.00})");
         }
 
-        var side = breakEven.EdgeChangePerVolPoint > 0 ? "narrower" : "wider";
-        return string.Create(C, $"the edge over always-sell vanishes at a half-spread of {w:0.00} vol points (and is gone at any {side} spread; {configured:0.00} assumed)");
+        // The edge is linear in the spread: it is positive on the side of the break-even where it grows.
+        var side = breakEven.EdgeChangePerVolPoint > 0 ? "wider" : "narrower";
+        return string.Create(C, $"the proposed rule beats always-sell only at a half-spread {side} than {w:0.00} vol points ({configured:0.00} assumed)");
     }
 
     private static List<string> Points(RulePnlReport report)

@@ -27,7 +27,7 @@ internal static class ReportVerdict
         var points = verdict.Points.ToList();
         var rule = points.FindIndex(p => p.StartsWith(RulePrefix, StringComparison.Ordinal));
         var headline = ReportPnl.Headline(pnl);
-        var answer = "In option trades after costs: " + (headline.Length > 0 ? char.ToLowerInvariant(headline[0]) + headline[1..] : headline);
+        var answer = "In option trades: " + (headline.Length > 0 ? char.ToLowerInvariant(headline[0]) + headline[1..] : headline);
         if (rule < 0)
         {
             points.Add(answer);
@@ -60,8 +60,13 @@ internal static class ReportVerdict
         var points = new List<string> { HeadToHead(result), Mcs(result.ModelConfidenceSet) };
         if (result.HasImplied && ReportSeries.Premium(result).Values is { Count: > 0 } premium)
         {
+            // The loss table scores implied on its own dates; say so when they are not the premium's, so two figures do not seem to disagree.
+            var own = result.Metrics.FirstOrDefault(m => m.Kind == ForecastKind.Implied)?.Losses;
+            var table = own is null || own.Count == premium.Count
+                ? "implied's bias in the loss table, on the same dates"
+                : string.Create(C, $"the loss table's bias of implied, {own.Bias * 100:0.00}, is on its own {own.Count} dates");
             points.Add(string.Create(C,
-                $"Implied was above the realized volatility that followed by {premium.Average() * 100:0.00} vol points on average, on {premium.Count(v => v > 0) * 100.0 / premium.Count:0}% of the {premium.Count} dates with both (implied's bias in the loss table, on the same dates)."));
+                $"Implied was above the realized volatility that followed by {premium.Average() * 100:0.00} vol points on average, on {premium.Count(v => v > 0) * 100.0 / premium.Count:0}% of the {premium.Count} dates with both ({table})."));
         }
 
         if (result.RuleTest is RuleTestResult rule)

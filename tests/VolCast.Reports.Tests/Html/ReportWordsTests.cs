@@ -169,6 +169,7 @@ public sealed partial class ReportWordsTests
         var losses = Model.Tables.Single(t => t.Title.StartsWith("Forecast losses", StringComparison.Ordinal));
         Assert.Contains(losses.Columns, c => c.Header == "DM vs implied (own dates)");
         Assert.Contains("the ranking on common dates", losses.Note, StringComparison.Ordinal);
+        Assert.DoesNotContain("  ", losses.Note, StringComparison.Ordinal);
         var ranking = Model.Answers.Single(t => t.Title.StartsWith("Ranking on the", StringComparison.Ordinal));
         var column = ranking.Headers.ToList().IndexOf("DM vs implied (common dates)");
         Assert.True(column > 0);
@@ -181,6 +182,21 @@ public sealed partial class ReportWordsTests
         Assert.StartsWith("Head to head on " + common.Count + " common dates:", Model.Verdict.Points[0], StringComparison.Ordinal);
         var headToHead = Model.Tables.Single(t => t.Title.StartsWith("Head to head", StringComparison.Ordinal));
         Assert.StartsWith("On the " + common.Count + " common dates", headToHead.Note, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Premium_SaysWhichDatesTheLossTablesBiasOfImpliedIsOn()
+    {
+        // The premium is on the common dates; the loss table's bias of implied on implied's own dates. When the two
+        // sets differ the verdict must not call them the same dates.
+        var premium = Model.Verdict.Points[2];
+        var implied = Result.Metrics.Single(m => m.Kind == ForecastKind.Implied).Losses!;
+        Assert.Contains("of the " + Result.Common!.Count + " dates with both", premium, StringComparison.Ordinal);
+        if (implied.Count != Result.Common.Count)
+        {
+            Assert.Contains("the loss table's bias of implied, " + (implied.Bias * 100).ToString("0.00", System.Globalization.CultureInfo.InvariantCulture) + ", is on its own " + implied.Count + " dates", premium, StringComparison.Ordinal);
+            Assert.DoesNotContain("on the same dates", premium, StringComparison.Ordinal);
+        }
     }
 
     [Fact]

@@ -138,7 +138,7 @@ public sealed class PnlSectionTests : IDisposable
         // The answer about implied leads; the P&L closes the rule's point, the last one.
         Assert.Contains("implied", model.Verdict.Headline, StringComparison.OrdinalIgnoreCase);
         Assert.StartsWith("Rule test", model.Verdict.Points[^1], StringComparison.Ordinal);
-        Assert.Contains("In option trades after costs: switching from", model.Verdict.Points[^1], StringComparison.Ordinal);
+        Assert.Contains("In option trades: switching from", model.Verdict.Points[^1], StringComparison.Ordinal);
     }
 
     [Fact]
@@ -156,6 +156,19 @@ public sealed class PnlSectionTests : IDisposable
         var h = Report.AtClose.HorizonDays.ToString(CultureInfo.InvariantCulture);
         Assert.Contains("The two P&L per year differ because they hold different positions: the daily path is a ladder of a trade on every signal, each sized 1/" + h, offsets.Note, StringComparison.Ordinal);
         Assert.Contains("one at a time holds one full-size trade from each entry to its expiry", offsets.Note, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    // The edge is linear in the half-spread s: edge(s) = edge(0.25) + change·(s − 0.25), zero at the break-even.
+    // Proposed trading less than always-sell: the edge grows with the spread, so it is positive only above the break-even.
+    [InlineData(-11.95, 5.0, "the proposed rule beats always-sell only at a half-spread wider than 2.64 vol points (0.25 assumed)")]
+    // The mirror: an edge that shrinks with the spread lasts only below it.
+    [InlineData(3.0, -2.0, "the proposed rule beats always-sell only at a half-spread narrower than 1.75 vol points (0.25 assumed)")]
+    public void BreakEvenWords_SayOnWhichSideOfTheBreakEvenTheRuleBeatsAlwaysSell(double edge, double change, string expected)
+    {
+        var breakEven = new BreakEvenSpread(edge, change, 0.25 - (edge / change), null);
+
+        Assert.Equal(expected, ReportPnl.BreakEvenWords(breakEven, 0.25));
     }
 
     [Fact]
