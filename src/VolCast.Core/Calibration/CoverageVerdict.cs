@@ -64,7 +64,9 @@ public static class CoverageVerdict
 
         if (coverage.MissingCount > 0)
         {
-            text.Append(c, $"; {coverage.MissingCount} dates had no forecast and were not scored");
+            // Implied is quoted, not forecast: its missing dates are dates without a quote.
+            var missing = coverage.Spec == Data.ImpliedSeries.Name ? "no implied quote" : "no forecast";
+            text.Append(c, $"; {coverage.MissingCount} dates had {missing} and were not scored");
         }
 
         if (regimes is not null)

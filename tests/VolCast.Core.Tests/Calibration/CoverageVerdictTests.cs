@@ -29,6 +29,24 @@ public sealed class CoverageVerdictTests
         Assert.StartsWith("move bands from garch held as forecast: |z| ≤ 1 held", CoverageVerdict.Describe(coverage), StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("implied", "; 10 dates had no implied quote and were not scored")]
+    [InlineData("garch", "; 10 dates had no forecast and were not scored")]
+    public void Describe_MissingDates_AreMissingQuotesForImpliedAndMissingForecastsForTheRest(string spec, string expected)
+    {
+        // Implied is quoted by the market, not forecast: its missing dates are said as such.
+        var outcomes = CalibrationData.Outcomes(CalibrationData.Closes(1, 1000, 0.2), 21);
+        var values = new double?[outcomes.Count];
+        for (var t = 10; t < values.Length; t++)
+        {
+            values[t] = 0.2;
+        }
+
+        var text = CoverageVerdict.Describe(MoveBandCoverage.Evaluate(outcomes, new ForecasterVolatility(spec, values)));
+
+        Assert.Contains(expected, text, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Describe_NoForecastAtAll_SaysItCouldNotBeChecked()
     {
