@@ -110,7 +110,7 @@ internal static class BacktestOptions
         + "ruleThreshold, ruleForecaster, ruleHistorical, baseline, candidate, annualizationFactor, target; "
         + "the rule's trades: costs {optionHalfSpreadVolPoints, hedgeCostBps}, rate, dividendYield, entries (one-at-a-time | every-signal), "
         + "ruleSides (sell-only | both), hedgeVolatility (implied | forecast), ruleThresholds, snooping {replications, blockLength, seed}; "
-        + "the inputs: suspect, skipBadRows, dateFormat, delimiter, decimal, impliedTenor, forecastsFile, forecastsUnit; workbook (true writes results.xlsx). " + SettingLimits.HelpText();
+        + "the inputs: suspect, skipBadRows, dateFormat, delimiter, decimal, impliedTenor, forecastsFile, forecastsUnit, eventsFile (paths in the configuration are relative to its own folder); workbook (true writes results.xlsx). " + SettingLimits.HelpText();
 
     /// <summary>The help text of --skip-bad-rows.</summary>
     public const string SkipBadRowsHelp = "Leave out rows that fail a row check (unparseable, low above high, a duplicate date) and list them in rejected-rows.csv, instead of refusing the file with the list of every bad row.";

@@ -64,7 +64,7 @@ internal static class BacktestPipeline
         cancellationToken.ThrowIfCancellationRequested();
 
         var events = job.Events is null ? (InputBytes?)null : InputBytes.Read(job.Events);
-        IReadOnlyList<MarketEvent>? eventList = events is null ? null : EventsFileReader.Read(events);
+        IReadOnlyList<MarketEvent>? eventList = events is null ? null : EventsFileReader.Read(events, job.Format, prices.History.Dates);
 
         stage?.Invoke(BacktestStage.Forecast);
         var result = Forecast(job, prices, implied, userForecasts, progress, cancellationToken);

@@ -17,6 +17,9 @@ internal static class ReportAnswers
     public const string AddedAfterTheFact =
         "Dates added after the fact (marked as not scheduled) were chosen knowing what happened on them: results without them drop the worst days by hindsight, which no one could have traded.";
 
+    /// <summary>The title of the by-year table, under which the report draws the by-year chart.</summary>
+    public const string YearTitle = "By calendar year";
+
     /// <summary>Says which dates the ranking uses and who was left out of them; null without common dates.</summary>
     public static string? CommonDates(BacktestResult result)
     {
@@ -88,7 +91,8 @@ internal static class ReportAnswers
                 string.Create(C, $"Tied: the {(result.Lookbacks[0].Level * 100):0}% model confidence set over the family's lookbacks on QLIKE (moving-block bootstrap, blocks at least the horizon). The in-sample best was picked after seeing every date; only the walk-forward choice could have been used at the time.")));
         }
 
-        AddGroup(tables, groups, "year", "By calendar year", "A result carried by one year shows here.");
+        var years = groups.Rows.Where(r => r.Grouping == "year").Select(r => r.Group).Distinct().Count();
+        AddGroup(tables, groups, "year", YearTitle, years == 1 ? "A result carried by one year shows here. " + Charts.GroupCharts.OneYear : "A result carried by one year shows here.");
         AddGroup(tables, groups, "regime", "By volatility level known at the forecast date",
             string.Create(C, $"Level known at the forecast date: the trailing {GroupedScores.RegimeWindowDays}-day realized volatility on that date against its terciles on that date and every earlier one (no later data); calm is the lowest third, stressed the highest. From {GroupedScores.RegimeHistoryDays} days of history on; {groups.DatesWithoutRegime} earlier dates have no level. These are not the thirds of the odds section, which sort each window by the realized volatility that followed, in hindsight."));
         if (!groups.Events.IsEmpty)

@@ -27,7 +27,7 @@ internal static class ReportNow
         };
         if (now.RealizedLastWindow is double rv)
         {
-            points.Add(string.Create(C, $"Realized volatility over the last {now.HorizonDays} trading days: {Pct(rv)}, at the {now.ConePercentile:0}th percentile of the {now.ConeWindows} windows of that length up to today (the cone at the horizon)."));
+            points.Add(string.Create(C, $"Realized volatility over the last {now.HorizonDays} trading days: {Pct(rv)}, at the {now.ConePercentile:0}th percentile of the {now.ConeWindows} windows of that length ending on or before the last date (a plain rank of those windows). The cone chart is drawn from the same closes, up to the last date and none after; its bands are adjusted for overlapping windows (Hodges-Tompkins), so they can place today slightly differently."));
         }
 
         var forecasters = new TextTable(
@@ -40,9 +40,9 @@ internal static class ReportNow
         {
             tables.Add(new TextTable(
                 "What each rule says today",
-                ["rule", "forecaster", "implied − forecast (vol pts)", "signal", "margin (vol pts)", "note"],
-                [.. now.Rules.Select(r => (IReadOnlyList<string>)[r.Rule, r.Forecaster ?? "—", Pts(r.ImpliedMinusForecast), r.Signal, Num(r.MarginVolPoints, "+0.00;-0.00;0.00"), r.Note ?? string.Empty])],
-                string.Create(C, $"A rule sells volatility when implied exceeds its forecast by more than the threshold ({now.ThresholdVolPoints:0.00} vol points) and buys for the mirror gap when buying is on; the margin is |implied − forecast| − threshold, positive when the rule fires.")));
+                ["rule", "forecaster", "implied − forecast (vol pts)", "threshold (vol pts)", "signal", "margin (vol pts)", "note"],
+                [.. now.Rules.Select(r => (IReadOnlyList<string>)[r.Rule, r.Forecaster ?? "—", Pts(r.ImpliedMinusForecast), Num(r.ThresholdVolPoints, "0.00"), r.Signal, Num(r.MarginVolPoints, "+0.00;-0.00;0.00"), r.Note ?? string.Empty])],
+                string.Create(C, $"A rule sells volatility when implied exceeds its forecast by more than its threshold (configured: {now.ThresholdVolPoints:0.00} vol points) and buys for the mirror gap when buying is on; the margin is |implied − forecast| − threshold, positive when the rule fires. The walk-forward threshold rule uses the proposed forecaster with the sweep threshold that had earned the most on the trades closed by the last date, so its choice uses no later data.")));
         }
 
         return new NowSection(Caution, points, tables);

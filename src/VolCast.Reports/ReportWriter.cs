@@ -30,6 +30,7 @@ public static class ReportWriter
         ReportFiles.ReportFileName, "forecast-vs-realized.png", "premium.png", "cumulative-qlike.png", "loss-vs-lookback.png",
         "mincer-zarnowitz.png", "cone.png", ConeFileName, "rule-test.png", ReportCharts.ReliabilityFileName,
         PnlCharts.CumulativeFileName, PnlCharts.MarksFileName, PnlCharts.TradesFileName, PnlCharts.YearsFileName,
+        GroupCharts.YearsFileName,
     ];
 
     /// <summary>The cone's data file: the percentiles the cone chart draws, in the columns of <see cref="ConeCsv"/>.</summary>
@@ -72,9 +73,16 @@ public static class ReportWriter
         return written;
     }
 
-    /// <summary>The volatility cone of the closes the backtest ran on, with the backtest's annualization factor.</summary>
-    internal static VolatilityConeResult Cone(BacktestResult result, PriceHistory prices) =>
-        VolatilityCone.Compute(Returns.LogReturns(prices.Close), VolatilityCone.DefaultHorizons, result.Settings.AnnualizationFactor);
+    /// <summary>
+    /// The volatility cone of the closes the backtest ran on up to its last forecast date (the same closes as the Now
+    /// section's cone percentile, so "today" is the same day in both), with the backtest's annualization factor.
+    /// </summary>
+    internal static VolatilityConeResult Cone(BacktestResult result, PriceHistory prices)
+    {
+        var last = result.Dates.IsEmpty ? -1 : prices.Dates.BinarySearch(result.Dates[^1]);
+        var close = last >= 0 ? prices.Close[..(last + 1)] : prices.Close;
+        return VolatilityCone.Compute(Returns.LogReturns(close), VolatilityCone.DefaultHorizons, result.Settings.AnnualizationFactor);
+    }
 
     private static ReportModel Build(BacktestRun run, VolatilityConeResult cone, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken)
     {
@@ -98,8 +106,9 @@ public static class ReportWriter
         {
             Odds = odds,
             Pnl = pnl,
-            Now = ReportNow.Build(Core.Now.NowReading.From(result, run.Prices)),
+            Now = ReportNow.Build(Core.Now.NowReading.From(result, run.Prices, run.RulePnl)),
             Answers = ReportAnswers.Tables(result, run.Groups),
+            YearChart = GroupCharts.Years(run.Groups.Rows, SeriesColors.For(result)),
         };
     }
 

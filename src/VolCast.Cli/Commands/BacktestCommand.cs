@@ -32,7 +32,7 @@ internal static class BacktestCommand
         var suspect = new Option<string?>("--suspect") { Description = BacktestOptions.SuspectHelp };
         suspect.AcceptOnlyFromAmong("warn", "drop", "stop");
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = BacktestOptions.SkipBadRowsHelp };
-        var events = new Option<string?>("--events") { Description = "Events CSV (date[, kind][, scheduled]): forecast windows that contain an event are scored apart, scheduled events apart from dates added after the fact. Optional." };
+        var events = new Option<string?>("--events") { Description = "Events CSV (date[, kind][, scheduled]): forecast windows that contain an event are scored apart, scheduled events apart from dates added after the fact. Optional; overrides the configuration's eventsFile." };
         var workbook = new Option<bool>("--workbook") { Description = BacktestOptions.WorkbookHelp };
         var command = new Command("backtest", "Run forecasters walk-forward with no look-ahead and score them against the realized volatility that followed and against implied: losses, Mincer-Zarnowitz, Diebold-Mariano, encompassing, model confidence set, lookback sweep with an out-of-sample adaptive choice, and a rule test. Writes report.html with its PNG charts, forecasts.csv, metrics.csv, metrics.json, run.json and summary.txt (and rejected-rows.csv when input rows were left out). Ctrl-C stops the run without writing any results (exit code 130).")
         {
@@ -77,7 +77,7 @@ internal static class BacktestCommand
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
             Checks = BacktestOptions.Checks(a.Config, a.Suspect, a.SkipBadRows),
             Workbook = BacktestOptions.Workbook(a.Config, a.Workbook),
-            Events = a.Events,
+            Events = a.Events ?? (a.Config is null ? null : BacktestConfigFile.ReadEventsFile(a.Config)),
         };
         var (configForecasts, configForecastsUnit) = a.Config is null ? (null, ImpliedUnit.Infer) : BacktestConfigFile.ReadForecasts(a.Config);
         job = job with

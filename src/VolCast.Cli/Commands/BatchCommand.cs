@@ -75,6 +75,12 @@ internal static class BatchCommand
         OutputChecks.Folder(outFolder);
         OutputChecks.Separate(outFolder, a.PricesDir, a.ImpliedDir);
         var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor);
+        if (a.Config is not null && (BacktestConfigFile.ReadForecasts(a.Config).File is not null || BacktestConfigFile.ReadEventsFile(a.Config) is not null))
+        {
+            // One forecasts or events file does not fit every name; rather than ignore it silently, say so.
+            throw new UsageException($"{BacktestOptions.Shown(a.Config)}: batch does not read forecastsFile or eventsFile (they belong to one instrument); remove them from the configuration, or run that name with volcast backtest.");
+        }
+
         var unit = BacktestOptions.Unit(a.IvUnit);
         var (configFormat, configTenor) = InputFormatOptions.FromConfig(a.Config);
         return new BatchRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, outFolder, a.Jobs ?? Environment.ProcessorCount, a.Force)

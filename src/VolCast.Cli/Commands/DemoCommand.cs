@@ -33,15 +33,21 @@ internal static class DemoCommand
         {
             Description = "Instead of running the demo, rewrite the demo data (index, implied, option quotes, second asset, configuration, 20-name universe) bit for bit from their seeds into --data (default data-demo), replacing those files.",
         };
+        var forecasts = new Option<string?>("--forecasts")
+        {
+            Description = "Your own volatility forecasts, CSV (date, NAME1, NAME2, …), scored beside the demo's forecasters as user:NAME; for example data-demo/alder-ridge-expected-vol-30d.csv, the scenario's own expected volatility. Relative to the working folder; overrides the demo configuration's forecastsFile.",
+        };
+        var forecastsUnit = new Option<string?>("--forecasts-unit") { Description = "Unit of the forecasts file: percent (20 = 20%) or decimal (0.20); inferred with a warning when left out." };
+        forecastsUnit.AcceptOnlyFromAmong("percent", "decimal");
         var command = new Command(
             "demo",
             "Run the full backtest on the invented demo scenario (data-demo/: every forecaster, the lookback sweep and adaptive choice, model confidence set, rule test, baseline yang-zhang:21 against candidate garch) and write report.html, the charts and the results to reports/demo/.")
         {
-            output, force, data, regenerate,
+            output, force, data, regenerate, forecasts, forecastsUnit,
         };
         command.SetAction(parse => console.Execute(() => parse.GetValue(regenerate)
             ? Regenerate(console, parse.GetValue(data))
-            : Run(console, parse.GetValue(data), parse.GetValue(output), parse.GetValue(force))));
+            : Run(console, parse.GetValue(data), parse.GetValue(output), parse.GetValue(force), (parse.GetValue(forecasts), parse.GetValue(forecastsUnit)))));
         return command;
     }
 
@@ -95,7 +101,7 @@ internal static class DemoCommand
         return ExitCodes.Success;
     }
 
-    private static int Run(CliConsole console, string? data, string? output, bool force)
+    private static int Run(CliConsole console, string? data, string? output, bool force, (string? File, string? Unit) forecasts)
     {
         var clock = Stopwatch.StartNew();
         var folder = data is null ? FindDataFolder(besideTool: true) : Path.GetFullPath(data);
@@ -135,6 +141,16 @@ internal static class DemoCommand
             Format = format ?? CsvFormat.Default,
             ImpliedTenorDays = impliedTenor,
             Checks = BacktestOptions.Checks(config, null, skipBadRows: false),
+        };
+
+        // The user's own forecasts: --forecasts (relative to the working folder), else the configuration's forecastsFile
+        // and eventsFile (relative to the data folder, where the configuration is).
+        var (configForecasts, configUnit) = BacktestConfigFile.ReadForecasts(config);
+        job = job with
+        {
+            Forecasts = forecasts.File ?? configForecasts,
+            ForecastsUnit = forecasts.Unit is null ? configUnit : BacktestOptions.Unit(forecasts.Unit),
+            Events = BacktestConfigFile.ReadEventsFile(config),
         };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestResult result;

@@ -40,9 +40,10 @@ public sealed record NowReading(
     /// <summary>Reads the last date of a backtest.</summary>
     /// <param name="result">The backtest result.</param>
     /// <param name="prices">The price history the backtest ran on (closes up to the last forecast date are read).</param>
+    /// <param name="rulePnl">The rule's trades, for the walk-forward threshold's choice on the last date, or null when they were not run.</param>
     /// <returns>The reading.</returns>
     /// <exception cref="ArgumentException">The last forecast date is not a date of <paramref name="prices"/>.</exception>
-    public static NowReading From(BacktestResult result, PriceHistory prices)
+    public static NowReading From(BacktestResult result, PriceHistory prices, RulePnlReport? rulePnl = null)
     {
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(prices);
@@ -67,7 +68,7 @@ public sealed record NowReading(
             forecasts.Add(new NowForecast(f.Spec, today, Gap(implied, today), percentile, earlier));
         }
 
-        var rules = result.HasImplied ? RulesToday(result, prices, priceIndex, implied) : [];
+        var rules = result.HasImplied ? RulesToday(result, prices, priceIndex, implied, rulePnl) : [];
         return new NowReading(date, h, implied, realized, cone, windows, settings.RuleThreshold * 100, forecasts.ToImmutable(), rules);
     }
 
@@ -136,7 +137,7 @@ public sealed record NowReading(
         return (current, 100.0 * (below + (0.5 * equal)) / windows, windows);
     }
 
-    private static ImmutableArray<NowRule> RulesToday(BacktestResult result, PriceHistory prices, int priceIndex, double? implied)
+    private static ImmutableArray<NowRule> RulesToday(BacktestResult result, PriceHistory prices, int priceIndex, double? implied, RulePnlReport? rulePnl)
     {
         var settings = result.Settings;
         var last = result.Dates.Length - 1;
@@ -148,10 +149,30 @@ public sealed record NowReading(
         foreach (var (rule, spec) in new[] { ("proposed", proposed), ("current", result.Baseline), ("historical", historical) })
         {
             var forecast = spec == ImpliedSeries.Name ? implied : ForecastAt(result, prices, priceIndex, last, spec);
-            rules.Add(Say(rule, spec, implied, forecast, threshold, settings.Trading.Sides));
+            rules.Add(Say(rule, spec, implied, forecast, threshold, settings.Trading.Sides) with { ThresholdVolPoints = threshold * 100 });
         }
 
+        rules.Add(WalkForwardToday(result, prices, priceIndex, last, implied, proposed, rulePnl));
         return rules.ToImmutable();
+    }
+
+    /// <summary>The walk-forward threshold rule today: the proposed forecaster against the threshold chosen from the trades closed by the last date.</summary>
+    private static NowRule WalkForwardToday(BacktestResult result, PriceHistory prices, int priceIndex, int last, double? implied, string proposed, RulePnlReport? rulePnl)
+    {
+        const string Name = "walk-forward threshold";
+        if (rulePnl?.AtClose.WalkForwardToday is not WalkForwardChoice choice)
+        {
+            return new NowRule(Name, proposed, null, null, "none", null, "the rule's trades were not run, so no threshold was chosen");
+        }
+
+        var forecast = proposed == ImpliedSeries.Name ? implied : ForecastAt(result, prices, priceIndex, last, proposed);
+        var said = Say(Name, proposed, implied, forecast, choice.Threshold, result.Settings.Trading.Sides);
+        var how = choice.TradesClosed == 0
+            ? "no trade had closed by the last date, so it uses the sweep threshold nearest the configured one"
+            : choice.Fallback
+                ? FormattableString.Invariant($"chosen from the {choice.TradesClosed} trades closed by the last date; no sweep threshold earned more than the one nearest the configured threshold")
+                : FormattableString.Invariant($"the sweep threshold whose trades closed by the last date ({choice.TradesClosed} firing dates) earned the most");
+        return said with { ThresholdVolPoints = choice.Threshold * 100, Note = said.Note is null ? how : said.Note + "; " + how };
     }
 
     private static double? ForecastAt(BacktestResult result, PriceHistory prices, int priceIndex, int last, string spec)

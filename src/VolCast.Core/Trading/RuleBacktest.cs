@@ -37,11 +37,12 @@ internal static class RuleBacktest
     /// <param name="current">The baseline forecaster's series (the current rule).</param>
     /// <param name="historical">The plain historical estimate's series.</param>
     /// <param name="settings">The settings.</param>
+    /// <param name="lastDate">The last forecast date, for the walk-forward threshold's choice on it (<see cref="RuleBacktestResult.WalkForwardToday"/>), or null.</param>
     /// <returns>The result.</returns>
     /// <exception cref="ArgumentException">A series is misaligned or holds an invalid volatility, a setting is out of range,
     /// the horizon is below two trading days, no date can fire, or the proposed rule never fires.</exception>
     public static RuleBacktestResult Run(
-        PriceHistory prices, IReadOnlyList<double?> implied, BacktestHorizon horizon, RuleForecast proposed, RuleForecast current, RuleForecast historical, TradingSettings settings)
+        PriceHistory prices, IReadOnlyList<double?> implied, BacktestHorizon horizon, RuleForecast proposed, RuleForecast current, RuleForecast historical, TradingSettings settings, DateOnly? lastDate = null)
     {
         ArgumentNullException.ThrowIfNull(prices);
         ArgumentNullException.ThrowIfNull(implied);
@@ -94,7 +95,59 @@ internal static class RuleBacktest
 
         var breakEven = BreakEven(always, proposedRule, length, settings);
         return new RuleBacktestResult(
-            settings, h, m, [.. dates], rules, Compare(rules[1], rules[2], h, settings.AnnualizationDays), versus.ToImmutable(), sweep.Rows, breakEven, sweep.Differences);
+            settings, h, m, [.. dates], rules, Compare(rules[1], rules[2], h, settings.AnnualizationDays), versus.ToImmutable(), sweep.Rows, breakEven, sweep.Differences)
+        {
+            WalkForwardToday = lastDate is DateOnly last ? WalkForwardOn(context, books[0], horizon, thresholds, sweep.ProposedSides, settings.Threshold, last) : null,
+        };
+    }
+
+    /// <summary>
+    /// The walk-forward threshold's choice on <paramref name="last"/>, from the trades whose window had closed by then:
+    /// with a horizon in trading days, an expiry on or before that date; with a tenor, an entry date plus the tenor on or
+    /// before it (only then is the window's last trading date known from dates up to it). Trades are summed in firing
+    /// order, so a run on the history cut at that date chooses the same threshold from the same sums, bit for bit.
+    /// </summary>
+    private static WalkForwardChoice WalkForwardOn(Context context, TradeBook book, BacktestHorizon horizon, ImmutableArray<double> thresholds, sbyte[][] sweepSides, double configured, DateOnly last)
+    {
+        var dates = context.Prices.Dates;
+        var at = dates.BinarySearch(last);
+        var lastIndex = at >= 0 ? at : ~at - 1;
+        var k = thresholds.Length;
+        var nearest = 0;
+        for (var j = 1; j < k; j++)
+        {
+            nearest = Math.Abs(thresholds[j] - configured) < Math.Abs(thresholds[nearest] - configured) ? j : nearest;
+        }
+
+        var closed = new double[k];
+        var count = 0;
+        for (var p = 0; p < context.Firing.Count; p++)
+        {
+            var done = horizon.TenorCalendarDays is int days
+                ? dates[book.Entry[p]].AddDays(days) <= last
+                : book.Expiry[p] <= lastIndex;
+            if (!done)
+            {
+                continue;
+            }
+
+            count++;
+            for (var j = 0; j < k; j++)
+            {
+                if (sweepSides[j][p] != 0)
+                {
+                    closed[j] += book.NetVolPoints(p, sweepSides[j][p]);
+                }
+            }
+        }
+
+        var best = nearest;
+        for (var j = 0; j < k; j++)
+        {
+            best = closed[j] > closed[best] ? j : best;
+        }
+
+        return new WalkForwardChoice(last, thresholds[best], count, best == nearest);
     }
 
     private static double?[][] CheckedForecasts(RuleForecast[] forecasts, int n)

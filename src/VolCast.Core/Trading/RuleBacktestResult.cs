@@ -29,4 +29,7 @@ public sealed record RuleBacktestResult(
     /// <param name="rule">The rule.</param>
     /// <returns>Its P&amp;L.</returns>
     public RulePnl this[TradingRule rule] => Rules.First(r => r.Rule == rule);
+
+    /// <summary>Gets the threshold the walk-forward rule would use on the last forecast date, chosen from the trades closed by then, or null when the run was not given that date.</summary>
+    public WalkForwardChoice? WalkForwardToday { get; init; }
 }

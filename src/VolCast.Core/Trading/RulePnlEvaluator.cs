@@ -79,7 +79,7 @@ public static class RulePnlEvaluator
         var trading = settings.Trading with { Threshold = settings.RuleThreshold, AnnualizationDays = settings.AnnualizationFactor };
         try
         {
-            var atClose = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading);
+            var atClose = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading, result.Dates[^1]);
             cancellationToken.ThrowIfCancellationRequested();
             var nextDay = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading with { EntryTiming = EntryTiming.NextClose });
             cancellationToken.ThrowIfCancellationRequested();

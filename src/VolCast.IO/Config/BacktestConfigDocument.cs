@@ -53,6 +53,8 @@ internal sealed class BacktestConfigDocument
 
     public string? ForecastsUnit { get; set; }
 
+    public string? EventsFile { get; set; }
+
     public string? Suspect { get; set; }
 
     public bool? SkipBadRows { get; set; }

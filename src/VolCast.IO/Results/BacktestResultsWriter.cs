@@ -62,7 +62,7 @@ public static class BacktestResultsWriter
             ("summary.txt", path => AtomicFile.WriteText(path, w => SummaryText.Write(w, result, run.Info, calibration, run.RulePnl, run.RulePnlAbsence))),
             (CalibrationFileName, path => CalibrationCsv.WriteFile(path, [.. calibration.Forecasters.Select(f => f.Calibration)])),
             (CoverageFileName, path => CoverageCsv.WriteFile(path, calibration.Forecasters)),
-            (NowJson.FileName, path => AtomicFile.WriteText(path, w => NowJson.Write(w, Core.Now.NowReading.From(result, run.Prices)))),
+            (NowJson.FileName, path => AtomicFile.WriteText(path, w => NowJson.Write(w, Core.Now.NowReading.From(result, run.Prices, run.RulePnl)))),
         }.ToList();
         if (run.RulePnl is { } rulePnl)
         {

@@ -50,6 +50,7 @@ internal static class NowJson
             Numbers.Write(json, "forecaster", r.Forecaster);
             Numbers.Write(json, "forecast", r.Forecast);
             Numbers.Write(json, "implied_minus_forecast", r.ImpliedMinusForecast);
+            Numbers.Write(json, "threshold_vol_points", r.ThresholdVolPoints);
             json.WriteString("signal", r.Signal);
             Numbers.Write(json, "margin_vol_points", r.MarginVolPoints);
             Numbers.Write(json, "note", r.Note);

@@ -66,7 +66,7 @@ internal static class HtmlReport
         Now(html, model.Now);
         Verdict(html, model.Verdict);
         Pnl(html, model.Pnl);
-        Answers(html, model.Answers);
+        Answers(html, model.Answers, model.YearChart);
         Metrics(html, model.Tables);
         Charts(html, model.Charts);
         Odds(html, model.Odds);
@@ -180,7 +180,7 @@ internal static class HtmlReport
         html.Append("</tbody>\n</table>\n</section>\n");
     }
 
-    private static void Answers(StringBuilder html, IReadOnlyList<TextTable> tables)
+    private static void Answers(StringBuilder html, IReadOnlyList<TextTable> tables, ChartImage? yearChart)
     {
         html.Append("<section id=\"answers\">\n<h2>Which forecaster, which lookback, and when</h2>\n");
         if (tables.Count == 0)
@@ -191,6 +191,10 @@ internal static class HtmlReport
         foreach (var table in tables)
         {
             TextTable(html, table);
+            if (yearChart is not null && table.Title == ReportAnswers.YearTitle)
+            {
+                Figure(html, yearChart);
+            }
         }
 
         html.Append("</section>\n");

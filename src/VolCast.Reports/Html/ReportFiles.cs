@@ -25,6 +25,11 @@ internal static class ReportFiles
         var html = HtmlReport.Render(model);
         var written = new List<string>();
         IReadOnlyList<ChartImage> charts = [.. model.Pnl?.Charts ?? [], .. model.Charts];
+        if (model.YearChart is { } years)
+        {
+            charts = [.. charts, years];
+        }
+
         if (model.Odds?.Reliability is { } reliability)
         {
             charts = [.. charts, reliability];

@@ -29,4 +29,7 @@ internal sealed record ReportModel(
 
     /// <summary>The tables of the "Which forecaster, which lookback, and when" section; empty leaves the section out.</summary>
     public IReadOnlyList<TextTable> Answers { get; init; } = [];
+
+    /// <summary>The chart drawn under the by-year table of the answers section, or null (fewer than two years, or no year table).</summary>
+    public ChartImage? YearChart { get; init; }
 }

@@ -85,6 +85,18 @@ public sealed class NowFileTests : IDisposable
         }
 
         Assert.Equal("none", rules["current"].GetProperty("signal").GetString());
+
+        // The walk-forward threshold: the proposed forecaster against a threshold of the default sweep (0, 0.5, 1, 2, 3, 4
+        // and 5 vol points), chosen from the trades closed by the last date; its signal and margin follow from that threshold.
+        var walk = rules["walk-forward threshold"];
+        Assert.Equal("ewma:0.94", walk.GetProperty("forecaster").GetString());
+        var threshold = walk.GetProperty("threshold_vol_points").GetDouble();
+        Assert.Contains(threshold, new[] { 0, 0.5, 1, 2, 3, 4, 5 });
+        var walkGap = (iv - At(last, "ewma:0.94")!.Value) * 100;
+        Assert.Equal(walkGap > threshold ? "sell" : "none", walk.GetProperty("signal").GetString());
+        Assert.Equal(Math.Abs(walkGap) - threshold, walk.GetProperty("margin_vol_points").GetDouble(), 1e-9);
+        Assert.Contains("closed by the last date", walk.GetProperty("note").GetString(), StringComparison.Ordinal);
+        Assert.Equal(1.0, rules["proposed"].GetProperty("threshold_vol_points").GetDouble(), 12);
         Assert.Contains("Now: today", File.ReadAllText(Path.Combine(output, "report.html")), StringComparison.Ordinal);
     }
 }

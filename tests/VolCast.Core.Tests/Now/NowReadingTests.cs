@@ -57,7 +57,38 @@ public sealed class NowReadingTests
         AssertSame(fromWhole, fromCut);
         Assert.Equal(date, fromCut.Date);
         Assert.Contains(fromCut.Forecasts, f => f.Percentile is not null);
-        Assert.Equal(4, fromCut.Rules.Length);
+        Assert.Equal(5, fromCut.Rules.Length);
+        Assert.Equal("the rule's trades were not run, so no threshold was chosen", fromCut.Rules[^1].Note);
+    }
+
+    [Theory]
+    [InlineData(333)]
+    [InlineData(419)]
+    public void From_WithTrades_HistoryCutAtTheDate_SameWalkForwardThresholdBitForBit(int k)
+    {
+        // The walk-forward threshold's choice today uses only trades closed by the last date: the run on the history cut
+        // there and the run on the whole history ending there (whose trades may use later closes) read it identically.
+        var prices = ForecastData.Bars(420, seed: 31);
+        var implied = ForecastData.Implied(prices);
+        var date = prices.Dates[k];
+        var cut = prices.Take(k + 1);
+        var settings = Settings with { RuleThreshold = 0.01 };
+        var cutResult = Backtester.Run(cut, ForecastData.ImpliedUpTo(implied, date), settings);
+        var wholeResult = Backtester.Run(prices, implied, settings with { End = date });
+        var cutPnl = Core.Trading.RulePnlEvaluator.Evaluate(cutResult, cut).Report;
+        var wholePnl = Core.Trading.RulePnlEvaluator.Evaluate(wholeResult, prices).Report;
+        Assert.NotNull(cutPnl);
+
+        var fromCut = NowReading.From(cutResult, cut, cutPnl);
+        var fromWhole = NowReading.From(wholeResult, prices, wholePnl);
+
+        AssertSame(fromWhole, fromCut);
+        var walk = fromCut.Rules.Single(r => r.Rule == "walk-forward threshold");
+        Assert.Equal(settings.RuleForecaster ?? cutResult.Candidate, walk.Forecaster);
+        Assert.NotNull(walk.ThresholdVolPoints);
+        Assert.Contains(walk.ThresholdVolPoints!.Value / 100, settings.Trading.SweepThresholds);
+        Assert.True(cutPnl!.AtClose.WalkForwardToday!.TradesClosed > 0);
+        Assert.Equal(BitConverter.DoubleToInt64Bits(cutPnl.AtClose.WalkForwardToday.Threshold), BitConverter.DoubleToInt64Bits(wholePnl!.AtClose.WalkForwardToday!.Threshold));
     }
 
     [Fact]

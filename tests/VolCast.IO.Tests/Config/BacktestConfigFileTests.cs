@@ -136,4 +136,43 @@ public sealed class BacktestConfigFileTests
     private static object Read(string key, string json) => key == "impliedTenor"
         ? BacktestConfigFile.ParseInputForm(json, "c.json")
         : BacktestConfigFile.Parse(json, "c.json");
+
+    [Fact]
+    public void FilePaths_Relative_AreResolvedAgainstTheConfigurationsFolder()
+    {
+        var config = Path.Combine("runs", "spx", "config.json");
+        const string json = "{ \"forecastsFile\": \"mine/forecasts.csv\", \"eventsFile\": \"../events.csv\" }";
+
+        Assert.Equal(Path.Combine("runs", "spx", "mine/forecasts.csv"), BacktestConfigFile.ParseForecasts(json, config).File);
+        Assert.Equal(Path.Combine("runs", "spx", "../events.csv"), BacktestConfigFile.ParseEventsFile(json, config));
+    }
+
+    [Fact]
+    public void FilePaths_BesideAConfigurationInTheWorkingFolder_AreUnchanged()
+    {
+        const string json = "{ \"forecastsFile\": \"forecasts.csv\", \"eventsFile\": \"events.csv\" }";
+
+        Assert.Equal("forecasts.csv", BacktestConfigFile.ParseForecasts(json, "config.json").File);
+        Assert.Equal("events.csv", BacktestConfigFile.ParseEventsFile(json, "config.json"));
+    }
+
+    [Fact]
+    public void FilePaths_Absolute_AreUsedAsWritten()
+    {
+        var absolute = Path.Combine(Path.GetTempPath(), "elsewhere", "events.csv");
+        var json = "{ \"eventsFile\": " + System.Text.Json.JsonSerializer.Serialize(absolute) + ", \"forecastsFile\": " + System.Text.Json.JsonSerializer.Serialize(absolute) + " }";
+
+        Assert.Equal(absolute, BacktestConfigFile.ParseEventsFile(json, Path.Combine("runs", "config.json")));
+        Assert.Equal(absolute, BacktestConfigFile.ParseForecasts(json, Path.Combine("runs", "config.json")).File);
+    }
+
+    [Fact]
+    public void FilePaths_LeftOutOrEmpty_AreNullOrRefusedNamingTheKey()
+    {
+        Assert.Null(BacktestConfigFile.ParseEventsFile("{}", "c.json"));
+        Assert.Null(BacktestConfigFile.ParseForecasts("{}", "c.json").File);
+
+        var error = Assert.Throws<InputDataException>(() => BacktestConfigFile.ParseEventsFile("{ \"eventsFile\": \" \" }", "c.json"));
+        Assert.Equal("eventsFile", error.Column);
+    }
 }
