@@ -24,6 +24,7 @@ array=$(sbatch --parsable --array="0-$((shards - 1))" --cpus-per-task=2 --mem=2G
   --job-name=volcast-shards --output="$out/logs/shard-%a.log" \
   --wrap="$volcast ${common[*]@Q} --shard auto --jobs \${SLURM_CPUS_PER_TASK:-1}")
 
+# The reduce needs only the output folder: the names and the options come from $out/batch-plan.json, which every task wrote.
 sbatch --parsable --dependency="afterok:${array}" --cpus-per-task=1 --mem=1G --time=00:30:00 \
   --job-name=volcast-reduce --output="$out/logs/reduce.log" \
-  --wrap="$volcast ${common[*]@Q} --reduce"
+  --wrap="$volcast batch --reduce --out ${out@Q}"

@@ -33,4 +33,5 @@ else
   wait
 fi
 
-exec $volcast "${common[@]}" --reduce
+# The reduce needs only the output folder: the names and the options come from $out/batch-plan.json, which every shard wrote.
+exec $volcast batch --reduce --out "$out"

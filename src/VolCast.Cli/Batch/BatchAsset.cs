@@ -79,7 +79,8 @@ internal sealed record BatchAsset(string Name, string Prices, string? Implied, s
 
     private static bool IsCsv(string path) => string.Equals(Path.GetExtension(path), ".csv", StringComparison.OrdinalIgnoreCase);
 
-    private static string Quote(string text)
+    /// <summary>A name in quotes for a message: cut at 40 characters, control characters shown as escapes.</summary>
+    public static string Quote(string text)
     {
         var shown = text.Length > 40 ? text[..40] + "…" : text;
         var chars = shown.Select(c => char.IsControl(c) ? $"\\u{(int)c:X4}" : c.ToString());

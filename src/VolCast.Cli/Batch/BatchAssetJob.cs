@@ -139,6 +139,35 @@ internal sealed record BatchAssetJob(
         return null;
     }
 
+    /// <summary>
+    /// What a finished run left for this asset when its input files cannot be read here (a reduce on a machine that does not
+    /// mount the input folders): as <see cref="Finished"/>, but each record is checked against itself — its batch.json against
+    /// its run.json, its implied input and configuration file against the plan's — instead of against the inputs' current bytes.
+    /// </summary>
+    public BatchAssetRow? FinishedAsRecorded()
+    {
+        if (BatchAssetJson.TryRead(Folder) is { } record && AsPlanned(record.InputHashes) && UpToDate(record.InputHashes) is BatchAssetRow kept)
+        {
+            return kept;
+        }
+
+        if (FailureFolder is not null && BatchAssetJson.TryRead(FailureFolder) is { } failure
+            && failure.ConfigurationFingerprint == Fingerprint && failure.Row.Name == Asset.Name && !failure.Row.Succeeded
+            && AsPlanned(failure.InputHashes))
+        {
+            return failure.Row;
+        }
+
+        return null;
+    }
+
+    private bool AsPlanned(ImmutableSortedDictionary<string, string> recorded) =>
+        recorded.ContainsKey("prices")
+        && recorded.ContainsKey(ImpliedSeries.Name) == (Asset.Implied is not null)
+        && (Config is null
+            ? !recorded.ContainsKey("config")
+            : recorded.TryGetValue("config", out var sha) && string.Equals(sha, ConfigSha256, StringComparison.Ordinal));
+
     private ImmutableSortedDictionary<string, string> Hashes(InputBytes prices, InputBytes? implied)
     {
         var hashes = ImmutableSortedDictionary.CreateBuilder<string, string>(StringComparer.Ordinal);

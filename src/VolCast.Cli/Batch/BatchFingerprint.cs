@@ -13,7 +13,18 @@ namespace VolCast.Cli.Batch;
 /// </summary>
 internal static class BatchFingerprint
 {
-    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null, DataChecks? checks = null, bool workbook = false)
+    /// <summary>The fingerprint of a resolved configuration: the SHA-256 of <see cref="Text"/>.</summary>
+    public static string Of(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null, DataChecks? checks = null, bool workbook = false) =>
+        Hash(Text(s, unit, toolVersion, format, impliedTenorDays, checks, workbook));
+
+    /// <summary>The SHA-256 of a canonical text, lowercase hex.</summary>
+    public static string Hash(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
+
+    /// <summary>
+    /// The canonical text the fingerprint hashes: one <c>key=value</c> line per setting, each ending in a line feed. The
+    /// shards' plan keeps it, so a reduce can name the settings that differ instead of only saying that they do.
+    /// </summary>
+    public static string Text(BacktestSettings s, ImpliedUnit unit, string toolVersion, CsvFormat? format = null, int? impliedTenorDays = null, DataChecks? checks = null, bool workbook = false)
     {
         var text = new StringBuilder();
         void Line(string name, object? value) => text.Append(name).Append('=').Append(Convert.ToString(value, CultureInfo.InvariantCulture) ?? "null").Append('\n');
@@ -68,6 +79,6 @@ internal static class BatchFingerprint
             Line("workbook", true);
         }
 
-        return Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text.ToString())));
+        return text.ToString();
     }
 }

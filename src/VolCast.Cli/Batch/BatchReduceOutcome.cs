@@ -7,4 +7,11 @@ namespace VolCast.Cli.Batch;
 /// <param name="Missing">Names with no complete, up-to-date results and no recorded failure, each with why.</param>
 /// <param name="Failed">Names that failed (their recorded failure, or a name that cannot be used).</param>
 /// <param name="Written">Whether the summary was written (every name finished, or --allow-missing).</param>
-internal sealed record BatchReduceOutcome(IReadOnlyList<BatchAssetRow> Rows, IReadOnlyList<string> Missing, int Failed, bool Written);
+internal sealed record BatchReduceOutcome(IReadOnlyList<BatchAssetRow> Rows, IReadOnlyList<string> Missing, int Failed, bool Written)
+{
+    /// <summary>Gets which report pages the summary has (from the options given, or else from the shards' plan).</summary>
+    public BatchReports Reports { get; init; } = BatchReports.Full;
+
+    /// <summary>Gets what the user should know about how the names were checked or which were left out, one sentence each.</summary>
+    public IReadOnlyList<string> Warnings { get; init; } = [];
+}

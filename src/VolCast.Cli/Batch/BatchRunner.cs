@@ -6,7 +6,7 @@ namespace VolCast.Cli.Batch;
 
 /// <summary>
 /// Runs a batch: one <see cref="BatchAssetJob"/> per asset on a bounded number of workers, keeping only each asset's
-/// summary row (so memory does not grow with the number of names), then writes summary.csv, lookbacks.csv, beats-implied.csv and summary.html.
+/// summary row (so memory does not grow with the number of names), after writing the batch's plan (<see cref="BatchPlan"/>), then writes summary.csv, lookbacks.csv, beats-implied.csv and summary.html.
 /// </summary>
 internal static class BatchRunner
 {
@@ -69,8 +69,13 @@ internal static class BatchRunner
             ResultsFolder.RemoveStaleTemporaries(assetsFolder);
         }
 
-        var fingerprint = BatchFingerprint.Of(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays, request.Checks, request.Workbook);
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
+        var plan = BatchPlan.Of(request, all, BatchFingerprint.Text(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays, request.Checks, request.Workbook), configSha256);
+        var fingerprint = plan.Fingerprint;
+
+        // Every shard writes the same plan (it holds nothing of the shard), so a reduce given only this folder knows the names and the configuration.
+        Directory.CreateDirectory(request.OutputFolder);
+        plan.Write(request.OutputFolder);
         var rows = new BatchAssetRow?[assets.Count];
         var gate = new Lock();
         int done = 0, reused = 0, failed = 0, computed = 0;
@@ -146,7 +151,7 @@ internal static class BatchRunner
         var finished = rows.Where(r => r is not null).Select(r => r!).ToList();
         if (!cancelled && request.Shard is null)
         {
-            BatchSummaryWriter.Write(request, finished);
+            BatchSummaryWriter.Write(request.OutputFolder, plan, finished);
         }
 
         return new BatchOutcome(finished, computed, reused, failed, cancelled);

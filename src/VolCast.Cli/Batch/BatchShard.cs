@@ -140,13 +140,22 @@ internal sealed record BatchShard(int Index, int Count)
             return new BatchShard(id - min, count);
         }
 
+        // Slurm sets the array's count, minimum and maximum together with the task id; one of them without the id is a job that is not what it seems.
+        var partial = new[] { SlurmTaskCount, SlurmTaskMin, SlurmTaskMax }.Where(v => variable(v) is not null).Select(v => v + "=" + Shown(variable(v)!)).ToArray();
+        if (partial.Length > 0)
+        {
+            throw new UsageException($"--shard auto: {string.Join(", ", partial)} is set but {SlurmTaskId} is not, so this task's place in the array is unknown; run it as a task of a job array (sbatch --array=0-N), or give --shard K/N.");
+        }
+
         throw new UsageException($"--shard auto: neither {KubernetesIndex} (a Kubernetes indexed job, with --shards N) nor {SlurmTaskId} and {SlurmTaskCount} (a Slurm job array) is set; run inside one of them or give --shard K/N.");
     }
 
     private static int Whole(string name, string text) =>
         int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var value)
             ? value
-            : throw new UsageException($"--shard auto: {name}={Shown(text)} is not a whole number of at least 0.");
+            : throw new UsageException(text.Length == 0
+                ? $"--shard auto: {name} is set but empty; the scheduler sets it to a whole number of at least 0, so unset it or give --shard K/N."
+                : $"--shard auto: {name}={Shown(text)} is not a whole number of at least 0.");
 
     private static string Shown(string text) => text.Length > 40 ? text[..40] + "…" : text;
 }

@@ -9,37 +9,37 @@ namespace VolCast.Cli.Batch;
 
 /// <summary>
 /// Writes summary.csv, lookbacks.csv, beats-implied.csv, forecasts-long.csv and summary.html into the batch's folder, each atomically (temporary file, then a
-/// move). The files depend only on the rows and the request's inputs and settings (not on how many jobs or shards ran),
+/// move). The files depend only on the rows and the batch's plan, its inputs and settings (not on how many jobs or shards ran),
 /// so a single-process batch and shards followed by the reduce write the same bytes.
 /// </summary>
 internal static class BatchSummaryWriter
 {
     /// <summary>Writes the summary files.</summary>
-    /// <param name="request">The batch's request.</param>
+    /// <param name="outputFolder">The batch's output folder.</param>
+    /// <param name="plan">The batch's plan: its inputs, configuration, horizon and report pages, as shown on the summary page.</param>
     /// <param name="rows">One row per name, in name order.</param>
     /// <param name="missing">The names left out of a partial summary (the reduce's --allow-missing), or none.</param>
-    public static void Write(BatchRequest request, IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<string>? missing = null)
+    public static void Write(string outputFolder, BatchPlan plan, IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<string>? missing = null)
     {
-        Directory.CreateDirectory(request.OutputFolder);
-        AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
-        AtomicFile.WriteText(Path.Combine(request.OutputFolder, BatchLookbacksCsv.FileName), w => BatchLookbacksCsv.Write(w, rows), overwrite: true);
-        AtomicFile.WriteText(Path.Combine(request.OutputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
-        var assets = Path.Combine(request.OutputFolder, BatchRunner.AssetsFolder);
-        AtomicFile.WriteText(Path.Combine(request.OutputFolder, BatchForecastsLongCsv.FileName),
+        Directory.CreateDirectory(outputFolder);
+        AtomicFile.WriteText(Path.Combine(outputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
+        AtomicFile.WriteText(Path.Combine(outputFolder, BatchLookbacksCsv.FileName), w => BatchLookbacksCsv.Write(w, rows), overwrite: true);
+        AtomicFile.WriteText(Path.Combine(outputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
+        var assets = Path.Combine(outputFolder, BatchRunner.AssetsFolder);
+        AtomicFile.WriteText(Path.Combine(outputFolder, BatchForecastsLongCsv.FileName),
             w => BatchForecastsLongCsv.Write(w, rows.Where(r => r.Succeeded).Select(r => (r.Name, Path.Combine(assets, r.Name)))), overwrite: true);
-        if (request.Reports == BatchReports.None)
+        if (plan.Reports == BatchReports.None)
         {
             return;
         }
 
-        var s = request.Settings;
         List<Setting> settings =
         [
-            new("Tool version", "volcast " + BacktestPipeline.ToolVersion()),
-            new("Prices folder", request.PricesFolder),
-            new("Implied folder", request.ImpliedFolder ?? "none (forecasters ranked among themselves)"),
-            new("Configuration", request.Config ?? "defaults"),
-            new("Horizon", s.Horizon.TradingDays is int h ? h.ToString(CultureInfo.InvariantCulture) + " trading days" : s.Horizon.ToString()),
+            new("Tool version", "volcast " + plan.Version),
+            new("Prices folder", plan.PricesFolder),
+            new("Implied folder", plan.ImpliedFolder ?? "none (forecasters ranked among themselves)"),
+            new("Configuration", plan.Config ?? "defaults"),
+            new("Horizon", plan.Horizon),
             new("Names", rows.Count.ToString(CultureInfo.InvariantCulture)),
         ];
         if (missing is { Count: > 0 })
@@ -49,7 +49,7 @@ internal static class BatchSummaryWriter
         }
 
         // Without per-name pages, each name links to its folder of data files.
-        var html = BatchSummaryHtml.Render(rows, settings, request.Reports == BatchReports.Full ? BatchAssetJob.ReportPage : string.Empty);
-        AtomicFile.WriteText(Path.Combine(request.OutputFolder, "summary.html"), w => w.Write(html), overwrite: true);
+        var html = BatchSummaryHtml.Render(rows, settings, plan.Reports == BatchReports.Full ? BatchAssetJob.ReportPage : string.Empty);
+        AtomicFile.WriteText(Path.Combine(outputFolder, "summary.html"), w => w.Write(html), overwrite: true);
     }
 }

@@ -13,7 +13,7 @@ internal static class BatchCommand
     /// <summary>Builds the command.</summary>
     public static Command Create(CliConsole console)
     {
-        var pricesDir = new Option<string>("--prices-dir") { Description = "Folder of daily price files, one NAME.csv per asset (same columns as backtest --prices). Read only.", Required = true };
+        var pricesDir = new Option<string>("--prices-dir") { Description = "Folder of daily price files, one NAME.csv per asset (same columns as backtest --prices). Read only. Required, except with --reduce, which can take it from the shards' plan." };
         var impliedDir = new Option<string?>("--implied-dir") { Description = "Folder of implied-volatility files matched by name (NAME.csv with date, iv). A name without one is ranked among forecasters only and marked in the summary." };
         var ivUnit = new Option<string?>("--iv-unit") { Description = "Unit of every implied file's iv column: percent (20 = 20%) or decimal (0.20); inferred per file with a warning when left out." };
         ivUnit.AcceptOnlyFromAmong("percent", "decimal");
@@ -30,7 +30,7 @@ internal static class BatchCommand
         var workbook = new Option<bool>("--workbook") { Description = BacktestOptions.WorkbookHelp + " Each name gets its own in OUT/assets/NAME/." };
         var shard = new Option<string?>("--shard") { Description = "Compute only shard K of N (0-based, --shard K/N): the names whose stable hash of the name (64-bit FNV-1a of its UTF-8 bytes) modulo N is K, so adding a name never moves the others. Shards may write into one shared --out at the same time; a shard writes no summary (see --reduce). --shard auto takes K and N from a Kubernetes indexed job (JOB_COMPLETION_INDEX, with --shards N) or a Slurm job array (SLURM_ARRAY_TASK_ID, SLURM_ARRAY_TASK_COUNT)." };
         var shards = new Option<int?>("--shards") { Description = "With --shard auto in a Kubernetes indexed job: the number of shards, equal to the job's completions." };
-        var reduce = new Option<bool>("--reduce") { Description = "Compute nothing: read the names' finished folders in --out (written by shards with the same options) and write summary.csv, beats-implied.csv and summary.html, byte for byte as one batch would. Names with no finished results are listed and the exit code is 3." };
+        var reduce = new Option<bool>("--reduce") { Description = "Compute nothing: read the names' finished folders in --out and write summary.csv, beats-implied.csv and summary.html, byte for byte as one batch would. --reduce --out DIR alone takes the names, the options and the tool version from DIR/" + BatchPlan.FileName + ", which every shard writes; options given with --reduce (from --prices-dir on) are checked against it. Names with no finished results, or computed with another configuration or tool version, are listed and the exit code is 3." };
         var allowMissing = new Option<bool>("--allow-missing") { Description = "With --reduce: write a partial summary even when names are not finished; they are marked as not finished in it." };
         var reports = new Option<string>("--reports") { Description = "Which report pages to draw: full (one page with charts per name, and the summary page; the default), summary (data files per name, charts only on the summary page) or none (data files and summary.csv only). A name's page can be drawn later with volcast backtest on the same inputs.", DefaultValueFactory = _ => "full" };
         reports.AcceptOnlyFromAmong("full", "summary", "none");
@@ -39,8 +39,10 @@ internal static class BatchCommand
             pricesDir, impliedDir, ivUnit, impliedTenor, config, horizon, tenor, output, jobs, force, suspect, skipBadRows, workbook, reports, shard, shards, reduce, allowMissing,
         };
         var formatOptions = InputFormatOptions.AddTo(command);
+        // The options that say what to compute: a reduce takes either all of them from the shards' plan or the shards' own from --prices-dir on.
+        Option[] computing = [impliedDir, ivUnit, impliedTenor, config, horizon, tenor, suspect, skipBadRows, workbook, reports, formatOptions.DateFormat, formatOptions.Delimiter, formatOptions.Decimal];
         command.SetAction(parse => console.Execute(() => Run(console, new Arguments(
-            parse.GetValue(pricesDir)!,
+            parse.GetValue(pricesDir),
             parse.GetValue(impliedDir),
             parse.GetValue(ivUnit),
             parse.GetValue(config),
@@ -59,21 +61,20 @@ internal static class BatchCommand
             formatOptions,
             parse.GetValue(suspect),
             parse.GetValue(skipBadRows),
-            parse.GetValue(workbook)))));
+            parse.GetValue(workbook))
+        {
+            ComputingGiven = [.. computing.Where(o => parse.GetResult(o) is { Implicit: false }).Select(o => o.Name)],
+        })));
         return command;
     }
 
     /// <summary>Turns the command-line values into a batch request, checking them.</summary>
     private static BatchRequest Request(Arguments a)
     {
-        if (a.Jobs is int j)
-        {
-            SettingLimits.Jobs.Check(j, "--jobs");
-        }
-
         var outFolder = a.Out ?? Path.Combine("reports", "batch");
         OutputChecks.Folder(outFolder);
         OutputChecks.Separate(outFolder, a.PricesDir, a.ImpliedDir);
+        var pricesDir = a.PricesDir ?? throw new UsageException("--prices-dir is required: the folder of NAME.csv price files to run the batch over (only --reduce --out DIR can do without it).");
         var settings = BacktestOptions.Resolve(a.Config, a.Horizon, a.Tenor);
         if (a.Config is not null && (BacktestConfigFile.ReadForecasts(a.Config).File is not null || BacktestConfigFile.ReadEventsFile(a.Config) is not null))
         {
@@ -83,7 +84,7 @@ internal static class BatchCommand
 
         var unit = BacktestOptions.Unit(a.IvUnit);
         var (configFormat, configTenor) = InputFormatOptions.FromConfig(a.Config);
-        return new BatchRequest(a.PricesDir, a.ImpliedDir, unit, settings, a.Config, outFolder, a.Jobs ?? Environment.ProcessorCount, a.Force)
+        return new BatchRequest(pricesDir, a.ImpliedDir, unit, settings, a.Config, outFolder, a.Jobs ?? Environment.ProcessorCount, a.Force)
         {
             Format = a.FormatOptions.Resolve(a.Parse, configFormat),
             ImpliedTenorDays = InputFormatOptions.ImpliedTenorDays(a.ImpliedTenor, configTenor),
@@ -101,16 +102,6 @@ internal static class BatchCommand
             throw new UsageException(string.Create(CultureInfo.InvariantCulture, $"--shards {n}: the number of shards must be 1 to {BatchShard.MaxCount}, the job's completions."));
         }
 
-        if (a.Reduce && a.Shard is not null)
-        {
-            throw new UsageException("--reduce and --shard cannot be combined: run the shards first, each with --shard, then one reduce with the same options and --reduce instead of --shard.");
-        }
-
-        if (a.AllowMissing && !a.Reduce)
-        {
-            throw new UsageException("--allow-missing applies only to --reduce, which writes the summary after the shards.");
-        }
-
         if (a.Shard is null)
         {
             return a.Shards is null ? null : throw new UsageException("--shards goes with --shard auto in a Kubernetes indexed job; give --shard auto --shards N, or --shard K/N.");
@@ -124,9 +115,44 @@ internal static class BatchCommand
         return a.Shards is null ? BatchShard.Parse(a.Shard) : throw new UsageException("--shards goes only with --shard auto; with --shard K/N the count is N.");
     }
 
-    private static int Reduce(CliConsole console, BatchRequest request, bool allowMissing)
+    /// <summary>Refuses option combinations that cannot mean anything, before anything is read.</summary>
+    private static void CheckCombinations(Arguments a)
     {
-        var outcome = BatchReducer.Reduce(request, allowMissing);
+        if (a.Jobs is int j)
+        {
+            SettingLimits.Jobs.Check(j, "--jobs");
+        }
+
+        if (a.Reduce && (a.Shard is not null || a.Shards is not null))
+        {
+            throw new UsageException("--reduce cannot be combined with --shard or --shards: run the shards first, each with --shard, then one volcast batch --reduce --out DIR.");
+        }
+
+        if (a.Reduce && a.Force)
+        {
+            throw new UsageException("--reduce computes nothing, so --force has nothing to recompute: rerun the shards with --force, then volcast batch --reduce --out DIR.");
+        }
+
+        if (a.AllowMissing && !a.Reduce)
+        {
+            throw new UsageException("--allow-missing applies only to --reduce, which writes the summary after the shards.");
+        }
+
+        if (a.Reduce && a.PricesDir is null && a.ComputingGiven.Count > 0)
+        {
+            throw new UsageException($"--reduce without --prices-dir takes every option from the shards' plan ({BatchPlan.FileName} in --out), so {string.Join(", ", a.ComputingGiven)} would not be checked; "
+                + "give only --out (and --allow-missing), or the shards' options from --prices-dir on, to have them checked against the plan.");
+        }
+    }
+
+    private static int Reduce(CliConsole console, string outputFolder, BatchRequest? request, bool allowMissing)
+    {
+        var outcome = BatchReducer.Reduce(outputFolder, request, allowMissing);
+        foreach (var warning in outcome.Warnings)
+        {
+            console.Error.WriteLine("warning: " + warning);
+        }
+
         foreach (var row in outcome.Rows.Where(r => !r.Succeeded && !outcome.Missing.Any(m => m.StartsWith(r.Name + " (", StringComparison.Ordinal))))
         {
             console.Error.WriteLine($"error: {row.Name}: {row.Error}");
@@ -135,17 +161,17 @@ internal static class BatchCommand
         if (outcome.Missing.Count > 0)
         {
             console.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"error: {outcome.Missing.Count} of {outcome.Rows.Count} names have no finished results in {request.OutputFolder}: {string.Join("; ", outcome.Missing)}."));
+                $"error: {outcome.Missing.Count} of {outcome.Rows.Count} names have no finished results in {outputFolder}: {string.Join("; ", outcome.Missing)}."));
             console.Error.WriteLine(outcome.Written
                 ? "warning: --allow-missing: the summary is partial; those names are marked as not finished in it."
-                : "error: no summary written; rerun the shards that own those names (a rerun computes only what is missing), or pass --allow-missing for a partial summary.");
+                : "error: no summary written; if shards are still running, reduce again when they have ended; otherwise rerun the shards that own those names (a rerun computes only what is missing), or pass --allow-missing for a partial summary.");
         }
 
         if (outcome.Written)
         {
             console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
                 $"{outcome.Rows.Count} names reduced: {outcome.Rows.Count - outcome.Failed - outcome.Missing.Count} finished, {outcome.Failed} failed, {outcome.Missing.Count} not finished."));
-            console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (summary.csv, beats-implied.csv{(request.Reports == BatchReports.None ? string.Empty : ", summary.html")})");
+            console.Out.WriteLine($"wrote {outputFolder}{Path.DirectorySeparatorChar} (summary.csv, beats-implied.csv{(outcome.Reports == BatchReports.None ? string.Empty : ", summary.html")})");
         }
 
         return outcome.Failed > 0 || (outcome.Missing.Count > 0 && !allowMissing) ? ExitCodes.BadInput : ExitCodes.Success;
@@ -153,10 +179,18 @@ internal static class BatchCommand
 
     private static int Run(CliConsole console, Arguments a)
     {
+        CheckCombinations(a);
+        if (a.Reduce && a.PricesDir is null)
+        {
+            var folder = a.Out ?? Path.Combine("reports", "batch");
+            OutputChecks.Folder(folder);
+            return Reduce(console, folder, null, a.AllowMissing);
+        }
+
         var request = Request(a);
         if (a.Reduce)
         {
-            return Reduce(console, request, a.AllowMissing);
+            return Reduce(console, request.OutputFolder, request, a.AllowMissing);
         }
 
         using var stop = new CancellationTokenSource();
@@ -195,7 +229,7 @@ internal static class BatchCommand
             $"{(request.Shard is { } sh ? $"shard {sh}: " : string.Empty)}{outcome.Rows.Count} names: {outcome.Computed - outcome.Failed} computed, {outcome.Reused} kept from an earlier run, {outcome.Failed} failed."));
         if (request.Shard is not null)
         {
-            console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar}assets/ (no summary from a shard: when every shard has finished, run the same command with --reduce instead of --shard)");
+            console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar}assets/ (no summary from a shard: when every shard has finished, run volcast batch --reduce --out {request.OutputFolder})");
             return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
         }
 
@@ -204,6 +238,10 @@ internal static class BatchCommand
     }
 
     private sealed record Arguments(
-        string PricesDir, string? ImpliedDir, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Out, int? Jobs, bool Force,
-        string? ImpliedTenor, string Reports, string? Shard, int? Shards, bool Reduce, bool AllowMissing, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, bool Workbook);
+        string? PricesDir, string? ImpliedDir, string? IvUnit, string? Config, int? Horizon, string? Tenor, string? Out, int? Jobs, bool Force,
+        string? ImpliedTenor, string Reports, string? Shard, int? Shards, bool Reduce, bool AllowMissing, ParseResult Parse, InputFormatOptions FormatOptions, string? Suspect, bool SkipBadRows, bool Workbook)
+    {
+        /// <summary>Gets the options that say what to compute which were given on the command line, by name.</summary>
+        public IReadOnlyList<string> ComputingGiven { get; init; } = [];
+    }
 }

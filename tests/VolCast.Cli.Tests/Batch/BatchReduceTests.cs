@@ -42,8 +42,10 @@ public sealed class BatchReduceTests : IDisposable
         Assert.Contains("1 of 2 names have no finished results", reduce.Stderr, StringComparison.Ordinal);
         Assert.Contains("alpha (no results folder assets/alpha)", reduce.Stderr, StringComparison.Ordinal);
         Assert.False(File.Exists(Path.Combine(output, "summary.csv")));
+        Assert.True(Directory.Exists(stale), "a reduce reads the names' folders and leaves everything in them alone");
 
-        var partial = CliRunner.Run([.. Args(output), "--reduce", "--allow-missing"]);
+        // The intended names come from the shards' plan: alpha is missing even though no folder of it exists.
+        var partial = CliRunner.Run("batch", "--reduce", "--out", output, "--allow-missing");
 
         Assert.Equal(0, partial.ExitCode);
         Assert.Contains("summary is partial", partial.Stderr, StringComparison.Ordinal);
@@ -70,18 +72,28 @@ public sealed class BatchReduceTests : IDisposable
 
         Assert.Equal(3, reduce.ExitCode);
         Assert.Contains("another configuration or tool version", reduce.Stderr, StringComparison.Ordinal);
-        Assert.Contains("gamma (a different configuration", reduce.Stderr, StringComparison.Ordinal);
+        // What differs is named: the seed, from the plan the shard wrote (the shard's own default against 7 given here).
+        Assert.Contains("gamma (mcsSeed: ", reduce.Stderr, StringComparison.Ordinal);
+        Assert.Contains(" in the shards' plan, 7 here)", reduce.Stderr, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Reduce_FolderThatIsNotABatchOutput_ExitsThree()
     {
         var output = Directory.CreateDirectory(_temp.Combine("elsewhere")).FullName;
+        File.WriteAllText(Path.Combine(output, "notes.txt"), "not a batch\n");
 
         var reduce = CliRunner.Run([.. Args(output), "--reduce"]);
+        var alone = CliRunner.Run("batch", "--reduce", "--out", output);
+        var nowhere = CliRunner.Run("batch", "--reduce", "--out", _temp.Combine("nowhere"));
 
         Assert.Equal(3, reduce.ExitCode);
         Assert.Contains("not a batch output", reduce.Stderr, StringComparison.Ordinal);
+        Assert.Equal(3, alone.ExitCode);
+        Assert.Contains("not a batch output", alone.Stderr, StringComparison.Ordinal);
+        Assert.Equal(3, nowhere.ExitCode);
+        Assert.Contains("not a batch output", nowhere.Stderr, StringComparison.Ordinal);
+        Assert.Equal(["notes.txt"], Directory.GetFileSystemEntries(output).Select(Path.GetFileName));
     }
 
     [Fact]
@@ -90,7 +102,109 @@ public sealed class BatchReduceTests : IDisposable
         var reduce = CliRunner.Run([.. Args(_temp.Combine("out")), "--reduce", "--shard", "0/2"]);
 
         Assert.Equal(2, reduce.ExitCode);
-        Assert.Contains("--reduce and --shard cannot be combined", reduce.Stderr, StringComparison.Ordinal);
+        Assert.Contains("--reduce cannot be combined with --shard", reduce.Stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ReduceAlone_WithAComputingOption_IsBadUsageNamingIt()
+    {
+        var reduce = CliRunner.Run("batch", "--reduce", "--out", _temp.Combine("out"), "--config", _config);
+
+        Assert.Equal(2, reduce.ExitCode);
+        Assert.Contains("so --config would not be checked", reduce.Stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Batch_WithoutPricesDirOrReduce_IsBadUsage()
+    {
+        var batch = CliRunner.Run("batch", "--out", _temp.Combine("out"));
+
+        Assert.Equal(2, batch.ExitCode);
+        Assert.Contains("--prices-dir is required", batch.Stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ReduceAlone_ShardsRanWithDifferentConfigurations_ExitsThreeNamingThem()
+    {
+        var output = _temp.Combine("out");
+        var other = _temp.Write("other.json", "{\"mcs\": {\"replications\": 200, \"seed\": 7}}\n");
+        Assert.Equal(0, CliRunner.Run([.. Args(output), "--shard", "0/2"]).ExitCode);
+        // The second shard was given another configuration by mistake; its plan, written last, is the one in the folder.
+        Assert.Equal(0, CliRunner.Run("batch", "--prices-dir", _prices, "--config", other, "--out", output, "--jobs", "1", "--shard", "1/2").ExitCode);
+
+        var reduce = CliRunner.Run("batch", "--reduce", "--out", output);
+
+        Assert.Equal(3, reduce.ExitCode);
+        Assert.Contains("1 names were computed with another configuration or tool version than the shards' plan", reduce.Stderr, StringComparison.Ordinal);
+        Assert.Contains(": gamma (", reduce.Stderr, StringComparison.Ordinal);
+        Assert.DoesNotContain("alpha (", reduce.Stderr, StringComparison.Ordinal);
+        Assert.False(File.Exists(Path.Combine(output, "summary.csv")));
+    }
+
+    [Fact]
+    public void ReduceAlone_NameAddedLaterOrInputsNotReachable_WarnsAndGivesTheSameSummary()
+    {
+        var output = _temp.Combine("out");
+        Assert.Equal(0, CliRunner.Run([.. Args(output), "--shard", "0/2"]).ExitCode);
+        Assert.Equal(0, CliRunner.Run([.. Args(output), "--shard", "1/2"]).ExitCode);
+        Assert.Equal(0, CliRunner.Run("batch", "--reduce", "--out", output).ExitCode);
+        var summary = File.ReadAllBytes(Path.Combine(output, "summary.csv"));
+        var page = File.ReadAllBytes(Path.Combine(output, "summary.html"));
+        File.Delete(Path.Combine(output, "summary.csv"));
+
+        // A price file added after the shards ran is named, and left out: the summary is of the names the shards set out to compute.
+        File.Copy(Path.Combine(_prices, "gamma.csv"), Path.Combine(_prices, "zeta.csv"));
+        var later = CliRunner.Run("batch", "--reduce", "--out", output);
+        Assert.True(later.ExitCode == 0, later.Stderr);
+        Assert.Contains("1 price files were added", later.Stderr, StringComparison.Ordinal);
+        Assert.Contains("not in this summary: zeta;", later.Stderr, StringComparison.Ordinal);
+        Assert.Equal(summary, File.ReadAllBytes(Path.Combine(output, "summary.csv")));
+        File.Delete(Path.Combine(output, "summary.csv"));
+
+        // A reduce on a machine that does not mount the inputs.
+        Directory.Move(_prices, _prices + "-elsewhere");
+        var reduce = CliRunner.Run("batch", "--reduce", "--out", output);
+
+        Assert.True(reduce.ExitCode == 0, reduce.Stderr);
+        Assert.Contains("are not reachable from here", reduce.Stderr, StringComparison.Ordinal);
+        Assert.Equal(summary, File.ReadAllBytes(Path.Combine(output, "summary.csv")));
+        Assert.Equal(page, File.ReadAllBytes(Path.Combine(output, "summary.html")));
+    }
+
+    [Fact]
+    public void ReduceAlone_FolderWithResultsButNoPlan_ExitsThree()
+    {
+        var output = _temp.Combine("out");
+        Directory.CreateDirectory(Path.Combine(output, "assets", "gamma"));
+
+        var reduce = CliRunner.Run("batch", "--reduce", "--out", output);
+
+        Assert.Equal(3, reduce.ExitCode);
+        Assert.Contains("no batch-plan.json", reduce.Stderr, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("../../escaped", "are not ones a batch writes")]
+    [InlineData("gamma", null)]
+    public void ReduceAlone_PlanEditedByHand_ExitsThreeWithoutWritingOutsideTheFolder(string name, string? why)
+    {
+        var output = Directory.CreateDirectory(_temp.Combine("deep", "out")).FullName;
+        // The configuration's SHA-256 matches its text ("tool=hand\n") unless the second case says otherwise.
+        var text = "tool=hand\n";
+        var sha = why is null ? new string('0', 64) : Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(Encoding.UTF8.GetBytes(text)));
+        File.WriteAllText(Path.Combine(output, "batch-plan.json"), $$"""
+            {"version": "hand", "prices_folder": "{{_prices.Replace("\\", "/", StringComparison.Ordinal)}}", "implied_folder": null, "config": null, "config_sha256": null,
+             "reports": "none", "horizon": "21 trading days", "configuration_sha256": "{{sha}}", "configuration": {"tool": "hand"},
+             "names": [{"name": "{{name}}", "prices": "gamma.csv", "implied": null, "problem": null}]}
+            """);
+
+        var reduce = CliRunner.Run("batch", "--reduce", "--out", output);
+
+        Assert.Equal(3, reduce.ExitCode);
+        Assert.Contains("the batch plan cannot be used", reduce.Stderr, StringComparison.Ordinal);
+        Assert.Contains(why ?? "does not match its configuration_sha256", reduce.Stderr, StringComparison.Ordinal);
+        Assert.Equal(["batch-plan.json"], Directory.GetFileSystemEntries(output).Select(Path.GetFileName));
+        Assert.False(Directory.Exists(_temp.Combine("escaped")));
     }
 
     [Fact]

@@ -79,6 +79,8 @@ public sealed class BatchShardTests
     [InlineData("SLURM_ARRAY_TASK_ID=3", "SLURM_ARRAY_TASK_COUNT is not", "SLURM_ARRAY_TASK_ID=3")]
     [InlineData("SLURM_ARRAY_TASK_ID=0;SLURM_ARRAY_TASK_COUNT=3;SLURM_ARRAY_TASK_MIN=0;SLURM_ARRAY_TASK_MAX=4", "SLURM_ARRAY_TASK_MAX=4", "do not agree")]
     [InlineData("SLURM_ARRAY_TASK_ID=5;SLURM_ARRAY_TASK_COUNT=3", "SLURM_ARRAY_TASK_ID=5", "outside")]
+    [InlineData("SLURM_ARRAY_TASK_COUNT=3", "SLURM_ARRAY_TASK_COUNT=3 is set", "SLURM_ARRAY_TASK_ID is not")]
+    [InlineData("JOB_COMPLETION_INDEX=", "JOB_COMPLETION_INDEX is set but empty", "--shard K/N")]
     public void FromEnvironment_MissingOrInconsistent_NamesTheVariables(string? variables, string first, string second)
     {
         var pairs = (variables ?? string.Empty).Split(';', StringSplitOptions.RemoveEmptyEntries).Select(p => (p.Split('=')[0], p.Split('=')[1])).ToArray();

@@ -13,7 +13,8 @@ namespace VolCast.Cli.Tests.Batch;
 /// </summary>
 public sealed class ShardedBatchTests : IClassFixture<ShardedBatchTests.Universe>
 {
-    private static readonly string[] SummaryFiles = ["summary.csv", "beats-implied.csv", "summary.html"];
+    // The plan too: every shard and the single-process batch write the same one.
+    private static readonly string[] SummaryFiles = ["summary.csv", "beats-implied.csv", "summary.html", "batch-plan.json"];
     private static readonly string[] AssetFiles = ["metrics.csv", "forecasts.csv", "metrics.json", "batch.json"];
 
     private readonly Universe _universe;
@@ -39,6 +40,30 @@ public sealed class ShardedBatchTests : IClassFixture<ShardedBatchTests.Universe
         Assert.False(reduce.Stderr.Contains("no finished results", StringComparison.Ordinal), reduce.Stderr);
         Assert.True(File.Exists(Path.Combine(output, "summary.csv")), reduce.Stderr);
         _universe.AssertSameAsReference(output);
+    }
+
+    [Fact]
+    public void ThreeShardsThenReduceGivenOnlyTheFolder_TwoAtOnce_SameBytesAsOneBatch()
+    {
+        var output = _universe.NewOutput();
+        var shards = Enumerable.Range(0, 3).Select(k => CliRunner.StartProcess(_universe.Root, [.. _universe.Args(output), "--jobs", "1", "--shard", $"{k}/3"])).ToArray();
+        Assert.Equal([0, 3, 0], shards.Select(p => CliRunner.Finish(p, ["batch", "--shard"]).ExitCode));
+
+        // No --prices-dir, no --config: the names, the options and the tool version come from the plan the shards wrote.
+        // Two reduces at once write the same files, each atomically, so neither can leave the other's half-written.
+        string[] alone = ["batch", "--reduce", "--out", output];
+        var reduces = new[] { CliRunner.StartProcess(_universe.Root, alone), CliRunner.StartProcess(_universe.Root, alone) };
+        var results = reduces.Select(p => CliRunner.Finish(p, alone)).ToArray();
+
+        foreach (var reduce in results)
+        {
+            Assert.True(reduce.ExitCode == 3, reduce.Stderr);
+            Assert.Contains("error: broken:", reduce.Stderr, StringComparison.Ordinal);
+            Assert.Contains("7 names reduced", reduce.Stdout, StringComparison.Ordinal);
+        }
+
+        _universe.AssertSameAsReference(output);
+        Assert.Empty(Directory.GetFiles(output, ".*"));
     }
 
     [Fact]
