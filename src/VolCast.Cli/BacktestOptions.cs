@@ -64,19 +64,10 @@ internal static class BacktestOptions
     }
 
     /// <summary>Parses --tenor and checks its range, before anything is read.</summary>
-    private static BacktestHorizon ParseTenor(string text)
-    {
-        var t = text.Trim().ToLowerInvariant();
-        if (t.EndsWith('d') && t.Length > 1 && t[..^1].All(char.IsAsciiDigit))
-        {
-            // Any run of digits is a tenor; one too long for a number is simply out of range.
-            var days = double.Parse(t[..^1], NumberStyles.None, CultureInfo.InvariantCulture);
-            SettingLimits.TenorDays.Check(days, "--tenor");
-            return BacktestHorizon.Tenor((int)days);
-        }
-
-        throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d (was {Shown(text)}).");
-    }
+    private static BacktestHorizon ParseTenor(string text) =>
+        SettingLimits.TenorDaysOf(text, "--tenor") is int days
+            ? BacktestHorizon.Tenor(days)
+            : throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d, {SettingLimits.TenorDays} (was {Shown(text)}).");
 
     /// <summary>A value from the command line inside a message: quoted and cut to 40 characters.</summary>
     internal static string Shown(string text) => "'" + (text.Length > 40 ? text[..40] + "…" : text) + "'";

@@ -79,5 +79,6 @@ internal sealed class InputFormatOptions
     public static int? ImpliedTenorDays(string? text, int? config) =>
         text is null
             ? config
-            : ImpliedTenor.Parse(text) ?? throw new UsageException($"--implied-tenor must be a number of calendar days from 1 to {ImpliedTenor.MaxDays} followed by d, such as 30d (was {BacktestOptions.Shown(text)}).");
+            : SettingLimits.TenorDaysOf(text, "--implied-tenor")
+                ?? throw new UsageException($"--implied-tenor must be a number of calendar days followed by d, such as 30d, {SettingLimits.TenorDays} (was {BacktestOptions.Shown(text)}).");
 }

@@ -7,7 +7,7 @@ namespace VolCast.Reports;
 
 /// <summary>
 /// The answers a practitioner acts on, as sentences and tables: the one date set of the ranking, which lookback per
-/// family (with its ties), and the results by calendar year, by volatility regime and with or without event windows.
+/// family (with its ties), and the results by calendar year, by the volatility level known at the forecast date and with or without event windows.
 /// </summary>
 internal static class ReportAnswers
 {
@@ -36,6 +36,13 @@ internal static class ReportAnswers
             : text + $"; left out because they start late (forecasts on fewer than half of the scored dates): {string.Join(", ", common.LeftOut)}, whose own-date figures stay in the tables.";
     }
 
+    /// <summary>Whether the head-to-head of candidate and baseline is on the common dates (both are members of the common set).</summary>
+    public static bool HeadToHeadOnCommonDates(BacktestResult result) =>
+        result.Common is { Count: > 0 } common
+        && common.Rows.Any(r => r.Spec == result.Candidate)
+        && common.Rows.Any(r => r.Spec == result.Baseline)
+        && result.CandidateVersusBaseline.Count == common.Count;
+
     /// <summary>The one-sentence lookback answer of a family; null when the run has none for it.</summary>
     public static string? Lookback(BacktestResult result, string family)
     {
@@ -62,10 +69,10 @@ internal static class ReportAnswers
         {
             tables.Add(new TextTable(
                 string.Create(C, $"Ranking on the {common.Count} common dates"),
-                ["Forecaster", "QLIKE", "RMSE (vol points)", "DM vs implied", "p"],
+                ["Forecaster", "QLIKE", "RMSE (vol points)", "DM vs implied (common dates)", "p"],
                 [.. common.Rows.Select(r => (IReadOnlyList<string>)[
                     r.Spec, F(r.Losses.Qlike, "0.0000"), F(r.Losses.RmseVolatility * 100, "0.00"), F(r.VersusImplied?.Qlike?.Statistic, "0.00"), Pv(r.VersusImplied?.Qlike?.PValue)])],
-                CommonDates(result)));
+                CommonDates(result) + " DM vs implied here is on the common dates, the figure the verdict quotes; the loss table under Metrics scores each forecaster on its own dates, so its DM figures differ a little."));
         }
 
         if (!result.Lookbacks.IsEmpty)
@@ -86,8 +93,8 @@ internal static class ReportAnswers
 
         var years = groups.Rows.Where(r => r.Grouping == "year").Select(r => r.Group).Distinct().Count();
         AddGroup(tables, groups, "year", YearTitle, years == 1 ? "A result carried by one year shows here. " + Charts.GroupCharts.OneYear : "A result carried by one year shows here.");
-        AddGroup(tables, groups, "regime", "By volatility regime at the forecast date",
-            string.Create(C, $"Regime: trailing {GroupedScores.RegimeWindowDays}-day realized volatility against its terciles on that date and every earlier one (no later data), from {GroupedScores.RegimeHistoryDays} days of history on; {groups.DatesWithoutRegime} earlier dates have no regime."));
+        AddGroup(tables, groups, "regime", "By volatility level known at the forecast date",
+            string.Create(C, $"Level known at the forecast date: the trailing {GroupedScores.RegimeWindowDays}-day realized volatility on that date against its terciles on that date and every earlier one (no later data); calm is the lowest third, stressed the highest. From {GroupedScores.RegimeHistoryDays} days of history on; {groups.DatesWithoutRegime} earlier dates have no level. These are not the thirds of the odds section, which sort each window by the realized volatility that followed, in hindsight."));
         if (!groups.Events.IsEmpty)
         {
             var note = "Windows are the forecast's realized windows; a window with an event is scored in its event group, all others under \"without events\".";

@@ -78,7 +78,7 @@ internal static class ReportOdds
         {
             string.Create(c, $"Probabilities are N(d2), the lognormal chance that the close at the end of each date's own window ({ReportWriter.HorizonStatement(result)}) ends above each strike (0.90 to 1.10 times the close), from the forecaster's volatility with no rate or dividend (r = q = 0): a risk-neutral-style probability with drift −σ²/2 in the log price, not a forecast of the drift."),
             "The reliability diagram pools the strikes (at the money alone, every probability is near 50% and the diagram would show one point); each forecaster's Brier score, its decomposition and the log score per strike are in calibration.csv and metrics.json.",
-            "Verdicts are shown for implied, the leading forecasters, the baseline and the candidate; every forecaster's verdict is in coverage.csv. Regimes are thirds of the realized volatility that followed, known only in hindsight.",
+            "Verdicts are shown for implied, the leading forecasters, the baseline and the candidate; every forecaster's verdict is in coverage.csv. The low, middle and high thirds in the verdicts sort each date by the realized volatility of its own window, known only in hindsight; they are not the volatility levels known at the forecast date of the table by level.",
         };
         return new OddsSection(chart, table, verdicts, notes);
     }

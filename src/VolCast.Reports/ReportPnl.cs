@@ -81,8 +81,9 @@ internal static class ReportPnl
                 : string.Create(C, $"the proposed rule has no edge over always-sell at any half-spread ({breakEven.EdgePerYear:0.00} vol points per year at {configured:0.00})");
         }
 
-        var side = breakEven.EdgeChangePerVolPoint > 0 ? "narrower" : "wider";
-        return string.Create(C, $"the edge over always-sell vanishes at a half-spread of {w:0.00} vol points (and is gone at any {side} spread; {configured:0.00} assumed)");
+        // The edge is linear in the spread: it is positive on the side of the break-even where it grows.
+        var side = breakEven.EdgeChangePerVolPoint > 0 ? "wider" : "narrower";
+        return string.Create(C, $"the proposed rule beats always-sell only at a half-spread {side} than {w:0.00} vol points ({configured:0.00} assumed)");
     }
 
     private static List<string> Points(RulePnlReport report)
@@ -157,7 +158,7 @@ internal static class ReportPnl
         Row("Median P&L per trade, % of spot", (r, n) => F(T(r, n).MedianPercentOfSpot, "0.000"));
         Row("Mean trade t (Newey-West, lag 2 trades)", (r, n) => F(T(r, n).MeanTest?.TStatistic, "0.00"));
         Row("Mean trade p", (r, n) => T(r, n).MeanTest?.PValue is double p ? P(p) : "—");
-        Row("P&L per year, vol points", (r, n) => F(Path(r, n).PnlPerYear, "0.00"));
+        Row("P&L per year, vol points (daily path, every signal)", (r, n) => F(Path(r, n).PnlPerYear, "0.00"));
         Row("Sharpe ratio (annualized, daily path)", (r, n) => F(Path(r, n).Sharpe, "0.00"));
         Row("Sortino ratio (annualized, daily path)", (r, n) => F(Path(r, n).Sortino, "0.00"));
         Row("Maximum drawdown, vol points", (r, n) => F(Path(r, n).MaxDrawdown, "0.00"));
@@ -198,7 +199,7 @@ internal static class ReportPnl
         }
 
         Row("Trades", r => r.Trades, "0");
-        Row("P&L per year, vol points (sum of trades)", r => r.PnlPerYear, "0.00");
+        Row("P&L per year, vol points (sum of trades one at a time)", r => r.PnlPerYear, "0.00");
         Row("Hit rate (trades above zero)", r => r.HitRate, "0.0%");
         Row("Mean P&L per trade, vol points", r => r.MeanVolPoints, "0.00");
         Row("Median P&L per trade, vol points", r => r.MedianVolPoints, "0.00");
@@ -210,7 +211,7 @@ internal static class ReportPnl
         Row("Skewness of trade P&L", r => r.Skewness, "0.00");
         Row("Mean P&L per unit of stress loss", r => r.PnlPerUnitStressLoss, "0.000");
         return new TextTable("One at a time: how much the first trade's date matters", headers, rows, string.Create(C,
-            $"Trades one at a time depend on the date of the first one. Each cell is the lowest and the highest value of the figure over the {close.HorizonDays} possible first entries (one per trading day of the horizon); the table above is the first entry's. The daily-path figures (Sharpe, Sortino, drawdown, worst month) use every signal and do not depend on it."));
+            $"Trades one at a time depend on the date of the first one. Each cell is the lowest and the highest value of the figure over the {close.HorizonDays} possible first entries (one per trading day of the horizon); the table above is the first entry's. The daily-path figures (Sharpe, Sortino, drawdown, worst month) use every signal and do not depend on it. The two P&L per year differ because they hold different positions: the daily path is a ladder of a trade on every signal, each sized 1/{close.HorizonDays} and marked daily, so it holds as much as the rule fired over the last {close.HorizonDays} days; one at a time holds one full-size trade from each entry to its expiry, whether or not the rule still fires."));
     }
 
     private static string Range(FigureRange? range, string format) =>

@@ -61,8 +61,9 @@ internal static class ReportTables
             ]));
         }
 
+        var dates = ReportAnswers.HeadToHeadOnCommonDates(result) ? "common dates, those of the ranking" : "dates both forecast";
         var note = string.Create(CultureInfo.InvariantCulture,
-            $"On the {h.Count} dates both forecast. Stars on the difference: Diebold-Mariano test (QLIKE: {Stat(h.Qlike)}; MSE: {Stat(h.MseVariance)}), HAC lag {result.HacLag}; a negative difference favours the candidate.");
+            $"On the {h.Count} {dates}. Stars on the difference: Diebold-Mariano test (QLIKE: {Stat(h.Qlike)}; MSE: {Stat(h.MseVariance)}), HAC lag {result.HacLag}; a negative difference favours the candidate.");
         return new MetricTable($"Head to head: candidate {result.Candidate} against baseline {result.Baseline}", [Dates, Qlike, Mse, Rmse, Bias], rows, note);
     }
 
@@ -99,16 +100,21 @@ internal static class ReportTables
 
         var alpha = result.ModelConfidenceSet.Result?.Options.Alpha ?? result.Settings.McsAlpha;
         var note = string.Create(CultureInfo.InvariantCulture,
-            $"Each forecaster on its own scored dates (the count is in the first column). DM vs implied: Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied), negative = forecaster better; stars = better or worse than implied. MZ slope b of RV² = a + b F²; its Wald p tests unbiasedness (a = 0, b = 1), a low p rejects it. Encompassing c: weight on the forecast in RV² = a + b IV² + c F²; a low p says the forecast adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). The regressions use Newey-West errors with lag {result.HacLag} (the nominal horizon in trading days); Diebold-Mariano uses the rectangular long-run variance (autocovariances to lag {result.HacLag}, equal weights, Harvey-Leybourne-Newbold correction), Bartlett weights where that is not positive.");
+            $"Each forecaster on its own scored dates (the count is in the first column). DM vs implied (own dates): Diebold-Mariano on QLIKE(forecaster) − QLIKE(implied) on the dates the two share, negative = forecaster better; stars = better or worse than implied.{OwnAgainstCommon(result)} MZ slope b of RV² = a + b F²; its Wald p tests unbiasedness (a = 0, b = 1), a low p rejects it. Encompassing c: weight on the forecast in RV² = a + b IV² + c F²; a low p says the forecast adds information beyond implied. ✓ = in the model confidence set (MCS p ≥ {alpha:0.00}). The regressions use Newey-West errors with lag {result.HacLag} (the nominal horizon in trading days); Diebold-Mariano uses the rectangular long-run variance (autocovariances to lag {result.HacLag}, equal weights, Harvey-Leybourne-Newbold correction), Bartlett weights where that is not positive.");
         if (result.Metrics.Any(m => LeavesOutOvernight(m.Spec)))
         {
             note += " " + OvernightNote;
         }
 
         return new MetricTable("Forecast losses, ranked on QLIKE",
-            [Dates, Qlike, Mse, Rmse, Bias, new("DM vs implied", "t-statistic"), new("MZ slope b", "1 = unbiased"), new("MZ Wald p", "a = 0, b = 1"), new("MZ R²", "0 to 1"), new("Encompassing c", "weight on forecast"), new("Encompassing p", "c = 0"), new("MCS p", "probability")],
+            [Dates, Qlike, Mse, Rmse, Bias, new("DM vs implied (own dates)", "t-statistic"), new("MZ slope b", "1 = unbiased"), new("MZ Wald p", "a = 0, b = 1"), new("MZ R²", "0 to 1"), new("Encompassing c", "weight on forecast"), new("Encompassing p", "c = 0"), new("MCS p", "probability")],
             rows, note);
     }
+
+    /// <summary>Says that the common-dates figure, the one the verdict quotes, is elsewhere; empty without common dates.</summary>
+    private static string OwnAgainstCommon(BacktestResult result) => result.Common is { Count: > 0 } common
+        ? string.Create(CultureInfo.InvariantCulture, $" The verdict uses the {common.Count} common dates instead: its DM figures against implied are those of the ranking on common dates, and differ a little from these.")
+        : string.Empty;
 
     /// <summary>The explanation beside the range estimators' rows (Parkinson 1980; Garman and Klass 1980; Rogers and Satchell 1991: each measures the day from its open to its close).</summary>
     internal const string OvernightNote =

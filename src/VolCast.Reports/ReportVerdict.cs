@@ -27,7 +27,7 @@ internal static class ReportVerdict
         var points = verdict.Points.ToList();
         var rule = points.FindIndex(p => p.StartsWith(RulePrefix, StringComparison.Ordinal));
         var headline = ReportPnl.Headline(pnl);
-        var answer = "In option trades after costs: " + (headline.Length > 0 ? char.ToLowerInvariant(headline[0]) + headline[1..] : headline);
+        var answer = "In option trades: " + (headline.Length > 0 ? char.ToLowerInvariant(headline[0]) + headline[1..] : headline);
         if (rule < 0)
         {
             points.Add(answer);
@@ -60,8 +60,13 @@ internal static class ReportVerdict
         var points = new List<string> { HeadToHead(result), Mcs(result.ModelConfidenceSet) };
         if (result.HasImplied && ReportSeries.Premium(result).Values is { Count: > 0 } premium)
         {
+            // The loss table scores implied on its own dates; say so when they are not the premium's, so two figures do not seem to disagree.
+            var own = result.Metrics.FirstOrDefault(m => m.Kind == ForecastKind.Implied)?.Losses;
+            var table = own is null || own.Count == premium.Count
+                ? "implied's bias in the loss table, on the same dates"
+                : string.Create(C, $"the loss table's bias of implied, {own.Bias * 100:0.00}, is on its own {own.Count} dates");
             points.Add(string.Create(C,
-                $"Implied was above the realized volatility that followed by {premium.Average() * 100:0.00} vol points on average, on {premium.Count(v => v > 0) * 100.0 / premium.Count:0}% of the {premium.Count} dates with both (implied's bias in the loss table, on the same dates)."));
+                $"Implied was above the realized volatility that followed by {premium.Average() * 100:0.00} vol points on average, on {premium.Count(v => v > 0) * 100.0 / premium.Count:0}% of the {premium.Count} dates with both ({table})."));
         }
 
         if (result.RuleTest is RuleTestResult rule)
@@ -98,12 +103,13 @@ internal static class ReportVerdict
         }
 
         var test = string.Create(C, $"DM {t:0.00}, {PValueText.Clause(p)}");
+        var dates = result.Common is { Count: > 0 } common && common.Rows.Any(r => r.Spec == leader.Spec) ? "common dates" : "dates both have";
         var significance = p < 0.05 ? "significant at 5%" : "not significant at 5%";
         return implied.Qlike <= own.Qlike
             ? string.Create(C,
-                $"{first}, but implied volatility scores {Lower(implied.Qlike, own.Qlike)} on the {pair.Count} dates both have (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} ({test}).")
+                $"{first}, but implied volatility scores {Lower(implied.Qlike, own.Qlike)} on the {pair.Count} {dates} (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} ({test}).")
             : string.Create(C,
-                $"{first} and scores {Lower(own.Qlike, implied.Qlike)} than implied volatility on the {pair.Count} dates both have (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} ({test}).");
+                $"{first} and scores {Lower(own.Qlike, implied.Qlike)} than implied volatility on the {pair.Count} {dates} (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} ({test}).");
     }
 
     private static string HeadToHead(BacktestResult result)
@@ -118,7 +124,8 @@ internal static class ReportVerdict
         var baseline = $"the baseline {result.Baseline}";
         var qlike = Loss("QLIKE", h.FirstLosses.Qlike, h.SecondLosses.Qlike, "0.0000", 1, h.Qlike, candidate, baseline);
         var mse = Loss("MSE of variance", h.FirstLosses.MseVariance, h.SecondLosses.MseVariance, "0.000", 1e3, h.MseVariance, candidate, baseline);
-        return string.Create(C, $"Head to head on {h.Count} common dates: {qlike}; {mse}.");
+        var dates = ReportAnswers.HeadToHeadOnCommonDates(result) ? "common dates" : "dates both forecast";
+        return string.Create(C, $"Head to head on {h.Count} {dates}: {qlike}; {mse}.");
     }
 
     private static string Loss(string loss, double candidate, double baseline, string format, double scale, DieboldMarianoResult? dm, string candidateName, string baselineName)

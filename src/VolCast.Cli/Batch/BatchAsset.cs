@@ -14,16 +14,18 @@ internal sealed record BatchAsset(string Name, string Prices, string? Implied, s
     public const string SafeSet = "letters A-Z and a-z, digits 0-9, '.', '-' and '_', starting with a letter or digit, at most 100 characters";
 
     /// <summary>
-    /// Lists the assets: every file in the prices folder whose extension is <c>.csv</c> in any mix of capitals, in
+    /// Lists the assets: every entry of the prices folder whose extension is <c>.csv</c> in any mix of capitals, in
     /// ordinal name order, with implied matched by name (again in any capitals of <c>.csv</c>). A name outside
     /// <see cref="SafeSet"/> is listed with its problem and never run, so no name can reach outside its own results folder.
+    /// A folder named like a CSV file, in either folder, is listed too and fails its name when read ("this is a folder,
+    /// not a file"), as a pipe or a device of that name does, rather than being passed over without a word.
     /// </summary>
     public static IReadOnlyList<BatchAsset> Find(string pricesFolder, string? impliedFolder)
     {
         var implied = new Dictionary<string, string>(StringComparer.Ordinal);
         if (impliedFolder is not null)
         {
-            foreach (var path in Directory.EnumerateFiles(impliedFolder).Order(StringComparer.Ordinal))
+            foreach (var path in Directory.EnumerateFileSystemEntries(impliedFolder).Order(StringComparer.Ordinal))
             {
                 if (IsCsv(path))
                 {
@@ -34,7 +36,7 @@ internal sealed record BatchAsset(string Name, string Prices, string? Implied, s
 
         var assets = new List<BatchAsset>();
         var seen = new Dictionary<string, string>(StringComparer.OrdinalIgnoreCase);
-        foreach (var path in Directory.EnumerateFiles(pricesFolder).Order(StringComparer.Ordinal))
+        foreach (var path in Directory.EnumerateFileSystemEntries(pricesFolder).Order(StringComparer.Ordinal))
         {
             if (!IsCsv(path))
             {

@@ -183,16 +183,9 @@ internal static class ConeCommand
                 return days ?? 21;
             }
 
-            var t = tenor.Trim().ToLowerInvariant();
-            if (t.Length < 2 || !t.EndsWith('d') || !t[..^1].All(char.IsAsciiDigit))
-            {
-                throw new UsageException($"--implied-tenor must be a number of calendar days followed by d, such as 30d, {SettingLimits.TenorDays} (was {BacktestOptions.Shown(tenor)}).");
-            }
-
-            // Any run of digits is a tenor; one too long for a number is simply out of range.
-            var calendarDays = double.Parse(t[..^1], NumberStyles.None, CultureInfo.InvariantCulture);
-            SettingLimits.TenorDays.Check(calendarDays, "--implied-tenor");
-            return BacktestHorizon.Tenor((int)calendarDays).NominalDays;
+            var calendarDays = SettingLimits.TenorDaysOf(tenor, "--implied-tenor")
+                ?? throw new UsageException($"--implied-tenor must be a number of calendar days followed by d, such as 30d, {SettingLimits.TenorDays} (was {BacktestOptions.Shown(tenor)}).");
+            return BacktestHorizon.Tenor(calendarDays).NominalDays;
         }
     }
 }

@@ -115,9 +115,16 @@ internal static class ImpliedCommand
 
     private static int ParseTenor(string text)
     {
-        var digits = text.EndsWith('d') || text.EndsWith('D') ? text[..^1] : text;
-        return int.TryParse(digits, NumberStyles.None, CultureInfo.InvariantCulture, out var days) && days is >= 1 and <= 3650
-            ? days
-            : throw new UsageException($"--tenor '{text}' is not a tenor; expected calendar days written Nd between 1d and 3650d, for example 30d.");
+        // Bare digits (30) are read as days too, as they always were here.
+        var trimmed = text.Trim();
+        if (trimmed.Length > 0 && trimmed.All(char.IsAsciiDigit))
+        {
+            var days = double.Parse(trimmed, NumberStyles.None, CultureInfo.InvariantCulture);
+            SettingLimits.TenorDays.Check(days, "--tenor", null, trimmed);
+            return (int)days;
+        }
+
+        return SettingLimits.TenorDaysOf(text, "--tenor")
+            ?? throw new UsageException($"--tenor must be a number of calendar days followed by d, such as 30d, {SettingLimits.TenorDays} (was {BacktestOptions.Shown(text)}).");
     }
 }

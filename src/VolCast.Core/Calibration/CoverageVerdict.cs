@@ -14,7 +14,7 @@ namespace VolCast.Core.Calibration;
 /// non-overlapping dates there were and how many were needed.
 /// </para>
 /// <para>
-/// A regime is named as too narrow (too wide) when the whole Wilson interval of its |z| ≤ 1 share lies below
+/// A third of the realized volatility that followed (low, middle, high: hindsight) is named as too narrow (too wide) when the whole Wilson interval of its |z| ≤ 1 share lies below
 /// (above) 68.27%.
 /// </para>
 /// </remarks>
@@ -64,7 +64,9 @@ public static class CoverageVerdict
 
         if (coverage.MissingCount > 0)
         {
-            text.Append(c, $"; {coverage.MissingCount} dates had no forecast and were not scored");
+            // Implied is quoted, not forecast: its missing dates are dates without a quote.
+            var missing = coverage.Spec == Data.ImpliedSeries.Name ? "no implied quote" : "no forecast";
+            text.Append(c, $"; {coverage.MissingCount} dates had {missing} and were not scored");
         }
 
         if (regimes is not null)
@@ -73,11 +75,11 @@ public static class CoverageVerdict
             {
                 if (regime.IntervalUpper < regime.NominalWithinOne)
                 {
-                    text.Append(c, $"; too narrow in {regime.Label} periods (|z| ≤ 1 held {regime.ShareWithinOne * 100:0}%)");
+                    text.Append(c, $"; too narrow in the {Third(regime.Label)} third of realized volatility, known in hindsight (|z| ≤ 1 held {regime.ShareWithinOne * 100:0}%)");
                 }
                 else if (regime.IntervalLower > regime.NominalWithinOne)
                 {
-                    text.Append(c, $"; too wide in {regime.Label} periods (|z| ≤ 1 held {regime.ShareWithinOne * 100:0}%)");
+                    text.Append(c, $"; too wide in the {Third(regime.Label)} third of realized volatility, known in hindsight (|z| ≤ 1 held {regime.ShareWithinOne * 100:0}%)");
                 }
             }
         }
@@ -85,4 +87,14 @@ public static class CoverageVerdict
         return text.ToString();
     }
 
+    /// <summary>
+    /// The plain name of a hindsight third (low, middle, high), so that it is not read as the volatility level known at
+    /// the forecast date, which the report's table by level calls calm, middle and stressed.
+    /// </summary>
+    private static string Third(string label) => label switch
+    {
+        "calm" => "low",
+        "stressed" => "high",
+        _ => label,
+    };
 }

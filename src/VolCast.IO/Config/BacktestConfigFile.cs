@@ -91,7 +91,8 @@ public static partial class BacktestConfigFile
         int? tenor = null;
         if (doc.ImpliedTenor is string text)
         {
-            tenor = ImpliedTenor.Parse(text) ?? throw Bad(file, "impliedTenor", $"must be a number of calendar days from 1 to {ImpliedTenor.MaxDays} followed by d, such as \"30d\" (was \"{Cut(text)}\")");
+            tenor = SettingLimits.TenorDaysOf(text, "impliedTenor", file)
+                ?? throw Bad(file, "impliedTenor", $"must be a number of calendar days followed by d, such as \"30d\", {SettingLimits.TenorDays} (was \"{Cut(text)}\")");
         }
 
         return (format, tenor);
@@ -329,18 +330,10 @@ public static partial class BacktestConfigFile
     /// Reads the configuration's <c>tenor</c>: any run of digits followed by d is a tenor, and one outside
     /// <see cref="SettingLimits.TenorDays"/> (however many digits it has) is refused with the range, like every other setting.
     /// </summary>
-    private static BacktestHorizon TenorSetting(string text, string file)
-    {
-        var t = text.Trim().ToLowerInvariant();
-        if (t.Length > 1 && t.EndsWith('d') && t[..^1].All(char.IsAsciiDigit))
-        {
-            var days = double.Parse(t[..^1], NumberStyles.None, CultureInfo.InvariantCulture);
-            SettingLimits.TenorDays.Check(days, SettingLimits.TenorDays.Name, file);
-            return BacktestHorizon.Tenor((int)days);
-        }
-
-        throw Bad(file, "tenor", $"must be a number of calendar days followed by d, such as \"30d\", {SettingLimits.TenorDays} (was \"{Cut(text)}\")");
-    }
+    private static BacktestHorizon TenorSetting(string text, string file) =>
+        SettingLimits.TenorDaysOf(text, SettingLimits.TenorDays.Name, file) is int days
+            ? BacktestHorizon.Tenor(days)
+            : throw Bad(file, "tenor", $"must be a number of calendar days followed by d, such as \"30d\", {SettingLimits.TenorDays} (was \"{Cut(text)}\")");
 
     private static DateOnly ParseDate(string text, string file, string property) =>
         DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)

@@ -64,6 +64,31 @@ public static class SettingLimits
             OptionHalfSpread, HedgeCost, Rate, DividendYield, RuleThresholds, SnoopingReplications, SnoopingBlockLength, Jobs,
         ];
 
+    /// <summary>
+    /// Reads a calendar tenor written as whole days followed by d (<c>30d</c>, any capitals, spaces around allowed) and
+    /// checks it against <see cref="TenorDays"/>: any run of digits is a tenor, and one out of range (however many digits
+    /// it has) is refused with the range and the text as written, like every other setting.
+    /// </summary>
+    /// <param name="text">The tenor as the user wrote it.</param>
+    /// <param name="shownAs">How the setting is named in the message (<c>tenor</c>, <c>impliedTenor</c>, <c>--tenor</c>).</param>
+    /// <param name="source">The configuration file, or null for the command line.</param>
+    /// <returns>The tenor in calendar days, or null when the text is not digits followed by d (the caller says what was expected).</returns>
+    /// <exception cref="SettingRangeException">The tenor is outside <see cref="TenorDays"/>.</exception>
+    public static int? TenorDaysOf(string text, string shownAs, string? source = null)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        var t = text.Trim().ToLowerInvariant();
+        if (t.Length < 2 || !t.EndsWith('d') || !t[..^1].All(char.IsAsciiDigit))
+        {
+            return null;
+        }
+
+        // A run of digits too long for a number reads as infinity, which is simply out of range.
+        var days = double.Parse(t[..^1], System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture);
+        TenorDays.Check(days, shownAs, source, text.Trim());
+        return (int)days;
+    }
+
     /// <summary>The ranges of the configuration's numeric settings in one line, for --help.</summary>
     /// <returns>The text.</returns>
     public static string HelpText() =>

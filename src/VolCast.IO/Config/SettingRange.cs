@@ -28,12 +28,24 @@ public sealed record SettingRange(string Name, double Min, double Max, string Un
     /// <param name="shownAs">How the setting is named in the message (an option such as <c>--horizon</c>, or the configuration key).</param>
     /// <param name="source">Where the value came from (the configuration file), or null for the command line.</param>
     /// <exception cref="SettingRangeException">The value is out of range.</exception>
-    public void Check(double value, string shownAs, string? source = null)
+    public void Check(double value, string shownAs, string? source = null) => Check(value, shownAs, source, written: null);
+
+    /// <summary>
+    /// Refuses a value outside the range, echoing it as the user wrote it (cut to 40 characters) rather than as the
+    /// number read from it, so that a run of thousands of digits is shown as its first digits, not as "Infinity".
+    /// </summary>
+    /// <param name="value">The value read from <paramref name="written"/>.</param>
+    /// <param name="shownAs">How the setting is named in the message.</param>
+    /// <param name="source">Where the value came from (the configuration file), or null for the command line.</param>
+    /// <param name="written">The value as written, such as <c>99999d</c>, or null to show the number.</param>
+    /// <exception cref="SettingRangeException">The value is out of range.</exception>
+    public void Check(double value, string shownAs, string? source, string? written)
     {
         if (!Contains(value))
         {
+            var was = written is null ? Shown(value) : written.Length > 40 ? written[..40] + "…" : written;
             throw new SettingRangeException(string.Create(CultureInfo.InvariantCulture,
-                $"{(source is null ? string.Empty : source + ": ")}{shownAs} must be from {this} (was {Shown(value)}); the ranges are listed in --help and in the README."));
+                $"{(source is null ? string.Empty : source + ": ")}{shownAs} must be from {this} (was {was}); the ranges are listed in --help and in the README."));
         }
     }
 }

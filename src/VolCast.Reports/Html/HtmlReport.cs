@@ -13,7 +13,7 @@ namespace VolCast.Reports.Html;
 /// <remarks>
 /// Sections, in order: now (today's reading), verdict, "Would the rule have paid?" (the rule as delta-hedged straddles, or why it was not
 /// run), answers (common-date ranking, which lookback, by year, regime and events), metrics, charts, "Do the odds hold?" (probability calibration and range coverage),
-/// data quality, run details, cautions. Every string from the model is
+/// data quality, run details, the terms used (each named test or loss, linked from its first use), cautions. Every string from the model is
 /// HTML-escaped; numbers are formatted with the invariant culture, so the same model gives the same bytes.
 /// </remarks>
 internal static class HtmlReport
@@ -22,7 +22,7 @@ internal static class HtmlReport
     public const string ContentSecurityPolicy = "default-src 'none'; img-src data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'";
 
     /// <summary>The section ids, in the order they appear.</summary>
-    public static IReadOnlyList<string> SectionIds { get; } = ["now", "verdict", "pnl", "answers", "metrics", "charts", "odds", "data-quality", "run", "cautions"];
+    public static IReadOnlyList<string> SectionIds { get; } = ["now", "verdict", "pnl", "answers", "metrics", "charts", "odds", "data-quality", "run", "terms", "cautions"];
 
     private const string Css = """
         body{font-family:"DejaVu Sans",Arial,Helvetica,sans-serif;color:#111;background:#fff;max-width:1240px;margin:0 auto;padding:16px 24px;line-height:1.45}
@@ -44,6 +44,9 @@ internal static class HtmlReport
         figcaption strong{display:block;color:#111;font-size:1.05em}
         code{font-family:"DejaVu Sans Mono",monospace;font-size:.9em;word-break:break-all}
         .cautions{border-left:4px solid #D55E00;padding-left:14px}
+        a{color:#0072B2}
+        dl.terms dt{font-weight:bold;margin-top:.5em}
+        dl.terms dd{margin:0 0 0 1.5em}
         @media print{body{max-width:none;padding:0}h2{page-break-after:avoid;break-after:avoid}table,.verdict{page-break-inside:avoid;break-inside:avoid}}
         """;
 
@@ -69,6 +72,11 @@ internal static class HtmlReport
         Odds(html, model.Odds);
         Quality(html, model.DataQuality);
         Run(html, model.Run);
+
+        // The first use of each named test or loss links to its entry in the terms section, just before the cautions.
+        var page = Glossary.LinkFirstUses(html.ToString(), out var used);
+        html.Clear().Append(page);
+        Glossary.Section(html, used);
         Cautions(html, model.Cautions);
         html.Append("</body>\n</html>\n");
         return html.ToString();

@@ -118,7 +118,7 @@ public sealed class BacktestOutputFilesTests(BacktestOutputFilesTests.BacktestRu
     {
         // The report and its charts are written beside the results, inside the same folder move.
         var html = run.Text("report.html");
-        Assert.Contains("ranks first on QLIKE", html, StringComparison.Ordinal);
+        Assert.Contains("ranks first on QLIKE", VolCast.Reports.Html.Glossary.WithoutLinks(html), StringComparison.Ordinal);
         Assert.Contains("<h2>Do the odds hold?</h2>", html, StringComparison.Ordinal);
     }
 

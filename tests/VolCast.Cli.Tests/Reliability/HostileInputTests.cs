@@ -149,7 +149,9 @@ public sealed class HostileInputTests : IDisposable
     [Theory]
     [InlineData("--horizon", "2147483647", "--horizon must be from 1 to 2,520 trading days")]
     [InlineData("--tenor", "2147483647d", "--tenor must be from 1 to 3,650 calendar days")]
-    [InlineData("--tenor", "3651d", "--tenor must be from 1 to 3,650 calendar days")]
+    [InlineData("--tenor", "3651d", "--tenor must be from 1 to 3,650 calendar days (was 3651d)")]
+    [InlineData("--implied-tenor", "3651d", "--implied-tenor must be from 1 to 3,650 calendar days (was 3651d)")]
+    [InlineData("--implied-tenor", "thirty", "--implied-tenor must be a number of calendar days followed by d, such as 30d, 1 to 3,650 calendar days (was 'thirty')")]
     [InlineData("--horizon", "1e3", "'1e3' is not a whole number")]
     public void Backtest_SettingOutOfRange_Exit2NamingTheSettingAndRangeBeforeReading(string option, string value, string fragment)
     {
@@ -161,6 +163,40 @@ public sealed class HostileInputTests : IDisposable
         Assert.DoesNotContain("overflow", result.Stderr, StringComparison.OrdinalIgnoreCase);
         Assert.DoesNotContain("System.", result.Stderr, StringComparison.Ordinal);
         Assert.DoesNotContain("Int32", result.Stderr, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("--tenor")]
+    [InlineData("--implied-tenor")]
+    public void Backtest_TenorOfThousandsOfDigits_EchoesItsFirstFortyCharactersNotInfinity(string option)
+    {
+        var digits = new string('7', 5000) + "d";
+
+        var result = CliRunner.Run("backtest", "--prices", Path.Combine(_work, "missing.csv"), option, digits, "--out", Path.Combine(_work, "out"));
+
+        Assert.Equal(2, result.ExitCode);
+        Assert.Contains(option + " must be from 1 to 3,650 calendar days (was " + new string('7', 40) + "…)", result.Stderr, StringComparison.Ordinal);
+        Assert.DoesNotContain("Infinity", result.Stderr, StringComparison.Ordinal);
+        Assert.True(result.Stderr.Length < 1000, result.Stderr);
+    }
+
+    [Fact]
+    public void Batch_FolderNamedLikeAPriceFile_FailsThatNameSayingItIsAFolder()
+    {
+        // A pipe or a device named *.csv fails its name (above); a folder named *.csv is not passed over in silence either.
+        var prices = Directory.CreateDirectory(Path.Combine(_work, "prices")).FullName;
+        ReliabilityFiles.Prices(prices, "good.csv", 300, seed: 6);
+        Directory.CreateDirectory(Path.Combine(prices, "x.csv"));
+        var output = Path.Combine(_work, "out");
+
+        var result = CliRunner.Run("batch", "--prices-dir", prices, "--out", output, "--config", ReliabilityFiles.FastConfig(_work), "--jobs", "1");
+
+        Assert.Equal(3, result.ExitCode);
+        Assert.Contains("x.csv", result.Stderr, StringComparison.Ordinal);
+        Assert.Contains("this is a folder, not a file", result.Stderr, StringComparison.Ordinal);
+        var summary = File.ReadAllLines(Path.Combine(output, "summary.csv"));
+        Assert.StartsWith("x,failed,", summary.Single(l => l.StartsWith("x,", StringComparison.Ordinal)), StringComparison.Ordinal);
+        Assert.True(File.Exists(Path.Combine(output, "assets", "good", "metrics.csv")));
     }
 
     [Fact]

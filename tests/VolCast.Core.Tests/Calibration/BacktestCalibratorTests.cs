@@ -70,7 +70,7 @@ public sealed class BacktestCalibratorTests
         Assert.Equal(missingImplied, calibration.Forecasters[0].Calibration.MissingCount);
         Assert.Equal(missingImplied, calibration.Forecasters[0].Coverage.MissingCount);
         Assert.StartsWith("move bands from implied ", calibration.Forecasters[0].Verdict, StringComparison.Ordinal);
-        Assert.Contains($"{missingImplied} dates had no forecast", calibration.Forecasters[0].Verdict, StringComparison.Ordinal);
+        Assert.Contains($"{missingImplied} dates had no implied quote", calibration.Forecasters[0].Verdict, StringComparison.Ordinal);
 
         // A forecaster's missing dates are only its own (its warm-up), not implied's; every forecaster is scored at
         // the five default strikes.

@@ -29,6 +29,24 @@ public sealed class CoverageVerdictTests
         Assert.StartsWith("move bands from garch held as forecast: |z| ≤ 1 held", CoverageVerdict.Describe(coverage), StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("implied", "; 10 dates had no implied quote and were not scored")]
+    [InlineData("garch", "; 10 dates had no forecast and were not scored")]
+    public void Describe_MissingDates_AreMissingQuotesForImpliedAndMissingForecastsForTheRest(string spec, string expected)
+    {
+        // Implied is quoted by the market, not forecast: its missing dates are said as such.
+        var outcomes = CalibrationData.Outcomes(CalibrationData.Closes(1, 1000, 0.2), 21);
+        var values = new double?[outcomes.Count];
+        for (var t = 10; t < values.Length; t++)
+        {
+            values[t] = 0.2;
+        }
+
+        var text = CoverageVerdict.Describe(MoveBandCoverage.Evaluate(outcomes, new ForecasterVolatility(spec, values)));
+
+        Assert.Contains(expected, text, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Describe_NoForecastAtAll_SaysItCouldNotBeChecked()
     {
@@ -39,7 +57,7 @@ public sealed class CoverageVerdictTests
     }
 
     [Fact]
-    public void Describe_WithRegimes_NamesTheStressedPeriodsWhereRangesWereTooNarrow()
+    public void Describe_WithRegimes_NamesTheHighThirdOfRealizedVolatilityInHindsightWhereRangesWereTooNarrow()
     {
         // h = 1, σ_F = 0.2: the first 40 dates do not move (z = 0), the last 20 move by 5% (z ≈ 3.97), and the regime
         // variable is the date index, so the top third (stressed) holds exactly the big moves.
@@ -55,7 +73,7 @@ public sealed class CoverageVerdictTests
         Assert.Equal(0.0, regimes[2].ShareWithinOne);
         Assert.Equal(40.0, regimes[2].Lower);
         Assert.Equal(59.0, regimes[2].Upper);
-        Assert.Contains("too narrow in stressed periods (|z| ≤ 1 held 0%)", CoverageVerdict.Describe(coverage, regimes), StringComparison.Ordinal);
+        Assert.Contains("too narrow in the high third of realized volatility, known in hindsight (|z| ≤ 1 held 0%)", CoverageVerdict.Describe(coverage, regimes), StringComparison.Ordinal);
     }
 
     [Fact]

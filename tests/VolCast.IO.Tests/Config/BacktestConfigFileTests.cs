@@ -94,6 +94,49 @@ public sealed class BacktestConfigFileTests
         Assert.Contains(expected, ex.Message, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("tenor", "3651d", "(was 3651d)")]
+    [InlineData("impliedTenor", "0d", "(was 0d)")]
+    [InlineData("impliedTenor", "3651d", "(was 3651d)")]
+    public void Parse_TenorOutOfRange_SaysTheRangeAndTheValueAsWritten(string key, string tenor, string echo)
+    {
+        // The tenor keys say what every numeric setting says: "KEY must be from MIN to MAX UNIT (was VALUE)".
+        var json = "{ \"" + key + "\": \"" + tenor + "\" }";
+
+        var ex = Assert.Throws<SettingRangeException>(() => Read(key, json));
+
+        Assert.Contains("c.json: " + key + " must be from 1 to 3,650 calendar days " + echo, ex.Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("tenor")]
+    [InlineData("impliedTenor")]
+    public void Parse_TenorOfThousandsOfDigits_EchoesItsFirstFortyCharactersNotInfinity(string key)
+    {
+        var digits = new string('9', 5000) + "d";
+        var json = "{ \"" + key + "\": \"" + digits + "\" }";
+
+        var ex = Assert.Throws<SettingRangeException>(() => Read(key, json));
+
+        Assert.Contains("(was " + new string('9', 40) + "…)", ex.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain("Infinity", ex.Message, StringComparison.Ordinal);
+        Assert.True(ex.Message.Length < 300, ex.Message);
+    }
+
+    [Fact]
+    public void ParseInputForm_ImpliedTenorNotATenor_SaysWhatIsExpected()
+    {
+        var ex = Assert.Throws<InputDataException>(() => BacktestConfigFile.ParseInputForm("{ \"impliedTenor\": \"a month\" }", "c.json"));
+
+        Assert.Equal("impliedTenor", ex.Column);
+        Assert.Contains("followed by d, such as \"30d\", 1 to 3,650 calendar days (was \"a month\")", ex.Message, StringComparison.Ordinal);
+    }
+
+    /// <summary>Reads the key the way a run does: the input form holds impliedTenor, the settings hold tenor.</summary>
+    private static object Read(string key, string json) => key == "impliedTenor"
+        ? BacktestConfigFile.ParseInputForm(json, "c.json")
+        : BacktestConfigFile.Parse(json, "c.json");
+
     [Fact]
     public void FilePaths_Relative_AreResolvedAgainstTheConfigurationsFolder()
     {

@@ -22,7 +22,7 @@ public sealed partial class HtmlReportTests
         var html = HtmlReport.Render(SampleReport.Model(Charts));
 
         var ids = SectionPattern().Matches(html).Select(m => m.Groups[1].Value).ToArray();
-        Assert.Equal(["now", "verdict", "pnl", "answers", "metrics", "charts", "odds", "data-quality", "run", "cautions"], ids);
+        Assert.Equal(["now", "verdict", "pnl", "answers", "metrics", "charts", "odds", "data-quality", "run", "terms", "cautions"], ids);
         Assert.Equal(HtmlReport.SectionIds, ids);
     }
 
@@ -107,7 +107,7 @@ public sealed partial class HtmlReportTests
     {
         var model = SampleReport.Model(Charts);
 
-        var html = HtmlReport.Render(model);
+        var html = Glossary.WithoutLinks(HtmlReport.Render(model));
 
         Assert.Contains(HtmlReport.E(model.Verdict.Headline), html, StringComparison.Ordinal);
         foreach (var caution in ReportText.Cautions)

@@ -38,7 +38,10 @@ public sealed partial class ReportWordsTests
         "decimal",
         ["implied.csv: a real warning"]);
 
-    private static readonly Model.ReportModel Model = ReportWriter.Build(new BacktestRun(Result, BacktestCalibrator.Evaluate(Result, Scenario.Index), Info, Scenario.Index, Scenario.Index.Count));
+    private static readonly Model.ReportModel Model = ReportWriter.Build(new BacktestRun(Result, BacktestCalibrator.Evaluate(Result, Scenario.Index), Info, Scenario.Index, Scenario.Index.Count)
+    {
+        Groups = GroupedScores.Compute(Result, Scenario.Index),
+    });
 
     private static readonly string Html = HtmlReport.Render(Model);
 
@@ -82,7 +85,7 @@ public sealed partial class ReportWordsTests
         var losses = Model.Tables.Single(t => t.Title.StartsWith("Forecast losses", StringComparison.Ordinal));
         var starred = losses.Columns.Select((c, i) => (c.Header, Starred: losses.Rows.Any(r => r.Cells[i].Significance != Reports.Model.Significance.None)))
             .Where(c => c.Starred).Select(c => c.Header).ToList();
-        Assert.All(starred, h => Assert.Equal("DM vs implied", h));
+        Assert.All(starred, h => Assert.Equal("DM vs implied (own dates)", h));
         Assert.Contains(losses.Columns, c => c.Header == "MZ Wald p");
         Assert.Contains(losses.Columns, c => c.Header == "Encompassing p");
         Assert.Contains("Stars mark only better or worse than implied or than the baseline", Html, StringComparison.Ordinal);
@@ -156,6 +159,57 @@ public sealed partial class ReportWordsTests
         Assert.DoesNotContain("expected-move", Html, StringComparison.OrdinalIgnoreCase);
         Assert.DoesNotMatch(ScanWord(), Regex.Replace(Html, "data:image/png;base64,[^\"]*", string.Empty));
         Assert.Contains("Coverage of the forecast move bands (±1σ, ±2σ)", System.Net.WebUtility.HtmlDecode(Html), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void DmAgainstImplied_OwnDatesAndCommonDates_AreLabelledAndTheVerdictQuotesTheCommonOne()
+    {
+        // The loss table scores each forecaster on its own dates, the ranking on the common dates; one page must not
+        // show two figures for "the same" test without saying which is which, and the verdict must quote the ranking's.
+        var losses = Model.Tables.Single(t => t.Title.StartsWith("Forecast losses", StringComparison.Ordinal));
+        Assert.Contains(losses.Columns, c => c.Header == "DM vs implied (own dates)");
+        Assert.Contains("the ranking on common dates", losses.Note, StringComparison.Ordinal);
+        Assert.DoesNotContain("  ", losses.Note, StringComparison.Ordinal);
+        var ranking = Model.Answers.Single(t => t.Title.StartsWith("Ranking on the", StringComparison.Ordinal));
+        var column = ranking.Headers.ToList().IndexOf("DM vs implied (common dates)");
+        Assert.True(column > 0);
+
+        var common = Result.Common!;
+        var leader = Reports.ReportSeries.Ranked(Result)[0];
+        var row = ranking.Rows.Single(r => r[0] == leader.Spec);
+        Assert.Contains("DM " + row[column] + ",", Model.Verdict.Headline, StringComparison.Ordinal);
+        Assert.Contains(" on the " + common.Count + " common dates (QLIKE", Model.Verdict.Headline, StringComparison.Ordinal);
+        Assert.StartsWith("Head to head on " + common.Count + " common dates:", Model.Verdict.Points[0], StringComparison.Ordinal);
+        var headToHead = Model.Tables.Single(t => t.Title.StartsWith("Head to head", StringComparison.Ordinal));
+        Assert.StartsWith("On the " + common.Count + " common dates", headToHead.Note, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Premium_SaysWhichDatesTheLossTablesBiasOfImpliedIsOn()
+    {
+        // The premium is on the common dates; the loss table's bias of implied on implied's own dates. When the two
+        // sets differ the verdict must not call them the same dates.
+        var premium = Model.Verdict.Points[2];
+        var implied = Result.Metrics.Single(m => m.Kind == ForecastKind.Implied).Losses!;
+        Assert.Contains("of the " + Result.Common!.Count + " dates with both", premium, StringComparison.Ordinal);
+        if (implied.Count != Result.Common.Count)
+        {
+            Assert.Contains("the loss table's bias of implied, " + (implied.Bias * 100).ToString("0.00", System.Globalization.CultureInfo.InvariantCulture) + ", is on its own " + implied.Count + " dates", premium, StringComparison.Ordinal);
+            Assert.DoesNotContain("on the same dates", premium, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
+    public void VolatilityThirds_KnownAtTheForecastDateAndInHindsight_HaveDifferentPlainNames()
+    {
+        // "Regime" named two different things: thirds of trailing volatility known when forecasting, and thirds of the
+        // realized volatility that followed (hindsight). Each now has its own plain name and says it is not the other.
+        var text = System.Net.WebUtility.HtmlDecode(Regex.Replace(Html, "data:image/png;base64,[^\"]*", string.Empty));
+        Assert.DoesNotContain("regime", text, StringComparison.OrdinalIgnoreCase);
+        var byLevel = Model.Answers.Single(t => t.Title == "By volatility level known at the forecast date");
+        Assert.Contains("not the thirds of the odds section", byLevel.Note, StringComparison.Ordinal);
+        Assert.Contains(Model.Odds!.Notes, n => n.Contains("known only in hindsight; they are not the volatility levels known at the forecast date", StringComparison.Ordinal));
+        Assert.DoesNotContain(" periods (|z| ≤ 1 held", text, StringComparison.Ordinal);
     }
 
     [GeneratedRegex(@"\bscan\b", RegexOptions.CultureInvariant | RegexOptions.IgnoreCase)]

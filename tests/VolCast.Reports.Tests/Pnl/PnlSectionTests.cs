@@ -138,7 +138,37 @@ public sealed class PnlSectionTests : IDisposable
         // The answer about implied leads; the P&L closes the rule's point, the last one.
         Assert.Contains("implied", model.Verdict.Headline, StringComparison.OrdinalIgnoreCase);
         Assert.StartsWith("Rule test", model.Verdict.Points[^1], StringComparison.Ordinal);
-        Assert.Contains("In option trades after costs: switching from", model.Verdict.Points[^1], StringComparison.Ordinal);
+        Assert.Contains("In option trades: switching from", model.Verdict.Points[^1], StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void PnlPerYear_BothFigures_AreLabelledByTheirPositionAndTheirDifferenceIsSaidWhereBothShow()
+    {
+        // The daily path (a ladder: a trade on every signal sized 1/h) and the trades one at a time are different
+        // positions, so their P&L per year differ; a reader who sees both must be told which is which, and why.
+        var section = ReportWriter.Build(With(Report)).Pnl!;
+        var rules = section.Tables[0];
+        var offsets = section.Tables[1];
+
+        Assert.Contains(rules.Rows, r => r[0] == "P&L per year, vol points (daily path, every signal)");
+        Assert.DoesNotContain(rules.Rows, r => r[0] == "P&L per year, vol points");
+        Assert.Contains(offsets.Rows, r => r[0] == "P&L per year, vol points (sum of trades one at a time)");
+        var h = Report.AtClose.HorizonDays.ToString(CultureInfo.InvariantCulture);
+        Assert.Contains("The two P&L per year differ because they hold different positions: the daily path is a ladder of a trade on every signal, each sized 1/" + h, offsets.Note, StringComparison.Ordinal);
+        Assert.Contains("one at a time holds one full-size trade from each entry to its expiry", offsets.Note, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    // The edge is linear in the half-spread s: edge(s) = edge(0.25) + change·(s − 0.25), zero at the break-even.
+    // Proposed trading less than always-sell: the edge grows with the spread, so it is positive only above the break-even.
+    [InlineData(-11.95, 5.0, "the proposed rule beats always-sell only at a half-spread wider than 2.64 vol points (0.25 assumed)")]
+    // The mirror: an edge that shrinks with the spread lasts only below it.
+    [InlineData(3.0, -2.0, "the proposed rule beats always-sell only at a half-spread narrower than 1.75 vol points (0.25 assumed)")]
+    public void BreakEvenWords_SayOnWhichSideOfTheBreakEvenTheRuleBeatsAlwaysSell(double edge, double change, string expected)
+    {
+        var breakEven = new BreakEvenSpread(edge, change, 0.25 - (edge / change), null);
+
+        Assert.Equal(expected, ReportPnl.BreakEvenWords(breakEven, 0.25));
     }
 
     [Fact]
@@ -168,9 +198,9 @@ public sealed class PnlSectionTests : IDisposable
 
             // P&L per year of the daily path: its sum over its length in years of trading days.
             var perYear = rule.DailyPnl.Sum() / (rule.DailyPnl.Length / close.Settings.AnnualizationDays);
-            Assert.Equal(perYear.ToString("0.00", c), Cell("P&L per year, vol points", rule.Rule, true));
+            Assert.Equal(perYear.ToString("0.00", c), Cell("P&L per year, vol points (daily path, every signal)", rule.Rule, true));
             var perYearGross = rule.DailyPnlZeroCost.Sum() / (rule.DailyPnlZeroCost.Length / close.Settings.AnnualizationDays);
-            Assert.Equal(perYearGross.ToString("0.00", c), Cell("P&L per year, vol points", rule.Rule, false));
+            Assert.Equal(perYearGross.ToString("0.00", c), Cell("P&L per year, vol points (daily path, every signal)", rule.Rule, false));
         }
 
         // Costs only take away: with a half-spread and hedge costs every trade nets less than gross.
