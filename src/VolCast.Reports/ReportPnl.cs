@@ -65,11 +65,27 @@ internal static class ReportPnl
         var gain = switching.DifferencePerYear;
         var more = gain >= 0 ? "more" : "less";
         var test = Test(switching.Test);
-        var best = Label(close, report.Means, report.Means.BestRule);
-        var survives = report.Means.Spa.Consistent < 0.05 ? "survives" : "does not survive";
         var currentNote = report.CurrentRuleNote is string note ? " (" + note + ")" : string.Empty;
+        var current = close[TradingRule.Current];
         return string.Create(C,
-            $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:0.00} vol points; the best rule's edge over always-sell ({best}) {survives} the data-snooping test (SPA {PValueText.Clause(report.Means.Spa.Consistent)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
+            $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs; the proposed rule's worst drawdown was {proposed.PathNet.MaxDrawdown:0.00} vol points (the current rule's {current.PathNet.MaxDrawdown:0.00}); {SearchWords(report.Means, Label(close, report.Means, report.Means.BestRule), close.Settings.AnnualizationDays)}; the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
+    }
+
+    /// <summary>
+    /// The data-snooping clause of the answer: when the best rule searched is behind always-sell there is no edge to
+    /// survive, and the clause says so instead of calling a loss an edge.
+    /// </summary>
+    internal static string SearchWords(DataSnoopingResult means, string bestLabel, double annualizationDays)
+    {
+        var perYear = means.Estimates[means.BestRule] * annualizationDays;
+        var spa = PValueText.Clause(means.Spa.Consistent);
+        if (perYear <= 0)
+        {
+            return string.Create(C, $"no rule searched beat always-sell: the best, {bestLabel}, was {Math.Abs(perYear):0.00} vol points a year behind it (data-snooping test SPA {spa})");
+        }
+
+        var survives = means.Spa.Consistent < 0.05 ? "survives" : "does not survive";
+        return string.Create(C, $"the best rule's edge over always-sell ({bestLabel}, {perYear:0.00} vol points a year) {survives} the data-snooping test (SPA {spa})");
     }
 
     internal static string BreakEvenWords(BreakEvenSpread breakEven, double configured)
@@ -352,7 +368,7 @@ internal static class ReportPnl
         }
 
         return new TextTable("The same bet as a variance swap",
-            ["Rule", "Trades", "Σ s·(RV² − IV²), total variance", "Σ s·(RV² − IV²)/(2·IV), vol points", "Per trade, vol points"], rows,
+            ["Rule", "Trades", "Σ s·(RV² − IV²), total variance", "Σ s·(RV² − IV²)/(2·IV), RV² annualized as Σr²·365/days, vol points", "Per trade, vol points"], rows,
             "A model-free payoff of the same bet on the one-at-a-time trades: s = +1 bought, −1 sold; RV² = Σ r² over the trade and IV² × days / 365, both total variance. At-the-money implied stands in for the variance strike and understates it when the smile has skew.");
     }
 

@@ -79,11 +79,15 @@ internal static class ReportVerdict
 
     private const string RulePrefix = "Rule test";
 
-    /// <summary>How much lower one loss is than another, in words that grow with the relative gap (common practice, no source: under 3% "slightly", 3% to 10% plain, above 10% "much").</summary>
-    internal static string Lower(double lower, double higher)
+    /// <summary>
+    /// How much lower one loss is than another, in words that grow with the relative gap (common practice, no source:
+    /// under 3% "slightly", 3% to 10% plain, above 10% "much"); never "much" when the test does not find the gap
+    /// significant, so the words do not claim more than the test.
+    /// </summary>
+    internal static string Lower(double lower, double higher, bool significant = true)
     {
         var gap = higher > 0 ? (higher - lower) / higher : 0;
-        var word = gap < 0.03 ? "slightly lower" : gap < 0.10 ? "lower" : "much lower";
+        var word = gap < 0.03 ? "slightly lower" : gap < 0.10 || !significant ? "lower" : "much lower";
         return string.Create(C, $"{word} ({gap * 100:0}% below)");
     }
 
@@ -107,9 +111,9 @@ internal static class ReportVerdict
         var significance = p < 0.05 ? "significant at 5%" : "not significant at 5%";
         return implied.Qlike <= own.Qlike
             ? string.Create(C,
-                $"{first}, but implied volatility scores {Lower(implied.Qlike, own.Qlike)} on the {pair.Count} {dates} (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} ({test}).")
+                $"{first}, but implied volatility scores {Lower(implied.Qlike, own.Qlike, p < 0.05)} on the {pair.Count} {dates} (QLIKE {implied.Qlike:0.0000} against {own.Qlike:0.0000}); {significance} ({test}).")
             : string.Create(C,
-                $"{first} and scores {Lower(own.Qlike, implied.Qlike)} than implied volatility on the {pair.Count} {dates} (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} ({test}).");
+                $"{first} and scores {Lower(own.Qlike, implied.Qlike, p < 0.05)} than implied volatility on the {pair.Count} {dates} (QLIKE {own.Qlike:0.0000} against {implied.Qlike:0.0000}); {significance} ({test}).");
     }
 
     private static string HeadToHead(BacktestResult result)

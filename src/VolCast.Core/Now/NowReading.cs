@@ -171,7 +171,7 @@ public sealed record NowReading(
             ? "no trade had closed by the last date, so it uses the sweep threshold nearest the configured one"
             : choice.Fallback
                 ? FormattableString.Invariant($"chosen from the {choice.TradesClosed} trades closed by the last date; no sweep threshold earned more than the one nearest the configured threshold")
-                : FormattableString.Invariant($"the sweep threshold whose trades closed by the last date ({choice.TradesClosed} firing dates) earned the most");
+                : FormattableString.Invariant($"the sweep threshold that earned the most on the {choice.TradesClosed} dates whose trades had closed by the last date");
         return said with { ThresholdVolPoints = choice.Threshold * 100, Note = said.Note is null ? how : said.Note + "; " + how };
     }
 

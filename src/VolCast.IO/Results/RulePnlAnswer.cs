@@ -30,12 +30,16 @@ public static class RulePnlAnswer
             ? string.Create(c, $"t = {t:F2}, {PValueText.Clause(p)}")
             : "no test: the two rules' paths do not differ";
         var spa = report.Means.Spa.Consistent;
-        var survives = spa <= Level ? "survives" : "does not survive";
+        var bestPerYear = report.Means.Estimates[report.Means.BestRule] * r.Settings.AnnualizationDays;
+        var search = bestPerYear <= 0
+            ? string.Create(c, $"no rule searched beat always-sell: the best was {Math.Abs(bestPerYear):F2} vol points a year behind it (data-snooping test SPA {PValueText.Clause(spa)})")
+            : string.Create(c, $"the best rule's edge over always-sell ({bestPerYear:F2} vol points a year) {(spa <= Level ? "survives" : "does not survive")} the data-snooping test (SPA {PValueText.Clause(spa)})");
         var breakEven = r.BreakEven.EdgeHalfSpreadVolPoints is double w
-            ? string.Create(c, $"the edge over always-sell is zero at a half-spread of {w:F2} vol points")
-            : "no half-spread between zero and any width makes the edge over always-sell zero";
+            ? string.Create(c, $"the proposed rule's edge over always-sell is zero at a half-spread of {w:F2} vol points ({r.Settings.Costs.OptionHalfSpreadVolPoints:F2} assumed)")
+            : "no half-spread between zero and any width makes the proposed rule's edge over always-sell zero";
         var currentNote = report.CurrentRuleNote is string note ? " (" + note + ")" : string.Empty;
+        var current = r[TradingRule.Current];
         return string.Create(c,
-            $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(difference):F2} vol points per year {(difference >= 0 ? "more" : "less")} ({test}) after costs, with a worst drawdown of {proposed.PathNet.MaxDrawdown:F2} vol points; the best rule's edge over always-sell {survives} the data-snooping test (SPA {PValueText.Clause(spa)}); the walk-forward threshold earned {walk.PathNet.PnlPerYear:F2} vol points per year; {breakEven}.");
+            $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(difference):F2} vol points per year {(difference >= 0 ? "more" : "less")} ({test}) after costs; the proposed rule's worst drawdown was {proposed.PathNet.MaxDrawdown:F2} vol points (the current rule's {current.PathNet.MaxDrawdown:F2}); {search}; the walk-forward threshold earned {walk.PathNet.PnlPerYear:F2} vol points per year; {breakEven}.");
     }
 }

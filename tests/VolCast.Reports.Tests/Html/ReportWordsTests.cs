@@ -79,6 +79,14 @@ public sealed partial class ReportWordsTests
         Assert.Equal(expected, ReportVerdict.Lower(lower, higher));
 
     [Fact]
+    public void GapWords_NeverSayMuchWhenTheTestFindsNoDifference()
+    {
+        // The same 16% gap with a DM p-value above 5%: the words must not claim more than the test (common practice, no source).
+        Assert.Equal("lower (16% below)", ReportVerdict.Lower(0.1659, 0.1964, significant: false));
+        Assert.Equal("slightly lower (1% below)", ReportVerdict.Lower(0.199, 0.200, significant: false));
+    }
+
+    [Fact]
     public void Stars_OnlyOnTheComparisonsWithImpliedOrTheBaseline()
     {
         // In the loss table, the only starred column is DM vs implied; Mincer-Zarnowitz and encompassing show p-values.
