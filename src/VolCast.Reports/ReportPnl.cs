@@ -277,7 +277,7 @@ internal static class ReportPnl
 
         return new TextTable("Threshold sweep",
             ["Forecaster", "Rule", "Sides", "Threshold, vol points", "Trades (every signal)", "P&L per year, net", "P&L per year, zero cost", "Sharpe, net", "Sharpe, zero cost", "Beats always-sell (StepM, mean)"], rows,
-            "Each row trades on every signal, each trade sized 1/h; P&L in vol points per year. Picking the best row in hindsight is data snooping: the next table tests whether any row beats always-sell once the search is accounted for.");
+            "Each row trades on every signal, each trade sized 1/h, h the horizon in trading days; P&L in vol points per year. Picking the best row in hindsight is data snooping: the next table tests whether any row beats always-sell once the search is accounted for.");
     }
 
     private static TextTable Snooping(RuleBacktestResult close, RulePnlReport report)

@@ -52,7 +52,7 @@ public static class CoverageVerdict
             text.Append(c, $" were too {(wide ? "wide" : "narrow")}");
             if (by > 0)
             {
-                text.Append(c, $" by about {by * 100:0}%");
+                text.Append(c, $" by about {by * 100:0}% (the spread of z was {scale:0.00}, against 1 for calibrated bands)");
             }
 
             text.Append(c, $": {held} (Kupiec {PValueText.Clause(one.Kupiec.PValue)}, {one.NonOverlappingCount} non-overlapping dates)");

@@ -5,7 +5,7 @@ namespace VolCast.Core.Trading;
 /// <summary>What one rule would have earned as delta-hedged straddles, net of costs and (beside it) without costs.</summary>
 /// <remarks>
 /// Trade statistics use the one-at-a-time trades from the first start date (no overlap). Daily paths and their
-/// statistics use the every-signal ladder (a trade on every firing date, each sized 1/h): each open trade marked daily at
+/// statistics use the every-signal ladder (a trade on every firing date, each sized 1/h, h the horizon in trading days): each open trade marked daily at
 /// that day's quoted implied volatility (the constant-tenor series stands in for the option's own, shorter-dated implied;
 /// a missing quote carries the last one), and beside it the same trades marked at their entry implied (the
 /// gamma-against-theta path). Daily values are changes of the trades' value carried to their expiry at r, in vol points,

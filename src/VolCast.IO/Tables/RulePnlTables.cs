@@ -11,7 +11,7 @@ namespace VolCast.IO.Tables;
 /// Units: volatilities decimal; spot, strike, premium, hedge P&amp;L, payoff, costs and P&amp;L per unit of the underlying
 /// in the units of the price, carried to expiry at the rate r; vega per volatility point; <c>_vol_points</c> columns are
 /// divided by the entry vega per volatility point (a trade sized to one vol point of vega); <c>_pct_spot</c> columns in
-/// percent of the entry spot. Daily paths are in vol points (each ladder trade sized 1/h).
+/// percent of the entry spot. Daily paths are in vol points (each ladder trade sized 1/h, h the horizon in trading days).
 /// </remarks>
 public static class RulePnlTables
 {

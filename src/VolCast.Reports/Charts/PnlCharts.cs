@@ -37,7 +37,7 @@ internal static class PnlCharts
         using (bottom)
         {
             return new ChartImage(CumulativeFileName, "Cumulative net P&L of the rules",
-                "Upper panel: the running sum of each rule's daily net P&L in vol points (trades on every signal, each sized 1/h, marked daily at the quoted implied volatility; the daily values are in rule-pnl.csv). Lower panel: how far each rule stood below its own earlier peak.",
+                "Upper panel: the running sum of each rule's daily net P&L in vol points (trades on every signal, each sized 1/h, h the horizon in trading days, marked daily at the quoted implied volatility; the daily values are in rule-pnl.csv). Lower panel: how far each rule stood below its own earlier peak.",
                 Stack(top, bottom));
         }
     }
@@ -68,7 +68,7 @@ internal static class PnlCharts
     {
         using var plot = BuildMarks(dates, rules);
         return new ChartImage(MarksFileName, "The same trades on two daily marks",
-            "Running sum of the daily net P&L in vol points of always-sell and the proposed rule (trades on every signal, each sized 1/h). Solid: each open trade marked at that day's quoted implied volatility (the path the drawdown, Sharpe and Sortino use). Dashed: marked at the trade's own entry implied, so only the hedged moves of spot count (gamma against theta). Each trade's marks sum to its P&L at expiry on both, so the lines meet wherever no trade is open; the gap shows the losses and gains of implied moving mid-trade. The other rules' paths are in rule-pnl.csv (column pnl_entry_vol).",
+            "Running sum of the daily net P&L in vol points of always-sell and the proposed rule (trades on every signal, each sized 1/h, h the horizon in trading days). Solid: each open trade marked at that day's quoted implied volatility (the path the drawdown, Sharpe and Sortino use). Dashed: marked at the trade's own entry implied, so only the hedged moves of spot count (gamma against theta). Each trade's marks sum to its P&L at expiry on both, so the lines meet wherever no trade is open; the gap shows the losses and gains of implied moving mid-trade. The other rules' paths are in rule-pnl.csv (column pnl_entry_vol).",
             ChartStyle.Png(plot));
     }
 

@@ -31,6 +31,15 @@ internal static partial class Glossary
         new("newey-west", "Newey-West",
             "A standard error that allows for the correlation between overlapping windows, weighting each lag less the further it is (Newey and West 1987).",
             NeweyWestUse()),
+        new("hac", "HAC",
+            "Heteroskedasticity- and autocorrelation-consistent: a standard error such as Newey-West's that stays valid when the days' values vary in size and overlap (Newey and West 1987).",
+            HacUse()),
+        new("sortino", "Sortino ratio",
+            "Mean daily P&L over the downside deviation, the root mean square of min(P&L, 0) over all days, annualized: the Sharpe ratio without the penalty for gains (Sortino and Price 1994).",
+            SortinoUse()),
+        new("hodges-tompkins", "Hodges-Tompkins",
+            "A correction of the downward bias that overlapping windows put into the variance of realized volatility across dates, applied to the cone's bands (Hodges and Tompkins 2002).",
+            HodgesTompkinsUse()),
         new("kupiec", "Kupiec",
             "A test of whether a range held as often as it should, for example |z| ≤ 1 on 68.3% of dates, counted on non-overlapping dates (Kupiec 1995).",
             KupiecUse()),
@@ -180,4 +189,13 @@ internal static partial class Glossary
 
     [GeneratedRegex(@"\bStepM\b", RegexOptions.CultureInvariant)]
     private static partial Regex StepMUse();
+
+    [GeneratedRegex(@"\bHAC\b", RegexOptions.CultureInvariant)]
+    private static partial Regex HacUse();
+
+    [GeneratedRegex(@"\bSortino\b", RegexOptions.CultureInvariant)]
+    private static partial Regex SortinoUse();
+
+    [GeneratedRegex(@"\bHodges-Tompkins\b", RegexOptions.CultureInvariant)]
+    private static partial Regex HodgesTompkinsUse();
 }

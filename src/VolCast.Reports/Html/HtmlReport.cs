@@ -324,7 +324,7 @@ internal static class HtmlReport
         Row(html, "Implied coverage of scored dates", quality.ImpliedCoverage is double c
             ? c.ToString("0.0%", CultureInfo.InvariantCulture) + (quality.ScoredDatesWithImplied is int withImplied ? string.Create(CultureInfo.InvariantCulture, $" ({withImplied} of the {quality.ScoredDates} scored dates have an implied quote)") : string.Empty)
             : "no implied file");
-        Row(html, "Suspect rows", quality.Suspect switch { "drop" => "dropped (--suspect drop)", "stop" => "refused (--suspect stop)", _ => "kept and listed below (--suspect warn)" });
+        Row(html, "Suspect rows", quality.Suspect switch { "drop" => "dropped (--suspect drop)", "stop" => "refused (--suspect stop)", _ => "kept; any found are among the warnings below (suspect: warn)" });
         if (quality.RowsLeftOut > 0)
         {
             Row(html, "Rows left out", quality.RowsLeftOut.ToString(CultureInfo.InvariantCulture) + " (listed in rejected-rows.csv)");

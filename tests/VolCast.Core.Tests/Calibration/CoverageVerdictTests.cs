@@ -17,6 +17,8 @@ public sealed class CoverageVerdictTests
         Assert.Contains("against 68% expected", text, StringComparison.Ordinal);
         Assert.Contains("238 non-overlapping dates", text, StringComparison.Ordinal);
         Assert.InRange(1 / coverage.ZScale!.Value - 1, 0.35, 0.65);
+        // The percentage is read off the spread of z, which the sentence states so a reader can see where it comes from.
+        Assert.Contains($"(the spread of z was {coverage.ZScale.Value.ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}, against 1 for calibrated bands)", text, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -23,6 +23,9 @@ public sealed partial class GlossaryTests
         ["reality-check"] = ["Reality Check"],
         ["spa"] = ["SPA"],
         ["stepm"] = ["StepM"],
+        ["hac"] = ["HAC"],
+        ["sortino"] = ["Sortino"],
+        ["hodges-tompkins"] = ["Hodges-Tompkins"],
     };
 
     private static readonly string Page = HtmlReport.Render(ReportWriter.Build(PnlSectionTests.RunWith(PnlSectionTests.BuildReport(seed: 17, days: 700))));
