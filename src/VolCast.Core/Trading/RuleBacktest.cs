@@ -113,11 +113,7 @@ internal static class RuleBacktest
         var at = dates.BinarySearch(last);
         var lastIndex = at >= 0 ? at : ~at - 1;
         var k = thresholds.Length;
-        var nearest = 0;
-        for (var j = 1; j < k; j++)
-        {
-            nearest = Math.Abs(thresholds[j] - configured) < Math.Abs(thresholds[nearest] - configured) ? j : nearest;
-        }
+        var nearest = Nearest(thresholds, configured);
 
         var closed = new double[k];
         var count = 0;
@@ -132,21 +128,10 @@ internal static class RuleBacktest
             }
 
             count++;
-            for (var j = 0; j < k; j++)
-            {
-                if (sweepSides[j][p] != 0)
-                {
-                    closed[j] += book.NetVolPoints(p, sweepSides[j][p]);
-                }
-            }
+            AddClosed(closed, sweepSides, book, p);
         }
 
-        var best = nearest;
-        for (var j = 0; j < k; j++)
-        {
-            best = closed[j] > closed[best] ? j : best;
-        }
-
+        var best = BestSoFar(closed, nearest);
         return new WalkForwardChoice(last, thresholds[best], count, best == nearest);
     }
 
@@ -340,11 +325,7 @@ internal static class RuleBacktest
         var firing = context.Firing;
         var m = firing.Count;
         var k = thresholds.Length;
-        var nearest = 0;
-        for (var j = 1; j < k; j++)
-        {
-            nearest = Math.Abs(thresholds[j] - configured) < Math.Abs(thresholds[nearest] - configured) ? j : nearest;
-        }
+        var nearest = Nearest(thresholds, configured);
 
         // Trades in expiry order, so the closed P&L of each threshold can be accumulated as the firing date advances.
         var order = new int[m];
@@ -363,21 +344,10 @@ internal static class RuleBacktest
             var f = firing[i];
             while (next < m && book.Expiry[order[next]] <= f)
             {
-                var p = order[next++];
-                for (var j = 0; j < k; j++)
-                {
-                    if (sweepSides[j][p] != 0)
-                    {
-                        closed[j] += book.NetVolPoints(p, sweepSides[j][p]);
-                    }
-                }
+                AddClosed(closed, sweepSides, book, order[next++]);
             }
 
-            var best = nearest;
-            for (var j = 0; j < k; j++)
-            {
-                best = closed[j] > closed[best] ? j : best;
-            }
+            var best = BestSoFar(closed, nearest);
 
             chosen[i] = sweepSides[best][i];
             var day = book.Entry[i] - context.Start;
@@ -533,5 +503,41 @@ internal static class RuleBacktest
             return (PnlStatisticsCalculator.Trades(net, netPercent, entryDates, -meanStress),
                 PnlStatisticsCalculator.Trades(gross, grossPercent, entryDates, -meanStress), totalNet, totalGross);
         }
+    }
+
+    // The swept threshold nearest the configured one (the first of two equally near).
+    private static int Nearest(ImmutableArray<double> thresholds, double configured)
+    {
+        var nearest = 0;
+        for (var j = 1; j < thresholds.Length; j++)
+        {
+            nearest = Math.Abs(thresholds[j] - configured) < Math.Abs(thresholds[nearest] - configured) ? j : nearest;
+        }
+
+        return nearest;
+    }
+
+    // Adds the net P&L of the trade entered at position p to each swept threshold's running total of closed trades.
+    private static void AddClosed(double[] closed, sbyte[][] sweepSides, TradeBook book, int p)
+    {
+        for (var j = 0; j < closed.Length; j++)
+        {
+            if (sweepSides[j][p] != 0)
+            {
+                closed[j] += book.NetVolPoints(p, sweepSides[j][p]);
+            }
+        }
+    }
+
+    // The swept threshold with the most closed P&L so far; the one nearest the configured threshold unless another earned strictly more.
+    private static int BestSoFar(double[] closed, int nearest)
+    {
+        var best = nearest;
+        for (var j = 0; j < closed.Length; j++)
+        {
+            best = closed[j] > closed[best] ? j : best;
+        }
+
+        return best;
     }
 }
