@@ -3,6 +3,7 @@ using VolCast.Core.Backtest;
 using VolCast.Core.Scoring;
 using VolCast.Core.Trading;
 using VolCast.Core.Trading.Snooping;
+using VolCast.IO.Results;
 using VolCast.Reports.Charts;
 using VolCast.Reports.Model;
 
@@ -54,53 +55,8 @@ internal static class ReportPnl
         return new PnlSection(null, Points(report), tables, charts, Settings(report, horizon), ReportText.PnlCautions);
     }
 
-    /// <summary>The one answer the verdict leads with: the switch's gain per year, its drawdown, data snooping, walk-forward and break-even.</summary>
-    public static string Headline(RulePnlReport report)
-    {
-        ArgumentNullException.ThrowIfNull(report);
-        var close = report.AtClose;
-        var switching = close.ProposedVersusCurrent;
-        var proposed = close[TradingRule.Proposed];
-        var walk = close[TradingRule.WalkForwardThreshold];
-        var gain = switching.DifferencePerYear;
-        var more = gain >= 0 ? "more" : "less";
-        var test = Test(switching.Test);
-        var currentNote = report.CurrentRuleNote is string note ? " (" + note + ")" : string.Empty;
-        var current = close[TradingRule.Current];
-        return string.Create(C,
-            $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(gain):0.00} vol points per year {more} ({test}) after costs; the proposed rule's worst drawdown was {proposed.PathNet.MaxDrawdown:0.00} vol points (the current rule's {current.PathNet.MaxDrawdown:0.00}); {SearchWords(report.Means, Label(close, report.Means, report.Means.BestRule), close.Settings.AnnualizationDays)}; the walk-forward threshold earned {walk.PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints)}.");
-    }
-
-    /// <summary>
-    /// The data-snooping clause of the answer: when the best rule searched is behind always-sell there is no edge to
-    /// survive, and the clause says so instead of calling a loss an edge.
-    /// </summary>
-    internal static string SearchWords(DataSnoopingResult means, string bestLabel, double annualizationDays)
-    {
-        var perYear = means.Estimates[means.BestRule] * annualizationDays;
-        var spa = PValueText.Clause(means.Spa.Consistent);
-        if (perYear <= 0)
-        {
-            return string.Create(C, $"no rule searched beat always-sell: the best, {bestLabel}, was {Math.Abs(perYear):0.00} vol points a year behind it (data-snooping test SPA {spa})");
-        }
-
-        var survives = means.Spa.Consistent < 0.05 ? "survives" : "does not survive";
-        return string.Create(C, $"the best rule's edge over always-sell ({bestLabel}, {perYear:0.00} vol points a year) {survives} the data-snooping test (SPA {spa})");
-    }
-
-    internal static string BreakEvenWords(BreakEvenSpread breakEven, double configured)
-    {
-        if (breakEven.EdgeHalfSpreadVolPoints is not double w)
-        {
-            return breakEven.EdgePerYear > 0
-                ? "the proposed rule's edge over always-sell does not vanish at any half-spread"
-                : string.Create(C, $"the proposed rule has no edge over always-sell at any half-spread ({breakEven.EdgePerYear:0.00} vol points per year at {configured:0.00})");
-        }
-
-        // The edge is linear in the spread: it is positive on the side of the break-even where it grows.
-        var side = breakEven.EdgeChangePerVolPoint > 0 ? "wider" : "narrower";
-        return string.Create(C, $"the proposed rule beats always-sell only at a half-spread {side} than {w:0.00} vol points ({configured:0.00} assumed)");
-    }
+    /// <summary>The one answer the verdict leads with: the switch's gain per year, the drawdowns, data snooping, walk-forward and break-even (the words of summary.txt).</summary>
+    public static string Headline(RulePnlReport report) => RulePnlAnswer.Sentence(report);
 
     private static List<string> Points(RulePnlReport report)
     {
@@ -113,7 +69,7 @@ internal static class ReportPnl
 
         points.Add(SnoopingWords(close, report.Means, "mean daily net P&L", close.Settings.AnnualizationDays, "vol points a year"));
         points.Add(SnoopingWords(close, report.Sharpe, "Sharpe ratio", Math.Sqrt(close.Settings.AnnualizationDays), "in annualized Sharpe ratio"));
-        points.Add("Break-even: " + BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints) + string.Create(C,
+        points.Add("Break-even: " + RulePnlAnswer.BreakEvenWords(close.BreakEven, close.Settings.Costs.OptionHalfSpreadVolPoints) + string.Create(C,
             $"; the proposed rule's own net P&L is zero at a half-spread of {(close.BreakEven.ProposedHalfSpreadVolPoints is double own ? own.ToString("0.00", C) + " vol points" : "no positive value")}."));
         var next = report.NextDay;
         points.Add(string.Create(C,

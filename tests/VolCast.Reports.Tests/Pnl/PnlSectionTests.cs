@@ -174,7 +174,7 @@ public sealed class PnlSectionTests : IDisposable
     {
         var breakEven = new BreakEvenSpread(edge, change, 0.25 - (edge / change), null);
 
-        Assert.Equal(expected, ReportPnl.BreakEvenWords(breakEven, 0.25));
+        Assert.Equal(expected, VolCast.IO.Results.RulePnlAnswer.BreakEvenWords(breakEven, 0.25));
     }
 
     [Fact]
