@@ -171,7 +171,7 @@ internal static class BatchCommand
         {
             console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
                 $"{outcome.Rows.Count} names reduced: {outcome.Rows.Count - outcome.Failed - outcome.Missing.Count} finished, {outcome.Failed} failed, {outcome.Missing.Count} not finished."));
-            console.Out.WriteLine($"wrote {outputFolder}{Path.DirectorySeparatorChar} (summary.csv, beats-implied.csv{(outcome.Reports == BatchReports.None ? string.Empty : ", summary.html")})");
+            console.Out.WriteLine($"wrote {outputFolder}{Path.DirectorySeparatorChar} (summary.csv, lookbacks.csv, beats-implied.csv, forecasts-long.csv{(outcome.Reports == BatchReports.None ? string.Empty : ", summary.html")})");
         }
 
         return outcome.Failed > 0 || (outcome.Missing.Count > 0 && !allowMissing) ? ExitCodes.BadInput : ExitCodes.Success;
@@ -233,7 +233,7 @@ internal static class BatchCommand
             return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
         }
 
-        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, lookbacks.csv, beats-implied.csv, summary.html)");
+        console.Out.WriteLine($"wrote {request.OutputFolder}{Path.DirectorySeparatorChar} (assets/NAME/, summary.csv, lookbacks.csv, beats-implied.csv, forecasts-long.csv{(request.Reports == BatchReports.None ? string.Empty : ", summary.html")})");
         return outcome.Failed > 0 ? ExitCodes.BadInput : ExitCodes.Success;
     }
 

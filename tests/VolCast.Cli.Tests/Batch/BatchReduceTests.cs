@@ -58,7 +58,15 @@ public sealed class BatchReduceTests : IDisposable
         var shard1 = CliRunner.Run([.. Args(output), "--shard", "1/2"]);
         Assert.True(shard1.ExitCode == 0, shard1.Stderr);
         Assert.False(Directory.Exists(stale), "the shard that owns alpha removes what a killed run of alpha left");
-        Assert.Equal(0, CliRunner.Run([.. Args(output), "--reduce"]).ExitCode);
+        var complete = CliRunner.Run([.. Args(output), "--reduce"]);
+        Assert.Equal(0, complete.ExitCode);
+
+        // The reduce's last line names what it wrote: every file it names is there, and every file at the top of the
+        // output folder is named (the plan aside, which the shards wrote).
+        var wrote = complete.Stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries)[^1];
+        var named = wrote[(wrote.IndexOf('(', StringComparison.Ordinal) + 1)..wrote.LastIndexOf(')')].Split(", ");
+        var present = Directory.GetFiles(output).Select(Path.GetFileName).Where(f => f != "batch-plan.json").Order(StringComparer.Ordinal);
+        Assert.Equal(present, named.Order(StringComparer.Ordinal));
     }
 
     [Fact]
