@@ -93,7 +93,7 @@ internal static class ReportPnl
             ? "StepM names no rule that beats always-sell"
             : "StepM names " + Winners(close, test) + " as beating always-sell";
         return string.Create(C,
-            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best, {Label(close, test, test.BestRule)}, is {Math.Abs(test.Estimates[test.BestRule] * annualize).ToString("0.00", C)} {unit} {(test.Estimates[test.BestRule] >= 0 ? "ahead of" : "behind")} always-sell; Reality Check {PValueText.Clause(test.RealityCheckPValue)}, SPA {PValueText.Clause(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
+            $"Data snooping on the {measure} of {test.Rules} rules searched against always-sell: the best ({Label(close, test, test.BestRule)}) is {Math.Abs(test.Estimates[test.BestRule] * annualize).ToString("0.00", C)} {unit} {(test.Estimates[test.BestRule] >= 0 ? "ahead of" : "behind")} always-sell; Reality Check {PValueText.Clause(test.RealityCheckPValue)}, SPA {PValueText.Clause(test.Spa.Consistent)} ({(test.Spa.Consistent < 0.05 ? "the edge survives the search" : "the edge may be luck of the search")}); {winners} at a {test.StepM.Level:0%} familywise level.");
     }
 
     private static TextTable Rules(RuleBacktestResult close)
@@ -385,7 +385,7 @@ internal static class ReportPnl
     }
 
     private static string Label(RuleBacktestResult close, DataSnoopingResult test, int rule) =>
-        SweepIndex(close, test, rule) is var k and >= 0 ? close.Sweep[k].Label : string.Create(C, $"rule {rule + 1} of {test.Rules}");
+        SweepIndex(close, test, rule) is var k and >= 0 ? RulePnlAnswer.Readable(close.Sweep[k]) : string.Create(C, $"rule {rule + 1} of {test.Rules}");
 
     private static string Winners(RuleBacktestResult close, DataSnoopingResult test) =>
         string.Join(", ", test.StepM.Rejected.Select(i => Label(close, test, i)));

@@ -29,10 +29,23 @@ public static class RulePnlAnswer
             ? string.Create(c, $"t = {t:0.00}, {PValueText.Clause(p)}")
             : "no test: the two rules' paths do not differ";
         var best = report.Means.BestRule;
-        var bestLabel = report.Means.Rules == r.Sweep.Length ? r.Sweep[best].Label : string.Create(c, $"rule {best + 1} of {report.Means.Rules}");
+        var bestLabel = report.Means.Rules == r.Sweep.Length ? Readable(r.Sweep[best]) : string.Create(c, $"rule {best + 1} of {report.Means.Rules}");
         var currentNote = report.CurrentRuleNote is string note ? " (" + note + ")" : string.Empty;
         return string.Create(c,
             $"Switching from the current rule{currentNote} to the proposed one would have earned {Math.Abs(difference):0.00} vol points per year {(difference >= 0 ? "more" : "less")} ({test}) after costs; the proposed rule's worst drawdown was {r[TradingRule.Proposed].PathNet.MaxDrawdown:0.00} vol points (the current rule's {r[TradingRule.Current].PathNet.MaxDrawdown:0.00}); {SearchWords(report.Means, bestLabel, r.Settings.AnnualizationDays)}; the walk-forward threshold earned {r[TradingRule.WalkForwardThreshold].PathNet.PnlPerYear:0.00} vol points per year; {BreakEvenWords(r.BreakEven, r.Settings.Costs.OptionHalfSpreadVolPoints)}.");
+    }
+
+    /// <summary>
+    /// A sweep rule in words for a reader, such as "yang-zhang:21, sell only, threshold 1.0 vol points"; the files keep
+    /// the compact key (<see cref="ThresholdSweepRow.Label"/>) that the data-snooping tests are indexed by.
+    /// </summary>
+    /// <param name="row">The sweep rule.</param>
+    /// <returns>The rule in words.</returns>
+    public static string Readable(ThresholdSweepRow row)
+    {
+        ArgumentNullException.ThrowIfNull(row);
+        var sides = row.Sides == RuleSides.Both ? "sell and buy" : "sell only";
+        return string.Create(CultureInfo.InvariantCulture, $"{row.ForecastSpec}, {sides}, threshold {row.Threshold * 100:0.0} vol points");
     }
 
     /// <summary>
@@ -51,7 +64,7 @@ public static class RulePnlAnswer
         var spa = PValueText.Clause(means.Spa.Consistent);
         if (perYear <= 0)
         {
-            return string.Create(c, $"no rule searched beat always-sell: the best, {bestLabel}, was {Math.Abs(perYear):0.00} vol points a year behind it (data-snooping test SPA {spa})");
+            return string.Create(c, $"no rule searched beat always-sell: the best ({bestLabel}) was {Math.Abs(perYear):0.00} vol points a year behind it (data-snooping test SPA {spa})");
         }
 
         var survives = means.Spa.Consistent < Level ? "survives" : "does not survive";

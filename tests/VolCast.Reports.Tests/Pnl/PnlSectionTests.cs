@@ -94,6 +94,16 @@ public sealed class PnlSectionTests : IDisposable
     }
 
     [Fact]
+    public void SweepRules_AreNamedInWords_ThresholdInVolPoints()
+    {
+        // The compact key stays in the files; the page and summary.txt say the rule in words, the threshold in vol
+        // points (0.02 decimal volatility is 2 vol points: common practice, no source).
+        var row = new ThresholdSweepRow("yang-zhang:21|sell-only|0.02", TradingRule.Current, "yang-zhang:21", RuleSides.SellOnly, 0.02, 10, 1, 1, null, null);
+        Assert.Equal("yang-zhang:21, sell only, threshold 2.0 vol points", VolCast.IO.Results.RulePnlAnswer.Readable(row));
+        Assert.Equal("garch, sell and buy, threshold 0.5 vol points", VolCast.IO.Results.RulePnlAnswer.Readable(row with { ForecastSpec = "garch", Sides = RuleSides.Both, Threshold = 0.005 }));
+    }
+
+    [Fact]
     public void Verdict_RulePointEndsWithTheSwitchPerYear_NumbersFromTheDailyPaths()
     {
         var model = ReportWriter.Build(With(Report));
@@ -214,11 +224,11 @@ public sealed class PnlSectionTests : IDisposable
 
         // The sweep lists every row searched, and the snooping table names the best by its label.
         Assert.Equal(close.Sweep.Length, section.Tables[3].Rows.Count);
-        Assert.Equal(close.Sweep[Report.Means.BestRule].Label, section.Tables[4].Rows[0][1]);
+        Assert.Equal(VolCast.IO.Results.RulePnlAnswer.Readable(close.Sweep[Report.Means.BestRule]), section.Tables[4].Rows[0][1]);
         Assert.Equal(PValueText.Value(Report.Means.RealityCheckPValue), section.Tables[4].Rows[0][3]);
         Assert.Equal(PValueText.Value(Report.Sharpe.Spa.Consistent), section.Tables[4].Rows[1][4]);
         var tradedRows = close.Sweep.Where(r => r.Trades > 0).ToArray();
-        Assert.Equal(tradedRows[Report.Sharpe.BestRule].Label, section.Tables[4].Rows[1][1]);
+        Assert.Equal(VolCast.IO.Results.RulePnlAnswer.Readable(tradedRows[Report.Sharpe.BestRule]), section.Tables[4].Rows[1][1]);
 
         // The start-offset table gives each figure's lowest and highest value over the h first entries, and the
         // first entry's own figure (the table above) lies inside it.
