@@ -1,3 +1,4 @@
+using System.Globalization;
 using ScottPlot;
 using SkiaSharp;
 using VolCast.Core.Trading;
@@ -165,6 +166,31 @@ internal static class ChartStyle
 
     private static Tick[] LogTicks(IEnumerable<double> values) =>
         [.. values.Where(v => v > 0).Distinct().Order().Select(v => new Tick(Math.Log10(v), v.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture)))];
+
+    /// <summary>Draws the thin reference line at zero that every chart with a signed axis has.</summary>
+    public static void ZeroLine(Plot plot)
+    {
+        var zero = plot.Add.HorizontalLine(0);
+        zero.Color = Reference;
+        zero.LineWidth = 1;
+    }
+
+    /// <summary>
+    /// One bar of a chart by calendar year with several series side by side: series <paramref name="series"/> of
+    /// <paramref name="seriesCount"/> takes its slot within the 0.8-wide group centred on the year.
+    /// </summary>
+    public static Bar YearBar(int year, int series, int seriesCount, double value, Color color)
+    {
+        var slot = 0.8 / Math.Max(1, seriesCount);
+        return new Bar { Position = year - 0.4 + (slot * (series + 0.5)), Value = value, Size = slot * 0.95, FillColor = color, LineWidth = 0 };
+    }
+
+    /// <summary>Labels the bottom axis with the calendar years, one tick each.</summary>
+    public static void YearTicks(Plot plot, IEnumerable<int> years)
+    {
+        var ticks = years.Select(y => new Tick(y, y.ToString(CultureInfo.InvariantCulture))).ToArray();
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual(ticks);
+    }
 
     /// <summary>A date as the x coordinate ScottPlot's date axis reads.</summary>
     public static double X(DateOnly date) => date.ToDateTime(TimeOnly.MinValue).ToOADate();

@@ -82,7 +82,6 @@ internal static class GroupCharts
         ArgumentNullException.ThrowIfNull(data);
         ArgumentNullException.ThrowIfNull(colors);
         var plot = ChartStyle.NewPlot(YearsTitle, "Calendar year (* the DM test against implied rejects at 5% that year)", "Mean QLIKE minus implied's (below zero: beat implied)");
-        var slot = 0.8 / Math.Max(1, data.Specs.Length);
         for (var s = 0; s < data.Specs.Length; s++)
         {
             var color = colors.Style(data.Specs[s]).Color;
@@ -94,15 +93,9 @@ internal static class GroupCharts
                     continue;
                 }
 
-                bars.Add(new Bar
-                {
-                    Position = data.Years[y] - 0.4 + (slot * (s + 0.5)),
-                    Value = value,
-                    Size = slot * 0.95,
-                    FillColor = color,
-                    LineWidth = 0,
-                    Label = data.Significant[s, y] ? Star : string.Empty,
-                });
+                var bar = ChartStyle.YearBar(data.Years[y], s, data.Specs.Length, value, color);
+                bar.Label = data.Significant[s, y] ? Star : string.Empty;
+                bars.Add(bar);
             }
 
             var plotted = plot.Add.Bars(bars);
@@ -112,11 +105,8 @@ internal static class GroupCharts
             plotted.ValueLabelStyle.FontName = ChartStyle.FontName;
         }
 
-        var ticks = data.Years.Select(y => new Tick(y, y.ToString(CultureInfo.InvariantCulture))).ToArray();
-        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual(ticks);
-        var zero = plot.Add.HorizontalLine(0);
-        zero.Color = ChartStyle.Reference;
-        zero.LineWidth = 1;
+        ChartStyle.YearTicks(plot, data.Years);
+        ChartStyle.ZeroLine(plot);
         plot.Axes.Margins(0.02, 0.15);
         ChartStyle.LegendBelow(plot);
         return plot;

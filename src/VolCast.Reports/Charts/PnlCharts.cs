@@ -86,9 +86,7 @@ internal static class PnlCharts
         }
 
         var plot = ChartStyle.NewPlot("Cumulative net P&L: marked at quoted implied and at entry implied", "Date", "Cumulative P&L (vol points)");
-        var zero = plot.Add.HorizontalLine(0);
-        zero.Color = ChartStyle.Reference;
-        zero.LineWidth = 1;
+        ChartStyle.ZeroLine(plot);
         foreach (var rule in MarkedRules(rules))
         {
             if (rule.DailyPnl.Length != xs.Length || rule.DailyPnlEntryVol.Length != xs.Length)
@@ -162,9 +160,7 @@ internal static class PnlCharts
         bottom.Axes.Left.Label.FontSize = 15;
         foreach (var plot in new[] { top, bottom })
         {
-            var zero = plot.Add.HorizontalLine(0);
-            zero.Color = ChartStyle.Reference;
-            zero.LineWidth = 1;
+            ChartStyle.ZeroLine(plot);
         }
 
         foreach (var rule in rules)
@@ -257,7 +253,6 @@ internal static class PnlCharts
         ArgumentNullException.ThrowIfNull(rules);
         var plot = ChartStyle.NewPlot("Net P&L by calendar year", "Calendar year", "Net P&L (vol points)");
         var years = rules.SelectMany(r => r.PathNet.ByYear.Select(y => y.Year)).Distinct().Order().ToArray();
-        var slot = 0.8 / Math.Max(1, rules.Count);
         for (var k = 0; k < rules.Count; k++)
         {
             var rule = rules[k];
@@ -265,14 +260,7 @@ internal static class PnlCharts
             var bars = new List<Bar>();
             foreach (var year in rule.PathNet.ByYear)
             {
-                bars.Add(new Bar
-                {
-                    Position = year.Year - 0.4 + (slot * (k + 0.5)),
-                    Value = year.Pnl,
-                    Size = slot * 0.95,
-                    FillColor = color,
-                    LineWidth = 0,
-                });
+                bars.Add(ChartStyle.YearBar(year.Year, k, rules.Count, year.Pnl, color));
             }
 
             var plotted = plot.Add.Bars(bars);
@@ -281,13 +269,10 @@ internal static class PnlCharts
 
         if (years.Length > 0)
         {
-            var ticks = years.Select(y => new Tick(y, y.ToString(CultureInfo.InvariantCulture))).ToArray();
-            plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual(ticks);
+            ChartStyle.YearTicks(plot, years);
         }
 
-        var zero = plot.Add.HorizontalLine(0);
-        zero.Color = ChartStyle.Reference;
-        zero.LineWidth = 1;
+        ChartStyle.ZeroLine(plot);
         plot.Axes.Margins(0.02, 0.08);
         ChartStyle.LegendBelow(plot);
         return plot;

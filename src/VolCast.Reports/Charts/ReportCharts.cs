@@ -253,9 +253,7 @@ public static class ReportCharts
             band.LegendText = string.Create(CultureInfo.InvariantCulture, $"10th–90th percentile ({low:0.0} to {high:0.0})");
         }
 
-        var zero = plot.Add.HorizontalLine(0);
-        zero.Color = ChartStyle.Reference;
-        zero.LineWidth = 1;
+        ChartStyle.ZeroLine(plot);
 
         // The premium is implied's: it is drawn in implied's colour.
         AddLine(plot, premium, 100.0, new SeriesStyle(ChartStyle.Implied, LinePattern.Solid, MarkerShape.FilledCircle), 1.2f, premium.Name);
@@ -297,9 +295,7 @@ public static class ReportCharts
         ArgumentNullException.ThrowIfNull(lossDifferentials);
         colors ??= new SeriesColors(lossDifferentials.Select(f => f.Name));
         var plot = ChartStyle.NewPlot(CumulativeTitle, "Forecast date", "Cumulative QLIKE, forecaster − implied (loss units)");
-        var zero = plot.Add.HorizontalLine(0);
-        zero.Color = ChartStyle.Reference;
-        zero.LineWidth = 1;
+        ChartStyle.ZeroLine(plot);
 
         // Every line starts on the first date all of them have, so that they add up over the same stretch.
         var start = CommonStart(lossDifferentials);
