@@ -147,7 +147,31 @@ internal static class BatchCommand
 
     private static int Reduce(CliConsole console, string outputFolder, BatchRequest? request, bool allowMissing)
     {
-        var outcome = BatchReducer.Reduce(outputFolder, request, allowMissing);
+        using var stop = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
+        ConsoleCancelEventHandler onCancel = (_, e) =>
+        {
+            // The first Ctrl-C keeps the process alive: the reduce stops before its first summary file, or, once it has
+            // begun writing them, writes the rest, so summary.csv and summary.html never come from two reduces. A second
+            // one ends the process at once.
+            e.Cancel = !stop.IsCancellationRequested;
+            stop.Cancel();
+        };
+        Console.CancelKeyPress += onCancel;
+        BatchReduceOutcome outcome;
+        try
+        {
+            outcome = BatchReducer.Reduce(outputFolder, request, allowMissing, stop.Token);
+        }
+        catch (OperationCanceledException) when (stop.IsCancellationRequested)
+        {
+            console.Error.WriteLine($"interrupted: the reduce was stopped before it wrote the summary; nothing in {outputFolder} was changed.");
+            return ExitCodes.Interrupted;
+        }
+        finally
+        {
+            Console.CancelKeyPress -= onCancel;
+        }
+
         foreach (var warning in outcome.Warnings)
         {
             console.Error.WriteLine("warning: " + warning);

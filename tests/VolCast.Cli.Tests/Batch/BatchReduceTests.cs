@@ -70,6 +70,27 @@ public sealed class BatchReduceTests : IDisposable
     }
 
     [Fact]
+    public void Reduce_StoppedBeforeTheSummary_WritesNone_ThenAReduceWritesThemAll()
+    {
+        var output = _temp.Combine("out");
+        var shard = CliRunner.Run([.. Args(output), "--shard", "0/1"]);
+        Assert.True(shard.ExitCode == 0, shard.Stderr);
+        var before = Directory.GetFiles(output).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToArray();
+
+        // Ctrl-C before the first summary file: nothing is written, so no summary file can be left beside another
+        // reduce's.
+        using var stopped = new CancellationTokenSource();
+        stopped.Cancel();
+        Assert.Throws<OperationCanceledException>(() => BatchReducer.Reduce(output, null, allowMissing: false, stopped.Token));
+        Assert.Equal(before, Directory.GetFiles(output).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToArray());
+        Assert.Empty(Directory.GetFiles(output, ".*", SearchOption.TopDirectoryOnly));
+
+        var reduce = CliRunner.Run("batch", "--reduce", "--out", output);
+        Assert.True(reduce.ExitCode == 0, reduce.Stderr);
+        Assert.True(File.Exists(Path.Combine(output, "summary.csv")) && File.Exists(Path.Combine(output, "summary.html")));
+    }
+
+    [Fact]
     public void Reduce_OtherConfiguration_ExitsThreeNamingTheNames()
     {
         var output = _temp.Combine("out");
