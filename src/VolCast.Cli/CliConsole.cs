@@ -8,7 +8,7 @@ namespace VolCast.Cli;
 /// </summary>
 /// <param name="output">Where results and progress go.</param>
 /// <param name="error">Where errors and warnings go.</param>
-/// <param name="interrupt">Cancelled to stop a long command as Ctrl-C would (tests use it to interrupt a run in-process).</param>
+/// <param name="interrupt">Cancelled by the first Ctrl-C (the process-wide token of <see cref="Interruption"/>), or by a test that interrupts a run in-process.</param>
 internal sealed class CliConsole(TextWriter output, TextWriter error, CancellationToken interrupt = default)
 {
     /// <summary>Gets where results and progress go.</summary>
@@ -17,11 +17,27 @@ internal sealed class CliConsole(TextWriter output, TextWriter error, Cancellati
     /// <summary>Gets where errors and warnings go.</summary>
     public TextWriter Error { get; } = error;
 
-    /// <summary>Gets the token that stops a long command besides Ctrl-C; none by default.</summary>
+    /// <summary>Gets the token that the first Ctrl-C cancels: every command reads this one, none registers its own handler.</summary>
     public CancellationToken Interrupt { get; } = interrupt;
 
     /// <summary>Writes a warning line.</summary>
     public void Warn(string message) => Error.WriteLine($"warning: {message}");
+
+    /// <summary>
+    /// Whether Ctrl-C asked the command to stop; if so, says <paramref name="untouched"/> (what was left as it was) on the
+    /// error stream, and the command returns <see cref="ExitCodes.Interrupted"/>. Commands check before their first file.
+    /// </summary>
+    /// <param name="untouched">The end of the sentence "interrupted: ...", such as "nothing was written to cone".</param>
+    public bool Stopped(string untouched)
+    {
+        if (!Interrupt.IsCancellationRequested)
+        {
+            return false;
+        }
+
+        Error.WriteLine($"interrupted: {untouched}");
+        return true;
+    }
 
     /// <summary>Runs a command body and maps its failures to exit codes.</summary>
     public int Execute(Func<int> body)
@@ -29,6 +45,12 @@ internal sealed class CliConsole(TextWriter output, TextWriter error, Cancellati
         try
         {
             return body();
+        }
+        catch (OperationCanceledException) when (Interrupt.IsCancellationRequested)
+        {
+            // A command that does not say more itself: every command stops before it writes, so nothing was.
+            Error.WriteLine("interrupted: the command was stopped before it wrote anything.");
+            return ExitCodes.Interrupted;
         }
         catch (InputDataException ex)
         {

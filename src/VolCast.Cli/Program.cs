@@ -6,17 +6,25 @@ namespace VolCast.Cli;
 /// <summary>The <c>volcast</c> entry point: builds the command tree and maps failures to exit codes.</summary>
 internal static class Program
 {
-    /// <summary>Runs the tool with the process's console.</summary>
-    public static int Main(string[] args) => Run(args, Console.Out, Console.Error);
+    /// <summary>
+    /// Runs the tool with the process's console. The Ctrl-C handler is installed first, before the command line is parsed,
+    /// so a Ctrl-C at any moment of any command requests the same stop (<see cref="Interruption"/>).
+    /// </summary>
+    public static int Main(string[] args)
+    {
+        var interrupt = Interruption.Install();
+        return Run(args, Console.Out, Console.Error, interrupt);
+    }
 
     /// <summary>Runs the tool with the given writers; tests call this to run the CLI in-process.</summary>
     /// <param name="args">The command-line arguments.</param>
     /// <param name="stdout">Where results and progress go.</param>
     /// <param name="stderr">Where errors and warnings go.</param>
-    /// <returns>The exit code: 0 success, 1 unexpected failure, 2 bad usage, 3 bad input data.</returns>
-    public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
+    /// <param name="interrupt">Stops a command as Ctrl-C does (the process-wide token in <see cref="Main"/>; none by default).</param>
+    /// <returns>The exit code: 0 success, 1 unexpected failure, 2 bad usage, 3 bad input data, 130 stopped by Ctrl-C.</returns>
+    public static int Run(string[] args, TextWriter stdout, TextWriter stderr, CancellationToken interrupt = default)
     {
-        var console = new CliConsole(stdout, stderr);
+        var console = new CliConsole(stdout, stderr, interrupt);
         var root = new RootCommand(
             "VolCast: backtest volatility forecasts against the realized volatility that followed and the implied volatility quoted at the time.");
         // The main job first, then the tools it is built from, then the demo.

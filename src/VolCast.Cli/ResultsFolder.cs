@@ -126,10 +126,17 @@ internal sealed partial class ResultsFolder : IDisposable
     /// <summary>Moves the staged run into place: one directory move for a new folder, a swap of the whole set under <c>--force</c>.</summary>
     /// <param name="manifest">Every file name in the staging folder (run.json's manifest).</param>
     /// <exception cref="IOException">Another run created the folder meanwhile, or a file could not be moved (the folder is left as it was).</exception>
+    /// <remarks>A second Ctrl-C that arrives during the commit waits for it (<see cref="Interruption.Uninterrupted"/>), so the
+    /// folder holds either the earlier set or the new one, never part of each.</remarks>
     public void Commit(IReadOnlyList<string> manifest)
     {
         ArgumentNullException.ThrowIfNull(manifest);
         var staging = _staging ?? throw new InvalidOperationException("Stage must be called before Commit.");
+        Interruption.Uninterrupted(() => Move(staging, manifest));
+    }
+
+    private void Move(string staging, IReadOnlyList<string> manifest)
+    {
         if (!_replace)
         {
             try

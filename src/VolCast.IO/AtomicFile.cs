@@ -1,4 +1,7 @@
+using System.Diagnostics;
+using System.Globalization;
 using System.Text;
+using System.Text.RegularExpressions;
 
 namespace VolCast.IO;
 
@@ -6,7 +9,12 @@ namespace VolCast.IO;
 /// Writes an output file so that a reader never sees it half-written: the content goes to a temporary
 /// file in the same folder, which is then moved over the target in one step.
 /// </summary>
-public static class AtomicFile
+/// <remarks>
+/// The temporary file is hidden and named for the target and the writing process (<c>.NAME.PID.ID.tmp</c>). A process that
+/// is killed while it writes leaves it behind; the next write of the same target removes those of processes that no
+/// longer run, so they never pile up and are never taken for results.
+/// </remarks>
+public static partial class AtomicFile
 {
     private static UTF8Encoding Utf8NoBom { get; } = new(encoderShouldEmitUTF8Identifier: false);
 
@@ -19,12 +27,7 @@ public static class AtomicFile
     public static void WriteText(string path, Action<TextWriter> write, bool overwrite = false, IEnumerable<string>? protectedInputs = null)
     {
         ArgumentNullException.ThrowIfNull(write);
-        Write(path, stream =>
-        {
-            // A larger buffer than the default 1,024 characters: the big CSV files are encoded and handed to the file in fewer, longer steps.
-            using var writer = new StreamWriter(stream, Utf8NoBom, bufferSize: 1 << 16) { NewLine = "\n" };
-            write(writer);
-        }, overwrite, protectedInputs);
+        Write(path, TextContent(write), overwrite, protectedInputs);
     }
 
     /// <summary>Writes bytes to <paramref name="path"/> through a temporary file.</summary>
@@ -35,7 +38,20 @@ public static class AtomicFile
     public static void WriteBytes(string path, ReadOnlyMemory<byte> bytes, bool overwrite = false) =>
         Write(path, stream => stream.Write(bytes.Span), overwrite, null);
 
-    private static void Write(string path, Action<Stream> write, bool overwrite, IEnumerable<string>? protectedInputs)
+    /// <summary>The content writer of a text file: UTF-8 without a BOM, LF line ends.</summary>
+    internal static Action<Stream> TextContent(Action<TextWriter> write) => stream =>
+    {
+        // A larger buffer than the default 1,024 characters: the big CSV files are encoded and handed to the file in fewer, longer steps.
+        using var writer = new StreamWriter(stream, Utf8NoBom, bufferSize: 1 << 16) { NewLine = "\n" };
+        write(writer);
+    };
+
+    /// <summary>
+    /// Checks the target (not an input; absent unless <paramref name="overwrite"/>), removes what killed writers of it left,
+    /// and writes the content to a new temporary sibling.
+    /// </summary>
+    /// <returns>The target's full path and the temporary file's path.</returns>
+    internal static (string Target, string Temporary) WriteTemporary(string path, Action<Stream> write, bool overwrite, IEnumerable<string>? protectedInputs)
     {
         var full = Path.GetFullPath(path);
         if (protectedInputs is not null)
@@ -57,14 +73,68 @@ public static class AtomicFile
 
         var folder = Path.GetDirectoryName(full)!;
         Directory.CreateDirectory(folder);
-        var temp = Path.Combine(folder, $".{Path.GetFileName(full)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
+        RemoveStaleTemporaries(full);
+        var temp = Path.Combine(folder, string.Create(CultureInfo.InvariantCulture, $".{Path.GetFileName(full)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp"));
         try
         {
-            using (var stream = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None))
+            using var stream = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None);
+            write(stream);
+        }
+        catch
+        {
+            DeleteQuietly(temp);
+            throw;
+        }
+
+        return (full, temp);
+    }
+
+    /// <summary>Removes a temporary file if it is still there; a failure to remove it is left to the next writer's clean-up.</summary>
+    internal static void DeleteQuietly(string temporary)
+    {
+        try
+        {
+            File.Delete(temporary);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            // Left behind; the next write of the same target removes it once this process has ended.
+        }
+    }
+
+    /// <summary>
+    /// Removes the temporary files (<c>.NAME.PID.ID.tmp</c>) of <paramref name="target"/> that processes no longer running
+    /// left beside it: a write stopped by a kill never finished, and its file is never results.
+    /// </summary>
+    /// <param name="target">The output file's full path.</param>
+    internal static void RemoveStaleTemporaries(string target)
+    {
+        var folder = Path.GetDirectoryName(target)!;
+        var name = Path.GetFileName(target);
+        if (!Directory.Exists(folder))
+        {
+            return;
+        }
+
+        foreach (var path in Directory.EnumerateFiles(folder, "." + name + ".*.tmp"))
+        {
+            var match = TemporaryPattern().Match(Path.GetFileName(path));
+            if (!match.Success || match.Groups["name"].Value != name
+                || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid)
+                || Running(pid))
             {
-                write(stream);
+                continue;
             }
 
+            DeleteQuietly(path);
+        }
+    }
+
+    private static void Write(string path, Action<Stream> write, bool overwrite, IEnumerable<string>? protectedInputs)
+    {
+        var (full, temp) = WriteTemporary(path, write, overwrite, protectedInputs);
+        try
+        {
             File.Move(temp, full, overwrite);
         }
         finally
@@ -75,4 +145,25 @@ public static class AtomicFile
             }
         }
     }
+
+    private static bool Running(int pid)
+    {
+        if (pid == Environment.ProcessId)
+        {
+            return true;
+        }
+
+        try
+        {
+            using var process = Process.GetProcessById(pid);
+            return !process.HasExited;
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException)
+        {
+            return false;
+        }
+    }
+
+    [GeneratedRegex(@"^\.(?<name>.+)\.(?<pid>[0-9]+)\.[0-9a-f]{32}\.tmp$", RegexOptions.CultureInvariant)]
+    private static partial Regex TemporaryPattern();
 }

@@ -73,6 +73,12 @@ internal static class BatchRunner
         var plan = BatchPlan.Of(request, all, BatchFingerprint.Text(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays, request.Checks, request.Workbook), configSha256);
         var fingerprint = plan.Fingerprint;
 
+        if (cancellationToken.IsCancellationRequested)
+        {
+            // Stopped before anything was written: the output folder is not even created.
+            return new BatchOutcome([], 0, 0, 0, true);
+        }
+
         // Every shard writes the same plan (it holds nothing of the shard), so a reduce given only this folder knows the names and the configuration.
         Directory.CreateDirectory(request.OutputFolder);
         plan.Write(request.OutputFolder);

@@ -8,8 +8,9 @@ using VolCast.Reports.Model;
 namespace VolCast.Cli.Batch;
 
 /// <summary>
-/// Writes summary.csv, lookbacks.csv, beats-implied.csv, forecasts-long.csv and summary.html into the batch's folder, each atomically (temporary file, then a
-/// move). The files depend only on the rows and the batch's plan, its inputs and settings (not on how many jobs or shards ran),
+/// Writes summary.csv, lookbacks.csv, beats-implied.csv, forecasts-long.csv and summary.html into the batch's folder as one set: each is
+/// written in full to a temporary sibling, then all are moved into place where a second Ctrl-C waits for the moves, so the
+/// folder never holds files of two summaries. The files depend only on the rows and the batch's plan, its inputs and settings (not on how many jobs or shards ran),
 /// so a single-process batch and shards followed by the reduce write the same bytes.
 /// </summary>
 internal static class BatchSummaryWriter
@@ -22,16 +23,23 @@ internal static class BatchSummaryWriter
     public static void Write(string outputFolder, BatchPlan plan, IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<string>? missing = null)
     {
         Directory.CreateDirectory(outputFolder);
-        AtomicFile.WriteText(Path.Combine(outputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
-        AtomicFile.WriteText(Path.Combine(outputFolder, BatchLookbacksCsv.FileName), w => BatchLookbacksCsv.Write(w, rows), overwrite: true);
-        AtomicFile.WriteText(Path.Combine(outputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
+        using var files = new AtomicFileSet();
+        files.AddText(Path.Combine(outputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
+        files.AddText(Path.Combine(outputFolder, BatchLookbacksCsv.FileName), w => BatchLookbacksCsv.Write(w, rows), overwrite: true);
+        files.AddText(Path.Combine(outputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
         var assets = Path.Combine(outputFolder, BatchRunner.AssetsFolder);
-        AtomicFile.WriteText(Path.Combine(outputFolder, BatchForecastsLongCsv.FileName),
+        files.AddText(Path.Combine(outputFolder, BatchForecastsLongCsv.FileName),
             w => BatchForecastsLongCsv.Write(w, rows.Where(r => r.Succeeded).Select(r => (r.Name, Path.Combine(assets, r.Name)))), overwrite: true);
-        if (plan.Reports == BatchReports.None)
+        if (plan.Reports != BatchReports.None)
         {
-            return;
+            files.AddText(Path.Combine(outputFolder, "summary.html"), w => w.Write(Page(plan, rows, missing)), overwrite: true);
         }
+
+        Interruption.Uninterrupted(files.Commit);
+    }
+
+    private static string Page(BatchPlan plan, IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<string>? missing)
+    {
 
         List<Setting> settings =
         [
@@ -49,7 +57,6 @@ internal static class BatchSummaryWriter
         }
 
         // Without per-name pages, each name links to its folder of data files.
-        var html = BatchSummaryHtml.Render(rows, settings, plan.Reports == BatchReports.Full ? BatchAssetJob.ReportPage : string.Empty);
-        AtomicFile.WriteText(Path.Combine(outputFolder, "summary.html"), w => w.Write(html), overwrite: true);
+        return BatchSummaryHtml.Render(rows, settings, plan.Reports == BatchReports.Full ? BatchAssetJob.ReportPage : string.Empty);
     }
 }

@@ -87,27 +87,19 @@ internal static class BacktestCommand
         };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestRun run;
-        using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
-        ConsoleCancelEventHandler onCtrlC = (_, e) =>
-        {
-            // The first Ctrl-C keeps the process alive: the run stops at its next check, and the results, staged in a
-            // temporary sibling folder, are never moved into place. A second one ends the process at once.
-            e.Cancel = !interrupted.IsCancellationRequested;
-            interrupted.Cancel();
-        };
-        Console.CancelKeyPress += onCtrlC;
         try
         {
-            run = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token);
+            // The first Ctrl-C (the process-wide handler) stops the run at its next check, and the results, staged in a
+            // temporary sibling folder, are never moved into place. A second one ends the process at once.
+            run = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: console.Interrupt);
         }
-        catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
+        catch (OperationCanceledException) when (console.Interrupt.IsCancellationRequested)
         {
             console.Error.WriteLine($"interrupted: the backtest was stopped before it finished; no results were written to {outFolder}.");
             return ExitCodes.Interrupted;
         }
         finally
         {
-            Console.CancelKeyPress -= onCtrlC;
             progress.Finish();
         }
 

@@ -147,29 +147,17 @@ internal static class BatchCommand
 
     private static int Reduce(CliConsole console, string outputFolder, BatchRequest? request, bool allowMissing)
     {
-        using var stop = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
-        ConsoleCancelEventHandler onCancel = (_, e) =>
-        {
-            // The first Ctrl-C keeps the process alive: the reduce stops before its first summary file, or, once it has
-            // begun writing them, writes the rest, so summary.csv and summary.html never come from two reduces. A second
-            // one ends the process at once.
-            e.Cancel = !stop.IsCancellationRequested;
-            stop.Cancel();
-        };
-        Console.CancelKeyPress += onCancel;
         BatchReduceOutcome outcome;
         try
         {
-            outcome = BatchReducer.Reduce(outputFolder, request, allowMissing, stop.Token);
+            // The first Ctrl-C stops the reduce before its first summary file, or, once it has begun writing them, lets it
+            // write the rest, so summary.csv and summary.html never come from two reduces. A second one ends the process at once.
+            outcome = BatchReducer.Reduce(outputFolder, request, allowMissing, console.Interrupt);
         }
-        catch (OperationCanceledException) when (stop.IsCancellationRequested)
+        catch (OperationCanceledException) when (console.Interrupt.IsCancellationRequested)
         {
             console.Error.WriteLine($"interrupted: the reduce was stopped before it wrote the summary; nothing in {outputFolder} was changed.");
             return ExitCodes.Interrupted;
-        }
-        finally
-        {
-            Console.CancelKeyPress -= onCancel;
         }
 
         foreach (var warning in outcome.Warnings)
@@ -217,24 +205,16 @@ internal static class BatchCommand
             return Reduce(console, request.OutputFolder, request, a.AllowMissing);
         }
 
-        using var stop = new CancellationTokenSource();
-        ConsoleCancelEventHandler onCancel = (_, e) =>
-        {
-            // Let running names stop between forecasters and keep every finished one; a second Ctrl-C ends the process.
-            e.Cancel = !stop.IsCancellationRequested;
-            stop.Cancel();
-        };
-        Console.CancelKeyPress += onCancel;
         var progress = new BatchConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BatchOutcome outcome;
         try
         {
-            outcome = BatchRunner.Run(request, progress, stop.Token);
+            // The first Ctrl-C lets running names stop between forecasters and keeps every finished one; a second ends the process.
+            outcome = BatchRunner.Run(request, progress, console.Interrupt);
         }
         finally
         {
             progress.Finish();
-            Console.CancelKeyPress -= onCancel;
         }
 
         foreach (var row in outcome.Rows.Where(r => !r.Succeeded))

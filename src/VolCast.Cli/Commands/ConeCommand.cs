@@ -44,8 +44,16 @@ internal static class ConeCommand
         var cone = ComputeCone(console, request.PricesPath, returns);
         var overlays = ImpliedOverlays(console, request, load.History.Dates[^1], format);
         var chart = ReportCharts.Cone(cone, overlays);
-        AtomicFile.WriteText(request.CsvPath, w => ConeCsv.Write(w, cone), request.Overwrite, request.Inputs);
-        AtomicFile.WriteBytes(request.PngPath, chart.Png, request.Overwrite);
+        if (console.Stopped($"the cone was stopped before it was written; {request.CsvPath} and {request.PngPath} were left as they were."))
+        {
+            return ExitCodes.Interrupted;
+        }
+
+        // The two files as one set: a stop or a failure never leaves a new cone.csv beside an old cone.png.
+        using var files = new AtomicFileSet();
+        files.AddText(request.CsvPath, w => ConeCsv.Write(w, cone), request.Overwrite, request.Inputs);
+        files.AddBytes(request.PngPath, chart.Png, request.Overwrite);
+        Interruption.Uninterrupted(files.Commit);
         console.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"wrote the volatility cone ({cone.Horizons.Count} horizons from {returns.Length} daily returns) to {request.CsvPath} and {request.PngPath}"));
         return ExitCodes.Success;

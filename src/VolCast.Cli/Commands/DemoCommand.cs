@@ -95,7 +95,17 @@ internal static class DemoCommand
     private static int Regenerate(CliConsole console, string? data)
     {
         var folder = Path.GetFullPath(data ?? FindDataFolder() ?? DataFolderName);
-        var days = DemoFiles.Regenerate(folder);
+        int days;
+        try
+        {
+            days = DemoFiles.Regenerate(folder, console.Interrupt);
+        }
+        catch (OperationCanceledException) when (console.Interrupt.IsCancellationRequested)
+        {
+            console.Error.WriteLine($"interrupted: the demo data was stopped before it was written; the files in {Shown(folder)} were left as they were.");
+            return ExitCodes.Interrupted;
+        }
+
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"wrote the demo scenario ({days} trading days of the index, {DemoFiles.GeneratedFiles.Count} files with the universe) to {Shown(folder)}"));
         return ExitCodes.Success;
@@ -154,26 +164,18 @@ internal static class DemoCommand
         };
         var progress = new ConsoleProgress(console.Out, ConsoleProgress.IsTerminal(console.Out));
         BacktestResult result;
-        using var interrupted = CancellationTokenSource.CreateLinkedTokenSource(console.Interrupt);
-        ConsoleCancelEventHandler onCtrlC = (_, e) =>
-        {
-            // As in backtest: the first Ctrl-C stops the run at its next check and nothing is moved into place; a second ends the process.
-            e.Cancel = !interrupted.IsCancellationRequested;
-            interrupted.Cancel();
-        };
-        Console.CancelKeyPress += onCtrlC;
         try
         {
-            result = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: interrupted.Token).Result;
+            // As in backtest: the first Ctrl-C stops the run at its next check and nothing is moved into place; a second ends the process.
+            result = BacktestPipeline.Run(job, console.Warn, progress, cancellationToken: console.Interrupt).Result;
         }
-        catch (OperationCanceledException) when (interrupted.IsCancellationRequested)
+        catch (OperationCanceledException) when (console.Interrupt.IsCancellationRequested)
         {
             console.Error.WriteLine($"interrupted: the demo was stopped before it finished; no results were written to {Shown(outFolder)}.");
             return ExitCodes.Interrupted;
         }
         finally
         {
-            Console.CancelKeyPress -= onCtrlC;
             progress.Finish();
         }
 

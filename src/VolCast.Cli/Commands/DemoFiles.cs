@@ -89,27 +89,40 @@ internal static class DemoFiles
         .. DemoUniverse.Names.Select(n => $"{UniverseImplied}/{n}.csv"),
     ];
 
-    /// <summary>Writes every demo file into <paramref name="folder"/>, replacing those that exist; the same seeds give the same bytes.</summary>
+    /// <summary>
+    /// Writes every demo file into <paramref name="folder"/>, replacing those that exist; the same seeds give the same bytes.
+    /// The files are one set: each is written in full to a temporary sibling first, and only then are all moved into place
+    /// (a second Ctrl-C waits for the moves), so the folder never holds part of an earlier set and part of this one.
+    /// </summary>
+    /// <param name="folder">The demo data folder.</param>
+    /// <param name="cancellationToken">Checked before each file is written: a stop before the moves leaves every file as it was.</param>
     /// <returns>How many trading days the index has.</returns>
-    public static int Regenerate(string folder)
+    /// <exception cref="OperationCanceledException">The token was cancelled before the files were moved into place; none was replaced.</exception>
+    public static int Regenerate(string folder, CancellationToken cancellationToken = default)
     {
-        var scenario = new DemoScenarioGenerator(Seed).Generate();
-        Text(folder, Index, w => HistoryCsv.WritePrices(w, scenario.Index));
-        Text(folder, Implied, w => HistoryCsv.WriteSeries(w, "iv", scenario.Implied.Dates, scenario.Implied.Volatility));
-        Text(folder, ExpectedVolatility, w => HistoryCsv.WriteSeries(w, "expected_vol", scenario.Index.Dates, scenario.ExpectedVolatility.ToArray()));
-        Text(folder, SecondAsset, w => HistoryCsv.WritePrices(w, scenario.SecondAsset));
-        var quotes = DemoOptionChain.Build(scenario.Index, scenario.Implied, QuoteDays);
-        Text(folder, OptionQuotes, w => OptionQuotesCsv.Write(w, quotes));
-        Text(folder, Config, w => w.Write(ConfigJson.ReplaceLineEndings("\n")));
-        foreach (var asset in DemoUniverse.Generate(UniverseSeed))
+        using var files = new AtomicFileSet();
+        void Text(string relative, Action<TextWriter> write)
         {
-            Text(folder, $"{UniversePrices}/{asset.Name}.csv", w => HistoryCsv.WritePrices(w, asset.Prices));
-            Text(folder, $"{UniverseImplied}/{asset.Name}.csv", w => HistoryCsv.WriteSeries(w, "iv", asset.Implied.Dates, asset.Implied.Volatility));
+            cancellationToken.ThrowIfCancellationRequested();
+            files.AddText(Path.Combine(folder, relative.Replace('/', Path.DirectorySeparatorChar)), write, overwrite: true);
         }
 
+        var scenario = new DemoScenarioGenerator(Seed).Generate();
+        Text(Index, w => HistoryCsv.WritePrices(w, scenario.Index));
+        Text(Implied, w => HistoryCsv.WriteSeries(w, "iv", scenario.Implied.Dates, scenario.Implied.Volatility));
+        Text(ExpectedVolatility, w => HistoryCsv.WriteSeries(w, "expected_vol", scenario.Index.Dates, scenario.ExpectedVolatility.ToArray()));
+        Text(SecondAsset, w => HistoryCsv.WritePrices(w, scenario.SecondAsset));
+        var quotes = DemoOptionChain.Build(scenario.Index, scenario.Implied, QuoteDays);
+        Text(OptionQuotes, w => OptionQuotesCsv.Write(w, quotes));
+        Text(Config, w => w.Write(ConfigJson.ReplaceLineEndings("\n")));
+        foreach (var asset in DemoUniverse.Generate(UniverseSeed))
+        {
+            Text($"{UniversePrices}/{asset.Name}.csv", w => HistoryCsv.WritePrices(w, asset.Prices));
+            Text($"{UniverseImplied}/{asset.Name}.csv", w => HistoryCsv.WriteSeries(w, "iv", asset.Implied.Dates, asset.Implied.Volatility));
+        }
+
+        cancellationToken.ThrowIfCancellationRequested();
+        Interruption.Uninterrupted(files.Commit);
         return scenario.Index.Count;
     }
-
-    private static void Text(string folder, string relative, Action<TextWriter> write) =>
-        AtomicFile.WriteText(Path.Combine(folder, relative.Replace('/', Path.DirectorySeparatorChar)), write, overwrite: true);
 }

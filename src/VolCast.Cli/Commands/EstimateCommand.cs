@@ -90,6 +90,11 @@ internal static class EstimateCommand
 
             var series = RollingVolatility.Compute(history, kind, n, a, parse.GetValue(zeroMean));
             var dates = history.Dates.Slice(series.FirstIndex, series.Count);
+            if (console.Stopped(outFile is null ? "the estimate was stopped before it wrote its series." : $"the estimate was stopped before it was written; {outFile} was left as it was."))
+            {
+                return ExitCodes.Interrupted;
+            }
+
             if (outFile is null)
             {
                 HistoryCsv.WriteSeries(console.Out, "vol", dates, series.AnnualizedVolatility);

@@ -97,6 +97,11 @@ internal static class FitCommand
                 $"a {modelName} fit ({startText}) cannot use the daily log returns of these {load.History.Count} prices: {WithoutParameterName(ex.Message)} A fit needs at least {GarchFitter.MinimumReturns} finite daily returns that are not all equal; supply a longer history in which prices move."));
         }
 
+        if (console.Stopped($"the fit was stopped before it was written; {output} was left as it was."))
+        {
+            return ExitCodes.Interrupted;
+        }
+
         AtomicFile.WriteText(output, writer => GarchFitJson.Write(writer, fit), force, [pricesPath]);
         WriteSummary(console, fit, modelName, output);
         return ExitCodes.Success;

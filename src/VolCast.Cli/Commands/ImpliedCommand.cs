@@ -85,7 +85,24 @@ internal static class ImpliedCommand
         var quotes = OptionQuoteCsvReader.Read(quotesPath, rate, dividendYield, format);
         var result = ConstantTenorSeries.Compute(quotes, new ConstantTenorOptions(tenorDays, extrapolation));
         string[] inputs = [quotesPath];
-        QuoteDiagnosticsCsv.Write(diagnosticsPath, result.Diagnostics, force, inputs);
+        if (console.Stopped($"the implied volatility was stopped before it was written; {output} and {diagnosticsPath} were left as they were."))
+        {
+            return ExitCodes.Interrupted;
+        }
+
+        if (result.Points.IsEmpty)
+        {
+            QuoteDiagnosticsCsv.Write(diagnosticsPath, result.Diagnostics, force, inputs);
+        }
+        else
+        {
+            // The series and its diagnostics as one set: a stop or a failure never leaves a new one beside an old other.
+            using var files = new AtomicFileSet();
+            files.AddText(diagnosticsPath, w => QuoteDiagnosticsCsv.Write(w, result.Diagnostics), force, inputs);
+            files.AddText(output, w => ConstantTenorCsv.Write(w, result.Points), force, inputs);
+            Interruption.Uninterrupted(files.Commit);
+        }
+
         var summary = string.Create(CultureInfo.InvariantCulture,
             $"{quotes.Count} quotes: {result.RejectedQuoteCount} quotes and {result.RejectedExpiryCount} expiries rejected, {result.RejectedDateCount} dates without a {DayCount.FormatTenor(tenorDays)} value; diagnostics in {diagnosticsPath}");
         if (result.Points.IsEmpty)
@@ -94,7 +111,6 @@ internal static class ImpliedCommand
             return ExitCodes.BadInput;
         }
 
-        ConstantTenorCsv.Write(output, result.Points, force, inputs);
         console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture, $"wrote {result.Points.Length} dates to {output}"));
         console.Out.WriteLine(summary);
         if (result.RejectedDateCount > 0)

@@ -17,13 +17,20 @@ public static class ConstantTenorCsv
     public static void Write(string path, IReadOnlyList<ConstantTenorPoint> points, bool overwrite, IEnumerable<string>? protectedInputs = null)
     {
         ArgumentNullException.ThrowIfNull(points);
-        AtomicFile.WriteText(path, writer =>
+        AtomicFile.WriteText(path, writer => Write(writer, points), overwrite, protectedInputs);
+    }
+
+    /// <summary>Writes the series to <paramref name="writer"/>.</summary>
+    /// <param name="writer">Where the CSV goes.</param>
+    /// <param name="points">The values, in date order.</param>
+    public static void Write(TextWriter writer, IReadOnlyList<ConstantTenorPoint> points)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        ArgumentNullException.ThrowIfNull(points);
+        writer.WriteLine("date,iv");
+        foreach (var p in points)
         {
-            writer.WriteLine("date,iv");
-            foreach (var p in points)
-            {
-                writer.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{p.Date:yyyy-MM-dd},{p.Volatility:R}"));
-            }
-        }, overwrite, protectedInputs);
+            writer.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{p.Date:yyyy-MM-dd},{p.Volatility:R}"));
+        }
     }
 }

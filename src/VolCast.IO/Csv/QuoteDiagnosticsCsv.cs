@@ -22,25 +22,32 @@ public static class QuoteDiagnosticsCsv
     public static void Write(string path, IReadOnlyList<ChainDiagnostic> diagnostics, bool overwrite, IEnumerable<string>? protectedInputs = null)
     {
         ArgumentNullException.ThrowIfNull(diagnostics);
-        AtomicFile.WriteText(path, writer =>
+        AtomicFile.WriteText(path, writer => Write(writer, diagnostics), overwrite, protectedInputs);
+    }
+
+    /// <summary>Writes the diagnostics (a header only when there are none) to <paramref name="writer"/>.</summary>
+    /// <param name="writer">Where the CSV goes.</param>
+    /// <param name="diagnostics">The diagnostics.</param>
+    public static void Write(TextWriter writer, IReadOnlyList<ChainDiagnostic> diagnostics)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        ArgumentNullException.ThrowIfNull(diagnostics);
+        CsvText.WriteHeader(writer, Header);
+        foreach (var d in diagnostics)
         {
-            CsvText.WriteHeader(writer, Header);
-            foreach (var d in diagnostics)
-            {
-                CsvText.WriteRecord(writer,
-                [
-                    CsvText.Text(Kebab(d.Scope.ToString())),
-                    CsvText.Text(Kebab(d.Reason.ToString())),
-                    d.IsWarning ? "warning" : "rejected",
-                    CsvText.Date(d.Date),
-                    d.Expiry is { } expiry ? CsvText.Date(expiry) : string.Empty,
-                    CsvText.Number(d.Strike),
-                    d.Type is { } t ? CsvText.Text(Kebab(t.ToString())) : string.Empty,
-                    CsvText.Integer(d.SourceLine),
-                    CsvText.Text(d.Detail),
-                ]);
-            }
-        }, overwrite, protectedInputs);
+            CsvText.WriteRecord(writer,
+            [
+                CsvText.Text(Kebab(d.Scope.ToString())),
+                CsvText.Text(Kebab(d.Reason.ToString())),
+                d.IsWarning ? "warning" : "rejected",
+                CsvText.Date(d.Date),
+                d.Expiry is { } expiry ? CsvText.Date(expiry) : string.Empty,
+                CsvText.Number(d.Strike),
+                d.Type is { } t ? CsvText.Text(Kebab(t.ToString())) : string.Empty,
+                CsvText.Integer(d.SourceLine),
+                CsvText.Text(d.Detail),
+            ]);
+        }
     }
 
     /// <summary>BelowIntrinsic → below-intrinsic.</summary>
