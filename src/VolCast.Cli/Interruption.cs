@@ -15,28 +15,34 @@ namespace VolCast.Cli;
 /// default, before any file is opened. In-process tests do not install it: their token stops the command instead, and
 /// <see cref="Uninterrupted"/> then just runs its moves.</para>
 /// </remarks>
-internal static class Interruption
+internal sealed class Interruption : IDisposable
 {
-    private static readonly CancellationTokenSource StopRequested = new();
-    private static readonly object Gate = new();
-    private static int _presses;
-    private static int _moving;
-    private static bool _ending;
-    private static bool _installed;
+    private readonly CancellationTokenSource _stopRequested = new();
+    private readonly object _gate = new();
+    private int _presses;
+    private int _moving;
+    private bool _ending;
+    private bool _installed;
 
-    /// <summary>Installs the handler (once) and returns the process-wide token that the first Ctrl-C cancels.</summary>
-    public static CancellationToken Install()
+    /// <summary>Gets the process's one instance, the one <see cref="Program.Main"/> installs.</summary>
+    public static Interruption Process { get; } = new();
+
+    /// <summary>Gets the token that the first Ctrl-C cancels.</summary>
+    public CancellationToken Token => _stopRequested.Token;
+
+    /// <summary>Installs the handler (once) and returns the token that the first Ctrl-C cancels.</summary>
+    public CancellationToken Install()
     {
-        lock (Gate)
+        lock (_gate)
         {
             if (!_installed)
             {
-                Console.CancelKeyPress += OnCancelKeyPress;
+                Console.CancelKeyPress += (_, e) => e.Cancel = Press();
                 _installed = true;
             }
         }
 
-        return StopRequested.Token;
+        return Token;
     }
 
     /// <summary>
@@ -44,14 +50,14 @@ internal static class Interruption
     /// are done, and once the process is ending no new set starts to move (the call then never returns; the process ends).
     /// </summary>
     /// <param name="moves">Renames only: the files are written in full before.</param>
-    public static void Uninterrupted(Action moves)
+    public void Uninterrupted(Action moves)
     {
         ArgumentNullException.ThrowIfNull(moves);
-        lock (Gate)
+        lock (_gate)
         {
             while (_ending)
             {
-                Monitor.Wait(Gate);
+                Monitor.Wait(_gate);
             }
 
             _moving++;
@@ -63,34 +69,41 @@ internal static class Interruption
         }
         finally
         {
-            lock (Gate)
+            lock (_gate)
             {
                 _moving--;
-                Monitor.PulseAll(Gate);
+                Monitor.PulseAll(_gate);
             }
         }
     }
 
-    private static void OnCancelKeyPress(object? sender, ConsoleCancelEventArgs e)
+    /// <summary>Releases the token's source; the process's instance lives as long as the process.</summary>
+    public void Dispose() => _stopRequested.Dispose();
+
+    /// <summary>
+    /// Handles one Ctrl-C: the first requests the stop and keeps the process; a later one waits for the moves under way,
+    /// lets no new one start, and lets the process end.
+    /// </summary>
+    /// <returns>Whether the process stays (the handler's <see cref="ConsoleCancelEventArgs.Cancel"/>).</returns>
+    internal bool Press()
     {
         if (Interlocked.Increment(ref _presses) == 1)
         {
             // The first: the process stays; every command sees the stop at its next check.
-            e.Cancel = true;
-            StopRequested.Cancel();
-            return;
+            _stopRequested.Cancel();
+            return true;
         }
 
         // The second (or a later one): wait for moves under way, start no more, then let the runtime end the process.
-        lock (Gate)
+        lock (_gate)
         {
             _ending = true;
             while (_moving > 0)
             {
-                Monitor.Wait(Gate);
+                Monitor.Wait(_gate);
             }
         }
 
-        e.Cancel = false;
+        return false;
     }
 }

@@ -12,7 +12,7 @@ internal static class Program
     /// </summary>
     public static int Main(string[] args)
     {
-        var interrupt = Interruption.Install();
+        var interrupt = Interruption.Process.Install();
         return Run(args, Console.Out, Console.Error, interrupt);
     }
 

@@ -132,7 +132,7 @@ internal sealed partial class ResultsFolder : IDisposable
     {
         ArgumentNullException.ThrowIfNull(manifest);
         var staging = _staging ?? throw new InvalidOperationException("Stage must be called before Commit.");
-        Interruption.Uninterrupted(() => Move(staging, manifest));
+        Interruption.Process.Uninterrupted(() => Move(staging, manifest));
     }
 
     private void Move(string staging, IReadOnlyList<string> manifest)

@@ -35,7 +35,7 @@ internal static class BatchSummaryWriter
             files.AddText(Path.Combine(outputFolder, "summary.html"), w => w.Write(Page(plan, rows, missing)), overwrite: true);
         }
 
-        Interruption.Uninterrupted(files.Commit);
+        Interruption.Process.Uninterrupted(files.Commit);
     }
 
     private static string Page(BatchPlan plan, IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<string>? missing)

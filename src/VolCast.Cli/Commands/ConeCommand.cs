@@ -53,7 +53,7 @@ internal static class ConeCommand
         using var files = new AtomicFileSet();
         files.AddText(request.CsvPath, w => ConeCsv.Write(w, cone), request.Overwrite, request.Inputs);
         files.AddBytes(request.PngPath, chart.Png, request.Overwrite);
-        Interruption.Uninterrupted(files.Commit);
+        Interruption.Process.Uninterrupted(files.Commit);
         console.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"wrote the volatility cone ({cone.Horizons.Count} horizons from {returns.Length} daily returns) to {request.CsvPath} and {request.PngPath}"));
         return ExitCodes.Success;

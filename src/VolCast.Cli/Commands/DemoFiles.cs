@@ -122,7 +122,7 @@ internal static class DemoFiles
         }
 
         cancellationToken.ThrowIfCancellationRequested();
-        Interruption.Uninterrupted(files.Commit);
+        Interruption.Process.Uninterrupted(files.Commit);
         return scenario.Index.Count;
     }
 }

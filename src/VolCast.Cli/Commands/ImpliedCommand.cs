@@ -100,7 +100,7 @@ internal static class ImpliedCommand
             using var files = new AtomicFileSet();
             files.AddText(diagnosticsPath, w => QuoteDiagnosticsCsv.Write(w, result.Diagnostics), force, inputs);
             files.AddText(output, w => ConstantTenorCsv.Write(w, result.Points), force, inputs);
-            Interruption.Uninterrupted(files.Commit);
+            Interruption.Process.Uninterrupted(files.Commit);
         }
 
         var summary = string.Create(CultureInfo.InvariantCulture,

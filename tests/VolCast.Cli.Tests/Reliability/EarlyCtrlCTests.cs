@@ -1,0 +1,226 @@
+using System.Diagnostics;
+using System.Runtime.InteropServices;
+using VolCast.Cli.Tests.Support;
+
+namespace VolCast.Cli.Tests.Reliability;
+
+// Ctrl-C at any moment of any command that writes, as a user gives it: a real SIGINT to the built executable, also in its
+// first moments, before the command has begun (the one handler is installed in Main before parsing; before that the
+// runtime's default ends the process, before any file is opened). The process ends with 130 (128 + SIGINT, as shells
+// report Ctrl-C; common practice, no source), and the output is the earlier one byte for byte, or, for a quick command
+// that finished first, the complete new one: never a mix, never a half-written file, never a temporary left behind.
+// The outcomes are asserted, not how long anything took, so a loaded machine changes which moment is hit, not the verdict.
+public sealed class EarlyCtrlCTests : IDisposable
+{
+    private const int Sigint = 2;
+
+    private readonly TempFolder _temp = new("early-ctrlc");
+
+    public void Dispose() => _temp.Dispose();
+
+    private static readonly string[] Writing = ["backtest", "demo", "batch", "reduce", "cone", "implied", "estimate", "fit", "regenerate"];
+
+    /// <summary>Every command that writes files (by a short name) with each moment of the signal after the start.</summary>
+    public static TheoryData<string, int> CommandsAndMoments()
+    {
+        var data = new TheoryData<string, int>();
+        foreach (var command in Writing)
+        {
+            foreach (var after in new[] { 0, 50, 150 })
+            {
+                data.Add(command, after);
+            }
+        }
+
+        return data;
+    }
+
+    /// <summary>Every command that writes files, by a short name.</summary>
+    public static TheoryData<string> Commands() => [.. Writing];
+
+    [Theory]
+    [MemberData(nameof(CommandsAndMoments))]
+    public void Command_SigintSoonAfterStart_Exits130AndLeavesTheEarlierOutputWhole(string command, int afterMilliseconds)
+    {
+        if (!OperatingSystem.IsLinux() && !OperatingSystem.IsMacOS())
+        {
+            return; // SIGINT is a Unix signal; the in-process cancellation tests cover the other systems.
+        }
+
+        var output = _temp.Combine("out");
+        var run = Arguments(command, output);
+        var reference = EarlierOutput(command, run, output);
+        var earlier = Snapshot(output);
+
+        using var process = CliRunner.StartProcess(_temp.Path, run);
+        Thread.Sleep(afterMilliseconds);
+        Assert.Equal(0, kill(process.Id, Sigint));
+        var result = CliRunner.Finish(process, run);
+
+        if (result.ExitCode == 0 && reference is not null)
+        {
+            // A quick command finished before the signal was handled: its output is the complete new one.
+            Assert.Equal(reference, Snapshot(output));
+        }
+        else
+        {
+            Assert.True(result.ExitCode == 130, $"{command}: exit {result.ExitCode}: {result.Stderr}");
+            Assert.Equal(earlier, Snapshot(output));
+        }
+
+        Assert.DoesNotContain("unexpected failure", result.Stderr, StringComparison.Ordinal);
+        Assert.Empty(Temporaries());
+    }
+
+    [Theory]
+    [MemberData(nameof(Commands))]
+    public void Command_StoppedBeforeItWrites_Exits130SaysSoAndChangesNothing(string command)
+    {
+        var output = _temp.Combine("out");
+        var run = Arguments(command, output);
+        EarlierOutput(command, run, output);
+        var earlier = Snapshot(output);
+        using var interrupt = new CancellationTokenSource();
+        interrupt.Cancel();
+        using var stdout = new StringWriter();
+        using var stderr = new StringWriter();
+
+        var code = Program.Run(run, stdout, stderr, interrupt.Token);
+
+        Assert.True(code == 130, $"{command}: exit {code}: {stderr}");
+        Assert.Contains(command == "batch" ? "batch stopped" : "interrupted: ", command == "batch" ? stdout.ToString() : stderr.ToString(), StringComparison.Ordinal);
+        Assert.Equal(earlier, Snapshot(output));
+        Assert.Empty(Temporaries());
+    }
+
+    [Theory]
+    [InlineData("backtest", false)] // two at once, in the first moments
+    [InlineData("backtest", true)] // two at once, while the forecasters run
+    [InlineData("batch", true)] // two at once, while names are being computed and committed
+    public void Command_TwoSigints_EndTheProcessWith130_AndTheNextRunCleansUpAndSucceeds(string command, bool waitForProgress)
+    {
+        if (!OperatingSystem.IsLinux() && !OperatingSystem.IsMacOS())
+        {
+            return;
+        }
+
+        var output = _temp.Combine("out");
+        var run = Arguments(command, output).Where(a => a != "--force").ToArray();
+        using var process = CliRunner.StartProcess(_temp.Path, run);
+        if (waitForProgress)
+        {
+            // The first line on standard output is progress: the command is under way, past the start (it ends, so this returns).
+            Assert.NotNull(process.StandardOutput.ReadLine());
+        }
+
+        Assert.Equal(0, kill(process.Id, Sigint));
+        Assert.Equal(0, kill(process.Id, Sigint));
+        var result = CliRunner.Finish(process, run);
+
+        Assert.True(result.ExitCode == 130, $"{command}: exit {result.ExitCode}: {result.Stderr}");
+        Assert.DoesNotContain("wrote ", result.Stdout, StringComparison.Ordinal);
+        if (command == "backtest")
+        {
+            Assert.False(Directory.Exists(output), "a stopped backtest moves no results into place");
+        }
+        else
+        {
+            // Only whole names: each name folder there is a committed one, with its record and its run.json.
+            Assert.False(File.Exists(Path.Combine(output, "summary.csv")), "a stopped batch writes no summary");
+            foreach (var name in Directory.Exists(Path.Combine(output, "assets")) ? Directory.GetDirectories(Path.Combine(output, "assets")) : [])
+            {
+                if (!Path.GetFileName(name).StartsWith('.'))
+                {
+                    Assert.True(File.Exists(Path.Combine(name, "batch.json")) && File.Exists(Path.Combine(name, "run.json")), $"{name} is not whole");
+                }
+            }
+        }
+
+        // The next run of the same command removes what the killed one left and finishes.
+        var next = CliRunner.Run(Arguments(command, output));
+        Assert.True(next.ExitCode == 0, next.Stderr);
+        Assert.Empty(Temporaries());
+    }
+
+    // The command line of each case: --force over an earlier output, so that a stop has something to lose.
+    private string[] Arguments(string command, string output)
+    {
+        var data = RepositoryRoot.Combine("data-demo");
+        var prices = Path.Combine(data, "alder-ridge.csv");
+        return command switch
+        {
+            "backtest" => ["backtest", "--prices", prices, "--implied", Path.Combine(data, "alder-ridge-implied-30d.csv"), "--iv-unit", "decimal",
+                "--config", Path.Combine(data, "demo-config.json"), "--out", output, "--force"],
+            "demo" => ["demo", "--data", data, "--out", output, "--force"],
+            "batch" => ["batch", "--prices-dir", Universe(), "--config", ReliabilityFiles.FastConfig(_temp.Path), "--jobs", "1", "--reports", "summary", "--out", output, "--force"],
+            "reduce" => ["batch", "--reduce", "--out", output],
+            "cone" => ["cone", "--prices", prices, "--implied", Path.Combine(data, "alder-ridge-implied-30d.csv"), "--out", output, "--force"],
+            "implied" => ["implied", "--quotes", Path.Combine(data, "alder-ridge-option-quotes.csv"), "--tenor", "30d", "--out", Path.Combine(output, "iv.csv"), "--force"],
+            "estimate" => ["estimate", "--prices", prices, "--estimator", "yang-zhang", "--window", "21", "--out", Path.Combine(output, "vol.csv"), "--force"],
+            "fit" => ["fit", "--prices", prices, "--model", "garch", "--out", Path.Combine(output, "fit.json"), "--force"],
+            "regenerate" => ["demo", "--regenerate", "--data", output],
+            _ => throw new ArgumentOutOfRangeException(nameof(command), command, "not a command of these tests"),
+        };
+    }
+
+    /// <summary>
+    /// Writes the earlier output the stopped run must leave alone. A command whose output has the same bytes every run gets
+    /// a marked copy of it as the earlier output, so that keeping it and replacing it can be told apart; the unmarked bytes
+    /// are returned as the complete new output. Backtest, demo and batch record their start time, so theirs differ anyway
+    /// (and, taking seconds, they are always stopped).
+    /// </summary>
+    private Dictionary<string, string>? EarlierOutput(string command, string[] run, string output)
+    {
+        var first = CliRunner.Run(command == "reduce" ? Arguments("batch", output) : run);
+        Assert.True(first.ExitCode == 0, $"{command}: the earlier run failed: {first.Stderr}");
+        if (command is "backtest" or "demo" or "batch")
+        {
+            return null;
+        }
+
+        // The reduce writes the summary files again from the same names, so only those are marked (the names and the plan are its input).
+        var complete = Snapshot(output);
+        var marked = command == "reduce"
+            ? Directory.GetFiles(output).Where(f => Path.GetFileName(f) != VolCast.Cli.Batch.BatchPlan.FileName)
+            : Directory.GetFiles(output, "*", SearchOption.AllDirectories);
+        foreach (var file in marked)
+        {
+            File.AppendAllText(file, "an earlier run's output\n");
+        }
+
+        return complete;
+    }
+
+    private string Universe()
+    {
+        var folder = _temp.Combine("universe");
+        if (!Directory.Exists(folder))
+        {
+            Directory.CreateDirectory(folder);
+            for (var i = 0; i < 4; i++)
+            {
+                ReliabilityFiles.Prices(folder, $"name{i}.csv", 700, seed: 40 + i);
+            }
+        }
+
+        return folder;
+    }
+
+    /// <summary>Every file under the output folder with its content (SHA-256), but the lock file a --force run leaves.</summary>
+    private static Dictionary<string, string> Snapshot(string folder) =>
+        !Directory.Exists(folder)
+            ? []
+            : Directory.GetFiles(folder, "*", SearchOption.AllDirectories)
+                .Where(f => Path.GetFileName(f) != ResultsFolder.LockFileName)
+                .ToDictionary(f => Path.GetRelativePath(folder, f), f => Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(File.ReadAllBytes(f))), StringComparer.Ordinal);
+
+    /// <summary>Hidden temporary files and folders (<c>.NAME.PID.ID.tmp</c> or <c>.old</c>) anywhere in the test's folder.</summary>
+    private List<string> Temporaries() =>
+        [.. Directory.GetFileSystemEntries(_temp.Path, ".*", SearchOption.AllDirectories)
+            .Where(p => p.EndsWith(".tmp", StringComparison.Ordinal) || p.EndsWith(".old", StringComparison.Ordinal))];
+
+    [DllImport("libc", SetLastError = true)]
+#pragma warning disable SA1300, IDE1006 // The system call's own name.
+    private static extern int kill(int pid, int signal);
+#pragma warning restore SA1300, IDE1006
+}
