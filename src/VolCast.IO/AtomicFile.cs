@@ -103,12 +103,14 @@ public static partial class AtomicFile
     }
 
     /// <summary>
-    /// Removes the temporary files (<c>.NAME.PID.ID.tmp</c>) of <paramref name="target"/> that processes no longer running
+    /// Removes the temporary files (<c>.NAME.PID.ID.tmp</c>) of <paramref name="path"/> that processes no longer running
     /// left beside it: a write stopped by a kill never finished, and its file is never results.
     /// </summary>
-    /// <param name="target">The output file's full path.</param>
-    internal static void RemoveStaleTemporaries(string target)
+    /// <param name="path">The output file.</param>
+    public static void RemoveStaleTemporaries(string path)
     {
+        ArgumentNullException.ThrowIfNull(path);
+        var target = Path.GetFullPath(path);
         var folder = Path.GetDirectoryName(target)!;
         var name = Path.GetFileName(target);
         if (!Directory.Exists(folder))
@@ -116,9 +118,9 @@ public static partial class AtomicFile
             return;
         }
 
-        foreach (var path in Directory.EnumerateFiles(folder, "." + name + ".*.tmp"))
+        foreach (var temporary in Directory.EnumerateFiles(folder, "." + name + ".*.tmp"))
         {
-            var match = TemporaryPattern().Match(Path.GetFileName(path));
+            var match = TemporaryPattern().Match(Path.GetFileName(temporary));
             if (!match.Success || match.Groups["name"].Value != name
                 || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid)
                 || Running(pid))
@@ -126,7 +128,7 @@ public static partial class AtomicFile
                 continue;
             }
 
-            DeleteQuietly(path);
+            DeleteQuietly(temporary);
         }
     }
 

@@ -36,6 +36,7 @@ internal static class BatchReducer
                 $"this folder is not a batch output: it has neither {BatchPlan.FileName} nor an {BatchRunner.AssetsFolder} folder of per-name results. Give --out the folder the shards wrote into (the same --out as theirs), after they have run.");
         }
 
+        BatchSummaryWriter.RemoveStaleTemporaries(outputFolder);
         var version = BacktestPipeline.ToolVersion();
         BatchPlan plan;
         var warnings = new List<string>();

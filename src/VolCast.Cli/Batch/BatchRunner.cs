@@ -69,6 +69,7 @@ internal static class BatchRunner
             ResultsFolder.RemoveStaleTemporaries(assetsFolder);
         }
 
+        BatchSummaryWriter.RemoveStaleTemporaries(request.OutputFolder);
         var configSha256 = request.Config is null ? null : InputBytes.Read(request.Config).Sha256;
         var plan = BatchPlan.Of(request, all, BatchFingerprint.Text(request.Settings, request.ImpliedUnit, BacktestPipeline.ToolVersion(), request.Format, request.ImpliedTenorDays, request.Checks, request.Workbook), configSha256);
         var fingerprint = plan.Fingerprint;

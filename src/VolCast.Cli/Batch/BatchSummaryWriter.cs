@@ -15,6 +15,19 @@ namespace VolCast.Cli.Batch;
 /// </summary>
 internal static class BatchSummaryWriter
 {
+    /// <summary>
+    /// Removes what killed batches or reduces left beside the summary files and the plan (hidden temporary files of processes
+    /// that no longer run); a batch and a reduce do this when they start.
+    /// </summary>
+    /// <param name="outputFolder">The batch's output folder.</param>
+    public static void RemoveStaleTemporaries(string outputFolder)
+    {
+        foreach (var name in new[] { "summary.csv", BatchLookbacksCsv.FileName, BeatsImpliedCsv.FileName, BatchForecastsLongCsv.FileName, "summary.html", BatchPlan.FileName })
+        {
+            AtomicFile.RemoveStaleTemporaries(Path.Combine(outputFolder, name));
+        }
+    }
+
     /// <summary>Writes the summary files.</summary>
     /// <param name="outputFolder">The batch's output folder.</param>
     /// <param name="plan">The batch's plan: its inputs, configuration, horizon and report pages, as shown on the summary page.</param>

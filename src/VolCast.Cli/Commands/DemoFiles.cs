@@ -100,6 +100,12 @@ internal static class DemoFiles
     /// <exception cref="OperationCanceledException">The token was cancelled before the files were moved into place; none was replaced.</exception>
     public static int Regenerate(string folder, CancellationToken cancellationToken = default)
     {
+        foreach (var relative in GeneratedFiles)
+        {
+            // What a killed regeneration left beside the files.
+            AtomicFile.RemoveStaleTemporaries(Path.Combine(folder, relative.Replace('/', Path.DirectorySeparatorChar)));
+        }
+
         using var files = new AtomicFileSet();
         void Text(string relative, Action<TextWriter> write)
         {

@@ -80,6 +80,7 @@ public sealed class EarlyCtrlCTests : IDisposable
         var run = Arguments(command, output);
         EarlierOutput(command, run, output);
         var earlier = Snapshot(output);
+        var left = LeftByAKilledRun(command, output);
         using var interrupt = new CancellationTokenSource();
         interrupt.Cancel();
         using var stdout = new StringWriter();
@@ -90,6 +91,7 @@ public sealed class EarlyCtrlCTests : IDisposable
         Assert.True(code == 130, $"{command}: exit {code}: {stderr}");
         Assert.Contains(command == "batch" ? "batch stopped" : "interrupted: ", command == "batch" ? stdout.ToString() : stderr.ToString(), StringComparison.Ordinal);
         Assert.Equal(earlier, Snapshot(output));
+        Assert.All(left, path => Assert.False(Path.Exists(path), $"{path}: what a killed run left is removed when the next run starts, even one stopped at once"));
         Assert.Empty(Temporaries());
     }
 
@@ -189,6 +191,28 @@ public sealed class EarlyCtrlCTests : IDisposable
         }
 
         return complete;
+    }
+
+    /// <summary>
+    /// Leaves what a run killed while writing would have left: a hidden temporary file beside each file the command writes
+    /// itself, or a staging folder beside a results folder, each named for a process that has ended.
+    /// </summary>
+    private List<string> LeftByAKilledRun(string command, string output)
+    {
+        using var ended = Process.Start(new ProcessStartInfo("dotnet", "--version") { RedirectStandardOutput = true, UseShellExecute = false })!;
+        ended.StandardOutput.ReadToEnd();
+        ended.WaitForExit();
+        var id = ended.Id.ToString(System.Globalization.CultureInfo.InvariantCulture);
+        if (command is "backtest" or "demo")
+        {
+            var staging = _temp.Combine($".out.{id}.{Guid.NewGuid():N}.tmp");
+            Directory.CreateDirectory(staging);
+            File.WriteAllText(Path.Combine(staging, "metrics.csv"), "half a file");
+            return [staging];
+        }
+
+        // The files at the top of the output are those the command writes itself (a batch: its summary and plan; the names' folders are staged).
+        return [.. Directory.GetFiles(output).Select(f => _temp.Write(Path.Combine("out", $".{Path.GetFileName(f)}.{id}.{Guid.NewGuid():N}.tmp"), "half a file"))];
     }
 
     private string Universe()
