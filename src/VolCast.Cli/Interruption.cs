@@ -11,18 +11,40 @@ namespace VolCast.Cli;
 /// into place already under way (<see cref="Uninterrupted"/>, a few renames, milliseconds), so a results folder or a set of
 /// files is never left half old and half new; no new move starts after it. What a killed process was writing stays in hidden
 /// temporary files and folders that the next run of the same output removes.</para>
+/// <para>One Ctrl-C can arrive as two signals a moment apart: <c>timeout -s INT</c> sends its signal to the command and
+/// again to the command's process group, and so do supervisors that signal a process and its group. Signals within
+/// <see cref="SamePress"/> of the first are taken as that first Ctrl-C, so such a stop stays a clean one; a person's second
+/// press comes later than that.</para>
 /// <para>Before <see cref="Program.Main"/> installs the handler (the runtime's start), a Ctrl-C ends the process with the system's
 /// default, before any file is opened. In-process tests do not install it: their token stops the command instead, and
 /// <see cref="Uninterrupted"/> then just runs its moves.</para>
 /// </remarks>
 internal sealed class Interruption : IDisposable
 {
+    /// <summary>How soon after the first Ctrl-C a signal is the same Ctrl-C delivered twice (common practice, no source: far
+    /// below the quickest double press of a key, far above the microseconds between a signal to a process and to its group).</summary>
+    public static readonly TimeSpan SamePress = TimeSpan.FromMilliseconds(50);
+
     private readonly CancellationTokenSource _stopRequested = new();
     private readonly object _gate = new();
-    private int _presses;
+    private readonly Func<TimeSpan> _now;
+    private TimeSpan? _firstPress;
     private int _moving;
     private bool _ending;
     private bool _installed;
+
+    /// <summary>Initializes an instance that reads the time from the system's monotonic clock.</summary>
+    public Interruption()
+        : this(() => System.Diagnostics.Stopwatch.GetElapsedTime(0))
+    {
+    }
+
+    /// <summary>Initializes an instance that reads the time from <paramref name="now"/> (tests give their own clock).</summary>
+    /// <param name="now">The time elapsed since any fixed moment.</param>
+    internal Interruption(Func<TimeSpan> now)
+    {
+        _now = now;
+    }
 
     /// <summary>Gets the process's one instance, the one <see cref="Program.Main"/> installs.</summary>
     public static Interruption Process { get; } = new();
@@ -81,29 +103,34 @@ internal sealed class Interruption : IDisposable
     public void Dispose() => _stopRequested.Dispose();
 
     /// <summary>
-    /// Handles one Ctrl-C: the first requests the stop and keeps the process; a later one waits for the moves under way,
-    /// lets no new one start, and lets the process end.
+    /// Handles one Ctrl-C: the first (and a signal within <see cref="SamePress"/> of it) requests the stop and keeps the
+    /// process; a later one waits for the moves under way, lets no new one start, and lets the process end.
     /// </summary>
     /// <returns>Whether the process stays (the handler's <see cref="ConsoleCancelEventArgs.Cancel"/>).</returns>
     internal bool Press()
     {
-        if (Interlocked.Increment(ref _presses) == 1)
-        {
-            // The first: the process stays; every command sees the stop at its next check.
-            _stopRequested.Cancel();
-            return true;
-        }
-
-        // The second (or a later one): wait for moves under way, start no more, then let the runtime end the process.
+        var now = _now();
         lock (_gate)
         {
-            _ending = true;
-            while (_moving > 0)
+            if (_firstPress is not TimeSpan first)
             {
-                Monitor.Wait(_gate);
+                _firstPress = now;
+            }
+            else if (now - first >= SamePress)
+            {
+                // The second (or a later one): wait for moves under way, start no more, then let the runtime end the process.
+                _ending = true;
+                while (_moving > 0)
+                {
+                    Monitor.Wait(_gate);
+                }
+
+                return false;
             }
         }
 
-        return false;
+        // The first (or the same one delivered twice): the process stays; every command sees the stop at its next check.
+        _stopRequested.Cancel();
+        return true;
     }
 }

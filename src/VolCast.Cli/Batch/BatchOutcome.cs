@@ -7,5 +7,5 @@ namespace VolCast.Cli.Batch;
 /// <param name="Computed">Assets whose backtest ran in this batch.</param>
 /// <param name="Reused">Assets whose complete, up-to-date results were kept.</param>
 /// <param name="Failed">Assets that failed.</param>
-/// <param name="Cancelled">Whether the batch was stopped before every asset finished (no summary is written then).</param>
+/// <param name="Cancelled">Whether the batch was stopped before every asset finished or before its summary was in place (no summary is written then).</param>
 internal sealed record BatchOutcome(IReadOnlyList<BatchAssetRow> Rows, int Computed, int Reused, int Failed, bool Cancelled);

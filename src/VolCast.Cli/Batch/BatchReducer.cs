@@ -20,8 +20,9 @@ internal static class BatchReducer
     /// <param name="allowMissing">Write a partial summary when names are missing, marking them as not finished.</param>
     /// <returns>What was found; the summary is written when nothing is missing or <paramref name="allowMissing"/>.</returns>
     /// <exception cref="UsageException">The input folders given cannot be used.</exception>
-    /// <param name="cancellationToken">Checked once the names are read, before the first summary file is written: a stop
-    /// then writes nothing, and once writing has begun the summary files are all written, so they always belong together.</param>
+    /// <param name="cancellationToken">Checked once the names are read and before each summary file: the files are written
+    /// in full to temporary siblings and only then moved into place together, so a stop leaves the earlier summary whole and
+    /// the files always belong together.</param>
     /// <exception cref="InputDataException">The output folder is not a batch output, its plan is damaged or of another tool version, or names were computed with another configuration or tool version.</exception>
     /// <exception cref="OperationCanceledException">The token was cancelled before the summary was written; nothing was written.</exception>
     public static BatchReduceOutcome Reduce(string outputFolder, BatchRequest? request, bool allowMissing, CancellationToken cancellationToken = default)
@@ -172,8 +173,7 @@ internal static class BatchReducer
         var written = missing.Count == 0 || allowMissing;
         if (written)
         {
-            cancellationToken.ThrowIfCancellationRequested();
-            BatchSummaryWriter.Write(outputFolder, plan, rows, missing);
+            BatchSummaryWriter.Write(outputFolder, plan, rows, missing, cancellationToken);
         }
 
         return new BatchReduceOutcome(rows, missingWhy, failed, written) { Reports = plan.Reports, Warnings = warnings };

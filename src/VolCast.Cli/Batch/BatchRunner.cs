@@ -164,7 +164,15 @@ internal static class BatchRunner
         var finished = rows.Where(r => r is not null).Select(r => r!).ToList();
         if (!cancelled && request.Shard is null)
         {
-            BatchSummaryWriter.Write(request.OutputFolder, plan, finished);
+            try
+            {
+                BatchSummaryWriter.Write(request.OutputFolder, plan, finished, cancellationToken: cancellationToken);
+            }
+            catch (OperationCanceledException)
+            {
+                // Stopped while the summary was being written: every name is kept, the earlier summary is whole, and a rerun writes the new one.
+                cancelled = true;
+            }
         }
 
         return new BatchOutcome(finished, computed, reused, failed, cancelled);

@@ -33,21 +33,30 @@ internal static class BatchSummaryWriter
     /// <param name="plan">The batch's plan: its inputs, configuration, horizon and report pages, as shown on the summary page.</param>
     /// <param name="rows">One row per name, in name order.</param>
     /// <param name="missing">The names left out of a partial summary (the reduce's --allow-missing), or none.</param>
-    public static void Write(string outputFolder, BatchPlan plan, IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<string>? missing = null)
+    /// <param name="cancellationToken">Checked before each file: until all are written none is in place, so a stop then leaves the earlier summary whole.</param>
+    /// <exception cref="OperationCanceledException">The token was cancelled before the files were moved into place; none was replaced.</exception>
+    public static void Write(string outputFolder, BatchPlan plan, IReadOnlyList<BatchAssetRow> rows, IReadOnlyList<string>? missing = null, CancellationToken cancellationToken = default)
     {
         Directory.CreateDirectory(outputFolder);
         using var files = new AtomicFileSet();
-        files.AddText(Path.Combine(outputFolder, "summary.csv"), w => BatchSummaryCsv.Write(w, rows), overwrite: true);
-        files.AddText(Path.Combine(outputFolder, BatchLookbacksCsv.FileName), w => BatchLookbacksCsv.Write(w, rows), overwrite: true);
-        files.AddText(Path.Combine(outputFolder, BeatsImpliedCsv.FileName), w => BeatsImpliedCsv.Write(w, rows), overwrite: true);
-        var assets = Path.Combine(outputFolder, BatchRunner.AssetsFolder);
-        files.AddText(Path.Combine(outputFolder, BatchForecastsLongCsv.FileName),
-            w => BatchForecastsLongCsv.Write(w, rows.Where(r => r.Succeeded).Select(r => (r.Name, Path.Combine(assets, r.Name)))), overwrite: true);
-        if (plan.Reports != BatchReports.None)
+        void Text(string name, Action<TextWriter> write)
         {
-            files.AddText(Path.Combine(outputFolder, "summary.html"), w => w.Write(Page(plan, rows, missing)), overwrite: true);
+            cancellationToken.ThrowIfCancellationRequested();
+            files.AddText(Path.Combine(outputFolder, name), write, overwrite: true);
         }
 
+        Text("summary.csv", w => BatchSummaryCsv.Write(w, rows));
+        Text(BatchLookbacksCsv.FileName, w => BatchLookbacksCsv.Write(w, rows));
+        Text(BeatsImpliedCsv.FileName, w => BeatsImpliedCsv.Write(w, rows));
+        var assets = Path.Combine(outputFolder, BatchRunner.AssetsFolder);
+        Text(BatchForecastsLongCsv.FileName, w => BatchForecastsLongCsv.Write(w, rows.Where(r => r.Succeeded).Select(r => (r.Name, Path.Combine(assets, r.Name)))));
+        if (plan.Reports != BatchReports.None)
+        {
+            Text("summary.html", w => w.Write(Page(plan, rows, missing)));
+        }
+
+        // Once every file is written in full, the set goes into place even if a stop comes now: the renames take milliseconds.
+        cancellationToken.ThrowIfCancellationRequested();
         Interruption.Process.Uninterrupted(files.Commit);
     }
 

@@ -150,8 +150,9 @@ internal static class BatchCommand
         BatchReduceOutcome outcome;
         try
         {
-            // The first Ctrl-C stops the reduce before its first summary file, or, once it has begun writing them, lets it
-            // write the rest, so summary.csv and summary.html never come from two reduces. A second one ends the process at once.
+            // The first Ctrl-C stops the reduce before the summary files go into place (they are written in full first and
+            // then moved in together), so summary.csv and summary.html never come from two reduces. A second one ends the
+            // process at once, after the moves under way.
             outcome = BatchReducer.Reduce(outputFolder, request, allowMissing, console.Interrupt);
         }
         catch (OperationCanceledException) when (console.Interrupt.IsCancellationRequested)

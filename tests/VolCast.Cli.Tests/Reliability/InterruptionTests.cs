@@ -8,20 +8,38 @@ public sealed class InterruptionTests
     [Fact]
     public void FirstPress_RequestsTheStopAndKeepsTheProcess_TheSecondLetsItEnd()
     {
-        using var interruption = new Interruption();
+        var clock = TimeSpan.FromSeconds(100);
+        using var interruption = new Interruption(() => clock);
 
         Assert.False(interruption.Token.IsCancellationRequested);
         Assert.True(interruption.Press());
         Assert.True(interruption.Token.IsCancellationRequested);
+        clock += TimeSpan.FromMilliseconds(150); // a quick person's second press
         Assert.False(interruption.Press());
+        Assert.False(interruption.Press());
+    }
+
+    [Fact]
+    public void OneCtrlCDeliveredTwice_IsOneStop_NotTheSecondPress()
+    {
+        // timeout -s INT signals the command and then its process group, microseconds apart (GNU coreutils timeout).
+        var clock = TimeSpan.FromSeconds(100);
+        using var interruption = new Interruption(() => clock);
+
+        Assert.True(interruption.Press());
+        clock += TimeSpan.FromMilliseconds(1);
+        Assert.True(interruption.Press());
+        clock += Interruption.SamePress;
         Assert.False(interruption.Press());
     }
 
     [Fact]
     public void SecondPress_DuringMovesIntoPlace_WaitsForThemToFinish()
     {
-        using var interruption = new Interruption();
+        var clock = TimeSpan.FromSeconds(100);
+        using var interruption = new Interruption(() => clock);
         Assert.True(interruption.Press());
+        clock += TimeSpan.FromSeconds(1);
         using var moving = new ManualResetEventSlim();
         using var release = new ManualResetEventSlim();
         var moved = false;
