@@ -28,7 +28,7 @@ public static class GarchFitter
     private const double MaxStep = 3;
 
     // A weight below this during an ascent has reached its face (the tolerance under which a fit reports it on the bound).
-    private const double FaceReached = WeightBoundTolerance;
+    private const double FaceReached = 1e-3;
 
     // Stop the ascent when either α or γ reaches its face.
     private const int AnyWeight = -1;
@@ -146,7 +146,7 @@ public static class GarchFitter
         if (ascent.Message == BfgsMinimizer.StoppedMessage)
         {
             var held = ascent.Parameters.Alpha < ascent.Parameters.Gamma ? GarchLikelihood.Alpha : GarchLikelihood.Gamma;
-            var landed = FitFace(returns, options, ascent.Parameters, null, held, out var landedSlope);
+            var landed = FitFace(returns, options, ascent.Parameters, held == GarchLikelihood.Gamma ? gamma : alpha, held, out var landedSlope);
             if (held == GarchLikelihood.Gamma && Better(landed, gamma))
             {
                 (gamma, gammaSlope) = (landed, landedSlope);
@@ -177,15 +177,17 @@ public static class GarchFitter
             best = alpha;
         }
 
-        // A face that fails the Kuhn-Tucker test is left into the interior. The search stops when the other weight
-        // reaches its own face: from there the ascent continues on that face, whose solution is already known.
-        foreach (var (face, passes, other, otherFit, otherPasses) in new[]
+        // The previous estimate's face, when it fails the Kuhn-Tucker test, is left into the interior, as a warm fit
+        // from the previous estimate would leave it (the other face is only tracked: failing, it is no maximum). The
+        // search stops when the other weight reaches its own face: from there the ascent continues on that face,
+        // whose solution is already known.
+        foreach (var (face, passes, other, otherFit, otherPasses, was) in new[]
         {
-            (gamma, gammaPasses, GarchLikelihood.Alpha, alpha, alphaPasses),
-            (alpha, alphaPasses, GarchLikelihood.Gamma, gamma, gammaPasses),
+            (gamma, gammaPasses, GarchLikelihood.Alpha, alpha, alphaPasses, "gamma"),
+            (alpha, alphaPasses, GarchLikelihood.Gamma, gamma, gammaPasses, "alpha"),
         })
         {
-            if (passes || !face.Converged)
+            if (passes || !face.Converged || !previous.ParametersOnBound.Contains(was))
             {
                 continue;
             }
@@ -289,13 +291,23 @@ public static class GarchFitter
         Func<double[], bool>? stop = null;
         if (stopBelow is int watched)
         {
+            // A weight below FaceReached joins the active set only when the likelihood still pushes it down there
+            // (its derivative in natural coordinates ≤ 0, the sign of a Kuhn-Tucker multiplier); an ascent that dips
+            // towards a face and would come back is left to go on.
             var trial = new double[GarchLikelihood.Count];
+            var trialGradient = new double[GarchLikelihood.Count];
             stop = point =>
             {
                 map.ToNatural(point, trial);
-                return watched == AnyWeight
-                    ? Math.Min(trial[GarchLikelihood.Alpha], trial[GarchLikelihood.Gamma]) < FaceReached
-                    : trial[watched] < FaceReached;
+                var weight = watched != AnyWeight ? watched
+                    : trial[GarchLikelihood.Alpha] < trial[GarchLikelihood.Gamma] ? GarchLikelihood.Alpha : GarchLikelihood.Gamma;
+                if (!(trial[weight] < FaceReached))
+                {
+                    return false;
+                }
+
+                likelihood.Evaluate(trial, trialGradient);
+                return trialGradient[weight] >= 0;
             };
         }
 
