@@ -321,7 +321,7 @@ public static class GarchFitter
         }
 
         var logLikelihood = -(result.Value * counted) - (counted * Math.Log(scale));
-        var omega = Math.Max(q[GarchLikelihood.Omega], double.Epsilon) * scale * scale;
+        var omega = Math.Max(q[GarchLikelihood.Omega] * scale * scale, double.Epsilon);
         var parameters = new GarchParameters(
             q[GarchLikelihood.Mu] * scale, omega, q[GarchLikelihood.Alpha], q[GarchLikelihood.Beta], q[GarchLikelihood.Gamma]);
         var nextVariance = likelihood.NextVariance(q) * scale * scale;
