@@ -28,7 +28,7 @@ public static class GarchFitter
     private const double MaxStep = 3;
 
     // A weight below this during an ascent has reached its face (the tolerance under which a fit reports it on the bound).
-    private const double FaceReached = 1e-3;
+    private const double FaceReached = WeightBoundTolerance;
 
     // Stop the ascent when either α or γ reaches its face.
     private const int AnyWeight = -1;
