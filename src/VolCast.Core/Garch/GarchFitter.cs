@@ -11,7 +11,9 @@ namespace VolCast.Core.Garch;
 /// ω̃ = exp(θ_ω); persistence φ = logistic(θ_φ) ∈ (0, 1); for GARCH α = φ·s, β = φ·(1 − s) with
 /// s = logistic(θ_a); for GJR (α, γ/2, β) = φ·softmax(θ_a, θ_g, 0). This keeps ω &gt; 0, α, β, γ ≥ 0 and
 /// α + β + γ/2 &lt; 1 at every trial point. A maximum on a constraint is approached as an unconstrained coordinate
-/// runs off towards infinity; such an end is reported in <see cref="GarchFit.ParametersOnBound"/>.</para>
+/// runs off towards infinity; such an end is reported in <see cref="GarchFit.ParametersOnBound"/>. That approach is
+/// slow (the gradient fades along the tail), so walk-forward GJR refits from an estimate on γ = 0 or α = 0 fit those
+/// faces directly with the weight exactly zero and test the Kuhn-Tucker condition there (docs/methods.md, GARCH).</para>
 /// <para>Start of the variance recursion (<see cref="GarchFitOptions.Start"/>): by default backcast, σ²₀ = ε²₀ = m with
 /// m = (1/n) Σ (rₜ − μ)² at the μ being tried, so σ²₁ = ω + (α + β + γ/2)·m, as in the Fiorentini, Calzolari and
 /// Panattoni (1996) benchmark; σ²₁ = m is the alternative. The likelihood sums over all n returns.</para>
