@@ -44,8 +44,12 @@ internal sealed record BacktestJob(
     /// <summary>Gets whether the report page and its charts are drawn (the batch may leave them to the summary page).</summary>
     public bool WriteReport { get; init; } = true;
 
-    /// <summary>Gets how many forecaster sessions run at the same time: 0 (the default) for one per core; a batch that keeps every core busy with names passes 1.</summary>
-    public int SessionsInParallel { get; init; }
+    /// <summary>
+    /// Gets how many threads the run keeps busy at once: 0 (the default) for one per core; a batch that keeps every core
+    /// busy with names passes 1. That many forecaster sessions run at the same time, and with two or more the rule's
+    /// trades are computed beside the grouped scores and the odds checks, and the P&amp;L charts drawn beside the others.
+    /// </summary>
+    public int Threads { get; init; }
 
     /// <summary>Gets the file of the user's own forecasts (date, NAME1, NAME2, …), or null.</summary>
     public string? Forecasts { get; init; }

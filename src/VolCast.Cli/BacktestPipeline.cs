@@ -12,9 +12,9 @@ using VolCast.Reports;
 namespace VolCast.Cli;
 
 /// <summary>
-/// One backtest run, top to bottom: check the output folder → load → forecast and score (Core) → calibrate → trade the
-/// rule (Core) → stage a
-/// temporary folder → write the data files (IO) → write the report (Reports) → run.json with the manifest → commit.
+/// One backtest run, top to bottom: check the output folder → load → forecast and score (Core) → calibrate and trade the
+/// rule (Core; side by side when the job may use two threads) → stage a temporary folder → write the data files (IO) →
+/// write the report (Reports) → run.json with the manifest → commit.
 /// Holds no shared state, so jobs for different assets can run side by side.
 /// </summary>
 internal static class BacktestPipeline
@@ -68,6 +68,11 @@ internal static class BacktestPipeline
 
         stage?.Invoke(BacktestStage.Forecast);
         var result = Forecast(job, prices, implied, userForecasts, progress, cancellationToken);
+
+        // Would the rule have paid? The rule as delta-hedged straddles, and the threshold search tested for data snooping.
+        // It reads only the finished backtest, so with a core to spare it runs beside the grouped scores and the odds checks.
+        var spare = (job.Threads == 0 ? Environment.ProcessorCount : job.Threads) > 1;
+        var trading = spare ? Task.Run(() => RulePnlEvaluator.Evaluate(result, prices.History, cancellationToken), cancellationToken) : null;
         var groups = GroupedScores.Compute(result, prices.History, eventList);
 
         // Do the odds hold? N(d2) probabilities at the default strikes and the forecast move bands, on the same dates and prices.
@@ -77,10 +82,9 @@ internal static class BacktestPipeline
         progress?.Report(new BacktestProgress("checking the odds", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
 
-        // Would the rule have paid? The rule as delta-hedged straddles, and the threshold search tested for data snooping.
         stage?.Invoke(BacktestStage.RulePnl);
         progress?.Report(new BacktestProgress("trading the rule", 0, 1));
-        var (rulePnl, absence) = RulePnlEvaluator.Evaluate(result, prices.History, cancellationToken);
+        var (rulePnl, absence) = trading is null ? RulePnlEvaluator.Evaluate(result, prices.History, cancellationToken) : trading.GetAwaiter().GetResult();
         progress?.Report(new BacktestProgress("trading the rule", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
         var info = Info(job, prices, implied, userForecasts, warnings, started, events) with
@@ -107,7 +111,7 @@ internal static class BacktestPipeline
         stage?.Invoke(BacktestStage.WriteReport);
         if (job.WriteReport)
         {
-            files.AddRange(ReportWriter.Write(staging, run, progress, cancellationToken));
+            files.AddRange(ReportWriter.Write(staging, run, progress, spare, cancellationToken));
         }
 
         if (writeMore is not null)
@@ -199,7 +203,7 @@ internal static class BacktestPipeline
         try
         {
             var additional = userForecasts is null ? null : (IReadOnlyList<Core.Forecasters.IVolatilityForecaster>)[.. userForecasts.Forecasters];
-            return Backtester.Run(prices.History, implied?.Series, job.Settings, additional, progress, job.SessionsInParallel, cancellationToken);
+            return Backtester.Run(prices.History, implied?.Series, job.Settings, additional, progress, job.Threads, cancellationToken);
         }
         catch (BacktestDataException ex)
         {

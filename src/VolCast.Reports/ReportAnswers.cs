@@ -79,7 +79,7 @@ internal static class ReportAnswers
         {
             tables.Add(new TextTable(
                 "Which lookback",
-                ["Family", "Best in-sample", "Walk-forward choice (last date)", "Tied with the best", "Most chosen out of sample", "Changes", "Dates"],
+                ["Family", "Best in-sample", "Walk-forward choice (last date)", "Tied with the best", "Most chosen out of sample", "Changes", "Dates every lookback scored"],
                 [.. result.Lookbacks.Select(a => (IReadOnlyList<string>)[
                     a.Family,
                     (a.InSampleBest ?? "—") + " (in-sample)",
@@ -88,7 +88,7 @@ internal static class ReportAnswers
                     a.MostChosen is null ? "—" : string.Create(C, $"{a.MostChosen} ({a.MostChosenShare * 100:0}%)"),
                     a.ChangeCount.ToString(C),
                     a.CommonDates.ToString(C)])],
-                string.Create(C, $"Tied: the {(result.Lookbacks[0].Level * 100):0}% model confidence set over the family's lookbacks on QLIKE (moving-block bootstrap, blocks at least the horizon). The in-sample best was picked after seeing every date; only the walk-forward choice could have been used at the time.")));
+                string.Create(C, $"Tied: the {(result.Lookbacks[0].Level * 100):0}% model confidence set over the family's lookbacks on QLIKE (moving-block bootstrap, blocks at least the horizon). The in-sample best was picked after seeing every date; only the walk-forward choice could have been used at the time. The dates are those on which every lookback of the family has a forecast and a known target, the dates the in-sample best and the ties are judged on; the walk-forward choice exists on slightly different dates (its own table under Metrics counts them).")));
         }
 
         var years = groups.Rows.Where(r => r.Grouping == "year").Select(r => r.Group).Distinct().Count();

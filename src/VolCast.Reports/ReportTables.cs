@@ -26,7 +26,7 @@ internal static class ReportTables
 
         if (result.RuleTest is RuleTestResult rule)
         {
-            tables.Add(Rule(rule, result.HacLag));
+            tables.Add(Rule(rule, result.HacLag, result.Settings.Trading.Sides == Core.Trading.RuleSides.Both));
         }
 
         return tables;
@@ -168,11 +168,17 @@ internal static class ReportTables
                 $"The in-sample best is picked with hindsight over the whole sample (look-ahead, for reference only); the adaptive forecaster picks, each date, the lookback with the lowest QLIKE over the previous {result.Settings.SelectionWindowDays} trading days whose targets were known."));
     }
 
-    private static MetricTable Rule(RuleTestResult rule, int lag)
+    private static MetricTable Rule(RuleTestResult rule, int lag, bool buys)
     {
         var rows = new List<MetricRow>();
         foreach (var row in rule.Rows)
         {
+            if (row.Signal == RuleSignal.BuyVolatility && !buys)
+            {
+                // The traded rules sell only (ruleSides sell-only): buy signals are not part of the rule being judged.
+                continue;
+            }
+
             var against = row.Signal == RuleSignal.AllDates ? null : SignalledAgainstAll.Compute(rule, row.Source != rule.ForecastSpec, row.Signal, lag);
             var signal = row.Signal switch
             {
@@ -192,11 +198,11 @@ internal static class ReportTables
         }
 
         return new MetricTable(
-            string.Create(CultureInfo.InvariantCulture, $"Rule test: sell volatility when implied exceeds the forecast by more than {rule.ThresholdVolatility * 100:0.0} points (buy for the mirror)"),
+            string.Create(CultureInfo.InvariantCulture, $"Rule test: sell volatility when implied exceeds the forecast by more than {rule.ThresholdVolatility * 100:0.0} points{(buys ? " (buy for the mirror)" : string.Empty)}"),
             [Dates, new("Hit rate", "% of dates the side was right"), new("Mean IV − RV", "vol points"), new("Standard error", "vol points, HAC"), new("Signalled − all dates", "vol points"), new("p", "signalled against all dates")],
             rows,
             string.Create(CultureInfo.InvariantCulture,
-                $"{RuleTestResult.Caution} The test is the question the rule asks: was implied − realized different on the signalled dates from all dates? p is the Newey-West t-test (lag {lag}, the nominal horizon in trading days) of b in IV − RV = a + b·signalled over all dates."));
+                $"{RuleTestResult.Caution} The test is the question the rule asks: was implied − realized different on the signalled dates from all dates? p is the Newey-West t-test (lag {lag}, the nominal horizon in trading days) of b in IV − RV = a + b·signalled over all dates.{(buys ? string.Empty : " The rule sells only (ruleSides: sell-only), so buy signals are not shown here; metrics.json and summary.txt keep them.")}"));
     }
 
     private static double? Parameter(string? spec)

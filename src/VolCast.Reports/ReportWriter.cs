@@ -44,22 +44,23 @@ public static class ReportWriter
     internal static ReportModel Build(BacktestRun run, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(run);
-        return Build(run, Cone(run.Result, run.Prices), null, cancellationToken);
+        return Build(run, Cone(run.Result, run.Prices), null, false, cancellationToken);
     }
 
     /// <summary>Builds the report and writes report.html, its PNGs and, when the cone is drawn, cone.csv (its numbers) into <paramref name="folder"/>.</summary>
     /// <param name="folder">The folder to write to (the caller's staging folder); created when missing.</param>
     /// <param name="run">The run.</param>
     /// <param name="progress">Receives one report per chart drawn ("drawing charts") and one when the page is written, or null.</param>
+    /// <param name="drawBeside">Whether the P&amp;L section's charts are drawn on another thread beside the others (when a core is free).</param>
     /// <param name="cancellationToken">Stops between charts, before the page is rendered and between files.</param>
     /// <returns>The file names written (without the folder).</returns>
     /// <exception cref="IOException">A report file already exists in the folder.</exception>
     /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
-    public static IReadOnlyList<string> Write(string folder, BacktestRun run, IProgress<BacktestProgress>? progress = null, CancellationToken cancellationToken = default)
+    public static IReadOnlyList<string> Write(string folder, BacktestRun run, IProgress<BacktestProgress>? progress = null, bool drawBeside = false, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(run);
         var cone = Cone(run.Result, run.Prices);
-        var model = Build(run, cone, progress, cancellationToken);
+        var model = Build(run, cone, progress, drawBeside, cancellationToken);
         progress?.Report(new BacktestProgress("writing the report", 0, 1));
         var written = ReportFiles.Write(model, folder, overwrite: false, cancellationToken).Select(Path.GetFileName).OfType<string>().ToList();
         if (cone.Horizons.Count > 0)
@@ -84,17 +85,18 @@ public static class ReportWriter
         return VolatilityCone.Compute(Returns.LogReturns(close), VolatilityCone.DefaultHorizons, result.Settings.AnnualizationFactor);
     }
 
-    private static ReportModel Build(BacktestRun run, VolatilityConeResult cone, IProgress<BacktestProgress>? progress, CancellationToken cancellationToken)
+    private static ReportModel Build(BacktestRun run, VolatilityConeResult cone, IProgress<BacktestProgress>? progress, bool drawBeside, CancellationToken cancellationToken)
     {
         var result = run.Result;
         var info = run.Info;
         var pricesFile = info.Inputs.FirstOrDefault(i => i.Role == "prices")?.Path ?? "prices";
         var title = string.Create(CultureInfo.InvariantCulture,
             $"Volatility forecast backtest: {Path.GetFileNameWithoutExtension(pricesFile)}, {HorizonText(result.Settings.Horizon)}");
+        var pnlBeside = drawBeside ? Task.Run(() => ReportPnl.Build(run.RulePnl, run.RulePnlAbsence, result.Settings.Horizon, cancellationToken), cancellationToken) : null;
         var charts = Charts(result, cone, progress, cancellationToken);
         cancellationToken.ThrowIfCancellationRequested();
         var odds = ReportOdds.Build(result, run.Calibration);
-        var pnl = ReportPnl.Build(run.RulePnl, run.RulePnlAbsence, result.Settings.Horizon, cancellationToken);
+        var pnl = pnlBeside is null ? ReportPnl.Build(run.RulePnl, run.RulePnlAbsence, result.Settings.Horizon, cancellationToken) : pnlBeside.GetAwaiter().GetResult();
         var quality = Quality(result, info, run.PriceRowsRead);
         return new ReportModel(
             title,

@@ -45,8 +45,8 @@ internal sealed record BatchAssetJob(
     /// <summary>Gets the configuration file's SHA-256, hashed once for the whole batch, or null to hash it here.</summary>
     public string? ConfigSha256 { get; init; }
 
-    /// <summary>Gets how many of the name's forecaster sessions run at the same time (0 for one per core).</summary>
-    public int SessionsInParallel { get; init; }
+    /// <summary>Gets how many threads the name keeps busy at once (0 for one per core): see <see cref="BacktestJob.Threads"/>.</summary>
+    public int Threads { get; init; }
 
     /// <summary>Gets which report pages are drawn; with <see cref="BatchReports.Full"/> a kept folder must hold its report page too.</summary>
     public BatchReports Reports { get; init; } = BatchReports.Full;
@@ -85,7 +85,7 @@ internal sealed record BatchAssetJob(
                 Format = Format,
                 ImpliedTenorDays = ImpliedTenorDays,
                 WriteReport = Reports == BatchReports.Full,
-                SessionsInParallel = SessionsInParallel,
+                Threads = Threads,
                 Checks = Checks,
                 Workbook = Workbook,
             };

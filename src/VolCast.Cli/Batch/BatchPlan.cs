@@ -70,13 +70,18 @@ internal sealed record BatchPlan(
         static string Shown(string? value) => string.IsNullOrEmpty(value) ? "(not set)" : value;
     }
 
-    /// <summary>Writes the plan into the output folder atomically, replacing an older one.</summary>
+    /// <summary>
+    /// Writes the plan into the output folder atomically, replacing an older one, and removes what a shard killed while
+    /// writing it left behind: temporary plan files (<c>.batch-plan.json.*.tmp</c>) older than
+    /// <see cref="StaleTemporaryAge"/>. A younger one may be another shard's write in progress and is left alone.
+    /// </summary>
     /// <param name="outputFolder">The batch's output folder.</param>
     /// <exception cref="IOException">The plan cannot be written and no identical plan is there.</exception>
     public void Write(string outputFolder)
     {
         var text = Serialize();
         var path = Path.Combine(outputFolder, FileName);
+        RemoveStaleTemporaries(outputFolder, DateTime.UtcNow);
         try
         {
             AtomicFile.WriteText(path, w => w.Write(text), overwrite: true);
@@ -90,6 +95,38 @@ internal sealed record BatchPlan(
                 throw;
             }
         }
+    }
+
+    /// <summary>How old a temporary plan file must be before a later run removes it: a plan is written in milliseconds.</summary>
+    internal static readonly TimeSpan StaleTemporaryAge = TimeSpan.FromMinutes(10);
+
+    /// <summary>Removes temporary plan files last written more than <see cref="StaleTemporaryAge"/> before <paramref name="now"/>.</summary>
+    /// <returns>The files removed.</returns>
+    internal static IReadOnlyList<string> RemoveStaleTemporaries(string outputFolder, DateTime now)
+    {
+        var removed = new List<string>();
+        if (!Directory.Exists(outputFolder))
+        {
+            return removed;
+        }
+
+        foreach (var file in Directory.EnumerateFiles(outputFolder, "." + FileName + ".*.tmp"))
+        {
+            try
+            {
+                if (now - File.GetLastWriteTimeUtc(file) > StaleTemporaryAge)
+                {
+                    File.Delete(file);
+                    removed.Add(file);
+                }
+            }
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+            {
+                // Removed by another run at the same moment, or not ours to remove: it is never read either way.
+            }
+        }
+
+        return removed;
     }
 
     /// <summary>Reads the plan from an output folder, or returns null when the folder holds none.</summary>

@@ -83,10 +83,10 @@ internal static class BatchRunner
         var computeTime = TimeSpan.Zero;
         var cancelled = false;
 
-        // Names already share the cores between them: a name's own sessions then run one after another, which saves the
-        // threads' coordination (about a quarter of the forecasting CPU in bench/README.md, "Per name"). With fewer
-        // workers than cores, each name's sessions use the cores left over.
-        var sessionsInParallel = Math.Max(1, Environment.ProcessorCount / Math.Max(1, request.Jobs));
+        // Names already share the cores between them: a name's own work then runs on one thread, which saves the threads'
+        // coordination (about a quarter of the forecasting CPU in bench/README.md, "Per name"). With fewer workers than
+        // cores, each name uses the cores left over.
+        var threads = Math.Max(1, Environment.ProcessorCount / Math.Max(1, request.Jobs));
         try
         {
             Parallel.For(
@@ -107,7 +107,7 @@ internal static class BatchRunner
                             Format = request.Format,
                             ImpliedTenorDays = request.ImpliedTenorDays,
                             Reports = request.Reports,
-                            SessionsInParallel = sessionsInParallel,
+                            Threads = threads,
                             FailureFolder = request.Shard is null ? null : Path.Combine(request.OutputFolder, FailuresFolder, asset.Name),
                             Checks = request.Checks,
                             Workbook = request.Workbook,

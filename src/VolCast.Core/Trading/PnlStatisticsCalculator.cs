@@ -35,10 +35,31 @@ internal static class PnlStatisticsCalculator
         return new NeweyWestMeanTest(n, used, mean, error, t, 2 * StandardNormal.Cdf(-Math.Abs(t)));
     }
 
+    /// <summary>The total, the P&amp;L per year and the annualized Sharpe ratio of a daily path (all a threshold sweep row needs).</summary>
+    public static (double Total, double PerYear, double? Sharpe) Summary(ReadOnlySpan<double> path, double annualizationDays)
+    {
+        var n = path.Length;
+        double sum = 0;
+        for (var i = 0; i < n; i++)
+        {
+            sum += path[i];
+        }
+
+        var mean = sum / n;
+        double squares = 0;
+        for (var i = 0; i < n; i++)
+        {
+            squares += (path[i] - mean) * (path[i] - mean);
+        }
+
+        var sd = n > 1 ? Math.Sqrt(squares / (n - 1)) : 0;
+        return (sum, sum / (n / annualizationDays), sd > 0 ? mean / sd * Math.Sqrt(annualizationDays) : null);
+    }
+
     public static PathStatistics Path(ReadOnlySpan<double> path, ReadOnlySpan<DateOnly> dates, double annualizationDays)
     {
         var n = path.Length;
-        double sum = 0, cumulative = 0, peak = 0, drawdown = 0;
+        double cumulative = 0, peak = 0, drawdown = 0;
         int peakIndex = -1, troughIndex = -1, runningPeak = -1;
         var byYear = new List<YearPnl>();
         var worstMonth = new DateOnly(dates[0].Year, dates[0].Month, 1);
@@ -49,7 +70,6 @@ internal static class PnlStatisticsCalculator
         for (var i = 0; i < n; i++)
         {
             var x = path[i];
-            sum += x;
             cumulative += x;
             if (cumulative > peak)
             {
@@ -91,24 +111,21 @@ internal static class PnlStatisticsCalculator
         }
 
         byYear.Add(new YearPnl(year, yearSum));
+        var (sum, perYear, sharpe) = Summary(path, annualizationDays);
         var mean = sum / n;
-        double squares = 0, downside = 0;
+        double downside = 0;
         for (var i = 0; i < n; i++)
         {
-            squares += (path[i] - mean) * (path[i] - mean);
             var loss = Math.Min(path[i], 0);
             downside += loss * loss;
         }
 
-        var scale = Math.Sqrt(annualizationDays);
-        var sd = n > 1 ? Math.Sqrt(squares / (n - 1)) : 0;
         var downsideDeviation = Math.Sqrt(downside / n);
-        double? sharpe = sd > 0 ? mean / sd * scale : null;
-        double? sortino = downsideDeviation > 0 ? mean / downsideDeviation * scale : null;
+        double? sortino = downsideDeviation > 0 ? mean / downsideDeviation * Math.Sqrt(annualizationDays) : null;
         return new PathStatistics(
             n,
             sum,
-            sum / (n / annualizationDays),
+            perYear,
             sharpe,
             sortino,
             drawdown,

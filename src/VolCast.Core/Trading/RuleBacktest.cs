@@ -38,11 +38,15 @@ internal static class RuleBacktest
     /// <param name="historical">The plain historical estimate's series.</param>
     /// <param name="settings">The settings.</param>
     /// <param name="lastDate">The last forecast date, for the walk-forward threshold's choice on it (<see cref="RuleBacktestResult.WalkForwardToday"/>), or null.</param>
+    /// <param name="shared">
+    /// Trades already evaluated by another run on the same prices, implied series, horizon and trade settings (another
+    /// entry timing), from <see cref="SharedTrades"/>; used when the hedge is at the entry implied. Null evaluates afresh.
+    /// </param>
     /// <returns>The result.</returns>
     /// <exception cref="ArgumentException">A series is misaligned or holds an invalid volatility, a setting is out of range,
     /// the horizon is below two trading days, no date can fire, or the proposed rule never fires.</exception>
     public static RuleBacktestResult Run(
-        PriceHistory prices, IReadOnlyList<double?> implied, BacktestHorizon horizon, RuleForecast proposed, RuleForecast current, RuleForecast historical, TradingSettings settings, DateOnly? lastDate = null)
+        PriceHistory prices, IReadOnlyList<double?> implied, BacktestHorizon horizon, RuleForecast proposed, RuleForecast current, RuleForecast historical, TradingSettings settings, DateOnly? lastDate = null, EntryTrades? shared = null)
     {
         ArgumentNullException.ThrowIfNull(prices);
         ArgumentNullException.ThrowIfNull(implied);
@@ -69,7 +73,7 @@ internal static class RuleBacktest
         var length = end - start + 1;
         var dates = prices.Dates.Slice(start, length).ToArray();
         var weight = 1.0 / h;
-        var books = BuildBooks(prices, iv, series, firing, entry, expiry, settings);
+        var books = BuildBooks(prices, iv, series, firing, entry, expiry, settings, shared ?? new EntryTrades(prices.Dates.ToArray(), prices.Close.ToArray(), iv, windows.WindowDays, settings));
 
         var context = new Context(prices, iv, firing, books, start, length, dates, weight, h, settings);
         var sell = new sbyte[m];
@@ -195,20 +199,28 @@ internal static class RuleBacktest
         return (entry, expiry);
     }
 
-    /// <summary>One book per hedge volatility series: the entry implied (shared), or each forecaster's.</summary>
-    private static TradeBook[] BuildBooks(PriceHistory prices, double?[] iv, double?[][] series, List<int> firing, int[] entry, int[] expiry, TradingSettings settings)
+    /// <summary>
+    /// The store of trades hedged at the entry implied that the runs of both entry timings on the same inputs can share
+    /// (<see cref="EntryTrades"/>): pass it to each <see cref="Run"/>.
+    /// </summary>
+    public static EntryTrades SharedTrades(PriceHistory prices, IReadOnlyList<double?> implied, BacktestHorizon horizon, TradingSettings settings)
+    {
+        ArgumentNullException.ThrowIfNull(prices);
+        ArgumentNullException.ThrowIfNull(implied);
+        ArgumentNullException.ThrowIfNull(horizon);
+        ArgumentNullException.ThrowIfNull(settings);
+        var windows = RealizedWindows.Compute(prices, horizon, RealizedTarget.SquaredReturns, settings.AnnualizationDays);
+        return new EntryTrades(prices.Dates.ToArray(), prices.Close.ToArray(), Checked(implied, prices.Count, nameof(implied), TradingGuard.Volatility), windows.WindowDays, settings);
+    }
+
+    /// <summary>One book per hedge volatility series: the entry implied (one book, from the shared store), or each forecaster's.</summary>
+    private static TradeBook[] BuildBooks(PriceHistory prices, double?[] iv, double?[][] series, List<int> firing, int[] entry, int[] expiry, TradingSettings settings, EntryTrades store)
     {
         var m = firing.Count;
         var books = new TradeBook[3];
         if (settings.HedgeVolatility == HedgeVolatility.Implied)
         {
-            var hedge = new double[m];
-            for (var i = 0; i < m; i++)
-            {
-                hedge[i] = iv[entry[i]]!.Value;
-            }
-
-            books[0] = books[1] = books[2] = TradeBook.Build(prices.Dates, prices.Close, entry, expiry, hedge, iv, settings);
+            books[0] = books[1] = books[2] = TradeBook.FromEntries(store, entry, expiry);
             return books;
         }
 
@@ -255,10 +267,10 @@ internal static class RuleBacktest
                 {
                     perThreshold[j] = Signals(context.Implied, series[k], context.Firing, thresholds[j], sides);
                     var ladder = context.Books[k].Ladder(perThreshold[j], context.Weight, context.Start, length, false);
-                    var net = PnlStatisticsCalculator.Path(ladder.Net, context.Dates, settings.AnnualizationDays);
-                    var gross = PnlStatisticsCalculator.Path(ladder.Gross, context.Dates, settings.AnnualizationDays);
+                    var net = PnlStatisticsCalculator.Summary(ladder.Net, settings.AnnualizationDays);
+                    var gross = PnlStatisticsCalculator.Summary(ladder.Gross, settings.AnnualizationDays);
                     var label = string.Create(CultureInfo.InvariantCulture, $"{forecasts[k].Spec}|{SidesName(sides)}|{thresholds[j]}");
-                    sweep.Add(new ThresholdSweepRow(label, roles[k], forecasts[k].Spec, sides, thresholds[j], ladder.Trades, net.PnlPerYear, gross.PnlPerYear, net.Sharpe, gross.Sharpe));
+                    sweep.Add(new ThresholdSweepRow(label, roles[k], forecasts[k].Spec, sides, thresholds[j], ladder.Trades, net.PerYear, gross.PerYear, net.Sharpe, gross.Sharpe));
                     var d = new double[length];
                     for (var t = 0; t < length; t++)
                     {

@@ -79,9 +79,11 @@ public static class RulePnlEvaluator
         var trading = settings.Trading with { Threshold = settings.RuleThreshold, AnnualizationDays = settings.AnnualizationFactor };
         try
         {
-            var atClose = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading, result.Dates[^1]);
+            // Both entry timings enter mostly on the same closes: each trade is evaluated once for both.
+            var shared = RuleBacktest.SharedTrades(prices, implied, settings.Horizon, trading);
+            var atClose = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading, result.Dates[^1], shared);
             cancellationToken.ThrowIfCancellationRequested();
-            var nextDay = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading with { EntryTiming = EntryTiming.NextClose });
+            var nextDay = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading with { EntryTiming = EntryTiming.NextClose }, shared: shared);
             cancellationToken.ThrowIfCancellationRequested();
 
             var options = new DataSnoopingOptions(settings.SnoopingBlockLength ?? AutomaticBlockLength.Of(atClose.SnoopingDifferences, atClose.HorizonDays), settings.SnoopingSeed, settings.SnoopingReplications);

@@ -61,14 +61,14 @@ internal static class PnlCharts
     }
 
     /// <summary>
-    /// Cumulative net P&amp;L of always-sell and the proposed rule on both daily marks: at the quoted implied (solid) and
-    /// at each trade's entry implied, the gamma-against-theta path (dashed).
+    /// Cumulative net P&amp;L of always-sell and the proposed rule on both daily marks: at the quoted implied (a thin line)
+    /// and at each trade's entry implied, the gamma-against-theta path (a wide pale band under it).
     /// </summary>
     public static ChartImage Marks(ImmutableArray<DateOnly> dates, IReadOnlyList<RulePnl> rules)
     {
         using var plot = BuildMarks(dates, rules);
         return new ChartImage(MarksFileName, "The same trades on two daily marks",
-            "Running sum of the daily net P&L in vol points of always-sell and the proposed rule (trades on every signal, each sized 1/h, h the horizon in trading days). Solid: each open trade marked at that day's quoted implied volatility (the path the drawdown, Sharpe and Sortino use). Dashed: marked at the trade's own entry implied, so only the hedged moves of spot count (gamma against theta). Each trade's marks sum to its P&L at expiry on both, so the lines meet wherever no trade is open; the gap shows the losses and gains of implied moving mid-trade. The other rules' paths are in rule-pnl.csv (column pnl_entry_vol).",
+            "Running sum of the daily net P&L in vol points of always-sell and the proposed rule (trades on every signal, each sized 1/h, h the horizon in trading days). Thin line: each open trade marked at that day's quoted implied volatility (the path the drawdown, Sharpe and Sortino use). Wide pale band of the same colour: marked at the trade's own entry implied, so only the hedged moves of spot count (gamma against theta). Each trade's marks sum to its P&L at expiry on both, so the line returns to its band wherever no trade is open; where it leaves the band, implied moved mid-trade. The other rules' paths are in rule-pnl.csv (column pnl_entry_vol).",
             ChartStyle.Png(plot));
     }
 
@@ -95,14 +95,15 @@ internal static class PnlCharts
                     $"The {RuleNames.Name(rule.Rule)} rule's daily paths have {rule.DailyPnl.Length} and {rule.DailyPnlEntryVol.Length} values but there are {xs.Length} dates; expected one per date."), nameof(rules));
             }
 
+            // The two marks of one rule mostly coincide: the entry-implied path is drawn first as a wide pale band and the
+            // quoted-implied path on it as a thin line, so the line leaving its band is where implied moved mid-trade.
             var color = ChartStyle.Rule(rule.Rule);
-            foreach (var (daily, dashed, label) in new[] { (rule.DailyPnl, false, "marked at quoted implied"), (rule.DailyPnlEntryVol, true, "marked at entry implied") })
+            foreach (var (daily, band, label) in new[] { (rule.DailyPnlEntryVol, true, "marked at entry implied (pale band)"), (rule.DailyPnl, false, "marked at quoted implied (line)") })
             {
                 var (cx, cy) = ChartPoints.Line(xs, CumulativeSum(daily));
                 var line = plot.Add.ScatterLine(cx, cy);
-                line.Color = color;
-                line.LineWidth = 2f;
-                line.LinePattern = dashed ? LinePattern.Dashed : LinePattern.Solid;
+                line.Color = band ? color.WithAlpha(0.3) : color;
+                line.LineWidth = band ? 7f : 1.6f;
                 line.LegendText = RuleNames.Name(rule.Rule) + ", " + label;
             }
         }

@@ -71,6 +71,35 @@ public sealed class RuleBacktestTests
         Assert.True(net.PnlPerYear.High < always.OneAtATimeRangeZeroCost.PnlPerYear.High);
     }
 
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void Run_TradesSharedBetweenTheTwoEntryTimings_GiveTheSameResultsAsEachRunAlone(bool tenor)
+    {
+        // A trade depends only on its entry close, so a next-day run that reuses the firing-close run's trades must give
+        // what it gives when it prices every trade itself, to the bit: every path, trade and sweep row.
+        var (prices, implied, proposed, current, historical) = Market(5, 600);
+        var horizon = tenor ? BacktestHorizon.Tenor(30) : BacktestHorizon.Days(21);
+        var settings = new TradingSettings { Sides = RuleSides.Both };
+        var nextDay = settings with { EntryTiming = EntryTiming.NextClose };
+        var shared = RuleBacktest.SharedTrades(prices, implied, horizon, settings);
+        var closeShared = RuleBacktest.Run(prices, implied, horizon, proposed, current, historical, settings, shared: shared);
+        var nextShared = RuleBacktest.Run(prices, implied, horizon, proposed, current, historical, nextDay, shared: shared);
+        var closeAlone = RuleBacktest.Run(prices, implied, horizon, proposed, current, historical, settings);
+        var nextAlone = RuleBacktest.Run(prices, implied, horizon, proposed, current, historical, nextDay);
+        foreach (var (a, b) in new[] { (closeShared, closeAlone), (nextShared, nextAlone) })
+        {
+            Assert.Equal(b.Sweep.ToArray(), a.Sweep.ToArray());
+            for (var r = 0; r < b.Rules.Length; r++)
+            {
+                Assert.Equal(b.Rules[r].DailyPnl.ToArray(), a.Rules[r].DailyPnl.ToArray());
+                Assert.Equal(b.Rules[r].DailyPnlEntryVol.ToArray(), a.Rules[r].DailyPnlEntryVol.ToArray());
+                Assert.Equal(b.Rules[r].Trades.ToArray(), a.Rules[r].Trades.ToArray());
+                Assert.Equal(b.Rules[r].TradeStatisticsNet, a.Rules[r].TradeStatisticsNet);
+            }
+        }
+    }
+
     /// <summary>
     /// A simulated market at 20% volatility where implied is quoted 3 vol points high, a forecaster that knows the truth
     /// (20%), a noisier baseline around 21%, and a historical one that forecasts 21%.

@@ -254,5 +254,17 @@ public sealed class TradingInvariantTests
         }
 
         Assert.Equal(row.PnlPerYear, result[TradingRule.Proposed].PathNet.PnlPerYear, 12);
+
+        // The sweep row's figures are the rule's own path figures, to the bit, and its Sharpe ratio is the mean over the
+        // sample standard deviation (divisor n − 1) times the square root of the trading days a year (Sharpe 1994),
+        // recomputed here with Math.NET's statistics.
+        var rule = result[TradingRule.Proposed];
+        Assert.Equal(rule.PathNet.PnlPerYear, row.PnlPerYear);
+        Assert.Equal(rule.PathNet.Sharpe, row.Sharpe);
+        Assert.Equal(rule.PathZeroCost.PnlPerYear, row.PnlPerYearZeroCost);
+        Assert.Equal(rule.PathZeroCost.Sharpe, row.SharpeZeroCost);
+        var annual = new TradingSettings().AnnualizationDays;
+        var expected = MathNet.Numerics.Statistics.Statistics.Mean(proposedPath) / MathNet.Numerics.Statistics.Statistics.StandardDeviation(proposedPath) * Math.Sqrt(annual);
+        Assert.Equal(expected, row.Sharpe!.Value, 10);
     }
 }

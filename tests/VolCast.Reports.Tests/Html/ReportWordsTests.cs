@@ -110,6 +110,21 @@ public sealed partial class ReportWordsTests
     }
 
     [Fact]
+    public void RuleTable_ShowsBuySignalsOnlyWhenTheRuleBuys()
+    {
+        // The traded rules sell only by default (ruleSides sell-only), so buy rows would judge a side nobody trades.
+        var sellOnly = ReportTables.Build(Result).Single(t => t.Title.StartsWith("Rule test", StringComparison.Ordinal));
+        Assert.DoesNotContain(sellOnly.Rows, r => r.Label.Contains("buy signals", StringComparison.Ordinal));
+        Assert.Contains(sellOnly.Rows, r => r.Label.Contains("sell signals", StringComparison.Ordinal));
+        Assert.Contains("buy signals are not shown", sellOnly.Note, StringComparison.Ordinal);
+
+        var both = Backtester.Run(Scenario.Index, Scenario.Implied, Settings with { Trading = new Core.Trading.TradingSettings { Sides = Core.Trading.RuleSides.Both } });
+        var bothTable = ReportTables.Build(both).Single(t => t.Title.StartsWith("Rule test", StringComparison.Ordinal));
+        Assert.Contains(bothTable.Rows, r => r.Label.Contains("buy signals", StringComparison.Ordinal));
+        Assert.EndsWith("(buy for the mirror)", bothTable.Title, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void PValues_BelowOneInAThousand_AreWrittenLessThanOnlyOneWay()
     {
         Assert.DoesNotContain("= &lt; 0.0", Html, StringComparison.Ordinal);

@@ -306,11 +306,11 @@ public sealed class PnlSectionTests : IDisposable
     }
 
     [Fact]
-    public void MarksChart_PlotsEachPathsRunningSumInTheRulesColour_SolidQuotedDashedEntry()
+    public void MarksChart_PlotsEachPathsRunningSumInTheRulesColour_ThinQuotedLineOverAPaleEntryBand()
     {
         // The plot data, against the record: always-sell and the proposed rule, each on both marks; the last point of a
-        // line is the path's total, summed here independently; the solid line is the quoted-implied mark the drawdown
-        // uses, the dashed one the entry-implied (gamma-against-theta) mark.
+        // line is the path's total, summed here independently; the thin line is the quoted-implied mark the drawdown
+        // uses, drawn over the entry-implied (gamma-against-theta) mark as a wide pale band of the same hue.
         var close = Report.AtClose;
         using var plot = PnlCharts.BuildMarks(close.Dates, close.Rules);
         var lines = plot.GetPlottables().OfType<ScottPlot.Plottables.Scatter>().ToArray();
@@ -318,12 +318,12 @@ public sealed class PnlSectionTests : IDisposable
         foreach (var rule in close.Rules.Where(r => r.Rule is TradingRule.AlwaysSell or TradingRule.Proposed))
         {
             var name = RuleNames.Name(rule.Rule);
-            var quoted = lines.Single(l => l.LegendText == name + ", marked at quoted implied");
-            var entry = lines.Single(l => l.LegendText == name + ", marked at entry implied");
+            var quoted = lines.Single(l => l.LegendText == name + ", marked at quoted implied (line)");
+            var entry = lines.Single(l => l.LegendText == name + ", marked at entry implied (pale band)");
             Assert.Equal(ChartStyle.Rule(rule.Rule), quoted.Color);
-            Assert.Equal(ChartStyle.Rule(rule.Rule), entry.Color);
-            Assert.Equal(ScottPlot.LinePattern.Solid, quoted.LinePattern);
-            Assert.Equal(ScottPlot.LinePattern.Dashed, entry.LinePattern);
+            Assert.Equal(ChartStyle.Rule(rule.Rule).WithAlpha(0.3), entry.Color);
+            Assert.True(entry.LineWidth > 3 * quoted.LineWidth);
+            Assert.True(Array.IndexOf(lines, entry) < Array.IndexOf(lines, quoted), "the band is drawn first, under the line");
             var quotedPoints = quoted.Data.GetScatterPoints();
             var entryPoints = entry.Data.GetScatterPoints();
             Assert.Equal(close.Dates.Length, quotedPoints.Count);
