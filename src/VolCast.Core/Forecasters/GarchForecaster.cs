@@ -6,7 +6,9 @@ namespace VolCast.Core.Forecasters;
 
 /// <summary>
 /// Walk-forward GARCH(1,1) or GJR-GARCH(1,1): refit every R days on a rolling (or expanding) window of returns,
-/// warm-started from the last good fit (compared with a cold fit when the warm one ends on a constraint), with the variance filter updated every day between refits; the forecast is
+/// warm-started from the last good fit (compared with a cold fit when the warm one ends on a constraint; a GJR fit on
+/// γ = 0 or α = 0 is refitted on those faces, see <see cref="GarchFitter"/>), with the variance filter updated every
+/// day between refits; the forecast is
 /// the annualized average of the expected daily variances over the horizon (<see cref="GarchHorizon.AverageVariance"/>).
 /// </summary>
 /// <remarks>

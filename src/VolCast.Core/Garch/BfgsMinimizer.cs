@@ -9,6 +9,9 @@ internal static class BfgsMinimizer
     /// <summary>Evaluates the objective at a point and writes its gradient.</summary>
     public delegate double Objective(ReadOnlySpan<double> point, Span<double> gradient);
 
+    /// <summary>The message of a search ended by its stop test.</summary>
+    public const string StoppedMessage = "The search was stopped by the caller's test.";
+
     private const double Armijo = 1e-4;
     private const int MaxBacktracks = 40;
 
@@ -19,13 +22,15 @@ internal static class BfgsMinimizer
     /// <param name="gradientTolerance">Converged when every gradient component is below this in absolute value.</param>
     /// <param name="maxIterations">The most accepted steps to take.</param>
     /// <param name="maxStep">The largest change allowed in any coordinate in one step.</param>
+    /// <param name="stop">Called with each accepted point; true ends the search there (not converged), or null.</param>
     public static BfgsResult Minimize(
         Objective objective,
         ReadOnlySpan<double> start,
         double[]? inverseHessian,
         double gradientTolerance,
         int maxIterations,
-        double maxStep)
+        double maxStep,
+        Func<double[], bool>? stop = null)
     {
         var n = start.Length;
         var x = start.ToArray();
@@ -75,6 +80,10 @@ internal static class BfgsMinimizer
             (x, xNew) = (xNew, x);
             (g, gNew) = (gNew, g);
             fx = fNew;
+            if (stop is not null && MaxAbs(g) >= gradientTolerance && stop(x))
+            {
+                return new BfgsResult(x, fx, g, h, iteration + 1, false, StoppedMessage);
+            }
         }
 
         var converged = MaxAbs(g) < gradientTolerance;

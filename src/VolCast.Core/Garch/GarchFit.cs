@@ -60,4 +60,10 @@ public sealed record GarchFit
 
     /// <summary>Gets the optimizer state to warm-start the next fit from.</summary>
     internal double[]? InverseHessian { get; init; }
+
+    /// <summary>Gets the walk-forward refit's solution on the face γ = 0 of GJR, to warm-start the next one from (or null).</summary>
+    internal GarchFit? GammaFace { get; init; }
+
+    /// <summary>Gets the walk-forward refit's solution on the face α = 0 of GJR, to warm-start the next one from (or null).</summary>
+    internal GarchFit? AlphaFace { get; init; }
 }
