@@ -16,16 +16,19 @@ namespace VolCast.Cli.Batch;
 internal static class BatchSummaryWriter
 {
     /// <summary>
-    /// Removes what killed batches or reduces left beside the summary files and the plan (hidden temporary files of processes
-    /// that no longer run); a batch and a reduce do this when they start.
+    /// Removes what killed batches or reduces left beside the summary files (hidden temporary files of processes that no
+    /// longer run), and temporary plan files by age (<see cref="BatchPlan.RemoveStaleTemporaries"/>: shards on other
+    /// machines write the plan too, and their process ids mean nothing here); a batch and a reduce do this when they start.
     /// </summary>
     /// <param name="outputFolder">The batch's output folder.</param>
     public static void RemoveStaleTemporaries(string outputFolder)
     {
-        foreach (var name in new[] { "summary.csv", BatchLookbacksCsv.FileName, BeatsImpliedCsv.FileName, BatchForecastsLongCsv.FileName, "summary.html", BatchPlan.FileName })
+        foreach (var name in new[] { "summary.csv", BatchLookbacksCsv.FileName, BeatsImpliedCsv.FileName, BatchForecastsLongCsv.FileName, "summary.html" })
         {
             AtomicFile.RemoveStaleTemporaries(Path.Combine(outputFolder, name));
         }
+
+        BatchPlan.RemoveStaleTemporaries(outputFolder, DateTime.UtcNow);
     }
 
     /// <summary>Writes the summary files.</summary>
