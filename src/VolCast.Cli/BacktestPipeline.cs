@@ -105,7 +105,7 @@ internal static class BacktestPipeline
         stage?.Invoke(BacktestStage.WriteData);
         var staging = output.Stage();
         progress?.Report(new BacktestProgress("writing results", 0, 1));
-        var files = new List<string>(BacktestResultsWriter.WriteData(staging, run, cancellationToken));
+        var files = new List<string>(BacktestResultsWriter.WriteData(staging, run, spare ? 2 : 1, cancellationToken));
         progress?.Report(new BacktestProgress("writing results", 1, 1));
 
         stage?.Invoke(BacktestStage.WriteReport);

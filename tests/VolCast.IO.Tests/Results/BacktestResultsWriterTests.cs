@@ -61,6 +61,38 @@ public sealed class BacktestResultsWriterTests
     }
 
     [Fact]
+    public void WriteData_SeveralFilesAtATime_WritesTheSameFilesAndBytesAsOneAtATime()
+    {
+        using var temp = new TempFolder();
+        var (result, prices) = SmallRun();
+        var run = new BacktestRun(result, BacktestCalibrator.Evaluate(result, prices), Run(), prices, prices.Count);
+        var one = Directory.CreateDirectory(Path.Combine(temp.Path, "one")).FullName;
+        var two = Directory.CreateDirectory(Path.Combine(temp.Path, "two")).FullName;
+
+        var namesOne = BacktestResultsWriter.WriteData(one, run, threads: 1);
+        var namesTwo = BacktestResultsWriter.WriteData(two, run, threads: 2);
+
+        Assert.Equal(namesOne, namesTwo);
+        Assert.Equal(namesOne.Order(StringComparer.Ordinal), Directory.GetFiles(two).Select(Path.GetFileName).Order(StringComparer.Ordinal));
+        foreach (var name in namesOne)
+        {
+            Assert.Equal(File.ReadAllBytes(Path.Combine(one, name)), File.ReadAllBytes(Path.Combine(two, name)));
+        }
+    }
+
+    [Fact]
+    public void WriteData_SeveralFilesAtATime_ReportsAFileInTheWayAsAnIOException()
+    {
+        using var temp = new TempFolder();
+        var (result, prices) = SmallRun();
+        var run = new BacktestRun(result, BacktestCalibrator.Evaluate(result, prices), Run(), prices, prices.Count);
+        File.WriteAllText(Path.Combine(temp.Path, "metrics.csv"), "someone else's file");
+
+        Assert.Throws<IOException>(() => BacktestResultsWriter.WriteData(temp.Path, run, threads: 2));
+        Assert.Equal("someone else's file", File.ReadAllText(Path.Combine(temp.Path, "metrics.csv")));
+    }
+
+    [Fact]
     public void Write_ForecastsLong_PivotsBackToTheWideFileCellForCell()
     {
         // The tidy form (Wickham 2014, "Tidy data", J. Stat. Softw. 59(10)): one row per observation. Pivoting it back
