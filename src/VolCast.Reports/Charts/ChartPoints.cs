@@ -5,8 +5,9 @@ namespace VolCast.Reports.Charts;
 /// point in each pixel column, and a stroke about two pixels wide shows little more than that in each pair of columns,
 /// so a line with more than two points per pair of pixel columns of the image is cut into one run per pair and each run
 /// drawn by those two points: a 20-year daily series is stroked with under a quarter of its segments (antialiased
-/// strokes cost in proportion to their segments). On the demo's charts this moved 1–4.5% of the pixels along the
-/// lines' edges and left the rest of every chart unchanged (bench/README.md, "Reports"). Scatters up
+/// strokes cost in proportion to their segments). On the demo's charts this moved up to 4.5% of the pixels along the
+/// lines' edges and left the rest of every chart unchanged (bench/README.md, "Third session (2026-12-02): trades
+/// priced once for both timings, the second core used"). Scatters up
 /// to <see cref="MaxDrawn"/> points are drawn exactly as given, since their overlapping translucent markers show density.
 /// </summary>
 internal static class ChartPoints
