@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using System.Globalization;
 using System.Text.RegularExpressions;
 using VolCast.IO;
@@ -291,7 +290,7 @@ internal sealed partial class ResultsFolder : IDisposable
             var match = TemporaryPattern().Match(Path.GetFileName(path));
             if (!match.Success || (name is not null && match.Groups["name"].Value != name)
                 || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid)
-                || (!anyProcess && Running(pid)))
+                || (!anyProcess && RunningProcess.IsRunning(pid)))
             {
                 continue;
             }
@@ -304,24 +303,6 @@ internal sealed partial class ResultsFolder : IDisposable
             {
                 // Someone else's or in use: leave it; it is never read as results.
             }
-        }
-    }
-
-    private static bool Running(int pid)
-    {
-        if (pid == Environment.ProcessId)
-        {
-            return true;
-        }
-
-        try
-        {
-            using var process = Process.GetProcessById(pid);
-            return !process.HasExited;
-        }
-        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException)
-        {
-            return false;
         }
     }
 

@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using System.Globalization;
 using System.Text;
 using System.Text.RegularExpressions;
@@ -123,7 +122,7 @@ public static partial class AtomicFile
             var match = TemporaryPattern().Match(Path.GetFileName(temporary));
             if (!match.Success || match.Groups["name"].Value != name
                 || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid)
-                || Running(pid))
+                || RunningProcess.IsRunning(pid))
             {
                 continue;
             }
@@ -145,24 +144,6 @@ public static partial class AtomicFile
             {
                 File.Delete(temp);
             }
-        }
-    }
-
-    private static bool Running(int pid)
-    {
-        if (pid == Environment.ProcessId)
-        {
-            return true;
-        }
-
-        try
-        {
-            using var process = Process.GetProcessById(pid);
-            return !process.HasExited;
-        }
-        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException)
-        {
-            return false;
         }
     }
 
