@@ -167,16 +167,25 @@ public static class GarchFitter
             return (null, gamma, alpha);
         }
 
-        var gammaPasses = gamma.Converged && gammaSlope <= options.GradientTolerance;
-        var alphaPasses = alpha.Converged && alphaSlope <= options.GradientTolerance;
-        if (gammaPasses && (best is null || gamma.LogLikelihood > best.LogLikelihood))
+        // Keeps a candidate that is a maximum of the whole model when its likelihood is the highest so far.
+        void Keep(GarchFit candidate)
         {
-            best = gamma;
+            if (best is null || candidate.LogLikelihood > best.LogLikelihood)
+            {
+                best = candidate;
+            }
         }
 
-        if (alphaPasses && (best is null || alpha.LogLikelihood > best.LogLikelihood))
+        var gammaPasses = gamma.Converged && gammaSlope <= options.GradientTolerance;
+        var alphaPasses = alpha.Converged && alphaSlope <= options.GradientTolerance;
+        if (gammaPasses)
         {
-            best = alpha;
+            Keep(gamma);
+        }
+
+        if (alphaPasses)
+        {
+            Keep(alpha);
         }
 
         // The previous estimate's face, when it fails the Kuhn-Tucker test, is left into the interior, as a warm fit
@@ -197,10 +206,7 @@ public static class GarchFitter
             var inside = Fit(returns, options, face.Parameters, null, null, other, out _);
             if (inside.Converged && !OnWeightFace(inside))
             {
-                if (best is null || inside.LogLikelihood > best.LogLikelihood)
-                {
-                    best = inside;
-                }
+                Keep(inside);
             }
             else if (!(inside.Message == BfgsMinimizer.StoppedMessage && otherPasses && inside.LogLikelihood <= otherFit.LogLikelihood))
             {
