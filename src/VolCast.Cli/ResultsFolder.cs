@@ -1,5 +1,3 @@
-using System.Globalization;
-using System.Text.RegularExpressions;
 using VolCast.IO;
 using VolCast.IO.Results;
 
@@ -18,7 +16,7 @@ namespace VolCast.Cli;
 /// never replaced. Temporary folders are hidden (<c>.NAME.PID.ID.tmp</c>, <c>.NAME.PID.ID.old</c>); the next run that owns
 /// the folder removes those of processes that no longer run.</para>
 /// </remarks>
-internal sealed partial class ResultsFolder : IDisposable
+internal sealed class ResultsFolder : IDisposable
 {
     /// <summary>The lock file a forced run holds inside an existing output folder while it writes there.</summary>
     public const string LockFileName = ".volcast.lock";
@@ -117,7 +115,7 @@ internal sealed partial class ResultsFolder : IDisposable
 
         var parent = Path.GetDirectoryName(_target)!;
         Directory.CreateDirectory(parent);
-        _staging = Path.Combine(parent, TemporaryName(Path.GetFileName(_target), "tmp"));
+        _staging = Path.Combine(parent, TemporaryName.For(Path.GetFileName(_target), "tmp"));
         Directory.CreateDirectory(_staging);
         return _staging;
     }
@@ -179,7 +177,7 @@ internal sealed partial class ResultsFolder : IDisposable
 
     private void Swap(string staging, IReadOnlyList<string> manifest)
     {
-        var old = Path.Combine(Path.GetDirectoryName(_target)!, TemporaryName(Path.GetFileName(_target), "old"));
+        var old = Path.Combine(Path.GetDirectoryName(_target)!, TemporaryName.For(Path.GetFileName(_target), "old"));
         Directory.CreateDirectory(old);
         var movedAside = new List<string>();
         var movedIn = new List<string>();
@@ -253,9 +251,6 @@ internal sealed partial class ResultsFolder : IDisposable
         }
     }
 
-    private static string TemporaryName(string name, string kind) =>
-        string.Create(CultureInfo.InvariantCulture, $".{name}.{Environment.ProcessId}.{Guid.NewGuid():N}.{kind}");
-
     /// <summary>
     /// Removes the temporary folders (<c>.NAME.PID.ID.tmp</c> or <c>.old</c>) that runs of processes no longer running left in
     /// <paramref name="parent"/>: for one target name, or for every name when <paramref name="name"/> is null.
@@ -287,9 +282,8 @@ internal sealed partial class ResultsFolder : IDisposable
 
         foreach (var path in Directory.EnumerateDirectories(parent, "." + (name is null ? string.Empty : name + ".") + "*"))
         {
-            var match = TemporaryPattern().Match(Path.GetFileName(path));
-            if (!match.Success || (name is not null && match.Groups["name"].Value != name)
-                || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid)
+            if (!TemporaryName.TryParse(Path.GetFileName(path), out var target, out var pid, out _)
+                || (name is not null && target != name)
                 || (!anyProcess && RunningProcess.IsRunning(pid)))
             {
                 continue;
@@ -305,7 +299,4 @@ internal sealed partial class ResultsFolder : IDisposable
             }
         }
     }
-
-    [GeneratedRegex(@"^\.(?<name>.+)\.(?<pid>[0-9]+)\.[0-9a-f]{32}\.(tmp|old)$", RegexOptions.CultureInvariant)]
-    private static partial Regex TemporaryPattern();
 }

@@ -1,6 +1,4 @@
-using System.Globalization;
 using System.Text;
-using System.Text.RegularExpressions;
 
 namespace VolCast.IO;
 
@@ -13,7 +11,7 @@ namespace VolCast.IO;
 /// is killed while it writes leaves it behind; the next write of the same target removes those of processes that no
 /// longer run, so they never pile up and are never taken for results.
 /// </remarks>
-public static partial class AtomicFile
+public static class AtomicFile
 {
     private static UTF8Encoding Utf8NoBom { get; } = new(encoderShouldEmitUTF8Identifier: false);
 
@@ -27,6 +25,21 @@ public static partial class AtomicFile
     {
         ArgumentNullException.ThrowIfNull(write);
         Write(path, TextContent(write), overwrite, protectedInputs);
+    }
+
+    /// <summary>
+    /// Writes text to a file that processes on other machines may be writing at the same moment (a batch plan in a folder
+    /// shared by shards), as <see cref="WriteText"/> does, except that the temporary files of other processes beside it
+    /// are left alone: their process ids say nothing on this machine, so the caller removes stale ones by another rule.
+    /// </summary>
+    /// <param name="path">The file to create or replace.</param>
+    /// <param name="write">Writes the content.</param>
+    /// <param name="overwrite">Whether an existing file may be replaced.</param>
+    /// <exception cref="IOException">The target exists and <paramref name="overwrite"/> is false.</exception>
+    public static void WriteTextInSharedFolder(string path, Action<TextWriter> write, bool overwrite = false)
+    {
+        ArgumentNullException.ThrowIfNull(write);
+        Write(path, TextContent(write), overwrite, null, removeStale: false);
     }
 
     /// <summary>Writes bytes to <paramref name="path"/> through a temporary file.</summary>
@@ -46,11 +59,11 @@ public static partial class AtomicFile
     };
 
     /// <summary>
-    /// Checks the target (not an input; absent unless <paramref name="overwrite"/>), removes what killed writers of it left,
-    /// and writes the content to a new temporary sibling.
+    /// Checks the target (not an input; absent unless <paramref name="overwrite"/>), removes what killed writers of it left
+    /// (unless <paramref name="removeStale"/> is false), and writes the content to a new temporary sibling.
     /// </summary>
     /// <returns>The target's full path and the temporary file's path.</returns>
-    internal static (string Target, string Temporary) WriteTemporary(string path, Action<Stream> write, bool overwrite, IEnumerable<string>? protectedInputs)
+    internal static (string Target, string Temporary) WriteTemporary(string path, Action<Stream> write, bool overwrite, IEnumerable<string>? protectedInputs, bool removeStale = true)
     {
         var full = Path.GetFullPath(path);
         if (protectedInputs is not null)
@@ -72,8 +85,12 @@ public static partial class AtomicFile
 
         var folder = Path.GetDirectoryName(full)!;
         Directory.CreateDirectory(folder);
-        RemoveStaleTemporaries(full);
-        var temp = Path.Combine(folder, string.Create(CultureInfo.InvariantCulture, $".{Path.GetFileName(full)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp"));
+        if (removeStale)
+        {
+            RemoveStaleTemporaries(full);
+        }
+
+        var temp = Path.Combine(folder, TemporaryName.For(Path.GetFileName(full), "tmp"));
         try
         {
             using var stream = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None);
@@ -119,10 +136,8 @@ public static partial class AtomicFile
 
         foreach (var temporary in Directory.EnumerateFiles(folder, "." + name + ".*.tmp"))
         {
-            var match = TemporaryPattern().Match(Path.GetFileName(temporary));
-            if (!match.Success || match.Groups["name"].Value != name
-                || !int.TryParse(match.Groups["pid"].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var pid)
-                || RunningProcess.IsRunning(pid))
+            if (!TemporaryName.TryParse(Path.GetFileName(temporary), out var of, out var pid, out var kind)
+                || of != name || kind != "tmp" || RunningProcess.IsRunning(pid))
             {
                 continue;
             }
@@ -131,9 +146,9 @@ public static partial class AtomicFile
         }
     }
 
-    private static void Write(string path, Action<Stream> write, bool overwrite, IEnumerable<string>? protectedInputs)
+    private static void Write(string path, Action<Stream> write, bool overwrite, IEnumerable<string>? protectedInputs, bool removeStale = true)
     {
-        var (full, temp) = WriteTemporary(path, write, overwrite, protectedInputs);
+        var (full, temp) = WriteTemporary(path, write, overwrite, protectedInputs, removeStale);
         try
         {
             File.Move(temp, full, overwrite);
@@ -146,7 +161,4 @@ public static partial class AtomicFile
             }
         }
     }
-
-    [GeneratedRegex(@"^\.(?<name>.+)\.(?<pid>[0-9]+)\.[0-9a-f]{32}\.tmp$", RegexOptions.CultureInvariant)]
-    private static partial Regex TemporaryPattern();
 }

@@ -84,8 +84,22 @@ public sealed class AtomicFileSetTests : IDisposable
         Assert.Equal("date,vol\n", File.ReadAllText(target));
     }
 
+    [Fact]
+    public void WriteInSharedFolder_LeavesOtherProcessesTemporariesAlone()
+    {
+        // In a folder shared between machines, a process id from another machine says nothing here: a plan being written
+        // there at this moment must not be taken for a killed writer's leftover.
+        var target = _temp.Combine("batch-plan.json");
+        var elsewhere = _temp.Write($".batch-plan.json.{EndedProcessId()}.{Guid.NewGuid():N}.tmp", "another machine's write");
+
+        AtomicFile.WriteTextInSharedFolder(target, w => w.Write("{}"), overwrite: true);
+
+        Assert.True(File.Exists(elsewhere));
+        Assert.Equal("{}", File.ReadAllText(target));
+    }
+
     /// <summary>The id of a process that has ended (a short child, waited for).</summary>
-    private static int EndedProcessId()
+    internal static int EndedProcessId()
     {
         using var child = Process.Start(new ProcessStartInfo("dotnet", "--version") { RedirectStandardOutput = true, UseShellExecute = false })!;
         child.StandardOutput.ReadToEnd();

@@ -1,5 +1,3 @@
-using System.Diagnostics;
-
 namespace VolCast.IO.Tests;
 
 public sealed class RunningProcessTests
@@ -8,13 +6,7 @@ public sealed class RunningProcessTests
     public void IsRunning_ThisProcess_IsTrue() => Assert.True(RunningProcess.IsRunning(Environment.ProcessId));
 
     [Fact]
-    public void IsRunning_AProcessThatHasEnded_IsFalse()
-    {
+    public void IsRunning_AProcessThatHasEnded_IsFalse() =>
         // A temporary named for a process that has ended is what a killed run leaves; it must count as not running.
-        using var ended = Process.Start(new ProcessStartInfo("dotnet", "--version") { RedirectStandardOutput = true, UseShellExecute = false })!;
-        ended.StandardOutput.ReadToEnd();
-        ended.WaitForExit();
-
-        Assert.False(RunningProcess.IsRunning(ended.Id));
-    }
+        Assert.False(RunningProcess.IsRunning(AtomicFileSetTests.EndedProcessId()));
 }

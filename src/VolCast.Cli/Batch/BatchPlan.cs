@@ -84,7 +84,7 @@ internal sealed record BatchPlan(
         RemoveStaleTemporaries(outputFolder, DateTime.UtcNow);
         try
         {
-            AtomicFile.WriteText(path, w => w.Write(text), overwrite: true);
+            AtomicFile.WriteTextInSharedFolder(path, w => w.Write(text), overwrite: true);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
@@ -101,23 +101,25 @@ internal sealed record BatchPlan(
     internal static readonly TimeSpan StaleTemporaryAge = TimeSpan.FromMinutes(10);
 
     /// <summary>Removes temporary plan files last written more than <see cref="StaleTemporaryAge"/> before <paramref name="now"/>.</summary>
-    /// <returns>The files removed.</returns>
-    internal static IReadOnlyList<string> RemoveStaleTemporaries(string outputFolder, DateTime now)
+    internal static void RemoveStaleTemporaries(string outputFolder, DateTime now)
     {
-        var removed = new List<string>();
         if (!Directory.Exists(outputFolder))
         {
-            return removed;
+            return;
         }
 
         foreach (var file in Directory.EnumerateFiles(outputFolder, "." + FileName + ".*.tmp"))
         {
+            if (!TemporaryName.TryParse(Path.GetFileName(file), out var target, out _, out _) || target != FileName)
+            {
+                continue;
+            }
+
             try
             {
                 if (now - File.GetLastWriteTimeUtc(file) > StaleTemporaryAge)
                 {
                     File.Delete(file);
-                    removed.Add(file);
                 }
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -125,8 +127,6 @@ internal sealed record BatchPlan(
                 // Removed by another run at the same moment, or not ours to remove: it is never read either way.
             }
         }
-
-        return removed;
     }
 
     /// <summary>Reads the plan from an output folder, or returns null when the folder holds none.</summary>
