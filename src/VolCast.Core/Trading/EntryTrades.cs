@@ -1,4 +1,5 @@
 using System.Runtime.CompilerServices;
+using VolCast.Core.Data;
 
 namespace VolCast.Core.Trading;
 
@@ -11,8 +12,7 @@ namespace VolCast.Core.Trading;
 /// <remarks>Only for the default hedge at the entry implied; a forecast hedge makes the trade depend on the firing date.</remarks>
 internal sealed class EntryTrades
 {
-    private readonly DateOnly[] _dates;
-    private readonly double[] _close;
+    private readonly PriceHistory _prices;
     private readonly double?[] _implied;
     private readonly TradingSettings _settings;
     private readonly int[] _windowDays;
@@ -20,16 +20,14 @@ internal sealed class EntryTrades
     private readonly bool[] _evaluated;
 
     /// <summary>Creates the store; no trade is evaluated until a book asks for it.</summary>
-    /// <param name="dates">The price dates.</param>
-    /// <param name="close">The closes.</param>
+    /// <param name="prices">The price history (its closes are traded).</param>
     /// <param name="implied">Implied volatility at each close (decimal), null where there was no quote.</param>
     /// <param name="windowDays">Trading days from each close to the expiry of a trade entered there (the realized target's windows).</param>
     /// <param name="settings">Rate, dividend yield, costs and stress shock of every trade.</param>
-    public EntryTrades(DateOnly[] dates, double[] close, double?[] implied, int[] windowDays, TradingSettings settings)
+    public EntryTrades(PriceHistory prices, double?[] implied, int[] windowDays, TradingSettings settings)
     {
-        var n = close.Length;
-        _dates = dates;
-        _close = close;
+        var n = prices.Count;
+        _prices = prices;
         _implied = implied;
         _settings = settings;
         _windowDays = windowDays;
@@ -73,7 +71,7 @@ internal sealed class EntryTrades
             var length = expiry - entry + 1;
             var iv = _implied[entry]!.Value;
             _trades[entry] = StraddleTrader.EvaluateLong(
-                _dates, _close, entry, expiry, iv, iv, _settings.Rate, _settings.DividendYield, _settings.Costs,
+                _prices.Dates, _prices.Close, entry, expiry, iv, iv, _settings.Rate, _settings.DividendYield, _settings.Costs,
                 _settings.StressSpotMove, _settings.StressVolatilityShift, _implied,
                 Mark.AsSpan(Offset[entry], length), EntryVol.AsSpan(Offset[entry], length), Cost.AsSpan(Offset[entry], length));
             _evaluated[entry] = true;

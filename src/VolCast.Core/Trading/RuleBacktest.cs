@@ -73,7 +73,7 @@ internal static class RuleBacktest
         var length = end - start + 1;
         var dates = prices.Dates.Slice(start, length).ToArray();
         var weight = 1.0 / h;
-        var books = BuildBooks(prices, iv, series, firing, entry, expiry, settings, shared ?? new EntryTrades(prices.Dates.ToArray(), prices.Close.ToArray(), iv, windows.WindowDays, settings));
+        var books = BuildBooks(prices, iv, series, firing, entry, expiry, settings, shared, windows);
 
         var context = new Context(prices, iv, firing, books, start, length, dates, weight, h, settings);
         var sell = new sbyte[m];
@@ -201,7 +201,7 @@ internal static class RuleBacktest
 
     /// <summary>
     /// The store of trades hedged at the entry implied that the runs of both entry timings on the same inputs can share
-    /// (<see cref="EntryTrades"/>): pass it to each <see cref="Run"/>.
+    /// (<see cref="EntryTrades"/>): pass it to each <see cref="Run"/>. A hedge at the forecast does not use it.
     /// </summary>
     public static EntryTrades SharedTrades(PriceHistory prices, IReadOnlyList<double?> implied, BacktestHorizon horizon, TradingSettings settings)
     {
@@ -210,17 +210,18 @@ internal static class RuleBacktest
         ArgumentNullException.ThrowIfNull(horizon);
         ArgumentNullException.ThrowIfNull(settings);
         var windows = RealizedWindows.Compute(prices, horizon, RealizedTarget.SquaredReturns, settings.AnnualizationDays);
-        return new EntryTrades(prices.Dates.ToArray(), prices.Close.ToArray(), Checked(implied, prices.Count, nameof(implied), TradingGuard.Volatility), windows.WindowDays, settings);
+        return new EntryTrades(prices, Checked(implied, prices.Count, nameof(implied), TradingGuard.Volatility), windows.WindowDays, settings);
     }
 
-    /// <summary>One book per hedge volatility series: the entry implied (one book, from the shared store), or each forecaster's.</summary>
-    private static TradeBook[] BuildBooks(PriceHistory prices, double?[] iv, double?[][] series, List<int> firing, int[] entry, int[] expiry, TradingSettings settings, EntryTrades store)
+    /// <summary>One book per hedge volatility series: the entry implied (one book, from the shared store or a new one), or each forecaster's.</summary>
+    private static TradeBook[] BuildBooks(
+        PriceHistory prices, double?[] iv, double?[][] series, List<int> firing, int[] entry, int[] expiry, TradingSettings settings, EntryTrades? shared, RealizedWindows windows)
     {
         var m = firing.Count;
         var books = new TradeBook[3];
         if (settings.HedgeVolatility == HedgeVolatility.Implied)
         {
-            books[0] = books[1] = books[2] = TradeBook.FromEntries(store, entry, expiry);
+            books[0] = books[1] = books[2] = TradeBook.FromEntries(shared ?? new EntryTrades(prices, iv, windows.WindowDays, settings), entry, expiry);
             return books;
         }
 

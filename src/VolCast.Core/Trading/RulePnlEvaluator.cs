@@ -80,7 +80,7 @@ public static class RulePnlEvaluator
         try
         {
             // Both entry timings enter mostly on the same closes: each trade is evaluated once for both.
-            var shared = RuleBacktest.SharedTrades(prices, implied, settings.Horizon, trading);
+            var shared = trading.HedgeVolatility == HedgeVolatility.Implied ? RuleBacktest.SharedTrades(prices, implied, settings.Horizon, trading) : null;
             var atClose = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading, result.Dates[^1], shared);
             cancellationToken.ThrowIfCancellationRequested();
             var nextDay = RuleBacktest.Run(prices, implied, settings.Horizon, proposed, current, historical, trading with { EntryTiming = EntryTiming.NextClose }, shared: shared);
