@@ -1,3 +1,6 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.Intrinsics;
+
 namespace VolCast.Core.Garch;
 
 /// <summary>
@@ -40,6 +43,9 @@ internal sealed class GarchLikelihood
     private readonly double _fixedStart;
     private readonly bool _alwaysLeverage;
 
+    // The products of LogBlock consecutive σ²ₜ of the last evaluation (scratch: the logarithms are taken after the loop).
+    private readonly double[] _blockProducts;
+
     /// <summary>Creates the likelihood over <paramref name="length"/> scaled returns.</summary>
     /// <param name="scaledReturns">The returns divided by their scale.</param>
     /// <param name="length">How many of them to use.</param>
@@ -55,6 +61,7 @@ internal sealed class GarchLikelihood
         _length = length;
         _start = start;
         _firstCounted = conditionOnFirstReturn ? 1 : 0;
+        _blockProducts = new double[(length / LogBlock) + 1];
     }
 
     /// <summary>Gets how many returns enter the likelihood sum.</summary>
@@ -85,14 +92,25 @@ internal sealed class GarchLikelihood
             dOmega = dAlpha = dGamma = dBeta = 0;
         }
 
-        // Σ ln σ²ₜ is taken as ln of products of LogBlock terms: one logarithm per block instead of per day. The
-        // scaled variances stay within a few orders of magnitude of one, so a block's product cannot under- or overflow
-        // at any point the optimizer accepts (a non-finite value is rejected by the line search).
-        double logSum = 0, product = 1, ratioSum = 0, gMu = 0, gOmega = 0, gAlpha = 0, gGamma = 0, gBeta = 0;
-        var inBlock = 0;
+        // Σ ln σ²ₜ is taken as ln of products of LogBlock terms: one logarithm per block instead of per day. The loop
+        // only multiplies and stores each block's product; the logarithms are taken after it (NegativeLogLikelihoodSum),
+        // because a call inside the loop makes the JIT keep the loop's sums in memory (every vector register is
+        // caller-saved on x64), which cost a fifth of an evaluation. Same products, same order, same bits.
+        var blocks = _blockProducts;
+        double ratioSum = 0, gMu = 0, product = 1;
+        int inBlock = 0, block = 0;
+
+        // The derivatives in ω, α, γ, β and their gradient sums are the four lanes of one vector: each lane does the
+        // multiply and the add of the scalar recursion in the same order (the JIT never fuses them on its own), so the
+        // bits are those of four scalar chains, in a quarter of the instructions.
+        var d = Vector256.Create(dOmega, dAlpha, dGamma, dBeta);
+        var g = Vector256<double>.Zero;
+        var betas = Vector256.Create(beta);
         var last = y.Length - 1;
-        var leverage = gamma != 0 || _alwaysLeverage;
-        for (var t = 0; t <= last; t++)
+
+        // Without leverage (plain GARCH) the indicator is held at 0: α + γ·0 is α, and the γ lane is not used.
+        var leverage = gamma != 0 || _alwaysLeverage ? 1.0 : 0.0;
+        for (var t = 0; t < y.Length; t++)
         {
             var e = y[t] - mu;
             var e2 = e * e;
@@ -103,7 +121,7 @@ internal sealed class GarchLikelihood
                 product *= h;
                 if (++inBlock == LogBlock)
                 {
-                    logSum += Math.Log(product);
+                    blocks[block++] = product;
                     product = 1;
                     inBlock = 0;
                 }
@@ -111,44 +129,27 @@ internal sealed class GarchLikelihood
                 ratioSum += ratio;
                 var c = (1 - ratio) * inv;
                 gMu += (c * dMu) - (2 * e * inv);
-                gOmega += c * dOmega;
-                gAlpha += c * dAlpha;
-                gGamma += c * dGamma;
-                gBeta += c * dBeta;
+                g += Vector256.Create(c) * d;
             }
 
             if (t < last)
             {
-                double arch, negativePart;
-                if (leverage)
-                {
-                    // Branch-free indicator: 1 when e < 0, else 0.
-                    var negative = e < 0 ? 1.0 : 0.0;
-                    arch = alpha + (gamma * negative);
-                    negativePart = negative * e2;
-                }
-                else
-                {
-                    arch = alpha;
-                    negativePart = 0;
-                }
-
+                // 1 when e < 0, else 0, from the sign bit: a comparison compiles to a branch that the returns' random
+                // signs mispredict half the time. (e = −0 gives 1, but then e² = 0 and nothing changes.)
+                var negative = leverage * (BitConverter.DoubleToUInt64Bits(e) >> 63);
+                var arch = alpha + (gamma * negative);
                 dMu = (-2 * arch * e) + (beta * dMu);
-                dOmega = 1 + (beta * dOmega);
-                dAlpha = e2 + (beta * dAlpha);
-                dGamma = negativePart + (beta * dGamma);
-                dBeta = h + (beta * dBeta);
+                d = Vector256.Create(1, e2, negative * e2, h) + (betas * d);
                 h = omega + (arch * e2) + (beta * h);
             }
         }
 
-        var nll = logSum + Math.Log(product) + ratioSum;
         gradient[Mu] = 0.5 * gMu;
-        gradient[Omega] = 0.5 * gOmega;
-        gradient[Alpha] = 0.5 * gAlpha;
-        gradient[Gamma] = 0.5 * gGamma;
-        gradient[Beta] = 0.5 * gBeta;
-        return 0.5 * (nll + (CountedReturns * LogTwoPi));
+        gradient[Omega] = 0.5 * g[0];
+        gradient[Alpha] = 0.5 * g[1];
+        gradient[Gamma] = 0.5 * g[2];
+        gradient[Beta] = 0.5 * g[3];
+        return 0.5 * (NegativeLogLikelihoodSum(ratioSum, block, product) + (CountedReturns * LogTwoPi));
     }
 
     /// <summary>Runs the variance filter and returns σ² of the day after the last return.</summary>
@@ -225,6 +226,22 @@ internal sealed class GarchLikelihood
             d[Beta] = h + (beta * d[Beta]);
             h = omega + (arch * e2) + (beta * h);
         }
+    }
+
+    // Σ ln σ²ₜ + Σ ε²ₜ/σ²ₜ from the block products and the ratio sum of the loop. Its own method, so that no value of
+    // the loop lives across a logarithm's call (the JIT would then keep it in memory inside the loop as well). The
+    // scaled variances stay within a few orders of magnitude of one, so a block's product cannot under- or overflow at
+    // any point the optimizer accepts (a non-finite value is rejected by the line search).
+    [MethodImpl(MethodImplOptions.NoInlining)]
+    private double NegativeLogLikelihoodSum(double ratioSum, int blocks, double lastProduct)
+    {
+        double logSum = 0;
+        for (var b = 0; b < blocks; b++)
+        {
+            logSum += Math.Log(_blockProducts[b]);
+        }
+
+        return logSum + Math.Log(lastProduct) + ratioSum;
     }
 
     // The mean square of the residuals y − mu over the window (the variance start's base) and its derivative in mu.
