@@ -225,8 +225,11 @@ internal static class BatchCommand
 
         if (outcome.Cancelled)
         {
-            console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"batch stopped: {outcome.Rows.Count} names finished and kept in {request.OutputFolder}{Path.DirectorySeparatorChar}assets; run the same command again to resume."));
+            // Stopped before the first name finished, there is no assets folder of this run to point to.
+            console.Out.WriteLine(outcome.Rows.Count == 0
+                ? "batch stopped before any name finished; no results were written. Run the same command again to start."
+                : string.Create(CultureInfo.InvariantCulture,
+                    $"batch stopped: {outcome.Rows.Count} {(outcome.Rows.Count == 1 ? "name" : "names")} finished and kept in {request.OutputFolder}{Path.DirectorySeparatorChar}assets; run the same command again to resume."));
             return ExitCodes.Interrupted;
         }
 

@@ -93,7 +93,7 @@ public sealed class EarlyCtrlCTests : IDisposable
         var code = Program.Run(run, stdout, stderr, interrupt.Token);
 
         Assert.True(code == 130, $"{command}: exit {code}: {stderr}");
-        Assert.Contains(command == "batch" ? "batch stopped" : "interrupted: ", command == "batch" ? stdout.ToString() : stderr.ToString(), StringComparison.Ordinal);
+        Assert.Contains(command == "batch" ? "batch stopped before any name finished" : "interrupted: ", command == "batch" ? stdout.ToString() : stderr.ToString(), StringComparison.Ordinal);
         Assert.Equal(earlier, Snapshot(output));
         Assert.All(left, path => Assert.False(Path.Exists(path), $"{path}: what a killed run left is removed when the next run starts, even one stopped at once"));
         Assert.Empty(Temporaries());
