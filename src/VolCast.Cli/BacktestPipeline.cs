@@ -84,6 +84,15 @@ internal static class BacktestPipeline
 
         stage?.Invoke(BacktestStage.RulePnl);
         progress?.Report(new BacktestProgress("trading the rule", 0, 1));
+        var staging = output.Stage();
+        IReadOnlyCollection<string> writtenEarly = [];
+        if (trading is { IsCompleted: false })
+        {
+            // The trades are still running on the other core: this thread writes the largest data file, which does not
+            // depend on them, instead of waiting.
+            writtenEarly = [BacktestResultsWriter.WriteForecastsLong(staging, result)];
+        }
+
         var (rulePnl, absence) = trading is null ? RulePnlEvaluator.Evaluate(result, prices.History, cancellationToken) : trading.GetAwaiter().GetResult();
         progress?.Report(new BacktestProgress("trading the rule", 1, 1));
         cancellationToken.ThrowIfCancellationRequested();
@@ -103,9 +112,8 @@ internal static class BacktestPipeline
         };
 
         stage?.Invoke(BacktestStage.WriteData);
-        var staging = output.Stage();
         progress?.Report(new BacktestProgress("writing results", 0, 1));
-        var files = new List<string>(BacktestResultsWriter.WriteData(staging, run, spare ? 2 : 1, cancellationToken));
+        var files = new List<string>(BacktestResultsWriter.WriteData(staging, run, spare ? 2 : 1, writtenEarly, cancellationToken));
         progress?.Report(new BacktestProgress("writing results", 1, 1));
 
         stage?.Invoke(BacktestStage.WriteReport);

@@ -2,6 +2,7 @@ using System.Collections.Concurrent;
 using System.Collections.Immutable;
 using System.Runtime.ExceptionServices;
 using System.Text.Json;
+using VolCast.Core.Backtest;
 using VolCast.IO.Csv;
 
 namespace VolCast.IO.Results;
@@ -63,8 +64,24 @@ public static class BacktestResultsWriter
     /// <returns>The file names written (without the folder), in the same order whatever <paramref name="threads"/> is.</returns>
     /// <exception cref="IOException">A file of the same name exists in the folder.</exception>
     /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
-    public static IReadOnlyList<string> WriteData(string folder, BacktestRun run, int threads, CancellationToken cancellationToken = default)
+    public static IReadOnlyList<string> WriteData(string folder, BacktestRun run, int threads, CancellationToken cancellationToken = default) =>
+        WriteData(folder, run, threads, [], cancellationToken);
+
+    /// <summary>
+    /// Writes every data file except run.json and the ones already written by <see cref="WriteForecastsLong"/> into
+    /// <paramref name="folder"/>, up to <paramref name="threads"/> files at a time.
+    /// </summary>
+    /// <param name="folder">An existing folder (the caller's staging folder); no file of these names may exist in it, except <paramref name="alreadyWritten"/>.</param>
+    /// <param name="run">The run.</param>
+    /// <param name="threads">How many files are written at the same time, at least 1.</param>
+    /// <param name="alreadyWritten">Names of this run's files the caller has already written to the folder: they are not written again, and are returned with the rest.</param>
+    /// <param name="cancellationToken">Stops between files.</param>
+    /// <returns>The file names of the run's data (without the folder), in the same order whatever <paramref name="threads"/> is.</returns>
+    /// <exception cref="IOException">A file of the same name exists in the folder.</exception>
+    /// <exception cref="OperationCanceledException">The token was cancelled.</exception>
+    public static IReadOnlyList<string> WriteData(string folder, BacktestRun run, int threads, IReadOnlyCollection<string> alreadyWritten, CancellationToken cancellationToken = default)
     {
+        ArgumentNullException.ThrowIfNull(alreadyWritten);
         ArgumentOutOfRangeException.ThrowIfLessThan(threads, 1);
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(run);
@@ -93,6 +110,8 @@ public static class BacktestResultsWriter
             steps.Add((GroupsCsv.FileName, path => AtomicFile.WriteText(path, w => GroupsCsv.Write(w, run.Groups))));
         }
 
+        var names = steps.Select(step => step.Name).ToList();
+        steps.RemoveAll(step => alreadyWritten.Contains(step.Name));
         if (threads == 1)
         {
             foreach (var (name, write) in steps)
@@ -116,7 +135,7 @@ public static class BacktestResultsWriter
             }
         }
 
-        var written = steps.Select(s => s.Name).ToList();
+        var written = names;
 
         if (run.RejectedRows.Count > 0)
         {
@@ -126,6 +145,23 @@ public static class BacktestResultsWriter
         }
 
         return written;
+    }
+
+    /// <summary>
+    /// Writes forecasts-long.csv, the largest data file, into <paramref name="folder"/> from the backtest alone: a caller
+    /// with a thread waiting for the rest of the run (the rule's trades) writes it meanwhile and passes its name to
+    /// <see cref="WriteData(string, BacktestRun, int, IReadOnlyCollection{string}, CancellationToken)"/>.
+    /// </summary>
+    /// <param name="folder">An existing folder (the caller's staging folder) without that file.</param>
+    /// <param name="result">The backtest.</param>
+    /// <returns>The file name written (without the folder).</returns>
+    /// <exception cref="IOException">The file exists in the folder.</exception>
+    public static string WriteForecastsLong(string folder, BacktestResult result)
+    {
+        ArgumentNullException.ThrowIfNull(folder);
+        ArgumentNullException.ThrowIfNull(result);
+        AtomicFile.WriteText(Path.Combine(folder, ForecastsLongCsv.FileName), w => ForecastsLongCsv.Write(w, result));
+        return ForecastsLongCsv.FileName;
     }
 
     /// <summary>Writes run.json into <paramref name="folder"/>: settings, inputs and their hashes, and the manifest of the run's files.</summary>

@@ -81,6 +81,30 @@ public sealed class BacktestResultsWriterTests
     }
 
     [Fact]
+    public void WriteData_AfterForecastsLongWrittenEarly_GivesTheSameFilesNamesAndBytes()
+    {
+        using var temp = new TempFolder();
+        var (result, prices) = SmallRun();
+        var run = new BacktestRun(result, BacktestCalibrator.Evaluate(result, prices), Run(), prices, prices.Count);
+        var whole = Directory.CreateDirectory(Path.Combine(temp.Path, "whole")).FullName;
+        var split = Directory.CreateDirectory(Path.Combine(temp.Path, "split")).FullName;
+
+        var namesWhole = BacktestResultsWriter.WriteData(whole, run, threads: 2);
+        var early = BacktestResultsWriter.WriteForecastsLong(split, result);
+
+        // Writing the file again would meet it in the way and throw (the writer never replaces a file).
+        var namesSplit = BacktestResultsWriter.WriteData(split, run, 2, [early]);
+
+        Assert.Equal(namesWhole, namesSplit);
+        Assert.Contains(early, namesSplit);
+        Assert.Equal(namesWhole.Order(StringComparer.Ordinal), Directory.GetFiles(split).Select(Path.GetFileName).Order(StringComparer.Ordinal));
+        foreach (var name in namesWhole)
+        {
+            Assert.Equal(File.ReadAllBytes(Path.Combine(whole, name)), File.ReadAllBytes(Path.Combine(split, name)));
+        }
+    }
+
+    [Fact]
     public void WriteData_SeveralFilesAtATime_ReportsAFileInTheWayAsAnIOException()
     {
         using var temp = new TempFolder();
