@@ -84,6 +84,7 @@ internal static class BacktestPipeline
 
         stage?.Invoke(BacktestStage.RulePnl);
         progress?.Report(new BacktestProgress("trading the rule", 0, 1));
+        cancellationToken.ThrowIfCancellationRequested();
         var staging = output.Stage();
         IReadOnlyCollection<string> writtenEarly = [];
         if (trading is { IsCompleted: false })
