@@ -163,6 +163,10 @@ public static class ReportCharts
         diagonal.LineWidth = 2;
         diagonal.LinePattern = LinePattern.Dashed;
         diagonal.LegendText = "y = x (odds held)";
+
+        // The counts are placed together once the chart is drawn, so that where bins of different forecasters meet no
+        // count is written over another.
+        var counts = new CountLabels();
         for (var k = 0; k < curves.Count; k++)
         {
             var curve = curves[k];
@@ -185,13 +189,7 @@ public static class ReportCharts
                 bar.Color = style.Color.WithAlpha(0.7);
                 bar.LineWidth = 2;
                 bar.LegendText = string.Empty;
-                var count = plot.Add.Text(curve.Counts[i].ToString(CultureInfo.InvariantCulture), xs[i], curve.Upper[i] * 100.0);
-                count.LabelFontColor = style.Color;
-                count.LabelFontSize = 11;
-                count.LabelFontName = ChartStyle.FontName;
-                count.Alignment = Alignment.MiddleLeft;
-                count.LabelRotation = -90;
-                count.OffsetY = -4;
+                counts.Add(new CountLabel(curve.Counts[i].ToString(CultureInfo.InvariantCulture), xs[i], curve.Upper[i] * 100.0, curve.Lower[i] * 100.0, style.Color));
             }
 
             var line = plot.Add.Scatter(xs, ys);
@@ -203,6 +201,7 @@ public static class ReportCharts
             line.LegendText = curve.Name;
         }
 
+        plot.Add.Plottable(counts);
         plot.Axes.SetLimits(-3, 103, -2, 106);
         ChartStyle.LegendBelow(plot);
         return plot;

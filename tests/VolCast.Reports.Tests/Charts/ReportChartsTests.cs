@@ -272,9 +272,41 @@ public sealed class ReportChartsTests
         Assert.Equal(5, bars.Length);
         Assert.Contains(bars, b => Math.Abs(b.Start.X - 49.4) < 1e-9 && b.End.X == b.Start.X && Math.Abs(b.Start.Y - 40) < 1e-9 && Math.Abs(b.End.Y - 70) < 1e-9);
 
-        // Each bin's count stands above its bar.
-        var counts = plot.GetPlottables().OfType<Text>().Select(t => t.LabelText).ToArray();
-        Assert.Equal(["40", "20", "40", "50", "50"], counts);
+        // Each bin's count is written beside its bar.
+        var counts = plot.GetPlottables().OfType<CountLabels>().Single().Labels;
+        Assert.Equal(["40", "20", "40", "50", "50"], counts.Select(c => c.Text));
+        Assert.Equal([4.4, 49.4, 89.4, 10.6, 60.6], counts.Select(c => Math.Round(c.X, 9)));
+        Assert.Equal([10.0, 70, 100, 20, 70], counts.Select(c => Math.Round(c.Top, 9)));
         Assert.Equal("reliability.png", ReportCharts.Reliability(curves, "pooled").FileName);
+    }
+
+    [Fact]
+    public void Reliability_CountsThatWouldCollide_AreWrittenApartInsideTheDataArea()
+    {
+        // Three forecasters with the same bins: their counts would stand side by side at one height, and the wide
+        // counts of neighbouring bars cross; the labels near the top have no room above.
+        var curves = new[]
+        {
+            new ReliabilityCurve("implied", [0.05, 0.15, 0.5, 0.97], [0.05, 0.15, 0.5, 0.97], [0.0, 0.1, 0.4, 0.93], [0.1, 0.2, 0.6, 1.0], [123456, 98765, 4321, 5552]),
+            new ReliabilityCurve("garch", [0.05, 0.15, 0.5, 0.97], [0.05, 0.15, 0.5, 0.97], [0.0, 0.1, 0.4, 0.93], [0.1, 0.2, 0.6, 1.0], [123456, 98765, 4321, 5534]),
+            new ReliabilityCurve("gjr-garch", [0.05, 0.15, 0.5, 0.97], [0.05, 0.15, 0.5, 0.97], [0.0, 0.1, 0.4, 0.93], [0.1, 0.2, 0.6, 1.0], [123456, 98765, 4321, 4935]),
+        };
+        using var plot = ReportCharts.BuildReliability(curves, "pooled over strikes");
+        var counts = plot.GetPlottables().OfType<CountLabels>().Single();
+
+        _ = ChartStyle.Png(plot);
+
+        Assert.Equal(12, counts.Placed.Count);
+        var area = counts.Axes.DataRect;
+        for (var i = 0; i < counts.Placed.Count; i++)
+        {
+            // Each count stays on its own bar's line, inside the data area, and covers no other count.
+            Assert.Equal(counts.Axes.GetPixelX(counts.Labels[i].X), counts.Placed[i].HorizontalCenter, 3);
+            Assert.True(BoxPlacement.Inside(counts.Placed[i], area), $"{counts.Labels[i].Text} at {counts.Placed[i]} outside {area}");
+            for (var j = 0; j < i; j++)
+            {
+                Assert.False(BoxPlacement.Overlap(counts.Placed[i], counts.Placed[j]), $"{counts.Labels[j].Text} and {counts.Labels[i].Text} overlap");
+            }
+        }
     }
 }
