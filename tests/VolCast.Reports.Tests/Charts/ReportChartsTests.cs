@@ -193,26 +193,60 @@ public sealed class ReportChartsTests
             Assert.Equal((horizons[i], Sample.Cone.Horizons[i].Adjusted.Min * 100, Sample.Cone.Horizons[i].Adjusted.Max * 100), (whiskers[i].Start.X, whiskers[i].Start.Y, whiskers[i].End.Y));
         }
 
-        // The three overlays share the 21-day horizon: they stand side by side to its right, one step apart.
-        var overlays = plot.GetPlottables().OfType<Marker>().Where(m => m.LegendText.Length > 0).ToArray();
-        Assert.Equal(Sample.Overlays.Select(o => o.Name), overlays.Select(m => m.LegendText));
-        Assert.Equal(Sample.Overlays[0].AnnualizedVolatility * 100, overlays[0].Location.Y, 10);
-        Assert.Equal([1.0, 2.0, 3.0], overlays.Select(m => Math.Round((m.Location.X - Math.Log10(21)) / ReportCharts.ConeOverlayStep, 9)).ToArray());
+        // The three overlays share the 21-day horizon, and each keeps it as its location.
+        var today = plot.GetPlottables().OfType<ConeMarkers>().Single();
+        Assert.Equal(Sample.Overlays.Select(o => o.Name), today.Markers.Select(m => m.LegendText));
+        Assert.Equal(Sample.Overlays.Select(o => o.AnnualizedVolatility * 100), today.Markers.Select(m => m.Location.Y));
+        Assert.All(today.Markers, m => Assert.Equal(Math.Log10(21), m.Location.X));
+        Assert.Equal(Sample.Overlays.Select(o => o.Name), plot.GetPlottables().SelectMany(p => p.LegendItems).Select(l => l.LabelText).Where(t => Sample.Overlays.Any(o => o.Name == t)));
     }
 
-    [Theory]
-    // One overlay: one step right of its horizon. Two at one horizon: one and two steps. Others at other horizons do not count.
-    [InlineData(new[] { 21 }, 0, 1.0)]
-    [InlineData(new[] { 21, 21 }, 0, 1.0)]
-    [InlineData(new[] { 21, 21 }, 1, 2.0)]
-    [InlineData(new[] { 21, 63, 21, 21 }, 2, 2.0)]
-    [InlineData(new[] { 21, 63, 21, 21 }, 3, 3.0)]
-    [InlineData(new[] { 21, 63, 21, 21 }, 1, 1.0)]
-    public void OverlayOffset_SpreadsPointsAtOneHorizon(int[] horizons, int index, double expected)
+    [Fact]
+    public void Cone_TodaysMarkers_AreDrawnOnTheirHorizonAndAsideOnlyByWholeMarkerWidthsWithoutCoveringEachOther()
     {
-        var overlays = horizons.Select(h => new ConeOverlay("x", h, 0.2)).ToArray();
+        // Two markers at one value and horizon must part; one far above everything stays on its horizon, and one at
+        // another horizon, clear of the rest, stays on that one.
+        var latest = Sample.Cone.Horizons.Single(h => h.HorizonDays == 21).Latest;
+        ConeOverlay[] overlays =
+        [
+            new("implied", 21, latest + 0.30),
+            new("garch", 21, latest + 0.05),
+            new("gjr-garch", 21, latest + 0.05),
+            new("ewma:0.94", 63, latest + 0.40),
+        ];
+        using var plot = ReportCharts.BuildCone(Sample.Cone, overlays);
+        var today = plot.GetPlottables().OfType<ConeMarkers>().Single();
 
-        Assert.Equal(expected, ReportCharts.OverlayOffset(overlays, index));
+        _ = ChartStyle.Png(plot);
+
+        var step = today.Markers[0].MarkerSize + (2 * ConeMarkers.Pad);
+        var onHorizon = overlays.Select(o => today.Axes.GetPixelX(Math.Log10(o.HorizonDays))).ToArray();
+        Assert.Equal(onHorizon[0], today.Drawn[0].X, 3);
+        Assert.Equal(onHorizon[3], today.Drawn[3].X, 3);
+        for (var i = 0; i < overlays.Length; i++)
+        {
+            var steps = (today.Drawn[i].X - onHorizon[i]) / step;
+            Assert.Equal(Math.Round(steps), steps, 3);
+            Assert.InRange(Math.Abs(steps), 0, ConeMarkers.MaxSteps);
+            Assert.Equal(today.Axes.GetPixelY(overlays[i].AnnualizedVolatility * 100), today.Drawn[i].Y, 3);
+            for (var j = 0; j < i; j++)
+            {
+                var apart = Math.Max(Math.Abs(today.Drawn[i].X - today.Drawn[j].X), Math.Abs(today.Drawn[i].Y - today.Drawn[j].Y));
+                Assert.True(apart >= step - 0.01, $"markers {j} and {i} are {apart} px apart");
+            }
+        }
+
+        // The two at one value could not both stay on the horizon: exactly one moved, by one marker width.
+        Assert.Equal(1, Math.Abs(Math.Round((today.Drawn[1].X - onHorizon[1]) / step) - Math.Round((today.Drawn[2].X - onHorizon[2]) / step)), 3);
+    }
+
+    [Fact]
+    public void ConeMarkers_Offsets_AreTheHorizonThenAlternatelyRightAndLeft()
+    {
+        var offsets = ConeMarkers.Offsets(16);
+
+        Assert.Equal([0f, 16f, -16f, 32f, -32f], offsets.Take(5));
+        Assert.Equal((2 * ConeMarkers.MaxSteps) + 1, offsets.Count);
     }
 
     [Fact]
