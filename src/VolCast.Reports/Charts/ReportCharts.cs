@@ -139,7 +139,7 @@ public static class ReportCharts
     {
         using var plot = BuildReliability(curves, pooling, colors);
         return new ChartImage(ReliabilityFileName, ReliabilityTitle(pooling),
-            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did; the small number above each bar is the bin's count of dates. Forecasters are set a little apart across so that their bars do not overlap. Points on the dashed line y = x mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Below the line in the low bins and above it in the high bins means the probabilities stayed too close to 50% (the volatility was too high); the reverse means they were too bold.",
+            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did; the small number on each bar's line (just above it, or below it or a little further along where another count is in the way) is the bin's count of dates. Forecasters are set a little apart across so that their bars do not overlap. Points on the dashed line y = x mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Below the line in the low bins and above it in the high bins means the probabilities stayed too close to 50% (the volatility was too high); the reverse means they were too bold.",
             ChartStyle.Png(plot));
     }
 
