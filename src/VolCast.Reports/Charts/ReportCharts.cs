@@ -99,7 +99,7 @@ public static class ReportCharts
     /// <summary>The Mincer-Zarnowitz chart's title for a forecaster.</summary>
     internal static string MincerZarnowitzTitle(string forecaster) => $"Mincer-Zarnowitz: realized against forecast variance, {forecaster}";
 
-    /// <summary>The volatility cone (Hodges-Tompkins adjusted percentiles) with today's realized, implied and forecasts beside it.</summary>
+    /// <summary>The volatility cone (Hodges-Tompkins adjusted percentiles) with today's realized, implied and forecasts on it.</summary>
     /// <param name="cone">The cone.</param>
     /// <param name="overlays">Points to draw on it: the latest implied volatility and forecasts at their horizons.</param>
     /// <returns>The chart as <c>cone.png</c>.</returns>
@@ -110,7 +110,7 @@ public static class ReportCharts
     {
         using var plot = BuildCone(cone, overlays, colors);
         return new ChartImage("cone.png", ConeTitle,
-            "For each horizon (log scale), the spread of realized volatility over every window of that length in the history, adjusted for overlapping windows (Hodges-Tompkins): the dark band holds the middle half of windows, the light band the middle 80%, the line is the median and the thin whiskers reach the lowest and highest. The black circles are the latest window's realized volatility at each horizon; the markers beside them are today's implied volatility and forecasts (markers at one horizon are set side by side).",
+            "For each horizon (log scale), the spread of realized volatility over every window of that length in the history, adjusted for overlapping windows (Hodges-Tompkins): the dark band holds the middle half of windows, the light band the middle 80%, the line is the median and the thin whiskers reach the lowest and highest. The black circles are the latest window's realized volatility at each horizon; the filled markers are today's implied volatility and forecasts, each on its own horizon, except that a marker that would cover another or the black circle there is set aside by whole marker widths, right or left.",
             ChartStyle.Png(plot));
     }
 
@@ -139,7 +139,7 @@ public static class ReportCharts
     {
         using var plot = BuildReliability(curves, pooling, colors);
         return new ChartImage(ReliabilityFileName, ReliabilityTitle(pooling),
-            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did; the small number above each bar is the bin's count of dates. Forecasters are set a little apart across so that their bars do not overlap. Points on the dashed line y = x mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Below the line in the low bins and above it in the high bins means the probabilities stayed too close to 50% (the volatility was too high); the reverse means they were too bold.",
+            "Each point is one bin of predicted probabilities that the close at the horizon ends above a strike: across, the mean probability the forecaster's volatility gave (N(d2)); up, the share of those dates on which it did; the small number on each bar's line (just above it, or below it or a little further along where another count is in the way) is the bin's count of dates. Forecasters are set a little apart across so that their bars do not overlap. Points on the dashed line y = x mean the odds held; the bars are 95% Wilson intervals on n / h dates, widened for overlapping windows. Below the line in the low bins and above it in the high bins means the probabilities stayed too close to 50% (the volatility was too high); the reverse means they were too bold.",
             ChartStyle.Png(plot));
     }
 
@@ -163,6 +163,10 @@ public static class ReportCharts
         diagonal.LineWidth = 2;
         diagonal.LinePattern = LinePattern.Dashed;
         diagonal.LegendText = "y = x (odds held)";
+
+        // The counts are placed together once the chart is drawn, so that where bins of different forecasters meet no
+        // count is written over another.
+        var counts = new CountLabels();
         for (var k = 0; k < curves.Count; k++)
         {
             var curve = curves[k];
@@ -185,13 +189,7 @@ public static class ReportCharts
                 bar.Color = style.Color.WithAlpha(0.7);
                 bar.LineWidth = 2;
                 bar.LegendText = string.Empty;
-                var count = plot.Add.Text(curve.Counts[i].ToString(CultureInfo.InvariantCulture), xs[i], curve.Upper[i] * 100.0);
-                count.LabelFontColor = style.Color;
-                count.LabelFontSize = 11;
-                count.LabelFontName = ChartStyle.FontName;
-                count.Alignment = Alignment.MiddleLeft;
-                count.LabelRotation = -90;
-                count.OffsetY = -4;
+                counts.Add(new CountLabel(curve.Counts[i].ToString(CultureInfo.InvariantCulture), xs[i], curve.Upper[i] * 100.0, curve.Lower[i] * 100.0, style.Color));
             }
 
             var line = plot.Add.Scatter(xs, ys);
@@ -203,6 +201,7 @@ public static class ReportCharts
             line.LegendText = curve.Name;
         }
 
+        plot.Add.Plottable(counts);
         plot.Axes.SetLimits(-3, 103, -2, 106);
         ChartStyle.LegendBelow(plot);
         return plot;
@@ -494,9 +493,6 @@ public static class ReportCharts
     /// <summary>The legend text of the cone's current realized volatility.</summary>
     internal const string ConeLatest = "realized, latest window";
 
-    /// <summary>How far apart, in log10 of the horizon, overlay markers at one horizon are set.</summary>
-    internal const double ConeOverlayStep = 0.03;
-
     internal static Plot BuildCone(VolatilityConeResult cone, IReadOnlyList<ConeOverlay> overlays, SeriesColors? colors = null)
     {
         ArgumentNullException.ThrowIfNull(cone);
@@ -545,7 +541,7 @@ public static class ReportCharts
         median.MarkerSize = 0;
         median.LegendText = "median";
 
-        // Today's realized volatility at every horizon, drawn beside implied and the forecasts.
+        // Today's realized volatility at every horizon, under implied and the forecasts.
         var latest = plot.Add.Scatter(xs, [.. cone.Horizons.Select(h => h.Latest * 100.0)]);
         var realized = colors.Style("realized");
         latest.Color = realized.Color;
@@ -556,19 +552,25 @@ public static class ReportCharts
         latest.MarkerLineWidth = 2;
         latest.LegendText = ConeLatest;
 
-        for (var index = 0; index < overlays.Count; index++)
+        // Each of today's markers stands on its own horizon; only one that would cover another marker or the latest
+        // realized circle there is moved aside, by the least that clears it (set in pixels when the chart is drawn).
+        var today = new ConeMarkers();
+        for (var i = 0; i < xs.Length; i++)
         {
-            var overlay = overlays[index];
-            var style = colors.Style(overlay.Name);
+            today.Avoid(xs[i], cone.Horizons[i].Latest * 100.0, latest.MarkerSize + latest.MarkerLineWidth);
+        }
 
-            // Markers at one horizon are set side by side, a fixed step apart on the log axis, so none hides another.
-            var x = Math.Log10(overlay.HorizonDays) + (ConeOverlayStep * OverlayOffset(overlays, index));
-            var marker = plot.Add.Marker(x, overlay.AnnualizedVolatility * 100.0);
+        foreach (var overlay in overlays)
+        {
+            var style = colors.Style(overlay.Name);
+            var marker = today.Add(Math.Log10(overlay.HorizonDays), overlay.AnnualizedVolatility * 100.0);
             marker.MarkerShape = style.Marker;
             marker.Size = 14;
             marker.Color = style.Color;
             marker.LegendText = overlay.Name;
         }
+
+        plot.Add.Plottable(today);
 
         ChartStyle.LogTicksBottom(plot, cone.Horizons.Select(h => (double)h.HorizonDays));
         plot.Axes.Margins(0.04, 0.08);
@@ -626,21 +628,6 @@ public static class ReportCharts
         plot.Axes.Margins(0.02, 0.08);
         ChartStyle.LegendBelow(plot);
         return plot;
-    }
-
-    /// <summary>How many steps to the right of its horizon the i-th overlay sits: one more than the overlays before it at the same horizon, so that the latest realized mark on the horizon itself stays in view.</summary>
-    internal static double OverlayOffset(IReadOnlyList<ConeOverlay> overlays, int index)
-    {
-        var before = 0;
-        for (var i = 0; i < index; i++)
-        {
-            if (overlays[i].HorizonDays == overlays[index].HorizonDays)
-            {
-                before++;
-            }
-        }
-
-        return before + 1;
     }
 
     /// <summary>Equal-width bins over the sample's range: the left edges and the width.</summary>

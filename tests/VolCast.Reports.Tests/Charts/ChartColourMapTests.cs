@@ -56,6 +56,13 @@ public sealed class ChartColourMapTests
                 case Marker m when m.LegendText.Length > 0:
                     yield return (m.LegendText, m.Color.WithAlpha(1.0));
                     break;
+                case ConeMarkers c:
+                    foreach (var m in c.Markers)
+                    {
+                        yield return (m.LegendText, m.Color.WithAlpha(1.0));
+                    }
+
+                    break;
             }
         }
     }

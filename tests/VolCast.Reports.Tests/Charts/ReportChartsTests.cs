@@ -193,26 +193,60 @@ public sealed class ReportChartsTests
             Assert.Equal((horizons[i], Sample.Cone.Horizons[i].Adjusted.Min * 100, Sample.Cone.Horizons[i].Adjusted.Max * 100), (whiskers[i].Start.X, whiskers[i].Start.Y, whiskers[i].End.Y));
         }
 
-        // The three overlays share the 21-day horizon: they stand side by side to its right, one step apart.
-        var overlays = plot.GetPlottables().OfType<Marker>().Where(m => m.LegendText.Length > 0).ToArray();
-        Assert.Equal(Sample.Overlays.Select(o => o.Name), overlays.Select(m => m.LegendText));
-        Assert.Equal(Sample.Overlays[0].AnnualizedVolatility * 100, overlays[0].Location.Y, 10);
-        Assert.Equal([1.0, 2.0, 3.0], overlays.Select(m => Math.Round((m.Location.X - Math.Log10(21)) / ReportCharts.ConeOverlayStep, 9)).ToArray());
+        // The three overlays share the 21-day horizon, and each keeps it as its location.
+        var today = plot.GetPlottables().OfType<ConeMarkers>().Single();
+        Assert.Equal(Sample.Overlays.Select(o => o.Name), today.Markers.Select(m => m.LegendText));
+        Assert.Equal(Sample.Overlays.Select(o => o.AnnualizedVolatility * 100), today.Markers.Select(m => m.Location.Y));
+        Assert.All(today.Markers, m => Assert.Equal(Math.Log10(21), m.Location.X));
+        Assert.Equal(Sample.Overlays.Select(o => o.Name), plot.GetPlottables().SelectMany(p => p.LegendItems).Select(l => l.LabelText).Where(t => Sample.Overlays.Any(o => o.Name == t)));
     }
 
-    [Theory]
-    // One overlay: one step right of its horizon. Two at one horizon: one and two steps. Others at other horizons do not count.
-    [InlineData(new[] { 21 }, 0, 1.0)]
-    [InlineData(new[] { 21, 21 }, 0, 1.0)]
-    [InlineData(new[] { 21, 21 }, 1, 2.0)]
-    [InlineData(new[] { 21, 63, 21, 21 }, 2, 2.0)]
-    [InlineData(new[] { 21, 63, 21, 21 }, 3, 3.0)]
-    [InlineData(new[] { 21, 63, 21, 21 }, 1, 1.0)]
-    public void OverlayOffset_SpreadsPointsAtOneHorizon(int[] horizons, int index, double expected)
+    [Fact]
+    public void Cone_TodaysMarkers_AreDrawnOnTheirHorizonAndAsideOnlyByWholeMarkerWidthsWithoutCoveringEachOther()
     {
-        var overlays = horizons.Select(h => new ConeOverlay("x", h, 0.2)).ToArray();
+        // Two markers at one value and horizon must part; one far above everything stays on its horizon, and one at
+        // another horizon, clear of the rest, stays on that one.
+        var latest = Sample.Cone.Horizons.Single(h => h.HorizonDays == 21).Latest;
+        ConeOverlay[] overlays =
+        [
+            new("implied", 21, latest + 0.30),
+            new("garch", 21, latest + 0.05),
+            new("gjr-garch", 21, latest + 0.05),
+            new("ewma:0.94", 63, latest + 0.40),
+        ];
+        using var plot = ReportCharts.BuildCone(Sample.Cone, overlays);
+        var today = plot.GetPlottables().OfType<ConeMarkers>().Single();
 
-        Assert.Equal(expected, ReportCharts.OverlayOffset(overlays, index));
+        _ = ChartStyle.Png(plot);
+
+        var step = today.Markers[0].MarkerSize + (2 * ConeMarkers.Pad);
+        var onHorizon = overlays.Select(o => today.Axes.GetPixelX(Math.Log10(o.HorizonDays))).ToArray();
+        Assert.Equal(onHorizon[0], today.Drawn[0].X, 3);
+        Assert.Equal(onHorizon[3], today.Drawn[3].X, 3);
+        for (var i = 0; i < overlays.Length; i++)
+        {
+            var steps = (today.Drawn[i].X - onHorizon[i]) / step;
+            Assert.Equal(Math.Round(steps), steps, 3);
+            Assert.InRange(Math.Abs(steps), 0, ConeMarkers.MaxSteps);
+            Assert.Equal(today.Axes.GetPixelY(overlays[i].AnnualizedVolatility * 100), today.Drawn[i].Y, 3);
+            for (var j = 0; j < i; j++)
+            {
+                var apart = Math.Max(Math.Abs(today.Drawn[i].X - today.Drawn[j].X), Math.Abs(today.Drawn[i].Y - today.Drawn[j].Y));
+                Assert.True(apart >= step - 0.01, $"markers {j} and {i} are {apart} px apart");
+            }
+        }
+
+        // The two at one value could not both stay on the horizon: exactly one moved, by one marker width.
+        Assert.Equal(1, Math.Abs(Math.Round((today.Drawn[1].X - onHorizon[1]) / step) - Math.Round((today.Drawn[2].X - onHorizon[2]) / step)), 3);
+    }
+
+    [Fact]
+    public void ConeMarkers_Offsets_AreTheHorizonThenAlternatelyRightAndLeft()
+    {
+        var offsets = ConeMarkers.Offsets(16);
+
+        Assert.Equal([0f, 16f, -16f, 32f, -32f], offsets.Take(5));
+        Assert.Equal((2 * ConeMarkers.MaxSteps) + 1, offsets.Count);
     }
 
     [Fact]
@@ -272,9 +306,41 @@ public sealed class ReportChartsTests
         Assert.Equal(5, bars.Length);
         Assert.Contains(bars, b => Math.Abs(b.Start.X - 49.4) < 1e-9 && b.End.X == b.Start.X && Math.Abs(b.Start.Y - 40) < 1e-9 && Math.Abs(b.End.Y - 70) < 1e-9);
 
-        // Each bin's count stands above its bar.
-        var counts = plot.GetPlottables().OfType<Text>().Select(t => t.LabelText).ToArray();
-        Assert.Equal(["40", "20", "40", "50", "50"], counts);
+        // Each bin's count is written beside its bar.
+        var counts = plot.GetPlottables().OfType<CountLabels>().Single().Labels;
+        Assert.Equal(["40", "20", "40", "50", "50"], counts.Select(c => c.Text));
+        Assert.Equal([4.4, 49.4, 89.4, 10.6, 60.6], counts.Select(c => Math.Round(c.X, 9)));
+        Assert.Equal([10.0, 70, 100, 20, 70], counts.Select(c => Math.Round(c.Top, 9)));
         Assert.Equal("reliability.png", ReportCharts.Reliability(curves, "pooled").FileName);
+    }
+
+    [Fact]
+    public void Reliability_CountsThatWouldCollide_AreWrittenApartInsideTheDataArea()
+    {
+        // Three forecasters with the same bins: their counts would stand side by side at one height, and the wide
+        // counts of neighbouring bars cross; the labels near the top have no room above.
+        var curves = new[]
+        {
+            new ReliabilityCurve("implied", [0.05, 0.15, 0.5, 0.97], [0.05, 0.15, 0.5, 0.97], [0.0, 0.1, 0.4, 0.93], [0.1, 0.2, 0.6, 1.0], [123456, 98765, 4321, 5552]),
+            new ReliabilityCurve("garch", [0.05, 0.15, 0.5, 0.97], [0.05, 0.15, 0.5, 0.97], [0.0, 0.1, 0.4, 0.93], [0.1, 0.2, 0.6, 1.0], [123456, 98765, 4321, 5534]),
+            new ReliabilityCurve("gjr-garch", [0.05, 0.15, 0.5, 0.97], [0.05, 0.15, 0.5, 0.97], [0.0, 0.1, 0.4, 0.93], [0.1, 0.2, 0.6, 1.0], [123456, 98765, 4321, 4935]),
+        };
+        using var plot = ReportCharts.BuildReliability(curves, "pooled over strikes");
+        var counts = plot.GetPlottables().OfType<CountLabels>().Single();
+
+        _ = ChartStyle.Png(plot);
+
+        Assert.Equal(12, counts.Placed.Count);
+        var area = counts.Axes.DataRect;
+        for (var i = 0; i < counts.Placed.Count; i++)
+        {
+            // Each count stays on its own bar's line, inside the data area, and covers no other count.
+            Assert.Equal(counts.Axes.GetPixelX(counts.Labels[i].X), counts.Placed[i].HorizontalCenter, 3);
+            Assert.True(BoxPlacement.Inside(counts.Placed[i], area), $"{counts.Labels[i].Text} at {counts.Placed[i]} outside {area}");
+            for (var j = 0; j < i; j++)
+            {
+                Assert.False(BoxPlacement.Overlap(counts.Placed[i], counts.Placed[j]), $"{counts.Labels[j].Text} and {counts.Labels[i].Text} overlap");
+            }
+        }
     }
 }
