@@ -42,6 +42,9 @@ for line in open(sys.argv[1]):
     variant, wall, cpu = line.split()
     runs[variant][0].append(float(wall))
     runs[variant][1].append(float(cpu))
+for variant, (wall, cpu) in runs.items():
+    print("%-8s %d runs: wall %.3f / %.3f s, CPU %.3f / %.3f s (mean / median)"
+          % (variant, len(wall), st.mean(wall), st.median(wall), st.mean(cpu), st.median(cpu)))
 def adds(i, f):
     return 100 * (f(runs["with"][i]) / f(runs["without"][i]) - 1)
 print("the stage adds: wall %+.1f%% (mean) / %+.1f%% (median), CPU %+.1f%% / %+.1f%%"
