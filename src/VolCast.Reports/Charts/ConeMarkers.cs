@@ -17,11 +17,11 @@ internal sealed class ConeMarkers : IPlottable
     /// <summary>The most marker widths a marker moves to either side of its horizon.</summary>
     public const int MaxSteps = 6;
 
-    private readonly List<Marker> markers = [];
-    private readonly List<(Coordinates Location, float Size)> obstacles = [];
+    private readonly List<Marker> _markers = [];
+    private readonly List<(Coordinates Location, float Size)> _obstacles = [];
 
     /// <summary>The markers in the order they are placed (earlier markers keep their horizon first).</summary>
-    public IReadOnlyList<Marker> Markers => markers;
+    public IReadOnlyList<Marker> Markers => _markers;
 
     /// <summary>Where the markers were drawn when the chart was last drawn: each one's centre in pixels, in the order of <see cref="Markers"/>.</summary>
     public IReadOnlyList<Pixel> Drawn { get; private set; } = [];
@@ -33,24 +33,24 @@ internal sealed class ConeMarkers : IPlottable
     public IAxes Axes { get; set; } = new Axes();
 
     /// <inheritdoc/>
-    public IEnumerable<LegendItem> LegendItems => markers.SelectMany(m => m.LegendItems);
+    public IEnumerable<LegendItem> LegendItems => _markers.SelectMany(m => m.LegendItems);
 
     /// <summary>Adds a marker at its horizon (log10 of the days across) and value.</summary>
     public Marker Add(double x, double y)
     {
         var marker = new Marker { Location = new Coordinates(x, y) };
-        markers.Add(marker);
+        _markers.Add(marker);
         return marker;
     }
 
     /// <summary>Marks a point drawn by another plottable (a latest realized circle) that no marker may cover.</summary>
-    public void Avoid(double x, double y, float size) => obstacles.Add((new Coordinates(x, y), size));
+    public void Avoid(double x, double y, float size) => _obstacles.Add((new Coordinates(x, y), size));
 
     /// <inheritdoc/>
     public AxisLimits GetAxisLimits()
     {
         var limits = AxisLimits.NoLimits;
-        foreach (var marker in markers)
+        foreach (var marker in _markers)
         {
             limits = limits.Expanded(marker.Location);
         }
@@ -75,9 +75,9 @@ internal sealed class ConeMarkers : IPlottable
     public void Render(RenderPack rp)
     {
         ArgumentNullException.ThrowIfNull(rp);
-        var blocked = obstacles.Select(o => Box(Axes.GetPixel(o.Location), o.Size, 0)).ToList();
-        var candidates = new List<IReadOnlyList<PixelRect>>(markers.Count);
-        foreach (var marker in markers)
+        var blocked = _obstacles.Select(o => Box(Axes.GetPixel(o.Location), o.Size, 0)).ToList();
+        var candidates = new List<IReadOnlyList<PixelRect>>(_markers.Count);
+        foreach (var marker in _markers)
         {
             var at = Axes.GetPixel(marker.Location);
             candidates.Add([.. Offsets(marker.MarkerSize + (2 * Pad)).Select(dx => Box(at, marker.MarkerSize, dx))]);
@@ -86,12 +86,12 @@ internal sealed class ConeMarkers : IPlottable
         // A marker with no free place is drawn on its horizon, over whatever is there.
         var chosen = BoxPlacement.Place(candidates, rp.DataRect, blocked);
         using var paint = Paint.NewDisposablePaint();
-        var drawn = new Pixel[markers.Count];
-        for (var i = 0; i < markers.Count; i++)
+        var drawn = new Pixel[_markers.Count];
+        for (var i = 0; i < _markers.Count; i++)
         {
             var box = candidates[i][chosen[i] == BoxPlacement.None ? 0 : chosen[i]];
             drawn[i] = box.Center;
-            markers[i].MarkerStyle.Render(rp.Canvas, box.Center, paint);
+            _markers[i].MarkerStyle.Render(rp.Canvas, box.Center, paint);
         }
 
         Drawn = drawn;

@@ -21,10 +21,10 @@ internal sealed class CountLabels : IPlottable
     /// <summary>Pixels kept clear around each label's digits.</summary>
     public const float Pad = 1;
 
-    private readonly List<CountLabel> labels = [];
+    private readonly List<CountLabel> _labels = [];
 
     /// <summary>The labels in the order they are placed (earlier labels get their first choice).</summary>
-    public IReadOnlyList<CountLabel> Labels => labels;
+    public IReadOnlyList<CountLabel> Labels => _labels;
 
     /// <summary>Where the labels were written when the chart was last drawn: each one's box, in the order of <see cref="Labels"/>.</summary>
     public IReadOnlyList<PixelRect> Placed { get; private set; } = [];
@@ -39,7 +39,7 @@ internal sealed class CountLabels : IPlottable
     public IEnumerable<LegendItem> LegendItems => LegendItem.None;
 
     /// <summary>Adds a label; it is placed after those added before it.</summary>
-    public void Add(CountLabel label) => labels.Add(label);
+    public void Add(CountLabel label) => _labels.Add(label);
 
     /// <summary>The labels take no part in the axis limits (the diagram sets its own).</summary>
     public AxisLimits GetAxisLimits() => AxisLimits.NoLimits;
@@ -104,24 +104,24 @@ internal sealed class CountLabels : IPlottable
         // the anchor. The boxes are the digits themselves, so neighbouring forecasters' labels may stand side by side.
         var baseline = (lineHeight / 2) - metrics.Bottom;
         var thickness = metrics.CapHeight + (2 * Pad);
-        var candidates = new List<IReadOnlyList<PixelRect>>(labels.Count);
-        foreach (var label in labels)
+        var candidates = new List<IReadOnlyList<PixelRect>>(_labels.Count);
+        foreach (var label in _labels)
         {
             var length = style.Measure(label.Text, paint).Width + (2 * Pad);
             candidates.Add(Candidates(Axes.GetPixelX(label.X), Axes.GetPixelY(label.Top), Axes.GetPixelY(label.Bottom), thickness, length, rp.DataRect));
         }
 
         var chosen = BoxPlacement.Place(candidates, rp.DataRect);
-        var placed = new PixelRect[labels.Count];
-        for (var i = 0; i < labels.Count; i++)
+        var placed = new PixelRect[_labels.Count];
+        for (var i = 0; i < _labels.Count; i++)
         {
             // A label with no free place is still written at its first choice, over another: the pooled counts are
             // written nowhere else (calibration.csv has them per strike, the report's tables not at all).
             var box = candidates[i][chosen[i] == BoxPlacement.None ? 0 : chosen[i]];
             placed[i] = box;
-            style.ForeColor = labels[i].Color;
+            style.ForeColor = _labels[i].Color;
             var anchor = new Pixel(box.HorizontalCenter - baseline + (metrics.CapHeight / 2), box.Bottom - Pad);
-            style.Render(rp.Canvas, anchor, paint, labels[i].Text);
+            style.Render(rp.Canvas, anchor, paint, _labels[i].Text);
         }
 
         Placed = placed;
