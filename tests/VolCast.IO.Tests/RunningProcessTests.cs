@@ -9,4 +9,39 @@ public sealed class RunningProcessTests
     public void IsRunning_AProcessThatHasEnded_IsFalse() =>
         // A temporary named for a process that has ended is what a killed run leaves; it must count as not running.
         Assert.False(RunningProcess.IsRunning(AtomicFileSetTests.EndedProcessId()));
+
+    [Fact]
+    public void IsRunning_AZombieProcess_IsFalse()
+    {
+        // A process that has ended but whose parent has not collected it (a zombie, proc(5) state Z) writes nothing more;
+        // what it left must count as a dead run's. The shell starts `true` in the background and then becomes `sleep`,
+        // which never collects it, so `true` stays a zombie while `sleep` runs.
+        if (!OperatingSystem.IsLinux())
+        {
+            return;
+        }
+
+        using var parent = System.Diagnostics.Process.Start(new System.Diagnostics.ProcessStartInfo("sh", ["-c", "true & echo $!; exec sleep 30"])
+        {
+            RedirectStandardOutput = true,
+        })!;
+        try
+        {
+            var pid = int.Parse(parent.StandardOutput.ReadLine()!, System.Globalization.CultureInfo.InvariantCulture);
+            var deadline = DateTime.UtcNow.AddSeconds(10);
+            while (!File.ReadAllText($"/proc/{pid}/stat").Contains(") Z ", StringComparison.Ordinal) && DateTime.UtcNow < deadline)
+            {
+                Thread.Sleep(10);
+            }
+
+            Assert.Contains(") Z ", File.ReadAllText($"/proc/{pid}/stat"), StringComparison.Ordinal); // the premise: it is a zombie
+            Assert.False(RunningProcess.IsRunning(pid));
+            Assert.True(RunningProcess.IsRunning(parent.Id)); // the live parent still counts as running
+        }
+        finally
+        {
+            parent.Kill();
+            parent.WaitForExit();
+        }
+    }
 }
