@@ -110,7 +110,7 @@ public static class BacktestResultsWriter
             steps.Add((GroupsCsv.FileName, path => AtomicFile.WriteText(path, w => GroupsCsv.Write(w, run.Groups))));
         }
 
-        var names = steps.Select(step => step.Name).ToList();
+        var written = steps.Select(step => step.Name).ToList();
         steps.RemoveAll(step => alreadyWritten.Contains(step.Name));
         if (threads == 1)
         {
@@ -134,8 +134,6 @@ public static class BacktestResultsWriter
                 ExceptionDispatchInfo.Capture(ex.InnerExceptions[0]).Throw();
             }
         }
-
-        var written = names;
 
         if (run.RejectedRows.Count > 0)
         {

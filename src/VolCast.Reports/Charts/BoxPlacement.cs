@@ -40,6 +40,26 @@ internal static class BoxPlacement
         return chosen;
     }
 
+    /// <summary>
+    /// The box each item is drawn in: its place from <see cref="Place"/>, or its first candidate when none was free (drawn
+    /// there over whatever it covers, so that nothing is left out).
+    /// </summary>
+    /// <param name="candidates">For each item, its candidate boxes in order of preference; each item has at least one.</param>
+    /// <param name="bounds">The area every placed box must lie in.</param>
+    /// <param name="obstacles">Boxes already on the image that no placed box may cover.</param>
+    /// <returns>One box per item, in the order of <paramref name="candidates"/>.</returns>
+    public static PixelRect[] PlaceOrFirst(IReadOnlyList<IReadOnlyList<PixelRect>> candidates, PixelRect bounds, IReadOnlyList<PixelRect>? obstacles = null)
+    {
+        var chosen = Place(candidates, bounds, obstacles);
+        var boxes = new PixelRect[candidates.Count];
+        for (var i = 0; i < boxes.Length; i++)
+        {
+            boxes[i] = candidates[i][chosen[i] == None ? 0 : chosen[i]];
+        }
+
+        return boxes;
+    }
+
     /// <summary>Whether two boxes share any area (boxes that only touch along an edge do not).</summary>
     public static bool Overlap(PixelRect a, PixelRect b) =>
         a.Left < b.Right && b.Left < a.Right && a.Top < b.Bottom && b.Top < a.Bottom;

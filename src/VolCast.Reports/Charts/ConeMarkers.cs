@@ -84,14 +84,13 @@ internal sealed class ConeMarkers : IPlottable
         }
 
         // A marker with no free place is drawn on its horizon, over whatever is there.
-        var chosen = BoxPlacement.Place(candidates, rp.DataRect, blocked);
+        var boxes = BoxPlacement.PlaceOrFirst(candidates, rp.DataRect, blocked);
         using var paint = Paint.NewDisposablePaint();
         var drawn = new Pixel[_markers.Count];
         for (var i = 0; i < _markers.Count; i++)
         {
-            var box = candidates[i][chosen[i] == BoxPlacement.None ? 0 : chosen[i]];
-            drawn[i] = box.Center;
-            _markers[i].MarkerStyle.Render(rp.Canvas, box.Center, paint);
+            drawn[i] = boxes[i].Center;
+            _markers[i].MarkerStyle.Render(rp.Canvas, boxes[i].Center, paint);
         }
 
         Drawn = drawn;

@@ -111,14 +111,12 @@ internal sealed class CountLabels : IPlottable
             candidates.Add(Candidates(Axes.GetPixelX(label.X), Axes.GetPixelY(label.Top), Axes.GetPixelY(label.Bottom), thickness, length, rp.DataRect));
         }
 
-        var chosen = BoxPlacement.Place(candidates, rp.DataRect);
-        var placed = new PixelRect[_labels.Count];
+        // A label with no free place is still written at its first choice, over another: the pooled counts are written
+        // nowhere else (calibration.csv has them per strike, the report's tables not at all).
+        var placed = BoxPlacement.PlaceOrFirst(candidates, rp.DataRect);
         for (var i = 0; i < _labels.Count; i++)
         {
-            // A label with no free place is still written at its first choice, over another: the pooled counts are
-            // written nowhere else (calibration.csv has them per strike, the report's tables not at all).
-            var box = candidates[i][chosen[i] == BoxPlacement.None ? 0 : chosen[i]];
-            placed[i] = box;
+            var box = placed[i];
             style.ForeColor = _labels[i].Color;
             var anchor = new Pixel(box.HorizontalCenter - baseline + (metrics.CapHeight / 2), box.Bottom - Pad);
             style.Render(rp.Canvas, anchor, paint, _labels[i].Text);

@@ -25,6 +25,21 @@ public sealed class BoxPlacementTests
     }
 
     [Fact]
+    public void PlaceOrFirst_GivesEachItemItsPlace_OrItsFirstCandidateWhenNoneIsFree()
+    {
+        IReadOnlyList<PixelRect>[] candidates =
+        [
+            [Box(10, 10, 20, 20)],
+            [Box(15, 15, 20, 20), Box(30, 10, 20, 20)],
+            [Box(12, 12, 5, 5), Box(14, 14, 5, 5)], // both covered by the first: drawn at its first choice
+        ];
+
+        var boxes = BoxPlacement.PlaceOrFirst(candidates, Area);
+
+        Assert.Equal([candidates[0][0], candidates[1][1], candidates[2][0]], boxes);
+    }
+
+    [Fact]
     public void Place_KeepsClearOfObstacles()
     {
         var chosen = BoxPlacement.Place([[Box(10, 10, 20, 20), Box(50, 10, 20, 20)]], Area, [Box(0, 0, 40, 40)]);
